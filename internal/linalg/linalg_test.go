@@ -1,0 +1,250 @@
+package linalg
+
+import (
+	"math"
+	"math/rand/v2"
+	"testing"
+
+	"gonum.org/v1/gonum/mat"
+)
+
+// randMatrix returns an m×k column-major matrix with entries in [-1, 1) and,
+// if rank < min(m, k), rank-deficient: its columns beyond rank are random
+// combinations of the first rank columns.
+func randMatrix(rng *rand.Rand, m, k, rank int) []float64 {
+	a := make([]float64, m*k)
+	for j := 0; j < k; j++ {
+		col := a[j*m : j*m+m]
+		if j < rank {
+			for i := range col {
+				col[i] = 2*rng.Float64() - 1
+			}
+			continue
+		}
+		for l := 0; l < rank; l++ {
+			Axpy(2*rng.Float64()-1, a[l*m:l*m+m], col)
+		}
+	}
+	return a
+}
+
+// TestJacobiAgainstGonum checks the singular values against gonum's
+// LAPACK-based mat.SVD (a general-purpose reference implementation), and the
+// factors by rebuilding A = B·Vᵀ and checking VᵀV = I.
+func TestJacobiAgainstGonum(t *testing.T) {
+	rng := rand.New(rand.NewPCG(1, 2))
+	shapes := []struct{ m, k, rank int }{
+		{6, 6, 6}, {12, 6, 6}, {7, 6, 6}, {6, 6, 5}, {6, 6, 3}, {12, 6, 4},
+		{3, 6, 3}, {5, 6, 5}, {3, 3, 3}, {3, 2, 1}, {20, 6, 6},
+	}
+	for _, sh := range shapes {
+		for trial := 0; trial < 50; trial++ {
+			a := randMatrix(rng, sh.m, sh.k, sh.rank)
+			orig := append([]float64(nil), a...)
+			v := make([]float64, sh.k*sh.k)
+			sigma := make([]float64, sh.k)
+			if !Jacobi(a, sh.m, sh.k, v) {
+				t.Fatalf("%v: no convergence", sh)
+			}
+			SortColumns(a, sh.m, sh.k, v, sigma)
+
+			// Reference: gonum's SVD of the same matrix (row-major Dense).
+			d := mat.NewDense(sh.m, sh.k, nil)
+			for i := 0; i < sh.m; i++ {
+				for j := 0; j < sh.k; j++ {
+					d.Set(i, j, orig[j*sh.m+i])
+				}
+			}
+			var svd mat.SVD
+			if !svd.Factorize(d, mat.SVDNone) {
+				t.Fatal("gonum SVD failed")
+			}
+			want := svd.Values(nil)
+			for j := 0; j < sh.k; j++ {
+				w := 0.0
+				if j < len(want) {
+					w = want[j]
+				}
+				if math.Abs(sigma[j]-w) > 1e-13*want[0] {
+					t.Errorf("%v: sigma[%d] = %.17g, gonum %.17g", sh, j, sigma[j], w)
+				}
+			}
+			// A = B Vᵀ, since B = A V with V orthogonal.
+			for i := 0; i < sh.m; i++ {
+				for j := 0; j < sh.k; j++ {
+					var s float64
+					for l := 0; l < sh.k; l++ {
+						s += a[l*sh.m+i] * v[l*sh.k+j]
+					}
+					if math.Abs(s-orig[j*sh.m+i]) > 1e-14*float64(sh.k) {
+						t.Fatalf("%v: rebuilt A[%d,%d] = %g, want %g", sh, i, j, s, orig[j*sh.m+i])
+					}
+				}
+			}
+			checkOrthonormal(t, v, sh.k, sh.k)
+			// Columns of B are mutually orthogonal.
+			for p := 0; p < sh.k; p++ {
+				for q := p + 1; q < sh.k; q++ {
+					g := Dot(a[p*sh.m:p*sh.m+sh.m], a[q*sh.m:q*sh.m+sh.m])
+					if math.Abs(g) > 1e-14*want[0]*want[0] {
+						t.Fatalf("%v: columns %d, %d not orthogonal: %g", sh, p, q, g)
+					}
+				}
+			}
+		}
+	}
+}
+
+// checkOrthonormal checks that the k columns of the n×k column-major q are
+// orthonormal to 1e-14.
+func checkOrthonormal(t *testing.T, q []float64, n, k int) {
+	t.Helper()
+	for p := 0; p < k; p++ {
+		for r := p; r < k; r++ {
+			want := 0.0
+			if p == r {
+				want = 1
+			}
+			if g := Dot(q[p*n:p*n+n], q[r*n:r*n+n]); math.Abs(g-want) > 1e-14 {
+				t.Fatalf("columns %d, %d: dot %g, want %g", p, r, g, want)
+			}
+		}
+	}
+}
+
+func TestJacobiDiagonal(t *testing.T) {
+	// A diagonal matrix is its own SVD (closed form): no rotation is needed.
+	a := []float64{3, 0, 0, 0, 5, 0, 0, 0, 1}
+	v := make([]float64, 9)
+	sigma := make([]float64, 3)
+	Jacobi(a, 3, 3, v)
+	SortColumns(a, 3, 3, v, sigma)
+	want := []float64{5, 3, 1}
+	for i := range want {
+		if sigma[i] != want[i] {
+			t.Errorf("sigma[%d] = %g, want %g", i, sigma[i], want[i])
+		}
+	}
+}
+
+func TestComplete(t *testing.T) {
+	rng := rand.New(rand.NewPCG(3, 4))
+	for _, n := range []int{1, 2, 6, 7, 12} {
+		for r := 0; r <= n; r++ {
+			q := make([]float64, n*n)
+			// First r columns: an orthonormal set from a random matrix's
+			// Jacobi SVD (left vectors B_j/σ_j).
+			if r > 0 {
+				a := randMatrix(rng, n, r, r)
+				v := make([]float64, r*r)
+				sigma := make([]float64, r)
+				Jacobi(a, n, r, v)
+				SortColumns(a, n, r, v, sigma)
+				for j := 0; j < r; j++ {
+					for i := 0; i < n; i++ {
+						q[j*n+i] = a[j*n+i] / sigma[j]
+					}
+				}
+			}
+			Complete(q, n, r)
+			checkOrthonormal(t, q, n, n)
+		}
+	}
+}
+
+func TestEchelon(t *testing.T) {
+	// Rows spanning {x : x1 + x2 + x3 = 0} in R³ (in scrambled form) have the
+	// reduced echelon form [1 0 -1; 0 1 -1] (by hand: the unique RREF basis
+	// of that plane).
+	s := 1 / math.Sqrt(2)
+	u := 1 / math.Sqrt(6)
+	b := []float64{
+		s, -s, 0,
+		u, u, -2 * u,
+	}
+	piv := make([]int, 2)
+	Echelon(b, 2, 3, piv, 1e-12)
+	want := []float64{1, 0, -1, 0, 1, -1}
+	for i := range want {
+		if math.Abs(b[i]-want[i]) > 1e-15 {
+			t.Fatalf("b = %v, want %v", b, want)
+		}
+	}
+	if piv[0] != 0 || piv[1] != 1 {
+		t.Errorf("pivots %v, want [0 1]", piv)
+	}
+	// A zero leading column is skipped: rows spanning {x : x1 = 0, x2 = x3}
+	// reduce to [0 1 1].
+	b = []float64{0, s, s}
+	Echelon(b, 1, 3, piv[:1], 1e-12)
+	if b[0] != 0 || math.Abs(b[1]-1) > 1e-15 || math.Abs(b[2]-1) > 1e-15 || piv[0] != 1 {
+		t.Errorf("b = %v, piv %d; want [0 1 1], 1", b, piv[0])
+	}
+}
+
+func TestNorm(t *testing.T) {
+	// Values whose squares overflow or underflow: |(3, 4)|·s = 5·s exactly.
+	for _, s := range []float64{1, 1e300, 1e-300} {
+		if got := Norm([]float64{3 * s, 4 * s}); math.Abs(got-5*s) > 1e-15*5*s {
+			t.Errorf("Norm(3s, 4s) with s=%g = %g, want %g", s, got, 5*s)
+		}
+	}
+	if got := Norm(nil); got != 0 {
+		t.Errorf("Norm(nil) = %g", got)
+	}
+}
+
+// TestQRPivot checks that (AΠ)ᵀ(AΠ) = RᵀR (the factorisation, without Q),
+// that |R_rr| does not increase, and that Rᵀ has the singular values of A
+// (reference: gonum's mat.SVD).
+func TestQRPivot(t *testing.T) {
+	rng := rand.New(rand.NewPCG(21, 22))
+	for _, sh := range []struct{ m, rank int }{{6, 6}, {12, 6}, {7, 5}, {4, 4}, {6, 3}, {1, 1}, {20, 6}} {
+		for trial := 0; trial < 30; trial++ {
+			a := randMatrix(rng, sh.m, 6, sh.rank)
+			orig := append([]float64(nil), a...)
+			var rt [36]float64
+			var perm [6]int
+			QRPivot(a, sh.m, &rt, &perm)
+			k := min(sh.m, 6)
+			for r := 1; r < k; r++ {
+				if math.Abs(rt[r*6+r]) > math.Abs(rt[(r-1)*6+r-1])*(1+1e-12) {
+					t.Fatalf("%v: |R[%d,%d]| increases", sh, r, r)
+				}
+			}
+			// AᵀA (6×6) against Π·(R ᵀR)·Πᵀ, where (RᵀR)[c][d] = Σ_r R[r][c]·R[r][d].
+			for c := 0; c < 6; c++ {
+				for d := 0; d < 6; d++ {
+					var want, got float64
+					for i := 0; i < sh.m; i++ {
+						want += orig[perm[c]*sh.m+i] * orig[perm[d]*sh.m+i]
+					}
+					for r := 0; r < k; r++ {
+						got += rt[r*6+c] * rt[r*6+d]
+					}
+					if math.Abs(got-want) > 1e-13*float64(sh.m) {
+						t.Fatalf("%v: (AΠ)ᵀ(AΠ)[%d,%d] = %g, RᵀR gives %g", sh, c, d, want, got)
+					}
+				}
+			}
+			// Singular values of Rᵀ against gonum's SVD of A.
+			Jacobi6(&rt, k)
+			sigma := make([]float64, k)
+			SortColumns(rt[:], 6, k, nil, sigma)
+			d := mat.NewDense(sh.m, 6, nil)
+			for i := 0; i < sh.m; i++ {
+				for j := 0; j < 6; j++ {
+					d.Set(i, j, orig[j*sh.m+i])
+				}
+			}
+			var svd mat.SVD
+			svd.Factorize(d, mat.SVDNone)
+			want := svd.Values(nil)
+			for j := 0; j < k; j++ {
+				if math.Abs(sigma[j]-want[j]) > 1e-13*want[0] {
+					t.Errorf("%v: sigma[%d] = %.17g, gonum %.17g", sh, j, sigma[j], want[j])
+				}
+			}
+		}
+	}
+}
