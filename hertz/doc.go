@@ -1,0 +1,113 @@
+// Package hertz solves the elastic point contact of two curved bodies
+// (Hertz 1882): the contact ellipse, the peak and mean pressure, the mutual
+// approach, the normal and tangential stiffness, and the largest stresses
+// under the surface. Every ball of a kinematic coupling touches its seat in
+// such a contact.
+//
+// # Units
+//
+// SI throughout: metres, newtons, pascals, radians, 1/K. Nothing is
+// converted inside the package.
+//
+// # Bodies, signs and frames
+//
+// Each Body is described near the contact point by its two principal radii
+// of curvature, R1 and R2, and the angle of the principal plane that holds
+// R1. A radius is positive where the body is convex (centre of curvature
+// inside the body), negative where it is concave, and ±Inf where the
+// surface is straight. Angles are measured about the common contact normal
+// from the x axis of one frame in the tangent plane shared by both bodies;
+// only the difference of the two bodies' angles matters for the shape of
+// the contact, and MajorAngle, the direction of the major axis of the
+// contact ellipse, is reported in the same frame, in [0, π).
+//
+// The constructors cover the surfaces of couplings: Sphere (a ball), Flat,
+// Cylinder (convex, with its axis angle), Socket (concave spherical seat),
+// Groove (concave cylindrical groove, one flank of a gothic arch) and Toroid
+// (any signed pair, a saddle when the signs differ). They take magnitudes
+// and set the signs; they do not validate, Solve does.
+//
+// Johnson's half relative curvatures A ≤ B (Johnson, Contact Mechanics,
+// 1985, §4.1) are the principal values of half the sum of the two bodies'
+// curvature tensors; the gap between the undeformed surfaces is Ax² + By²
+// with x along the major axis. The major axis of the contact lies along
+// the smaller relative curvature A.
+//
+// # Results
+//
+// Solve returns a Contact: semi-axes a ≥ b, peak pressure p0 = 3F/(2πab),
+// mean pressure F/(πab), mutual approach δ, normal stiffness
+// dF/dδ = 3F/(2δ), the effective moduli E* and G*, and for each body the
+// largest Tresca shear stress (σ1 − σ3)/2 and von Mises stress on the load
+// axis, with their depths, computed with that body's Poisson's ratio. The
+// maximum of the von Mises stress may lie at the surface (for example for
+// elongated contacts with small ν), in which case its depth is 0.
+//
+// Contact.Valid reports whether the semi-major axis is at most 0.1 of the
+// smallest |radius| of the two bodies (common practice for the half-space
+// assumption of Hertz theory); the result is returned either way.
+//
+// LoadForPressure and LoadForApproach invert Solve for the load. The
+// Contact methods TangentialStiffness and SlidingLimit give Mindlin's
+// tangential stiffness and the sliding limit μN.
+//
+// # Zero values
+//
+// A zero load gives a Contact of zero size: a = b = 0, zero pressures,
+// approach, stiffness and stresses, with MajorAngle, A, B, EStar and GStar
+// set. A Material with E = +Inf is rigid (it adds nothing to 1/E* and 1/G*);
+// the stresses reported for a rigid body are those of an elastic half-space
+// with its ν under the same pressure. The zero Material is not valid (E = 0).
+//
+// # Accuracy
+//
+// The eccentricity is found from Hertz's condition written with the
+// arithmetic–geometric mean of 1 and b/a, which has no cancellation for a
+// near-circle nor for a long ellipse, and solved by Newton's method in
+// ln(a/b). Against gonum's Carlson integrals the tests require the
+// condition to hold to 1e-12 relative in B/A − 1 for 1.001 ≤ B/A ≤ 1e14
+// (the residuals seen are about 1e-15) and K(e), E(e) to 1e-13; near the
+// circle ln(a/b) follows its limit (2/3)(B/A − 1). So a, b, p0 and δ carry
+// a relative error of order 1e-13 or less beyond that of the inputs.
+// B/A itself is formed from the radii: when A is a small difference of
+// large curvatures (a ball in a groove of almost its own radius) its
+// relative error is about 1e-16·B/A, which no solver can remove. Solve
+// accepts B/A up to about 1.4e14 (see ErrLineContact).
+//
+// The subsurface maxima come from exact expressions of the axis stresses
+// in Carlson's integral R_D, maximized in depth by a bracketed Halley
+// iteration on exact derivatives. The tests compare them with the closed
+// forms for a circle (1e-12) and a line contact, with a direct quadrature
+// of Boussinesq's solution (1e-9, the quadrature's own accuracy), and with
+// dense sampling in depth over −0.95 ≤ ν ≤ 0.5 and 1 ≤ B/A ≤ 1e10; the
+// maxima are correct to about 1e-12 relative and their depths to about
+// 1e-9 of b.
+//
+// # Errors
+//
+// Invalid input gives an *InputError naming the field ("b1.R2",
+// "b2.Material.Nu", "load", "p0", ...) and wrapping one of ErrRange,
+// ErrLineContact or ErrGeometry; errors.Is and errors.As work. No function
+// panics on its arguments or returns NaN or Inf without an error.
+//
+// # Aliasing
+//
+// Input arguments are never modified. Materials returns a fresh slice.
+//
+// # References
+//
+// Cited from memory (volumes and pages included), to be checked before
+// quoting: Hertz (1882), J. reine angew. Math. 92, 156–171; K. L. Johnson, Contact
+// Mechanics, Cambridge University Press, 1985 (chapters 3, 4 and 7; the
+// section and equation numbers quoted in this package are from memory);
+// R. D. Mindlin (1949), J. Appl. Mech. 16, 259–268; Mindlin & Deresiewicz
+// (1953), J. Appl. Mech. 20, 327–344; B. C. Carlson (1995), Numer.
+// Algorithms 10, 13–26; DLMF chapter 19.
+//
+// # Scope
+//
+// Hertz theory assumes smooth, frictionless, non-conforming surfaces whose
+// contact is small against the radii, linear elasticity, and ignores the
+// tangential tractions that arise between dissimilar materials (Dundurs'
+// β); see Johnson (1985), §4.1.
+package hertz

@@ -1,0 +1,81 @@
+package hertz_test
+
+import (
+	"fmt"
+	"math"
+
+	"github.com/sixfold-dev/sixfold/hertz"
+)
+
+// A detector cassette on a benchtop spectrometer rests on three 10 mm
+// bearing balls in 90° vees of hardened 440C. A 90 N preload puts 30 N on
+// each ball, shared by two flanks at 45°: each flat flank carries
+// 30/(2 cos 45°) ≈ 21.2 N along its normal.
+func ExampleSolve_veeFlank() {
+	ball := hertz.Sphere(0.005, hertz.Steel52100)
+	flank := hertz.Flat(hertz.Steel440C)
+	load := 30 / (2 * math.Cos(math.Pi/4))
+	c, err := hertz.Solve(ball, flank, load)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	fmt.Printf("flank load       %.2f N\n", c.Load)
+	fmt.Printf("contact radius   %.1f µm\n", c.SemiMajor*1e6)
+	fmt.Printf("peak pressure    %.0f MPa (ISO 76 allowable %.0f MPa)\n", c.PeakPressure/1e6, hertz.Steel52100.Allowable/1e6)
+	fmt.Printf("approach         %.3f µm\n", c.Approach*1e6)
+	fmt.Printf("normal stiffness %.1f N/µm\n", c.Stiffness/1e6)
+	fmt.Printf("max shear        %.0f MPa at %.1f µm in the ball\n", c.Stress[0].MaxShear/1e6, c.Stress[0].MaxShearDepth*1e6)
+	fmt.Printf("half-space valid %v\n", c.Valid)
+	// Output:
+	// flank load       21.21 N
+	// contact radius   89.4 µm
+	// peak pressure    1267 MPa (ISO 76 allowable 4200 MPa)
+	// approach         1.599 µm
+	// normal stiffness 19.9 N/µm
+	// max shear        393 MPa at 43.0 µm in the ball
+	// half-space valid true
+}
+
+// The same ball in a gothic-arch groove whose flanks are cylinders of
+// 5.2 mm radius (conformity 0.52), groove axis along x: the conforming
+// flank spreads the contact across the groove and lowers the pressure.
+func ExampleSolve_groove() {
+	ball := hertz.Sphere(0.005, hertz.Steel52100)
+	flank := hertz.Groove(0.0052, 0, hertz.Steel440C)
+	c, err := hertz.Solve(ball, flank, 21.21)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	fmt.Printf("semi-axes        %.1f × %.1f µm\n", c.SemiMajor*1e6, c.SemiMinor*1e6)
+	fmt.Printf("major axis at    %.0f° (across the groove)\n", c.MajorAngle*180/math.Pi)
+	fmt.Printf("B/A              %.1f\n", c.B/c.A)
+	fmt.Printf("peak pressure    %.0f MPa\n", c.PeakPressure/1e6)
+	fmt.Printf("normal stiffness %.1f N/µm\n", c.Stiffness/1e6)
+	fmt.Printf("max von Mises    %.0f MPa at %.1f µm in the flank\n", c.Stress[1].MaxVonMises/1e6, c.Stress[1].MaxVonMisesDepth*1e6)
+	fmt.Printf("half-space valid %v\n", c.Valid)
+	// Output:
+	// semi-axes        390.0 × 47.9 µm
+	// major axis at    90° (across the groove)
+	// B/A              26.0
+	// peak pressure    542 MPa
+	// normal stiffness 39.1 N/µm
+	// max von Mises    316 MPa at 33.7 µm in the flank
+	// half-space valid true
+}
+
+// The preload that brings a ball-on-flat contact to the ISO 76 static
+// limit.
+func ExampleLoadForPressure() {
+	ball := hertz.Sphere(0.005, hertz.Steel52100)
+	flat := hertz.Flat(hertz.Steel52100)
+	F, err := hertz.LoadForPressure(ball, flat, hertz.Steel52100.Allowable)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	fmt.Printf("%.0f N\n", F)
+	// Output:
+	// 733 N
+}
