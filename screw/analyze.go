@@ -204,8 +204,8 @@ func Analyze(ws []Wrench) (Analysis, error) {
 	// (F = 0) keep their moment: only its direction enters the analysis.
 	unit := minUnit
 	for _, w := range pre {
-		if f := r3.Norm(w.F); f > 0 {
-			unit = math.Max(unit, r3.Norm(w.M)/f)
+		if f := linalg.Norm3(w.F); f > 0 {
+			unit = math.Max(unit, linalg.Norm3(w.M)/f)
 		}
 	}
 	for i := range pre {
@@ -229,7 +229,7 @@ func Analyze(ws []Wrench) (Analysis, error) {
 		col := a[6*i : 6*i+6]
 		if w.F == (r3.Vec{}) {
 			// A couple: (0, M/(unit·used)), whose direction is M's.
-			norm := r3.Norm(w.M)
+			norm := linalg.Norm3(w.M)
 			m := r3.Scale(1/norm, w.M)
 			col[0], col[1], col[2], col[3], col[4], col[5] = 0, 0, 0, m.X, m.Y, m.Z
 			gain[i] = norm / (unit * used)
@@ -241,8 +241,9 @@ func Analyze(ws []Wrench) (Analysis, error) {
 		if math.IsInf(norm, 0) || math.IsNaN(norm) {
 			return Analysis{}, &InputError{Field: fmt.Sprintf("ws[%d]", i), Err: fmt.Errorf("%w: cannot normalise the wrench", ErrRange)}
 		}
+		r := 1 / norm
 		for j := range col {
-			col[j] /= norm
+			col[j] *= r
 		}
 		gain[i] = norm
 	}
@@ -272,7 +273,7 @@ func Analyze(ws []Wrench) (Analysis, error) {
 		}
 	}
 	linalg.Jacobi6(&u, k)
-	linalg.SortColumns(u[:], 6, k, nil, sigma[:k])
+	linalg.Sort6(&u, k, &sigma)
 
 	rank := 0
 	for _, s := range sigma[:k] {
@@ -282,8 +283,9 @@ func Analyze(ws []Wrench) (Analysis, error) {
 	}
 	for j := 0; j < rank; j++ {
 		uj := u[6*j : 6*j+6]
+		r := 1 / sigma[j]
 		for i := range uj {
-			uj[i] /= sigma[j]
+			uj[i] *= r
 		}
 	}
 	an := Analysis{
@@ -387,45 +389,8 @@ func reference(ws []Wrench) (c r3.Vec, length, used float64, err error) {
 // semi-definite S = Σ(I − dᵢdᵢᵀ) of nf lines (column-major), dropping the
 // eigen-directions of S below centreTol·nf (the pseudo-inverse solution).
 func leastSquaresPoint(s *[9]float64, b r3.Vec, nf float64) r3.Vec {
-	// Fast path: LDLᵀ (Golub & Van Loan 2013, Algorithm 4.1.2). The
-	// eigenvalues of S sum to its trace 2nf, so the two larger ones
-	// multiply to at most nf², and λmin ≥ det S / nf². When det S exceeds
-	// centreTol·nf³, no eigenvalue is dropped and the inverse is the
-	// pseudo-inverse.
-	d0 := s[0]
-	if d0 > 0 {
-		l10, l20 := s[1]/d0, s[2]/d0
-		d1 := s[4] - l10*l10*d0
-		if d1 > 0 {
-			l21 := (s[5] - l20*l10*d0) / d1
-			d2 := s[8] - l20*l20*d0 - l21*l21*d1
-			if d0*d1*d2 > centreTol*nf*nf*nf {
-				// Forward, diagonal and back substitution.
-				y0 := b.X
-				y1 := b.Y - l10*y0
-				y2 := b.Z - l20*y0 - l21*y1
-				z2 := y2 / d2
-				z1 := y1/d1 - l21*z2
-				z0 := y0/d0 - l10*z1 - l20*z2
-				return r3.Vec{X: z0, Y: z1, Z: z2}
-			}
-		}
-	}
-	var v [9]float64
-	var ev [3]float64
-	linalg.Jacobi(s[:], 3, 3, v[:])
-	linalg.SortColumns(s[:], 3, 3, v[:], ev[:])
-	// S is symmetric positive semi-definite, so its singular values are
-	// its eigenvalues and V holds its eigenvectors.
-	var c r3.Vec
-	for j := 0; j < 3; j++ {
-		if ev[j] <= centreTol*nf {
-			break
-		}
-		vj := r3.Vec{X: v[j*3], Y: v[j*3+1], Z: v[j*3+2]}
-		c = r3.Add(c, r3.Scale(r3.Dot(vj, b)/ev[j], vj))
-	}
-	return c
+	x, _ := linalg.SolvePSD3(*s, [3]float64{b.X, b.Y, b.Z}, centreTol*nf)
+	return r3.Vec{X: x[0], Y: x[1], Z: x[2]}
 }
 
 // freeTwists returns the canonical basis of the free twists spanned by
@@ -483,9 +448,9 @@ func freeTwists(v []float64, rank int, c r3.Vec, used, unit, transTol float64) [
 		var t Twist
 		if j < nrot {
 			t = Twist{W: w, V: r3.Scale(unit, r3.Sub(vc, r3.Cross(w, c)))}
-			t = t.Scale(signOf(t.W) / r3.Norm(t.W))
+			t = t.Scale(signOf(t.W) / linalg.Norm3(t.W))
 		} else {
-			t = Twist{V: r3.Scale(signOf(vc)/r3.Norm(vc), vc)}
+			t = Twist{V: r3.Scale(signOf(vc)/linalg.Norm3(vc), vc)}
 		}
 		free[j] = t
 	}
@@ -557,11 +522,5 @@ func signOf(v r3.Vec) float64 {
 
 // maxAbs returns the largest magnitude of a component of w.
 func maxAbs(w Wrench) float64 {
-	m := 0.0
-	for _, x := range [6]float64{w.F.X, w.F.Y, w.F.Z, w.M.X, w.M.Y, w.M.Z} {
-		if x := math.Abs(x); x > m {
-			m = x
-		}
-	}
-	return m
+	return max(math.Abs(w.F.X), math.Abs(w.F.Y), math.Abs(w.F.Z), math.Abs(w.M.X), math.Abs(w.M.Y), math.Abs(w.M.Z))
 }

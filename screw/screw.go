@@ -5,6 +5,8 @@ import (
 	"math"
 
 	"gonum.org/v1/gonum/spatial/r3"
+
+	"github.com/sixfold-dev/sixfold/internal/linalg"
 )
 
 // Twist is an instantaneous rigid-body motion: W is the angular velocity in
@@ -47,7 +49,7 @@ func Line(p, n r3.Vec) (Wrench, error) {
 	if !finite(n) {
 		return Wrench{}, &InputError{Field: "n", Err: fmt.Errorf("%w: %v", ErrNonFinite, n)}
 	}
-	l := r3.Norm(n)
+	l := linalg.Norm3(n)
 	if l == 0 {
 		return Wrench{}, &InputError{Field: "n", Err: fmt.Errorf("%w: a line needs a direction", ErrZero)}
 	}
@@ -95,7 +97,7 @@ func (t Twist) Scale(f float64) Twist {
 func (t Twist) Axis() Axis {
 	w2 := r3.Norm2(t.W)
 	if w2 == 0 {
-		v := r3.Norm(t.V)
+		v := linalg.Norm3(t.V)
 		if v == 0 {
 			return Axis{}
 		}

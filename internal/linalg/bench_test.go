@@ -53,3 +53,27 @@ func BenchmarkQRPivot(b *testing.B) {
 		QRPivot(a[:], 6, &rt, &perm)
 	}
 }
+
+func BenchmarkJacobi6Converged(b *testing.B) {
+	var src [36]float64
+	for i := 0; i < 6; i++ {
+		src[i*6+i] = float64(i + 1)
+	}
+	var a [36]float64
+	b.ReportAllocs()
+	for b.Loop() {
+		a = src
+		Jacobi6(&a, 6)
+	}
+}
+
+func BenchmarkInverse6(b *testing.B) {
+	rng := rand.New(rand.NewPCG(9, 9))
+	src := randMatrix(rng, 6, 6, 6)
+	var a [36]float64
+	b.ReportAllocs()
+	for b.Loop() {
+		copy(a[:], src)
+		Inverse6(&a, 0)
+	}
+}

@@ -11,8 +11,8 @@ import "math"
 // of singular-value and symmetric eigenvalue problems on multiprocessor
 // arrays", SIAM J. Sci. Stat. Comput. 6(1)), so that consecutive rotations
 // touch disjoint columns and the processor overlaps them. Rotations by
-// angles below 1e-8 use the short formulas their size allows, and a sweep
-// made only of them ends the iteration. And the rotation is computed from d = β − α and r = √(d² + 4γ²) as
+// angles below 5e-5 use the series their size allows, and a sweep made only
+// of rotations below 5e-9 ends the iteration. And the rotation is computed from d = β − α and r = √(d² + 4γ²) as
 // t = sign(d)·2γ/(|d| + r), c = √((|d| + r)/(2r)), which is Rutishauser's
 // t = sign(ζ)/(|ζ| + √(1 + ζ²)), ζ = d/(2γ), c = 1/√(1 + t²) rewritten with
 // fewer dependent divisions and square roots. The convergence test is
@@ -52,8 +52,15 @@ func Jacobi6(a *[36]float64, k int) bool {
 				d := beta - alpha
 				var t, c float64
 				if g2 := 2 * gamma; math.Abs(g2) < smallAngle*math.Abs(d) {
-					// |t| < 1e-8: to rounding r = |d|, t = γ/d, c = 1.
-					t, c = gamma/d, 1
+					// x = 2γ/d is small: t = x/(1 + √(1 + x²)) and
+					// c = 1/√(1 + t²) by their series, whose next terms
+					// (x⁵/32, 3t⁴/8) are below 1e-17 for |x| < 1e-4.
+					x := g2 / d
+					t = 0.5 * x * (1 - 0.25*x*x)
+					c = 1 - 0.5*t*t
+					if math.Abs(x) >= 1e-8 {
+						large = true
+					}
 				} else {
 					large = true
 					r := math.Sqrt(d*d + g2*g2)
@@ -116,10 +123,30 @@ var roundRobin = func() (tab [7][][][2]int) {
 	return tab
 }()
 
-// smallAngle bounds 2γ/d for the short rotation formulas: below it,
-// (2γ/d)² < 1e-16 vanishes against 1 and the exact formulas reduce to
-// t = γ/d, c = 1 to within rounding.
-const smallAngle = 1e-8
+// Sort6 computes the norms of the k columns of a (six rows each, as for
+// Jacobi6) into sigma and reorders the columns so that sigma descends.
+// After Jacobi6 these are the singular values and the columns A·V.
+func Sort6(a *[36]float64, k int, sigma *[6]float64) {
+	var cols [6]*[6]float64
+	for j := range cols {
+		cols[j] = (*[6]float64)(a[6*j : 6*j+6])
+	}
+	for j := 0; j < k; j++ {
+		sigma[j] = math.Sqrt(dot6(cols[j], cols[j]))
+	}
+	for j := 1; j < k; j++ {
+		for i := j; i > 0 && sigma[i] > sigma[i-1]; i-- {
+			sigma[i], sigma[i-1] = sigma[i-1], sigma[i]
+			*cols[i], *cols[i-1] = *cols[i-1], *cols[i]
+		}
+	}
+}
+
+// smallAngle bounds x = 2γ/d for the short rotation formulas, which
+// replace two square roots and a division by series exact to rounding.
+// Rotations with |x| below 1e-8 (|t| < 5e-9) count as negligible for the
+// stopping test.
+const smallAngle = 1e-4
 
 func dot6(x, y *[6]float64) float64 {
 	return (x[0]*y[0] + x[1]*y[1]) + (x[2]*y[2] + x[3]*y[3]) + (x[4]*y[4] + x[5]*y[5])

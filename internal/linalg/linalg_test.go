@@ -248,3 +248,59 @@ func TestQRPivot(t *testing.T) {
 		}
 	}
 }
+
+// TestInverse6 checks A·A⁻¹ = I and the inverse against gonum's
+// mat.Dense.Inverse (a reference LAPACK-based implementation).
+func TestInverse6(t *testing.T) {
+	rng := rand.New(rand.NewPCG(41, 43))
+	for trial := 0; trial < 200; trial++ {
+		src := randMatrix(rng, 6, 6, 6)
+		var a [36]float64
+		copy(a[:], src)
+		if !Inverse6(&a, 0) {
+			t.Fatal("Inverse6 failed on a random matrix")
+		}
+		d := mat.NewDense(6, 6, nil)
+		for i := 0; i < 6; i++ {
+			for j := 0; j < 6; j++ {
+				d.Set(i, j, src[j*6+i])
+			}
+		}
+		var want mat.Dense
+		if err := want.Inverse(d); err != nil {
+			continue // too ill-conditioned for a comparison
+		}
+		cond := mat.Cond(d, 2)
+		for i := 0; i < 6; i++ {
+			for j := 0; j < 6; j++ {
+				if diff := math.Abs(a[j*6+i] - want.At(i, j)); diff > 1e-14*cond*math.Max(1, math.Abs(want.At(i, j))) {
+					t.Fatalf("trial %d: inverse[%d,%d] = %g, gonum %g (cond %g)", trial, i, j, a[j*6+i], want.At(i, j), cond)
+				}
+			}
+		}
+		for i := 0; i < 6; i++ {
+			for j := 0; j < 6; j++ {
+				var s float64
+				for k := 0; k < 6; k++ {
+					s += src[k*6+i] * a[j*6+k]
+				}
+				w := 0.0
+				if i == j {
+					w = 1
+				}
+				if math.Abs(s-w) > 1e-13*cond {
+					t.Fatalf("trial %d: (A·A⁻¹)[%d,%d] = %g", trial, i, j, s)
+				}
+			}
+		}
+	}
+	// A singular matrix (two equal columns) is reported.
+	var a [36]float64
+	for i := 0; i < 6; i++ {
+		a[i*6+i] = 1
+	}
+	a[1*6+0], a[1*6+1] = 1, 0 // column 1 = column 0
+	if Inverse6(&a, 1e-12) {
+		t.Error("Inverse6 inverted a singular matrix")
+	}
+}
