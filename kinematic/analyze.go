@@ -1,0 +1,221 @@
+package kinematic
+
+import (
+	"fmt"
+	"math"
+
+	"gonum.org/v1/gonum/spatial/r3"
+
+	"github.com/sixfold-dev/sixfold/internal/linalg"
+	"github.com/sixfold-dev/sixfold/screw"
+)
+
+// Analysis is the constraint analysis of a contact set: the
+// [screw.Analysis] of the contact normals, with the contacts' labels.
+//
+// DOF is the number of freedoms left, 6 − Rank, each a twist of Free
+// (see [screw.Analysis] for their canonical form; call [screw.Twist.Axis]
+// for the screw axis). Participants lists, for each redundant combination
+// in Redundant, the labels of the contacts that take part in it (those
+// with a non-zero weight).
+type Analysis struct {
+	screw.Analysis
+	DOF          int
+	Participants [][]string
+
+	lines []line // the contacts, kept for Stability
+}
+
+// line is what the analyses need of a contact.
+type line struct {
+	label  string
+	p, n   r3.Vec
+	centre r3.Vec
+	ball   bool
+}
+
+// Analyze returns the constraint analysis of the contacts cs: how many
+// freedoms they constrain, the motions left free, the redundant contacts,
+// and whether the set is near-singular. Verdicts do not depend on units or
+// on where the design sits (see package screw's tolerance policy).
+//
+// Analyze returns an [*InputError] wrapping [ErrDegenerate] for fewer than
+// two contacts or a zero normal, and [ErrNonFinite] for a NaN or infinite
+// point, normal or ball centre; errors from package screw (extreme
+// magnitudes) are wrapped as they come.
+func Analyze(cs []Contact) (Analysis, error) {
+	if len(cs) < 2 {
+		return Analysis{}, &InputError{Field: "cs", Err: fmt.Errorf("%w: %d contacts; a coupling needs at least two", ErrDegenerate, len(cs))}
+	}
+	lines := make([]line, len(cs))
+	var stack [12]screw.Wrench
+	var ws []screw.Wrench
+	if len(cs) <= len(stack) {
+		ws = stack[:len(cs)]
+	} else {
+		ws = make([]screw.Wrench, len(cs))
+	}
+	for i, c := range cs {
+		if !finiteVec(c.Point) {
+			return Analysis{}, &InputError{Field: fmt.Sprintf("cs[%d].Point", i), Err: fmt.Errorf("%w: %v", ErrNonFinite, c.Point)}
+		}
+		l := linalg.Norm3(c.Normal)
+		if !finiteVec(c.Normal) || l == 0 {
+			_, err := unitOf(c.Normal, fmt.Sprintf("cs[%d].Normal", i))
+			return Analysis{}, err
+		}
+		n := r3.Scale(1/l, c.Normal)
+		ball := c.Radius != 0
+		if ball && (!finiteVec(c.Centre) || math.IsNaN(c.Radius) || math.IsInf(c.Radius, 0)) {
+			return Analysis{}, &InputError{Field: fmt.Sprintf("cs[%d].Centre", i), Err: fmt.Errorf("%w: centre %v, radius %g", ErrNonFinite, c.Centre, c.Radius)}
+		}
+		// A unit force along the normal through the contact point.
+		ws[i] = screw.Wrench{F: n, M: r3.Cross(c.Point, n)}
+		if !finiteVec(ws[i].M) {
+			return Analysis{}, &InputError{Field: fmt.Sprintf("cs[%d].Point", i), Err: fmt.Errorf("%w: too far from the origin: %v", ErrRange, c.Point)}
+		}
+		lines[i] = line{label: c.Label, p: c.Point, n: n, centre: c.Centre, ball: ball}
+	}
+	sa, err := screw.Analyze(ws)
+	if err != nil {
+		return Analysis{}, fmt.Errorf("kinematic: %w", err)
+	}
+	an := Analysis{Analysis: sa, DOF: 6 - sa.Rank, lines: lines}
+	if len(sa.Redundant) > 0 {
+		an.Participants = make([][]string, len(sa.Redundant))
+		for k, c := range sa.Redundant {
+			for i, x := range c {
+				if x != 0 {
+					an.Participants[k] = append(an.Participants[k], labelOf(lines[i].label, i))
+				}
+			}
+		}
+	}
+	return an, nil
+}
+
+// labelOf returns label, or "cs[i]" if it is empty.
+func labelOf(label string, i int) string {
+	if label != "" {
+		return label
+	}
+	return fmt.Sprintf("cs[%d]", i)
+}
+
+// Stability is the Maxwell stability of an exactly constrained contact set:
+// one entry per contact, in the order analysed, and the weakest of them.
+type Stability struct {
+	Contacts []Maxwell
+	Weakest  int // index into Contacts of the smallest Index; the first of those within 1e-12 of it
+}
+
+// tieTol is the margin within which Maxwell indices tie for the weakest:
+// symmetric designs have equal indices that rounding would otherwise
+// order at random, and an index is good to about 1e-14.
+const tieTol = 1e-12
+
+// Maxwell describes what contact i holds: the motion that becomes free when
+// it is removed, and how squarely the contact resists it.
+//
+// Freed is that twist, scaled so that the contact point separates from the
+// seat at unit speed: n·v = +1, with v the velocity of the contact point
+// (rad/s and m/s). It has zero power with every other contact.
+//
+// Index is the Maxwell index at the contact point, |n·v|/|v| in [0, 1]: 1
+// when the freed motion carries the contact point straight along the
+// normal, near 0 when it slides nearly along the surface, which then barely
+// resists. CentreIndex is the same measure taken with the velocity of the
+// ball's centre, which equals v minus the sliding term r·W × n of rotation
+// about the centre (r the ball radius, W the freed angular velocity); both
+// share n·v = 1. CentreIndex judges the seat's layout alone, Index the
+// motion at the surface where friction acts; they are equal for a contact
+// not made by a ball and whenever the freed motion does not rotate the
+// ball about axes through its centre tangent to the contact.
+type Maxwell struct {
+	Label       string
+	Freed       screw.Twist
+	Index       float64
+	CentreIndex float64
+}
+
+// Stability returns the Maxwell stability of the analysed contacts: for
+// each contact, the twist freed by removing it and the Maxwell index,
+// Maxwell's criterion for a stable kinematic constraint generalised to any
+// 3D set (each freed motion should move its contact along the normal).
+// The twists freed by removing one contact each are the rows of the
+// inverse of the 6×6 matrix of contact wrenches: twist i has power δᵢⱼ with
+// wrench j.
+//
+// Stability returns an [*InputError] wrapping [ErrNotExact] unless the set
+// has exactly six contacts of rank 6. A near-singular set is analysed; its
+// small indices say so.
+func (a Analysis) Stability() (Stability, error) {
+	if len(a.lines) != 6 || a.Rank != 6 {
+		return Stability{}, &InputError{Field: "cs", Err: fmt.Errorf(
+			"%w: %d contacts of rank %d (%d free motions, %d redundant); Maxwell indices need six independent contacts",
+			ErrNotExact, len(a.lines), a.Rank, len(a.Free), len(a.Redundant))}
+	}
+	var st Stability
+	st.Contacts = make([]Maxwell, 6)
+	ok := freed(a.lines, a.Centre, a.Length, func(i int, t screw.Twist) {
+		l := a.lines[i]
+		v := t.At(l.p)
+		t = t.Scale(1 / r3.Dot(l.n, v))
+		v = t.At(l.p)
+		m := Maxwell{Label: l.label, Freed: t, Index: 1 / linalg.Norm3(v)}
+		m.CentreIndex = m.Index
+		if l.ball {
+			m.CentreIndex = 1 / linalg.Norm3(t.At(l.centre))
+		}
+		st.Contacts[i] = m
+	})
+	if !ok {
+		return Stability{}, &InputError{Field: "cs", Err: fmt.Errorf("%w: the six contacts are singular to working precision", ErrNotExact)}
+	}
+	low := st.Contacts[0].Index
+	for _, m := range st.Contacts {
+		low = math.Min(low, m.Index)
+	}
+	for i, m := range st.Contacts {
+		if m.Index <= low+tieTol {
+			st.Weakest = i
+			break
+		}
+	}
+	return st, nil
+}
+
+// freed calls f with each contact's index and the twist freed by removing
+// it (power δᵢⱼ with contact j), for six contacts known to be independent.
+// Moments are taken about pc and divided by L (a reference point and a
+// characteristic length of the lines, such as screw.Analysis's Centre and
+// Length), so that the matrix's conditioning is that of the geometry, not
+// of its units or position. freed reports false if the 6×6 system is
+// singular to working precision.
+func freed(ls []line, pc r3.Vec, L float64, f func(i int, t screw.Twist)) bool {
+	if !(L > 0) {
+		return false
+	}
+	var c [36]float64 // column j: (n_j, (p_j − pc) × n_j / L)
+	for j, l := range ls {
+		m := r3.Scale(1/L, r3.Cross(r3.Sub(l.p, pc), l.n))
+		c[6*j], c[6*j+1], c[6*j+2], c[6*j+3], c[6*j+4], c[6*j+5] = l.n.X, l.n.Y, l.n.Z, m.X, m.Y, m.Z
+	}
+	if !linalg.Inverse6(&c, singularTol) {
+		return false
+	}
+	// Row i of C⁻¹ pairs with column j to δᵢⱼ: it is the twist
+	// (V at pc, W·L) in the same normalised coordinates.
+	for i := range ls {
+		vpc := r3.Vec{X: c[0*6+i], Y: c[1*6+i], Z: c[2*6+i]}
+		w := r3.Scale(1/L, r3.Vec{X: c[3*6+i], Y: c[4*6+i], Z: c[5*6+i]})
+		f(i, screw.Twist{W: w, V: r3.Sub(vpc, r3.Cross(w, pc))})
+	}
+	return true
+}
+
+// singularTol is the pivot, relative to the largest entry of its column,
+// below which freed treats the normalised 6×6 contact matrix as singular.
+// Its entries are at most 1 in magnitude; a pivot of 1e-12 is within
+// rounding (1e-16 times the growth of elimination) of a singular matrix.
+const singularTol = 1e-12

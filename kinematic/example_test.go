@@ -1,0 +1,92 @@
+package kinematic_test
+
+import (
+	"fmt"
+	"log"
+	"math"
+
+	"gonum.org/v1/gonum/spatial/r3"
+
+	"github.com/sixfold-dev/sixfold/hertz"
+	"github.com/sixfold-dev/sixfold/kinematic"
+)
+
+// A filter-wheel carrier sits on three 8 mm balls placed where the housing
+// allows: an irregular triangle. Grooves on the bisectors of the ball
+// triangle meet at its incentre, and with 90° vees the motion each contact
+// holds back moves the ball centre straight along that contact's normal:
+// the ideal centre index of 1. (Index, at the contact point, adds the
+// sliding of the ball's surface and is slightly lower.) The incentre,
+// worked by hand (vertices weighted by the opposite sides, 79.06, 78.10
+// and 95.13 mm), is (3.26, 1.08) mm.
+func ExampleBisectorVees() {
+	balls := [3]kinematic.Ball{
+		{Centre: r3.Vec{X: -0.045, Y: -0.020}, Radius: 4e-3, Material: hertz.SiliconNitride},
+		{Centre: r3.Vec{X: 0.050, Y: -0.025}, Radius: 4e-3, Material: hertz.SiliconNitride},
+		{Centre: r3.Vec{X: 0.005, Y: 0.040}, Radius: 4e-3, Material: hertz.SiliconNitride},
+	}
+	vee := kinematic.Vee{Up: r3.Vec{Z: 1}, HalfAngle: math.Pi / 4, Material: hertz.Steel440C}
+	c, err := kinematic.BisectorVees(balls, vee)
+	if err != nil {
+		log.Fatal(err)
+	}
+	cs, err := c.Contacts()
+	if err != nil {
+		log.Fatal(err)
+	}
+	an, err := kinematic.Analyze(cs)
+	if err != nil {
+		log.Fatal(err)
+	}
+	st, err := an.Stability()
+	if err != nil {
+		log.Fatal(err)
+	}
+	g, err := c.Geometry()
+	if err != nil {
+		log.Fatal(err)
+	}
+	fmt.Printf("degrees of freedom: %d\n", an.DOF)
+	fmt.Printf("grooves meet at (%.2f, %.2f) mm\n", g.Centre.X*1e3, g.Centre.Y*1e3)
+	for _, m := range st.Contacts {
+		fmt.Printf("%s centre index %.4f\n", m.Label, m.CentreIndex)
+	}
+	// Output:
+	// degrees of freedom: 0
+	// grooves meet at (3.26, 1.08) mm
+	// A+ centre index 1.0000
+	// A- centre index 1.0000
+	// B+ centre index 1.0000
+	// B- centre index 1.0000
+	// C+ centre index 1.0000
+	// C- centre index 1.0000
+}
+
+// The same carrier, but a cable port beside ball B forbids grooves within
+// 20° of radial there. The optimiser turns the grooves to the best layout
+// inside the windows and reports the bisector layout beside it.
+func ExampleOptimizeGrooves() {
+	balls := [3]kinematic.Ball{
+		{Centre: r3.Vec{X: -0.045, Y: -0.020}, Radius: 4e-3},
+		{Centre: r3.Vec{X: 0.050, Y: -0.025}, Radius: 4e-3},
+		{Centre: r3.Vec{X: 0.005, Y: 0.040}, Radius: 4e-3},
+	}
+	vee := kinematic.Vee{Up: r3.Vec{Z: 1}, HalfAngle: math.Pi / 4}
+	c, err := kinematic.BisectorVees(balls, vee)
+	if err != nil {
+		log.Fatal(err)
+	}
+	const deg = math.Pi / 180
+	all := kinematic.Window{Min: -90 * deg, Max: 90 * deg}
+	res, err := kinematic.OptimizeGrooves(c, &kinematic.GrooveOptions{
+		Windows: []kinematic.Window{all, {Min: 20 * deg, Max: 90 * deg}, all},
+	})
+	if err != nil {
+		log.Fatal(err)
+	}
+	fmt.Printf("bisectors allowed: %v\n", res.BisectorAllowed)
+	fmt.Printf("groove B at least 20° off radial: %v\n", res.Azimuths[1] >= 20*deg-1e-9)
+	// Output:
+	// bisectors allowed: false
+	// groove B at least 20° off radial: true
+}
