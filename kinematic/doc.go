@@ -1,25 +1,68 @@
 // Package kinematic designs kinematic couplings: balls on a moving body
-// seated in vees, flats, trihedral sockets and cones on a base.
+// seated in vees, flats, trihedral sockets and cones on a base, or any set
+// of point contacts given by hand.
 //
-// It is under construction. It will turn a coupling into its point
-// contacts, each with the two Hertz surfaces that touch there, and answer
-// for any 3D contact set: how many freedoms it constrains and which are left
-// free; which constraints are redundant; how stable each contact is
-// (Maxwell's criterion, generalised to 3D); the best groove orientations for
-// given ball positions; and, later, contact loads under preload, stiffness
-// and the error budget of the seated position.
+// A [Coupling] is a list of [Pair] values, each a [Ball] in a [Seat] ([Vee],
+// [Flat], [Trihedral] or [Cone]); [Coupling.Contacts] turns it into
+// [Contact] values, each with its point, normal, label and the two
+// [hertz.Body] surfaces that touch there. [BisectorVees], [AimedVees] and
+// [SocketVeeFlat] build the usual layouts for given ball centres.
+//
+// For any contact set, [Analyze] reports the freedoms left, each as a screw,
+// and the redundant contacts by label; [Analysis.Stability] gives, for an
+// exactly constrained set, each contact's freed motion and Maxwell index.
+// [Coupling.Geometry] describes the grooves: their axes and azimuths, the
+// instantaneous axis of each pair of vees, the coupling centre, and for
+// three balls the incentre and each groove's angle off the bisector.
+// [OptimizeGrooves] turns the vee grooves to maximise the weakest Maxwell
+// index within allowed azimuth windows.
 //
 // # Units, frame and signs
 //
-// SI units throughout (m, N, Pa, rad, K). One right-handed global frame. The
+// SI units throughout (m, N, Pa, rad). One right-handed global frame. The
 // moving body is the part being located; the base is fixed. A contact is a
-// point p and a unit normal n along which the base can push the moving body
-// (into the moving body); contacts are unilateral, compression only.
+// point and a unit normal along which the base can push the moving body
+// (into the moving body); contacts are unilateral, compression only. A
+// seat's Up points out of the seat towards its ball. A groove azimuth is
+// measured about Up, right-handed, from the direction that points from the
+// ball towards the centroid of all ball centres ("radial"); azimuths π
+// apart are the same groove.
+//
+// # Maxwell's criterion in 3D
+//
+// Six independent contacts hold a body exactly. Removing contact i frees
+// one motion, the twist with zero power against the other five; scaled so
+// that contact i opens at unit speed (n·v = +1, v the velocity of the
+// contact point) it is [Maxwell].Freed. The Maxwell index |n·v|/|v| is 1
+// when that motion lifts the contact straight off its surface and near 0
+// when it slides along it, which the contact then barely resists. The
+// planar rule that grooves should lie on the bisectors of the ball triangle
+// is the special case in which every index taken at the ball centres is
+// |sin 2θ| for a vee of half-angle θ (1 for 90° vees).
 //
 // # Tolerances
 //
-// Rank and degeneracy decisions are scale-invariant: lengths are normalised
-// by a characteristic length of the design before any threshold, so a
-// design in millimetres and the same design in metres give the same
-// verdicts.
+// Rank and degeneracy decisions are scale-invariant (see package screw):
+// a design in millimetres and the same design in metres, or moved anywhere
+// in the frame, give the same verdicts and the same indices to rounding.
+// Thresholds in this package (coincident balls, a groove along its own Up,
+// parallel grooves, ties between indices) are named constants relative to
+// the design's own size, each with its reasoning beside it.
+//
+// # Errors
+//
+// Invalid input returns an [*InputError] naming the field (for example
+// "Pairs[1].Seat.HalfAngle" or "cs[4].Normal") and wrapping one of
+// [ErrNonFinite], [ErrRange], [ErrDegenerate] or [ErrNotExact]; errors.Is
+// and errors.As work. Nothing panics on user numbers or returns NaN.
+//
+// Input arguments are never modified; results do not share memory with
+// them.
+//
+// # Scope
+//
+// The analyses treat the bodies as rigid and the contacts as frictionless
+// points. A ball in a cone bears on a ring; it is represented by three
+// contacts for constraint purposes only (see [Cone]). Loads, stiffness and
+// error budgets are planned.
 package kinematic

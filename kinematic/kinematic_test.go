@@ -505,3 +505,81 @@ func TestInputsNotModified(t *testing.T) {
 		t.Errorf("contacts modified (-before +after):\n%s", d)
 	}
 }
+
+// excentreLayout returns the balls in 90° vees with A's groove on its
+// internal bisector (towards the incentre) and B's and C's on their
+// external bisectors (normal to the internal ones, in the ball plane): the
+// three groove axes meet at the excentre opposite A.
+func excentreLayout(t *testing.T, bs [3]Ball, half float64) Coupling {
+	t.Helper()
+	in := incentre(bs[0].Centre, bs[1].Centre, bs[2].Centre)
+	var c Coupling
+	for i, b := range bs {
+		d := r3.Sub(in, b.Centre)
+		if i > 0 {
+			d = r3.Cross(up, d)
+		}
+		v := vee45
+		v.HalfAngle = half
+		v.Direction = d
+		c.Pairs = append(c.Pairs, Pair{Ball: b, Seat: v})
+	}
+	return c
+}
+
+// TestExcentreClosedForm: grooves on one internal and two external
+// bisectors (axes meeting at an excentre) also give every contact the
+// centre index |sin 2θ|. The derivation of TestBisectorClosedForm carries
+// over: removing a contact of ball X leaves the rotation about the vertical
+// line where the other two balls' normal planes meet, and that point (the
+// incentre or an excentre: each lies on one internal and two external
+// bisectors, Coxeter & Greitzer 1967, §1.4, from memory) is on X's groove
+// axis.
+func TestExcentreClosedForm(t *testing.T) {
+	bs := [3]Ball{ball(0, 30, 0), ball(-60, 0, 0), ball(60, 0, 0)} // A at the apex
+	for _, deg := range []float64{35, 45, 55} {
+		half := deg * math.Pi / 180
+		c := excentreLayout(t, bs, half)
+		want := math.Abs(math.Sin(2 * half))
+		for _, m := range mustStability(t, c).Contacts {
+			if math.Abs(m.CentreIndex-want) > 1e-12 {
+				t.Errorf("θ = %g°, %s: centre index %.15f, want %.15f", deg, m.Label, m.CentreIndex, want)
+			}
+		}
+		// Excentre opposite the apex A = (0, 30): sides a = 120 (BC),
+		// b = c = √4500; E = (−aA + bB + cC)/(−a + b + c), whose y is
+		// −120·30/(2√4500 − 120) mm (closed form).
+		g, err := c.Geometry()
+		if err != nil {
+			t.Fatal(err)
+		}
+		ey := -120 * 30e-3 / (2*math.Sqrt(4500) - 120)
+		if !near(g.Centre, r3.Vec{Y: ey}, 1e-15) || g.Spread > 1e-15 {
+			t.Errorf("grooves meet at %v (spread %g), want (0, %g)", g.Centre, g.Spread, ey)
+		}
+	}
+}
+
+// TestOptimizerFindsExcentre: when a window keeps ball B's groove off its
+// internal bisector, the excentre layout (B and C on external bisectors)
+// is inside the windows and is as good as the bisector layout; the
+// optimiser, which does not start from it, should find a layout at least
+// as good to within the search's resolution.
+func TestOptimizerFindsExcentre(t *testing.T) {
+	bs := [3]Ball{ball(-60, -35, 0), ball(65, -30, 0), ball(10, 55, 0)}
+	ex := excentreLayout(t, bs, math.Pi/4)
+	se := mustStability(t, ex)
+	want := se.Contacts[se.Weakest].Index
+	bis, err := BisectorVees(bs, vee45)
+	if err != nil {
+		t.Fatal(err)
+	}
+	all := Window{Min: -math.Pi / 2, Max: math.Pi / 2}
+	res, err := OptimizeGrooves(bis, &GrooveOptions{Windows: []Window{all, {Min: 25 * math.Pi / 180, Max: math.Pi / 2}, all}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if res.Weakest < want-1e-6 {
+		t.Errorf("optimum %.6f below the excentre layout's %.6f", res.Weakest, want)
+	}
+}

@@ -1,11 +1,12 @@
-// Command cassette checks the constraint of a detector cassette that is
-// lifted off a benchtop spectrometer and put back on three balls.
+// Command cassette designs the kinematic coupling of a detector cassette
+// that is lifted off a benchtop spectrometer and put back on three balls.
 //
-// The cassette carries three 10 mm balls; the bench carries the seats. The
-// program compares three seat layouts: a draft with two parallel vees and a
-// flat, the corrected three-vee layout, and the three vees with a stray
-// fourth pad. For each it prints the number of independent constraints, the
-// motions left free (as screw axes) and the redundant constraints.
+// The cassette carries three 10 mm bearing-steel balls where its packaging
+// allows them: an irregular triangle. The bench carries the seats. The
+// program checks a draft layout, compares grooves aimed at the centroid
+// with grooves on the bisectors of the ball triangle, optimises the grooves
+// around a cable port, catches a stray pad, and sizes one contact with
+// Hertz theory.
 //
 // All scenario numbers are invented for this demonstration.
 package main
@@ -14,155 +15,226 @@ import (
 	"fmt"
 	"log"
 	"math"
-	"os"
 	"strings"
 
 	"gonum.org/v1/gonum/spatial/r3"
 
-	"github.com/sixfold-dev/sixfold/screw"
+	"github.com/sixfold-dev/sixfold/hertz"
+	"github.com/sixfold-dev/sixfold/kinematic"
 )
 
-// contact is a point contact: where it touches, the unit normal along which
-// the bench pushes the cassette, and a label for the report.
-type contact struct {
-	label string
-	p, n  r3.Vec
-}
-
-const (
-	ballRadius = 5e-3               // m
-	halfAngle  = 45 * math.Pi / 180 // flank to symmetry plane, rad
-)
+const deg = math.Pi / 180
 
 var up = r3.Vec{Z: 1}
 
-// Ball centres on the cassette, m, set by the detector's packaging: an
-// irregular triangle, not the textbook equilateral one.
-var balls = [3]r3.Vec{
-	{X: -0.060, Y: -0.035, Z: 0},
-	{X: 0.065, Y: -0.030, Z: 0},
-	{X: 0.010, Y: 0.055, Z: 0},
+// Ball centres on the cassette, m.
+var balls = [3]kinematic.Ball{
+	{Centre: r3.Vec{X: -0.060, Y: -0.035}, Radius: 5e-3, Material: hertz.Steel52100},
+	{Centre: r3.Vec{X: 0.065, Y: -0.030}, Radius: 5e-3, Material: hertz.Steel52100},
+	{Centre: r3.Vec{X: 0.010, Y: 0.055}, Radius: 5e-3, Material: hertz.Steel52100},
 }
 
-// vee returns the two contacts of a ball in a vee groove with the given
-// horizontal direction: each flank leans halfAngle from the vertical
-// symmetry plane, so its normal leans halfAngle from the vertical.
-func vee(name string, c, groove r3.Vec) []contact {
-	g := r3.Unit(groove)
-	side := r3.Cross(up, g)
-	var cs []contact
-	for _, sgn := range []float64{1, -1} {
-		n := r3.Add(r3.Scale(math.Sin(halfAngle), up), r3.Scale(-sgn*math.Cos(halfAngle), side))
-		label := name + "+"
-		if sgn < 0 {
-			label = name + "-"
-		}
-		cs = append(cs, contact{label, r3.Sub(c, r3.Scale(ballRadius, n)), n})
-	}
-	return cs
-}
-
-// flat returns the contact of a ball on a horizontal pad.
-func flat(name string, c r3.Vec) []contact {
-	return []contact{{name, r3.Sub(c, r3.Scale(ballRadius, up)), up}}
-}
+// The seats: 90° vees (flanks at 45° to the symmetry plane) and flats in
+// hardened 440C.
+var (
+	vee  = kinematic.Vee{Up: up, HalfAngle: 45 * deg, Material: hertz.Steel440C}
+	flat = kinematic.Flat{Up: up, Material: hertz.Steel440C}
+)
 
 func main() {
-	centroid := r3.Scale(1.0/3, r3.Add(balls[0], r3.Add(balls[1], balls[2])))
-	toCentre := func(i int) r3.Vec { return r3.Sub(centroid, balls[i]) }
-
-	layouts := []struct {
-		title    string
-		contacts []contact
-	}{
-		{"Draft: two parallel vees and a flat", join(
-			vee("A", balls[0], r3.Vec{X: 1}),
-			vee("B", balls[1], r3.Vec{X: 1}),
-			flat("C", balls[2]),
-		)},
-		{"Three vees aimed at the centroid", join(
-			vee("A", balls[0], toCentre(0)),
-			vee("B", balls[1], toCentre(1)),
-			vee("C", balls[2], toCentre(2)),
-		)},
-		{"Three vees plus a stray pad under ball C", join(
-			vee("A", balls[0], toCentre(0)),
-			vee("B", balls[1], toCentre(1)),
-			vee("C", balls[2], toCentre(2)),
-			flat("pad", balls[2]),
-		)},
-	}
-
-	fmt.Println("Detector cassette on a benchtop spectrometer: constraint check")
-	fmt.Printf("Balls of radius %.1f mm at (mm):", ballRadius*1e3)
+	log.SetFlags(0)
+	fmt.Println("Detector cassette on a benchtop spectrometer: kinematic coupling study")
+	fmt.Println(strings.Repeat("=", 72))
+	fmt.Print("Balls (radius 5.0 mm, AISI 52100) at:")
 	for i, b := range balls {
-		fmt.Printf(" %c(%.0f, %.0f, %.0f)", 'A'+i, b.X*1e3, b.Y*1e3, b.Z*1e3)
-	}
-	fmt.Printf("\nVee flanks at %.0f° to the symmetry plane.\n", halfAngle*180/math.Pi)
-	for _, l := range layouts {
-		if err := report(l.title, l.contacts); err != nil {
-			log.Print(err)
-			os.Exit(1)
-		}
-	}
-}
-
-func join(groups ...[]contact) []contact {
-	var all []contact
-	for _, g := range groups {
-		all = append(all, g...)
-	}
-	return all
-}
-
-func report(title string, cs []contact) error {
-	ws := make([]screw.Wrench, len(cs))
-	for i, c := range cs {
-		w, err := screw.Line(c.p, c.n)
-		if err != nil {
-			return fmt.Errorf("contact %s: %w", c.label, err)
-		}
-		ws[i] = w
-	}
-	an, err := screw.Analyze(ws)
-	if err != nil {
-		return err
-	}
-	fmt.Printf("\n== %s\n", title)
-	fmt.Printf("contacts: %d   independent constraints: %d   degrees of freedom: %d\n",
-		len(cs), an.Rank, len(an.Free))
-	fmt.Printf("condition number: %.1f (characteristic length %.1f mm)", an.Condition, an.Length*1e3)
-	if an.NearSingular {
-		fmt.Print("   WARNING: near-singular")
+		fmt.Printf("  %c (%.0f, %.0f) mm", 'A'+i, b.Centre.X*1e3, b.Centre.Y*1e3)
 	}
 	fmt.Println()
+	fmt.Println("Seats: 90° vees and flats, 440C.")
+
+	// 1. A draft: two parallel vees and a flat.
+	draft := kinematic.Coupling{Pairs: []kinematic.Pair{
+		{Name: "A", Ball: balls[0], Seat: withDirection(r3.Vec{X: 1})},
+		{Name: "B", Ball: balls[1], Seat: withDirection(r3.Vec{X: 1})},
+		{Name: "C", Ball: balls[2], Seat: flat},
+	}}
+	section("1. Draft: vees under A and B, both along x; a flat under C")
+	constraint(must(draft.Contacts()))
+
+	// 2. Vees aimed at the centroid of the balls.
+	centroid := r3.Scale(1.0/3, r3.Add(balls[0].Centre, r3.Add(balls[1].Centre, balls[2].Centre)))
+	aimed := must(kinematic.AimedVees(balls, centroid, vee))
+	section("2. Three vees aimed at the centroid of the balls")
+	constraint(must(aimed.Contacts()))
+	weakAimed := stability(must(aimed.Contacts()))
+	layout(aimed)
+
+	// 3. Vees on the bisectors of the ball triangle.
+	bis := must(kinematic.BisectorVees(balls, vee))
+	section("3. Three vees on the bisectors of the ball triangle")
+	constraint(must(bis.Contacts()))
+	weakBis := stability(must(bis.Contacts()))
+	layout(bis)
+	fmt.Printf("Weakest Maxwell index: %.4f on the bisectors against %.4f aimed at the centroid.\n", weakBis, weakAimed)
+
+	// 4. A cable port beside ball B keeps its groove at least 25° off
+	// radial (towards +azimuth); the other grooves are free.
+	section("4. Grooves optimised around the cable port at ball B (groove B at 25° to 90° off radial)")
+	any := kinematic.Window{Min: -90 * deg, Max: 90 * deg}
+	res := must(kinematic.OptimizeGrooves(bis, &kinematic.GrooveOptions{
+		Windows: []kinematic.Window{any, {Min: 25 * deg, Max: 90 * deg}, any},
+	}))
+	for i, p := range res.Coupling.Pairs {
+		fmt.Printf("groove %s: %+6.1f° from radial\n", p.Name, degrees(res.Azimuths[i]))
+	}
+	fmt.Printf("weakest Maxwell index %.4f (bisector layout %.4f, which the port rules out: %v)\n",
+		res.Weakest, res.Bisector, !res.BisectorAllowed)
+	stability(must(res.Coupling.Contacts()))
+	g := must(res.Coupling.Geometry())
+	ex := excentre(balls[0].Centre, balls[1].Centre, balls[2].Centre)
+	fmt.Printf("the optimised grooves aim near (%.0f, %.0f) mm (RMS miss %.1f mm), far outside the ball triangle,\n",
+		g.Centre.X*1e3, g.Centre.Y*1e3, g.Spread*1e3)
+	fmt.Printf("close to the excentre opposite A at (%.0f, %.0f) mm: B and C sit on the external bisectors,\n",
+		ex.X*1e3, ex.Y*1e3)
+	fmt.Println("which makes each freed motion nearly ideal, as the internal bisectors do.")
+
+	// 5. A stray pad under ball C as well.
+	section("5. The bisector layout with a stray pad under ball C")
+	cs := must(bis.Contacts())
+	pad := must(kinematic.Coupling{Pairs: []kinematic.Pair{{Name: "pad", Ball: balls[2], Seat: flat}}}.Contacts())
+	constraint(append(cs, pad...))
+
+	// 6. Hertz contact of one vee flank.
+	section("6. One vee contact, ball on flank, at a nominal 15 N normal force")
+	hertzContact(cs[0], 15)
+
+	fmt.Println()
+	fmt.Println("Caution: these are engineering estimates from idealised models (rigid")
+	fmt.Println("bodies, point contacts, Hertz theory, handbook material data). Verify by")
+	fmt.Println("test, and let the applicable codes and a qualified engineer decide.")
+}
+
+// degrees returns the angle a in degrees, without a negative zero when
+// printed to one decimal.
+func degrees(a float64) float64 {
+	d := a / deg
+	if math.Abs(d) < 0.05 {
+		return 0
+	}
+	return d
+}
+
+// excentre returns the centre of the circle tangent to side BC and to the
+// extensions of AB and AC: the vertices weighted by the opposite sides,
+// with A's weight negative.
+func excentre(a, b, c r3.Vec) r3.Vec {
+	la, lb, lc := r3.Norm(r3.Sub(b, c)), r3.Norm(r3.Sub(c, a)), r3.Norm(r3.Sub(a, b))
+	return r3.Scale(1/(-la+lb+lc), r3.Add(r3.Scale(-la, a), r3.Add(r3.Scale(lb, b), r3.Scale(lc, c))))
+}
+
+func withDirection(d r3.Vec) kinematic.Vee {
+	v := vee
+	v.Direction = d
+	return v
+}
+
+func section(title string) {
+	fmt.Printf("\n%s\n%s\n", title, strings.Repeat("-", len([]rune(title))))
+}
+
+// constraint prints the constraint analysis of a contact set.
+func constraint(cs []kinematic.Contact) {
+	an := must(kinematic.Analyze(cs))
+	fmt.Printf("contacts %d, independent constraints %d, degrees of freedom %d; condition number %.1f\n",
+		len(cs), an.Rank, an.DOF, an.Condition)
+	if an.NearSingular {
+		fmt.Println("WARNING: near-singular: the constraint barely holds")
+	}
 	for i, t := range an.Free {
 		ax := t.Axis()
 		if math.IsInf(ax.Pitch, 1) {
 			fmt.Printf("free motion %d: translation along (%.3f, %.3f, %.3f)\n", i+1, ax.Dir.X, ax.Dir.Y, ax.Dir.Z)
 			continue
 		}
-		fmt.Printf("free motion %d: rotation about (%.3f, %.3f, %.3f) through (%.2f, %.2f, %.2f) mm, pitch %.3f mm/rad\n",
+		fmt.Printf("free motion %d: rotation about (%.3f, %.3f, %.3f) through (%.1f, %.1f, %.1f) mm, pitch %.3f mm/rad\n",
 			i+1, ax.Dir.X, ax.Dir.Y, ax.Dir.Z, ax.Point.X*1e3, ax.Point.Y*1e3, ax.Point.Z*1e3, ax.Pitch*1e3)
 	}
 	for i, c := range an.Redundant {
 		var terms []string
 		for j, x := range c {
 			if x != 0 {
-				terms = append(terms, fmt.Sprintf("%+.3f·%s", x, cs[j].label))
+				terms = append(terms, fmt.Sprintf("%+.3f·%s", x, cs[j].Label))
 			}
 		}
-		fmt.Printf("redundancy %d: %s = 0\n", i+1, strings.Join(terms, " "))
+		fmt.Printf("redundant %d: %s = 0  (contacts %s fight each other)\n", i+1, strings.Join(terms, " "), strings.Join(an.Participants[i], ", "))
 	}
 	switch {
-	case len(an.Free) == 0 && len(an.Redundant) == 0:
+	case an.DOF == 0 && len(an.Redundant) == 0:
 		fmt.Println("verdict: exactly constrained")
-	case len(an.Free) > 0 && len(an.Redundant) == 0:
+	case an.DOF > 0 && len(an.Redundant) == 0:
 		fmt.Println("verdict: under-constrained: the cassette can move as listed")
-	case len(an.Free) == 0:
-		fmt.Println("verdict: over-constrained: the redundant contacts fight each other")
+	case an.DOF == 0:
+		fmt.Println("verdict: over-constrained: the cassette rocks or strains the seats")
 	default:
 		fmt.Println("verdict: both free motions and redundant contacts")
 	}
-	return nil
+}
+
+// stability prints the Maxwell indices of a six-contact set and returns the
+// weakest.
+func stability(cs []kinematic.Contact) float64 {
+	st := must(must(kinematic.Analyze(cs)).Stability())
+	fmt.Println("contact  Maxwell index  at ball centre")
+	for i, m := range st.Contacts {
+		mark := ""
+		if i == st.Weakest {
+			mark = "  <- weakest"
+		}
+		fmt.Printf("%-7s  %13.4f  %14.4f%s\n", m.Label, m.Index, m.CentreIndex, mark)
+	}
+	return st.Contacts[st.Weakest].Index
+}
+
+// layout prints where the grooves point and meet.
+func layout(c kinematic.Coupling) {
+	g := must(c.Geometry())
+	for _, gr := range g.Grooves {
+		fmt.Printf("groove %s: %+6.1f° from radial, %5.1f° off the bisector\n",
+			c.Pairs[gr.Pair].Name, degrees(gr.Azimuth), degrees(gr.OffBisector))
+	}
+	fmt.Printf("grooves meet nearest (%.1f, %.1f) mm (RMS miss %.2f mm); incentre (%.1f, %.1f) mm, centroid (%.1f, %.1f) mm\n",
+		g.Centre.X*1e3, g.Centre.Y*1e3, g.Spread*1e3, g.Incentre.X*1e3, g.Incentre.Y*1e3, g.Centroid.X*1e3, g.Centroid.Y*1e3)
+}
+
+// hertzContact prints the Hertz solution of a contact under a normal load.
+func hertzContact(c kinematic.Contact, load float64) {
+	h := must(hertz.Solve(c.Moving, c.Base, load))
+	fmt.Printf("contact %s: %s on %s\n", c.Label, c.Moving.Material.Name, c.Base.Material.Name)
+	fmt.Printf("contact ellipse %.1f × %.1f µm (semi-axes), approach %.2f µm, stiffness %.1f N/µm\n",
+		h.SemiMajor*1e6, h.SemiMinor*1e6, h.Approach*1e6, h.Stiffness*1e-6)
+	fmt.Printf("peak pressure %.0f MPa, mean %.0f MPa\n", h.PeakPressure*1e-6, h.MeanPressure*1e-6)
+	for i, name := range []string{"ball", "flank"} {
+		s := h.Stress[i]
+		fmt.Printf("%-5s: max shear %.0f MPa at %.1f µm depth, max von Mises %.0f MPa at %.1f µm\n",
+			name, s.MaxShear*1e-6, s.MaxShearDepth*1e6, s.MaxVonMises*1e-6, s.MaxVonMisesDepth*1e6)
+	}
+	for _, m := range []hertz.Material{c.Moving.Material, c.Base.Material} {
+		if m.Allowable > 0 {
+			fmt.Printf("%s: allowable static contact pressure %.0f MPa (%s); margin %.1f×\n",
+				m.Name, m.Allowable*1e-6, "ISO 76:2006", m.Allowable/h.PeakPressure)
+		} else {
+			fmt.Printf("%s: no allowable pressure on file; set one from your own data\n", m.Name)
+		}
+	}
+	if !h.Valid {
+		fmt.Println("WARNING: the contact is large against the radii; Hertz theory is stretched")
+	}
+}
+
+// must returns v, or stops the program with err.
+func must[T any](v T, err error) T {
+	if err != nil {
+		log.Fatal(err)
+	}
+	return v
 }
