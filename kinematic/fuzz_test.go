@@ -1,39 +1,33 @@
 package kinematic
 
 import (
-	"encoding/binary"
 	"errors"
 	"math"
 	"testing"
 
 	"gonum.org/v1/gonum/spatial/r3"
 
+	"github.com/sixfold-dev/sixfold/internal/fuzzdata"
 	"github.com/sixfold-dev/sixfold/screw"
 )
 
-// contactBytes encodes contacts as little-endian float64s: point, normal,
-// radius (seven per contact); a contact with a radius has its ball centre
-// at Point + Radius·Normal.
+// contactBytes encodes contacts as float64s, seven per contact: point,
+// normal, radius; a contact with a radius has its ball centre at
+// Point + Radius·Normal.
 func contactBytes(cs []Contact) []byte {
 	var b []byte
 	for _, c := range cs {
-		for _, x := range [7]float64{c.Point.X, c.Point.Y, c.Point.Z, c.Normal.X, c.Normal.Y, c.Normal.Z, c.Radius} {
-			b = binary.LittleEndian.AppendUint64(b, math.Float64bits(x))
-		}
+		b = fuzzdata.Append(b, c.Point.X, c.Point.Y, c.Point.Z, c.Normal.X, c.Normal.Y, c.Normal.Z, c.Radius)
 	}
 	return b
 }
 
 func bytesContacts(b []byte) []Contact {
-	cs := make([]Contact, len(b)/56)
-	for i := range cs {
-		var x [7]float64
-		for j := range x {
-			x[j] = math.Float64frombits(binary.LittleEndian.Uint64(b[56*i+8*j:]))
-		}
+	var cs []Contact
+	for _, x := range fuzzdata.Floats(b, 7) {
 		c := Contact{Point: r3.Vec{X: x[0], Y: x[1], Z: x[2]}, Normal: r3.Vec{X: x[3], Y: x[4], Z: x[5]}, Radius: x[6]}
 		c.Centre = r3.Add(c.Point, r3.Scale(c.Radius, c.Normal))
-		cs[i] = c
+		cs = append(cs, c)
 	}
 	return cs
 }

@@ -1,32 +1,27 @@
 package screw
 
 import (
-	"encoding/binary"
 	"math"
 	"testing"
 
 	"gonum.org/v1/gonum/spatial/r3"
+
+	"github.com/sixfold-dev/sixfold/internal/fuzzdata"
 )
 
-// wrenchBytes encodes wrenches as little-endian float64s, six per wrench.
+// wrenchBytes encodes wrenches as float64s, six per wrench.
 func wrenchBytes(ws []Wrench) []byte {
 	var b []byte
 	for _, w := range ws {
-		for _, x := range [6]float64{w.F.X, w.F.Y, w.F.Z, w.M.X, w.M.Y, w.M.Z} {
-			b = binary.LittleEndian.AppendUint64(b, math.Float64bits(x))
-		}
+		b = fuzzdata.Append(b, w.F.X, w.F.Y, w.F.Z, w.M.X, w.M.Y, w.M.Z)
 	}
 	return b
 }
 
 func bytesWrenches(b []byte) []Wrench {
-	ws := make([]Wrench, len(b)/48)
-	for i := range ws {
-		var x [6]float64
-		for j := range x {
-			x[j] = math.Float64frombits(binary.LittleEndian.Uint64(b[48*i+8*j:]))
-		}
-		ws[i] = Wrench{F: r3.Vec{X: x[0], Y: x[1], Z: x[2]}, M: r3.Vec{X: x[3], Y: x[4], Z: x[5]}}
+	var ws []Wrench
+	for _, x := range fuzzdata.Floats(b, 6) {
+		ws = append(ws, Wrench{F: r3.Vec{X: x[0], Y: x[1], Z: x[2]}, M: r3.Vec{X: x[3], Y: x[4], Z: x[5]}})
 	}
 	return ws
 }
