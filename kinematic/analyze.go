@@ -155,22 +155,22 @@ func (a Analysis) Stability() (Stability, error) {
 			"%w: %d contacts of rank %d (%d free motions, %d redundant); Maxwell indices need six independent contacts",
 			ErrNotExact, len(a.lines), a.Rank, len(a.Free), len(a.Redundant))}
 	}
-	var st Stability
-	st.Contacts = make([]Maxwell, 6)
-	ok := freed(a.lines, a.Centre, a.Length, func(i int, t screw.Twist) {
-		l := a.lines[i]
-		v := t.At(l.p)
-		t = t.Scale(1 / r3.Dot(l.n, v))
-		v = t.At(l.p)
-		m := Maxwell{Label: l.label, Freed: t, Index: 1 / linalg.Norm3(v)}
+	ts, ok := freed(a.lines, a.Centre, a.Length)
+	if !ok {
+		return Stability{}, &InputError{Field: "cs", Err: fmt.Errorf("%w: the six contacts are singular to working precision", ErrNotExact)}
+	}
+	st := Stability{Contacts: make([]Maxwell, 6)}
+	for i, t := range ts {
+		l := &a.lines[i]
+		// Scale so that n·v = 1 exactly (it is 1 to rounding already).
+		t = t.Scale(1 / r3.Dot(l.n, t.At(l.p)))
+		m := &st.Contacts[i]
+		m.Label, m.Freed = l.label, t
+		m.Index = 1 / linalg.Norm3(t.At(l.p))
 		m.CentreIndex = m.Index
 		if l.ball {
 			m.CentreIndex = 1 / linalg.Norm3(t.At(l.centre))
 		}
-		st.Contacts[i] = m
-	})
-	if !ok {
-		return Stability{}, &InputError{Field: "cs", Err: fmt.Errorf("%w: the six contacts are singular to working precision", ErrNotExact)}
 	}
 	low := st.Contacts[0].Index
 	for _, m := range st.Contacts {
@@ -185,33 +185,34 @@ func (a Analysis) Stability() (Stability, error) {
 	return st, nil
 }
 
-// freed calls f with each contact's index and the twist freed by removing
-// it (power δᵢⱼ with contact j), for six contacts known to be independent.
-// Moments are taken about pc and divided by L (a reference point and a
-// characteristic length of the lines, such as screw.Analysis's Centre and
-// Length), so that the matrix's conditioning is that of the geometry, not
-// of its units or position. freed reports false if the 6×6 system is
-// singular to working precision.
-func freed(ls []line, pc r3.Vec, L float64, f func(i int, t screw.Twist)) bool {
-	if !(L > 0) {
-		return false
+// freed returns the twists freed by removing each of six contacts known
+// to be independent: twist i has power δᵢⱼ with contact j. Moments are
+// taken about pc and divided by L (a reference point and a characteristic
+// length of the lines, such as screw.Analysis's Centre and Length), so that
+// the matrix's conditioning is that of the geometry, not of its units or
+// position. freed reports false if the 6×6 system is singular to working
+// precision.
+func freed(ls []line, pc r3.Vec, L float64) (ts [6]screw.Twist, ok bool) {
+	if !(L > 0) || len(ls) != 6 {
+		return ts, false
 	}
 	var c [36]float64 // column j: (n_j, (p_j − pc) × n_j / L)
-	for j, l := range ls {
+	for j := range ls {
+		l := &ls[j]
 		m := r3.Scale(1/L, r3.Cross(r3.Sub(l.p, pc), l.n))
 		c[6*j], c[6*j+1], c[6*j+2], c[6*j+3], c[6*j+4], c[6*j+5] = l.n.X, l.n.Y, l.n.Z, m.X, m.Y, m.Z
 	}
 	if !linalg.Inverse6(&c, singularTol) {
-		return false
+		return ts, false
 	}
 	// Row i of C⁻¹ pairs with column j to δᵢⱼ: it is the twist
 	// (V at pc, W·L) in the same normalised coordinates.
-	for i := range ls {
+	for i := range ts {
 		vpc := r3.Vec{X: c[0*6+i], Y: c[1*6+i], Z: c[2*6+i]}
 		w := r3.Scale(1/L, r3.Vec{X: c[3*6+i], Y: c[4*6+i], Z: c[5*6+i]})
-		f(i, screw.Twist{W: w, V: r3.Sub(vpc, r3.Cross(w, pc))})
+		ts[i] = screw.Twist{W: w, V: r3.Sub(vpc, r3.Cross(w, pc))}
 	}
-	return true
+	return ts, true
 }
 
 // singularTol is the pivot, relative to the largest entry of its column,

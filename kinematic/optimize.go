@@ -8,7 +8,6 @@ import (
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"github.com/sixfold-dev/sixfold/internal/linalg"
-	"github.com/sixfold-dev/sixfold/screw"
 )
 
 // Window is a range of allowed groove azimuths in radians, Min ≤ azimuth ≤
@@ -367,13 +366,15 @@ func (p *grooveProblem) weakest(az []float64) float64 {
 	for _, l := range p.lines {
 		s2 += r3.Norm2(r3.Sub(l.p, pc))
 	}
-	w := math.Inf(1)
-	if !freed(p.lines, pc, math.Sqrt(s2/float64(len(p.lines))), func(i int, t screw.Twist) {
-		l := p.lines[i]
-		v := t.At(l.p)
-		w = math.Min(w, math.Abs(r3.Dot(l.n, v))/linalg.Norm3(v))
-	}) {
+	ts, ok := freed(p.lines, pc, math.Sqrt(s2/float64(len(p.lines))))
+	if !ok {
 		return 0
+	}
+	w := math.Inf(1)
+	for i, t := range ts {
+		l := &p.lines[i]
+		v := t.At(l.p)
+		w = min(w, math.Abs(r3.Dot(l.n, v))/linalg.Norm3(v))
 	}
 	return w
 }
