@@ -31,6 +31,8 @@ type InputError struct {
 	Err   error  // wraps one of the package's sentinel errors
 }
 
+// Error returns the package, the field and the reason, for example
+// "hertz: b1.R1: out of range: ...".
 func (e *InputError) Error() string { return "hertz: " + e.Field + ": " + e.Err.Error() }
 
 // Unwrap returns the wrapped error, so that errors.Is finds the sentinel.

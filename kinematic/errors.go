@@ -25,6 +25,8 @@ type InputError struct {
 	Err   error  // wraps one of the package's sentinel errors
 }
 
+// Error returns the package, the field and the reason, for example
+// "kinematic: Pairs[1].Seat.HalfAngle: out of range: ...".
 func (e *InputError) Error() string { return "kinematic: " + e.Field + ": " + e.Err.Error() }
 
 // Unwrap returns the underlying error, which wraps a sentinel.

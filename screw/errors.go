@@ -21,6 +21,8 @@ type InputError struct {
 	Err   error  // wraps one of the package's sentinel errors
 }
 
+// Error returns the package, the field and the reason, for example
+// "screw: ws[2].F: not finite: ...".
 func (e *InputError) Error() string { return "screw: " + e.Field + ": " + e.Err.Error() }
 
 // Unwrap returns the underlying error, which wraps a sentinel.
