@@ -6,7 +6,7 @@ import (
 )
 
 func TestRoundTrip(t *testing.T) {
-	xs := []float64{1.5, -0.0, math.Inf(1), math.SmallestNonzeroFloat64, 7, math.MaxFloat64}
+	xs := []float64{1.5, math.Copysign(0, -1), math.Inf(1), math.SmallestNonzeroFloat64, 7, math.MaxFloat64}
 	b := Append(nil, xs...)
 	b = append(b, 1, 2, 3) // a partial value is ignored
 	got := Floats(b, 3)
