@@ -6,15 +6,17 @@
 // program checks a draft layout, compares grooves aimed at the centroid
 // with grooves on the bisectors of the ball triangle, optimises the grooves
 // around a cable port, catches a stray pad, and sizes one contact with
-// Hertz theory.
+// Hertz theory. With -svg file.svg it also draws the layouts in plan.
 //
 // All scenario numbers are invented for this demonstration.
 package main
 
 import (
+	"flag"
 	"fmt"
 	"log"
 	"math"
+	"os"
 	"strings"
 
 	"gonum.org/v1/gonum/spatial/r3"
@@ -43,6 +45,8 @@ var (
 
 func main() {
 	log.SetFlags(0)
+	svgPath := flag.String("svg", "", "also write a plan view of the layouts to this SVG file")
+	flag.Parse()
 	fmt.Println("Detector cassette on a benchtop spectrometer: kinematic coupling study")
 	fmt.Println(strings.Repeat("=", 72))
 	fmt.Print("Balls (radius 5.0 mm, AISI 52100) at:")
@@ -107,6 +111,25 @@ func main() {
 	// 6. Hertz contact of one vee flank.
 	section("6. One vee contact, ball on flank, at a nominal 15 N normal force")
 	hertzContact(cs[0], 15)
+
+	if *svgPath != "" {
+		f, err := os.Create(*svgPath)
+		if err != nil {
+			log.Fatal(err)
+		}
+		err = writeSVG(f, []drawing{
+			{"aimed at the centroid", aimed},
+			{"on the bisectors", bis},
+			{"optimised around the port", res.Coupling},
+		})
+		if cerr := f.Close(); err == nil {
+			err = cerr
+		}
+		if err != nil {
+			log.Fatal(err)
+		}
+		fmt.Printf("\nPlan view written to %s\n", *svgPath)
+	}
 
 	fmt.Println()
 	fmt.Println("Caution: these are engineering estimates from idealised models (rigid")
