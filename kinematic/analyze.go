@@ -124,13 +124,15 @@ const tieTol = 1e-12
 // Index is the Maxwell index at the contact point, |n·v|/|v| in [0, 1]: 1
 // when the freed motion carries the contact point straight along the
 // normal, near 0 when it slides nearly along the surface, which then barely
-// resists. CentreIndex is the same measure taken with the velocity of the
-// ball's centre, which equals v minus the sliding term r·W × n of rotation
-// about the centre (r the ball radius, W the freed angular velocity); both
-// share n·v = 1. CentreIndex judges the seat's layout alone, Index the
-// motion at the surface where friction acts; they are equal for a contact
-// not made by a ball and whenever the freed motion does not rotate the
-// ball about axes through its centre tangent to the contact.
+// resists. CentreIndex is the same measure taken with the velocity v_c of
+// the ball's centre, which lies a radius r along n from the contact point:
+// v_c = v + r·W × n (W the freed angular velocity). The term r·W × n is
+// tangent to the surface, so both share n·v = n·v_c = 1 and differ only
+// in their tangential parts: Index counts the sliding that the ball's
+// rotation adds at its surface, where friction acts, and can be above or
+// below CentreIndex; CentreIndex judges where the seat lets the ball's
+// centre go, independent of the ball's size. The two are equal for a
+// contact not made by a ball and whenever W × n = 0.
 type Maxwell struct {
 	Label       string
 	Freed       screw.Twist

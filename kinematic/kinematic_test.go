@@ -583,3 +583,31 @@ func TestOptimizerFindsExcentre(t *testing.T) {
 		t.Errorf("optimum %.6f below the excentre layout's %.6f", res.Weakest, want)
 	}
 }
+
+// TestMaxwellDefinitions checks each reported quantity against its
+// definition (the and Maxwell's, restated in the Maxwell doc):
+// n·v = +1 at the contact point, Index = |n·v|/|v|, CentreIndex the same
+// with the ball centre's velocity, which shares n·v_c = 1 because the
+// centre lies on the normal line through the contact point.
+func TestMaxwellDefinitions(t *testing.T) {
+	for _, c := range []Coupling{threeVees(t, 0.5), mustSVF(t)} {
+		cs := mustContacts(t, c)
+		st := mustStability(t, c)
+		for i, m := range st.Contacts {
+			n := cs[i].Normal
+			v, vc := m.Freed.At(cs[i].Point), m.Freed.At(cs[i].Centre)
+			if math.Abs(r3.Dot(n, v)-1) > 1e-12 || math.Abs(r3.Dot(n, vc)-1) > 1e-12 {
+				t.Errorf("%s: n·v = %g, n·v_c = %g; want 1", m.Label, r3.Dot(n, v), r3.Dot(n, vc))
+			}
+			if want := 1 / r3.Norm(v); math.Abs(m.Index-want) > 1e-12 {
+				t.Errorf("%s: index %g, want %g", m.Label, m.Index, want)
+			}
+			if want := 1 / r3.Norm(vc); math.Abs(m.CentreIndex-want) > 1e-12 {
+				t.Errorf("%s: centre index %g, want %g", m.Label, m.CentreIndex, want)
+			}
+			if m.Label != cs[i].Label {
+				t.Errorf("label %q, want %q", m.Label, cs[i].Label)
+			}
+		}
+	}
+}
