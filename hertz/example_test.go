@@ -40,6 +40,10 @@ func ExampleSolve_veeFlank() {
 // The same ball in a gothic-arch groove whose flanks are cylinders of
 // 5.2 mm radius (conformity 0.52), groove axis along x: the conforming
 // flank spreads the contact across the groove and lowers the pressure.
+// (The ellipse, pressure and stiffness agree with an independent
+// evaluation of Johnson 1985, §3.5, by bisection on k' = b/a with K and E
+// from the arithmetic–geometric mean, Abramowitz & Stegun 17.6: 389.97 ×
+// 47.93 µm, 541.8 MPa, 39.05 N/µm.)
 func ExampleSolve_groove() {
 	ball := hertz.Sphere(0.005, hertz.Steel52100)
 	flank := hertz.Groove(0.0052, 0, hertz.Steel440C)

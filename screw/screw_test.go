@@ -122,7 +122,8 @@ func TestAxisSpecial(t *testing.T) {
 	if !math.IsInf(got.Pitch, 1) || got.Dir != (r3.Vec{Y: -1}) || got.Point != (r3.Vec{}) {
 		t.Errorf("translation: Axis = %v, want pitch +Inf along -y", got)
 	}
-	// A pure rotation has pitch exactly 0.
+	// A pure rotation has pitch exactly 0; its axis point is
+	// W × V/|W|² = (2, 0, 0) × (0, 1, 0)/4 = (0, 0, 0.5) (by hand).
 	if got := (Twist{W: r3.Vec{X: 2}, V: r3.Vec{Y: 1}}).Axis(); got.Pitch != 0 || got.Point != (r3.Vec{Z: 0.5}) {
 		t.Errorf("rotation: Axis = %v, want pitch 0 through (0, 0, 0.5)", got)
 	}
