@@ -56,22 +56,23 @@ func Analyze(cs []Contact) (Analysis, error) {
 		ws = make([]screw.Wrench, len(cs))
 	}
 	for i, c := range cs {
-		if !finiteVec(c.Point) {
+		if !linalg.Finite3(c.Point) {
 			return Analysis{}, &InputError{Field: fmt.Sprintf("cs[%d].Point", i), Err: fmt.Errorf("%w: %v", ErrNonFinite, c.Point)}
 		}
 		l := linalg.Norm3(c.Normal)
-		if !finiteVec(c.Normal) || l == 0 {
+		if l == 0 || !linalg.Finite3(c.Normal) {
+			// The field name is formatted only on error, off the hot path.
 			_, err := unitOf(c.Normal, fmt.Sprintf("cs[%d].Normal", i))
 			return Analysis{}, err
 		}
 		n := r3.Scale(1/l, c.Normal)
 		ball := c.Radius != 0
-		if ball && (!finiteVec(c.Centre) || math.IsNaN(c.Radius) || math.IsInf(c.Radius, 0)) {
+		if ball && (!linalg.Finite3(c.Centre) || math.IsNaN(c.Radius) || math.IsInf(c.Radius, 0)) {
 			return Analysis{}, &InputError{Field: fmt.Sprintf("cs[%d].Centre", i), Err: fmt.Errorf("%w: centre %v, radius %g", ErrNonFinite, c.Centre, c.Radius)}
 		}
 		// A unit force along the normal through the contact point.
 		ws[i] = screw.Wrench{F: n, M: r3.Cross(c.Point, n)}
-		if !finiteVec(ws[i].M) {
+		if !linalg.Finite3(ws[i].M) {
 			return Analysis{}, &InputError{Field: fmt.Sprintf("cs[%d].Point", i), Err: fmt.Errorf("%w: too far from the origin: %v", ErrRange, c.Point)}
 		}
 		lines[i] = line{label: c.Label, p: c.Point, n: n, centre: c.Centre, ball: ball}

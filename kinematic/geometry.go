@@ -211,11 +211,5 @@ func azimuth(d, up, rad r3.Vec) float64 {
 	if rad == (r3.Vec{}) {
 		return 0
 	}
-	a := math.Atan2(r3.Dot(up, r3.Cross(rad, d)), r3.Dot(rad, d))
-	if a <= -math.Pi/2 {
-		a += math.Pi
-	} else if a > math.Pi/2 {
-		a -= math.Pi
-	}
-	return a
+	return wrapAzimuth(math.Atan2(r3.Dot(up, r3.Cross(rad, d)), r3.Dot(rad, d)))
 }

@@ -32,7 +32,7 @@ func BisectorVees(balls [3]Ball, vee Vee) (Coupling, error) {
 // "target" if it is not finite or lies straight above or below a ball
 // (along the seat's Up), which leaves that groove no direction.
 func AimedVees(balls [3]Ball, target r3.Vec, vee Vee) (Coupling, error) {
-	if !finiteVec(target) {
+	if !linalg.Finite3(target) {
 		return Coupling{}, &InputError{Field: "target", Err: fmt.Errorf("%w: %v", ErrNonFinite, target)}
 	}
 	return aimed(balls, vee, func(int) r3.Vec { return target }, "target")

@@ -173,7 +173,7 @@ func pairName(name string, i int) string {
 }
 
 func checkBall(b Ball, field string) error {
-	if !finiteVec(b.Centre) {
+	if !linalg.Finite3(b.Centre) {
 		return &InputError{Field: field + ".Centre", Err: fmt.Errorf("%w: %v", ErrNonFinite, b.Centre)}
 	}
 	if !(b.Radius > 0) || math.IsInf(b.Radius, 0) {
@@ -301,7 +301,7 @@ func horizontal(d, up r3.Vec, field string) (r3.Vec, error) {
 // unitOf returns v/|v|, or an error naming field if v is zero or not
 // finite.
 func unitOf(v r3.Vec, field string) (r3.Vec, error) {
-	if !finiteVec(v) {
+	if !linalg.Finite3(v) {
 		return r3.Vec{}, &InputError{Field: field, Err: fmt.Errorf("%w: %v", ErrNonFinite, v)}
 	}
 	l := linalg.Norm3(v)
@@ -322,10 +322,4 @@ func anyNormal(n r3.Vec) r3.Vec {
 		}
 	}
 	return r3.Unit(r3.Cross(n, a))
-}
-
-func finiteVec(v r3.Vec) bool {
-	return !math.IsNaN(v.X) && !math.IsInf(v.X, 0) &&
-		!math.IsNaN(v.Y) && !math.IsInf(v.Y, 0) &&
-		!math.IsNaN(v.Z) && !math.IsInf(v.Z, 0)
 }

@@ -148,10 +148,10 @@ func Analyze(ws []Wrench) (Analysis, error) {
 		return Analysis{}, &InputError{Field: "ws", Err: fmt.Errorf("%w: no wrenches to analyse", ErrEmpty)}
 	}
 	for i, w := range ws {
-		if !finite(w.F) {
+		if !linalg.Finite3(w.F) {
 			return Analysis{}, &InputError{Field: fmt.Sprintf("ws[%d].F", i), Err: fmt.Errorf("%w: %v", ErrNonFinite, w.F)}
 		}
-		if !finite(w.M) {
+		if !linalg.Finite3(w.M) {
 			return Analysis{}, &InputError{Field: fmt.Sprintf("ws[%d].M", i), Err: fmt.Errorf("%w: %v", ErrNonFinite, w.M)}
 		}
 		if w == (Wrench{}) {
@@ -354,7 +354,7 @@ func reference(ws []Wrench) (c r3.Vec, length, used float64, err error) {
 	if nf > 0 {
 		c = leastSquaresPoint(&s, b, float64(nf))
 	}
-	if !finite(c) {
+	if !linalg.Finite3(c) {
 		return r3.Vec{}, 0, 0, &InputError{Field: "ws", Err: fmt.Errorf("%w: lines too far from the origin", ErrRange)}
 	}
 	var sum float64

@@ -7,6 +7,7 @@ import (
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"github.com/sixfold-dev/sixfold/internal/fuzzdata"
+	"github.com/sixfold-dev/sixfold/internal/linalg"
 )
 
 // wrenchBytes encodes wrenches as float64s, six per wrench.
@@ -26,7 +27,7 @@ func bytesWrenches(b []byte) []Wrench {
 	return ws
 }
 
-func finiteTwist(t Twist) bool { return finite(t.W) && finite(t.V) }
+func finiteTwist(t Twist) bool { return linalg.Finite3(t.W) && linalg.Finite3(t.V) }
 
 // FuzzAnalyze checks that Analyze never panics and that every result it
 // returns without an error is consistent: finite numbers, counts that add
@@ -65,7 +66,7 @@ func FuzzAnalyze(f *testing.F) {
 			t.Fatalf("Σσ² = %g, want %d", ss, n)
 		}
 		if math.IsNaN(an.Condition) || math.IsInf(an.Condition, 0) || an.Condition < 1 ||
-			!finite(an.Centre) || math.IsNaN(an.Length) || math.IsInf(an.Length, 0) || an.Length < 0 {
+			!linalg.Finite3(an.Centre) || math.IsNaN(an.Length) || math.IsInf(an.Length, 0) || an.Length < 0 {
 			t.Fatalf("condition %g, centre %v, length %g", an.Condition, an.Centre, an.Length)
 		}
 		for _, tw := range an.Free {

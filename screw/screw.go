@@ -43,10 +43,10 @@ type Axis struct {
 // Line returns an [*InputError] wrapping [ErrNonFinite] if a component of p
 // or n is NaN or infinite, and wrapping [ErrZero] if n is the zero vector.
 func Line(p, n r3.Vec) (Wrench, error) {
-	if !finite(p) {
+	if !linalg.Finite3(p) {
 		return Wrench{}, &InputError{Field: "p", Err: fmt.Errorf("%w: %v", ErrNonFinite, p)}
 	}
-	if !finite(n) {
+	if !linalg.Finite3(n) {
 		return Wrench{}, &InputError{Field: "n", Err: fmt.Errorf("%w: %v", ErrNonFinite, n)}
 	}
 	l := linalg.Norm3(n)
@@ -55,7 +55,7 @@ func Line(p, n r3.Vec) (Wrench, error) {
 	}
 	u := r3.Scale(1/l, n)
 	m := r3.Cross(p, u)
-	if !finite(m) {
+	if !linalg.Finite3(m) {
 		return Wrench{}, &InputError{Field: "p", Err: fmt.Errorf("%w: moment of the line overflows: %v", ErrRange, p)}
 	}
 	return Wrench{F: u, M: m}, nil
@@ -125,10 +125,4 @@ func (w Wrench) Add(u Wrench) Wrench {
 // Scale returns the wrench w multiplied by f.
 func (w Wrench) Scale(f float64) Wrench {
 	return Wrench{F: r3.Scale(f, w.F), M: r3.Scale(f, w.M)}
-}
-
-func finite(v r3.Vec) bool {
-	return !math.IsNaN(v.X) && !math.IsInf(v.X, 0) &&
-		!math.IsNaN(v.Y) && !math.IsInf(v.Y, 0) &&
-		!math.IsNaN(v.Z) && !math.IsInf(v.Z, 0)
 }

@@ -118,52 +118,6 @@ func Jacobi(a []float64, m, k int, v []float64) bool {
 	return false
 }
 
-// LQ overwrites the m×n column-major matrix a (m ≤ n) with the factor L of
-// its decomposition A = L·Q by Householder reflections (Golub & Van Loan,
-// Matrix Computations, 4th ed., 2013, §5.2.2, applied to Aᵀ), and copies the
-// m×m lower triangle into l (column-major, zeros above the diagonal). A and
-// L have the same singular values and left singular vectors.
-func LQ(a []float64, m, n int, l []float64) {
-	for r := 0; r < m; r++ {
-		// Reflect row r onto its entry in column r.
-		var x2 float64
-		for j := r; j < n; j++ {
-			x := a[j*m+r]
-			x2 += x * x
-		}
-		if x2 == 0 {
-			continue
-		}
-		x0 := a[r*m+r]
-		alpha := -math.Copysign(math.Sqrt(x2), x0)
-		a[r*m+r] = x0 - alpha // v = x − αe₁, stored in row r
-		vv := x2 - x0*x0 + (x0-alpha)*(x0-alpha)
-		for i := r + 1; i < m; i++ {
-			var dot float64
-			for j := r; j < n; j++ {
-				dot += a[j*m+i] * a[j*m+r]
-			}
-			f := 2 * dot / vv
-			for j := r; j < n; j++ {
-				a[j*m+i] -= f * a[j*m+r]
-			}
-		}
-		a[r*m+r] = alpha
-		for j := r + 1; j < n; j++ {
-			a[j*m+r] = 0
-		}
-	}
-	for j := 0; j < m; j++ {
-		for i := 0; i < m; i++ {
-			if i >= j {
-				l[j*m+i] = a[j*m+i]
-			} else {
-				l[j*m+i] = 0
-			}
-		}
-	}
-}
-
 // SortColumns computes the column norms of the m×k matrix a into sigma and
 // reorders the columns of a, the columns of the k×k matrix v (unless v is
 // nil) and sigma so that sigma is in descending order. After Jacobi, sigma
@@ -257,4 +211,10 @@ func Norm3(v r3.Vec) float64 {
 		return math.Sqrt(s)
 	}
 	return math.Hypot(v.X, math.Hypot(v.Y, v.Z))
+}
+
+// Finite3 reports whether every component of v is finite (not NaN or ±Inf).
+func Finite3(v r3.Vec) bool {
+	// x − x is 0 for finite x and NaN for NaN or ±Inf.
+	return v.X-v.X == 0 && v.Y-v.Y == 0 && v.Z-v.Z == 0
 }

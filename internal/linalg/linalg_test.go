@@ -6,6 +6,7 @@ import (
 	"testing"
 
 	"gonum.org/v1/gonum/mat"
+	"gonum.org/v1/gonum/spatial/r3"
 )
 
 // randMatrix returns an m×k column-major matrix with entries in [-1, 1) and,
@@ -302,5 +303,64 @@ func TestInverse6(t *testing.T) {
 	a[1*6+0], a[1*6+1] = 1, 0 // column 1 = column 0
 	if Inverse6(&a, 1e-12) {
 		t.Error("Inverse6 inverted a singular matrix")
+	}
+}
+
+// TestNorm3 checks |(3, 4, 12)|·s = 13·s (a Pythagorean quadruple, by
+// hand) across the range where the squares overflow or underflow.
+func TestNorm3(t *testing.T) {
+	for _, s := range []float64{1, 1e200, 1e-200, 1e-310} {
+		v := r3.Vec{X: 3 * s, Y: 4 * s, Z: 12 * s}
+		if got := Norm3(v); math.Abs(got-13*s) > 1e-15*13*s {
+			t.Errorf("s = %g: Norm3 = %g, want %g", s, got, 13*s)
+		}
+	}
+	if !Finite3(r3.Vec{X: 1, Y: -2, Z: math.MaxFloat64}) || Finite3(r3.Vec{Z: math.NaN()}) || Finite3(r3.Vec{Y: math.Inf(-1)}) {
+		t.Error("Finite3 misjudges")
+	}
+}
+
+// TestSort6 checks that Sort6 orders columns by norm and keeps each column
+// with its norm (norms 1, 3, 2 worked by hand).
+func TestSort6(t *testing.T) {
+	var a [36]float64
+	a[0], a[6+1], a[12+2] = 1, 3, 2
+	var sigma [6]float64
+	Sort6(&a, 3, &sigma)
+	if sigma[0] != 3 || sigma[1] != 2 || sigma[2] != 1 || a[1] != 3 || a[6+2] != 2 || a[12] != 1 {
+		t.Errorf("sigma %v, columns %v", sigma[:3], a[:18])
+	}
+}
+
+// TestSolvePSD3 checks both paths against gonum: a well-conditioned
+// system (LDLᵀ path) against mat.Dense.Solve, and a singular one (eigen
+// path) against the pseudo-inverse solution, which for s = diag(4, 1, 0)
+// and b = (2, 3, 5) is (0.5, 3, 0) by hand.
+func TestSolvePSD3(t *testing.T) {
+	rng := rand.New(rand.NewPCG(51, 53))
+	for trial := 0; trial < 100; trial++ {
+		m := randMatrix(rng, 3, 3, 3)
+		var s [9]float64 // s = MᵀM + I, symmetric positive definite
+		for i := 0; i < 3; i++ {
+			for j := 0; j < 3; j++ {
+				s[3*j+i] = Dot(m[3*i:3*i+3], m[3*j:3*j+3])
+			}
+			s[4*i]++
+		}
+		b := [3]float64{rng.Float64(), rng.Float64(), rng.Float64()}
+		x, kept := SolvePSD3(s, b, 1e-9)
+		var want mat.VecDense
+		if err := want.SolveVec(mat.NewDense(3, 3, s[:]), mat.NewVecDense(3, b[:])); err != nil {
+			t.Fatal(err)
+		}
+		for i := range x {
+			if math.Abs(x[i]-want.AtVec(i)) > 1e-12 || kept != 3 {
+				t.Fatalf("trial %d: x = %v (kept %d), gonum %v", trial, x, kept, want.RawVector().Data)
+			}
+		}
+	}
+	x, kept := SolvePSD3([9]float64{4, 0, 0, 0, 1, 0, 0, 0, 0}, [3]float64{2, 3, 5}, 1e-9)
+	if kept != 2 || math.Abs(x[0]-0.5) > 1e-15 || math.Abs(x[1]-3) > 1e-15 || x[2] != 0 {
+		t.Errorf("singular system: x = %v, kept %d; want (0.5, 3, 0), 2", x, kept)
 	}
 }
