@@ -91,8 +91,12 @@ func main() {
 	for i, p := range res.Coupling.Pairs {
 		fmt.Printf("groove %s: %+6.1f° from radial\n", p.Name, degrees(res.Azimuths[i]))
 	}
-	fmt.Printf("weakest Maxwell index %.4f (bisector layout %.4f, which the port rules out: %v)\n",
-		res.Weakest, res.Bisector, !res.BisectorAllowed)
+	fmt.Printf("weakest Maxwell index %.4f; the bisector layout reaches %.4f", res.Weakest, res.Bisector)
+	if res.BisectorAllowed {
+		fmt.Println(" and is allowed")
+	} else {
+		fmt.Println(" but the port rules it out")
+	}
 	stability(must(res.Coupling.Contacts()))
 	g := must(res.Coupling.Geometry())
 	ex := excentre(balls[0].Centre, balls[1].Centre, balls[2].Centre)
@@ -168,7 +172,7 @@ func section(title string) {
 // constraint prints the constraint analysis of a contact set.
 func constraint(cs []kinematic.Contact) {
 	an := must(kinematic.Analyze(cs))
-	fmt.Printf("contacts %d, independent constraints %d, degrees of freedom %d; condition number %.1f\n",
+	fmt.Printf("contacts %d, independent constraints %d, degrees of freedom %d; condition number %.1f (dimensionless)\n",
 		len(cs), an.Rank, an.DOF, an.Condition)
 	if an.NearSingular {
 		fmt.Println("WARNING: near-singular: the constraint barely holds")
@@ -176,10 +180,10 @@ func constraint(cs []kinematic.Contact) {
 	for i, t := range an.Free {
 		ax := t.Axis()
 		if math.IsInf(ax.Pitch, 1) {
-			fmt.Printf("free motion %d: translation along (%.3f, %.3f, %.3f)\n", i+1, ax.Dir.X, ax.Dir.Y, ax.Dir.Z)
+			fmt.Printf("free motion %d: translation along the unit direction (%.3f, %.3f, %.3f)\n", i+1, ax.Dir.X, ax.Dir.Y, ax.Dir.Z)
 			continue
 		}
-		fmt.Printf("free motion %d: rotation about (%.3f, %.3f, %.3f) through (%.1f, %.1f, %.1f) mm, pitch %.3f mm/rad\n",
+		fmt.Printf("free motion %d: rotation about the unit direction (%.3f, %.3f, %.3f) through (%.1f, %.1f, %.1f) mm, pitch %.3f mm/rad\n",
 			i+1, ax.Dir.X, ax.Dir.Y, ax.Dir.Z, ax.Point.X*1e3, ax.Point.Y*1e3, ax.Point.Z*1e3, ax.Pitch*1e3)
 	}
 	for i, c := range an.Redundant {
@@ -189,7 +193,7 @@ func constraint(cs []kinematic.Contact) {
 				terms = append(terms, fmt.Sprintf("%+.3f·%s", x, cs[j].Label))
 			}
 		}
-		fmt.Printf("redundant %d: %s = 0  (contacts %s fight each other)\n", i+1, strings.Join(terms, " "), strings.Join(an.Participants[i], ", "))
+		fmt.Printf("redundant %d: %s = 0 (weights of unit contact forces; contacts %s fight each other)\n", i+1, strings.Join(terms, " "), strings.Join(an.Participants[i], ", "))
 	}
 	switch {
 	case an.DOF == 0 && len(an.Redundant) == 0:
@@ -203,17 +207,25 @@ func constraint(cs []kinematic.Contact) {
 	}
 }
 
+// explained records that the Maxwell index has been explained once.
+var explained bool
+
 // stability prints the Maxwell indices of a six-contact set and returns the
 // weakest.
 func stability(cs []kinematic.Contact) float64 {
 	st := must(must(kinematic.Analyze(cs)).Stability())
-	fmt.Println("contact  Maxwell index  at ball centre")
+	if !explained {
+		fmt.Println("Maxwell index (dimensionless, 0 to 1): 1 when the motion freed by losing that")
+		fmt.Println("contact lifts it straight off its surface, near 0 when it slides along it.")
+		explained = true
+	}
+	fmt.Println("contact  at contact point  at ball centre")
 	for i, m := range st.Contacts {
 		mark := ""
 		if i == st.Weakest {
 			mark = "  <- weakest"
 		}
-		fmt.Printf("%-7s  %13.4f  %14.4f%s\n", m.Label, m.Index, m.CentreIndex, mark)
+		fmt.Printf("%-7s  %16.4f  %14.4f%s\n", m.Label, m.Index, m.CentreIndex, mark)
 	}
 	return st.Contacts[st.Weakest].Index
 }
@@ -236,9 +248,9 @@ func hertzContact(c kinematic.Contact, load float64) {
 	fmt.Printf("contact ellipse %.1f × %.1f µm (semi-axes), approach %.2f µm, stiffness %.1f N/µm\n",
 		h.SemiMajor*1e6, h.SemiMinor*1e6, h.Approach*1e6, h.Stiffness*1e-6)
 	fmt.Printf("peak pressure %.0f MPa, mean %.0f MPa\n", h.PeakPressure*1e-6, h.MeanPressure*1e-6)
-	for i, name := range []string{"ball", "flank"} {
+	for i, name := range []string{"ball:", "flank:"} {
 		s := h.Stress[i]
-		fmt.Printf("%-5s: max shear %.0f MPa at %.1f µm depth, max von Mises %.0f MPa at %.1f µm\n",
+		fmt.Printf("%-6s max shear %.0f MPa at %.1f µm depth, max von Mises %.0f MPa at %.1f µm\n",
 			name, s.MaxShear*1e-6, s.MaxShearDepth*1e6, s.MaxVonMises*1e-6, s.MaxVonMisesDepth*1e6)
 	}
 	for _, m := range []hertz.Material{c.Moving.Material, c.Base.Material} {
