@@ -390,7 +390,11 @@ func TestOptimizeGrooves(t *testing.T) {
 	}
 
 	// Windows that keep every groove at least 0.3 rad off radial, on one
-	// side: the bisectors (azimuths ±0.067 and 0 rad here) are outside.
+	// side: the bisectors are outside. By hand: at A = (−60, 0) the angle
+	// of the triangle is atan(30/60) = 26.57°, so its bisector lies 13.28°
+	// above AB, while radial (towards the centroid (0, 10)) lies
+	// atan(10/60) = 9.46° above it: 3.82° = 0.067 rad apart; B mirrors A,
+	// and C's bisector is radial.
 	wins := []Window{{Min: 0.3, Max: 1.2}, {Min: 0.3, Max: 1.2}, {Min: 0.3, Max: 1.2}}
 	res, err = OptimizeGrooves(bis, &GrooveOptions{Windows: wins})
 	if err != nil {
