@@ -364,3 +364,39 @@ func TestSolvePSD3(t *testing.T) {
 		t.Errorf("singular system: x = %v, kept %d; want (0.5, 3, 0), 2", x, kept)
 	}
 }
+
+// TestUnit3 checks Unit3 against the defining property |u| = 1, u ∥ v, over
+// the whole float64 range, subnormals included, where r3.Unit fails.
+func TestUnit3(t *testing.T) {
+	for _, v := range []r3.Vec{
+		{X: 3, Y: 4},                      // 3-4-5 triangle: (0.6, 0.8, 0) exactly
+		{Z: 5e-324},                       // the smallest subnormal
+		{X: 5e-324, Y: -5e-324},           // two subnormals: (1, −1, 0)/√2
+		{X: 1e-310, Y: 2e-310, Z: 2e-310}, // (1, 2, 2)/3
+		{X: 1e308, Y: 1e308, Z: 1e308},    // squares overflow
+		{X: -7},
+	} {
+		u, ok := Unit3(v)
+		if !ok {
+			t.Fatalf("Unit3(%v) reports no direction", v)
+		}
+		if l := math.Sqrt(u.X*u.X + u.Y*u.Y + u.Z*u.Z); math.Abs(l-1) > 4e-16 {
+			t.Errorf("|Unit3(%v)| = %v, want 1", v, l)
+		}
+		// Parallel: the cross product with v scaled to a largest component
+		// of 1 vanishes to rounding.
+		m := max(math.Abs(v.X), math.Abs(v.Y), math.Abs(v.Z))
+		w := r3.Vec{X: v.X / m, Y: v.Y / m, Z: v.Z / m}
+		if c := Norm3(r3.Cross(u, w)); c > 1e-15 {
+			t.Errorf("Unit3(%v) = %v is not parallel to v (|u × v̂| = %g)", v, u, c)
+		}
+	}
+	if u, _ := Unit3(r3.Vec{X: 3, Y: 4}); u != (r3.Vec{X: 0.6, Y: 0.8}) {
+		t.Errorf("Unit3(3, 4, 0) = %v, want (0.6, 0.8, 0) exactly", u)
+	}
+	for _, v := range []r3.Vec{{}, {X: math.NaN()}, {Y: math.Inf(-1)}} {
+		if _, ok := Unit3(v); ok {
+			t.Errorf("Unit3(%v) reports a direction", v)
+		}
+	}
+}

@@ -1,0 +1,41 @@
+// Package errs holds the error meanings that every public package of the
+// module shares. Each package re-exports them under its own names
+// (screw.ErrNonFinite, hertz.ErrNonFinite and kinematic.ErrNonFinite are the
+// same value), so that errors.Is gives the same answer whichever package's
+// sentinel a caller tests for, and an error translated from one package's
+// vocabulary into another's still matches both.
+package errs
+
+import "errors"
+
+var (
+	// NonFinite reports a NaN or an infinity where a finite number is
+	// needed.
+	NonFinite = errors.New("not finite")
+
+	// Range reports a finite number outside its domain (a radius that is
+	// not positive, an angle outside its interval), or input whose result
+	// would leave the floating-point range.
+	Range = errors.New("out of range")
+
+	// Degenerate reports geometry that defines nothing: a zero direction,
+	// coincident points, too few elements, a layout with no answer.
+	Degenerate = errors.New("degenerate")
+)
+
+// Kind is a sentinel that refines another: errors.Is finds both the kind
+// and its parent. hertz.ErrLineContact, for example, is a Kind whose parent
+// is Degenerate.
+type Kind struct {
+	msg    string
+	parent error
+}
+
+// New returns a sentinel with the message msg that refines parent.
+func New(msg string, parent error) *Kind { return &Kind{msg: msg, parent: parent} }
+
+// Error returns the message.
+func (k *Kind) Error() string { return k.msg }
+
+// Unwrap returns the parent sentinel.
+func (k *Kind) Unwrap() error { return k.parent }
