@@ -18,70 +18,85 @@ import (
 // for the screw axis). Participants lists, for each redundant combination
 // in Redundant, the labels of the contacts that take part in it (those
 // with a non-zero weight).
+//
+// NearSingular is an arithmetic flag (see [screw.NearSingularRatio]): it
+// says that the rank itself is barely decided, not that the layout is good.
+// Layouts that no designer would accept (a condition number of 30, a point
+// of interest that moves ten micrometres per micrometre of gap error) are
+// far from it; judge a layout by its design figures, not by this flag.
 type Analysis struct {
 	screw.Analysis
 	DOF          int
 	Participants [][]string
 
-	lines []line // the contacts, kept for Stability
-}
-
-// line is what the analyses need of a contact.
-type line struct {
-	label  string
-	p, n   r3.Vec
-	centre r3.Vec
-	ball   bool
+	lines  []line // the contacts, in local coordinates, kept for Stability
+	origin r3.Vec // the local origin: lines[i].p + origin is contact i's point
 }
 
 // Analyze returns the constraint analysis of the contacts cs: how many
 // freedoms they constrain, the motions left free, the redundant contacts,
-// and whether the set is near-singular. Verdicts do not depend on units or
-// on where the design sits (see package screw's tolerance policy).
+// and whether the set is near-singular.
+//
+// Verdicts do not depend on units or on where the design sits: the
+// contacts are taken relative to their own centroid before anything else,
+// so a design 10 km from the origin gets the same verdicts and indices as
+// at the origin, until its coordinates themselves run out of digits (a
+// size below about 1e-10 of its distance from the origin, where float64
+// holds the contact points to about 1e-6 of the design's size).
 //
 // Analyze returns an [*InputError] wrapping [ErrDegenerate] for fewer than
-// two contacts or a zero normal, and [ErrNonFinite] for a NaN or infinite
-// point, normal or ball centre; errors from package screw (extreme
-// magnitudes) are wrapped as they come.
+// two contacts or a zero normal, [ErrNonFinite] for a NaN or infinite
+// point, normal, ball centre or radius, and [ErrRange] for contacts too far
+// apart for float64 arithmetic.
 func Analyze(cs []Contact) (Analysis, error) {
 	if len(cs) < 2 {
 		return Analysis{}, &InputError{Field: "cs", Err: fmt.Errorf("%w: %d contacts; a coupling needs at least two", ErrDegenerate, len(cs))}
 	}
 	lines := make([]line, len(cs))
-	var stack [12]screw.Wrench
-	var ws []screw.Wrench
-	if len(cs) <= len(stack) {
-		ws = stack[:len(cs)]
-	} else {
-		ws = make([]screw.Wrench, len(cs))
-	}
-	for i, c := range cs {
+	var o r3.Vec
+	for i := range cs {
+		c := &cs[i]
 		if !linalg.Finite3(c.Point) {
-			return Analysis{}, &InputError{Field: fmt.Sprintf("cs[%d].Point", i), Err: fmt.Errorf("%w: %v", ErrNonFinite, c.Point)}
+			return Analysis{}, &InputError{Field: indexed("cs", i) + ".Point", Err: fmt.Errorf("%w: %v", ErrNonFinite, c.Point)}
 		}
-		l := linalg.Norm3(c.Normal)
-		if l == 0 || !linalg.Finite3(c.Normal) {
+		n, ok := linalg.Unit3(c.Normal)
+		if !ok {
 			// The field name is formatted only on error, off the hot path.
-			_, err := unitOf(c.Normal, fmt.Sprintf("cs[%d].Normal", i))
+			_, err := unitOf(c.Normal, indexed("cs", i)+".Normal")
 			return Analysis{}, err
 		}
-		n := r3.Scale(1/l, c.Normal)
 		ball := c.Radius != 0
 		if ball && (!linalg.Finite3(c.Centre) || math.IsNaN(c.Radius) || math.IsInf(c.Radius, 0)) {
-			return Analysis{}, &InputError{Field: fmt.Sprintf("cs[%d].Centre", i), Err: fmt.Errorf("%w: centre %v, radius %g", ErrNonFinite, c.Centre, c.Radius)}
-		}
-		// A unit force along the normal through the contact point.
-		ws[i] = screw.Wrench{F: n, M: r3.Cross(c.Point, n)}
-		if !linalg.Finite3(ws[i].M) {
-			return Analysis{}, &InputError{Field: fmt.Sprintf("cs[%d].Point", i), Err: fmt.Errorf("%w: too far from the origin: %v", ErrRange, c.Point)}
+			return Analysis{}, &InputError{Field: indexed("cs", i) + ".Centre", Err: fmt.Errorf("%w: centre %v, radius %g", ErrNonFinite, c.Centre, c.Radius)}
 		}
 		lines[i] = line{label: c.Label, p: c.Point, n: n, centre: c.Centre, ball: ball}
+		o = r3.Add(o, r3.Scale(1/float64(len(cs)), c.Point))
+	}
+	if !linalg.Finite3(o) {
+		return Analysis{}, &InputError{Field: "cs", Err: fmt.Errorf("%w: contact points too far apart for float64", ErrRange)}
+	}
+	// Local coordinates: subtracting o costs each point a rounding error
+	// of ε|p|, the precision the point carries anyway.
+	var stack [12]screw.Wrench
+	ws := stack[:0]
+	if len(cs) > len(stack) {
+		ws = make([]screw.Wrench, 0, len(cs))
+	}
+	for i := range lines {
+		l := &lines[i]
+		l.p = r3.Sub(l.p, o)
+		l.centre = r3.Sub(l.centre, o)
+		ws = append(ws, screw.Wrench{F: l.n, M: r3.Cross(l.p, l.n)})
 	}
 	sa, err := screw.Analyze(ws)
 	if err != nil {
-		return Analysis{}, fmt.Errorf("kinematic: %w", err)
+		return Analysis{}, fromScrew(err, "cs")
 	}
-	an := Analysis{Analysis: sa, DOF: 6 - sa.Rank, lines: lines}
+	an := Analysis{Analysis: sa, DOF: 6 - sa.Rank, lines: lines, origin: o}
+	an.Centre = r3.Add(sa.Centre, o)
+	for k, t := range an.Free {
+		an.Free[k] = global(t, o)
+	}
 	if len(sa.Redundant) > 0 {
 		an.Participants = make([][]string, len(sa.Redundant))
 		for k, c := range sa.Redundant {
@@ -95,131 +110,8 @@ func Analyze(cs []Contact) (Analysis, error) {
 	return an, nil
 }
 
-// labelOf returns label, or "cs[i]" if it is empty.
-func labelOf(label string, i int) string {
-	if label != "" {
-		return label
-	}
-	return fmt.Sprintf("cs[%d]", i)
+// global returns the twist t, whose V is the velocity of the body point at
+// the local origin o, with V at the global origin instead: V − W × o.
+func global(t screw.Twist, o r3.Vec) screw.Twist {
+	return screw.Twist{W: t.W, V: r3.Sub(t.V, r3.Cross(t.W, o))}
 }
-
-// Stability is the Maxwell stability of an exactly constrained contact set:
-// one entry per contact, in the order analysed, and the weakest of them.
-type Stability struct {
-	Contacts []Maxwell
-	Weakest  int // index into Contacts of the smallest Index; the first of those within 1e-12 of it
-}
-
-// tieTol is the margin within which Maxwell indices tie for the weakest:
-// symmetric designs have equal indices that rounding would otherwise
-// order at random, and an index is good to about 1e-14.
-const tieTol = 1e-12
-
-// Maxwell describes what contact i holds: the motion that becomes free when
-// it is removed, and how squarely the contact resists it.
-//
-// Freed is that twist, scaled so that the contact point separates from the
-// seat at unit speed: n·v = +1, with v the velocity of the contact point
-// (rad/s and m/s). It has zero power with every other contact.
-//
-// Index is the Maxwell index at the contact point, |n·v|/|v| in [0, 1]: 1
-// when the freed motion carries the contact point straight along the
-// normal, near 0 when it slides nearly along the surface, which then barely
-// resists. CentreIndex is the same measure taken with the velocity v_c of
-// the ball's centre, which lies a radius r along n from the contact point:
-// v_c = v + r·W × n (W the freed angular velocity). The term r·W × n is
-// tangent to the surface, so both share n·v = n·v_c = 1 and differ only
-// in their tangential parts: Index counts the sliding that the ball's
-// rotation adds at its surface, where friction acts, and can be above or
-// below CentreIndex; CentreIndex judges where the seat lets the ball's
-// centre go, independent of the ball's size. The two are equal for a
-// contact not made by a ball and whenever W × n = 0.
-type Maxwell struct {
-	Label       string
-	Freed       screw.Twist
-	Index       float64
-	CentreIndex float64
-}
-
-// Stability returns the Maxwell stability of the analysed contacts: for
-// each contact, the twist freed by removing it and the Maxwell index,
-// Maxwell's criterion for a stable kinematic constraint generalised to any
-// 3D set (each freed motion should move its contact along the normal).
-// The twists freed by removing one contact each are the rows of the
-// inverse of the 6×6 matrix of contact wrenches: twist i has power δᵢⱼ with
-// wrench j.
-//
-// Stability returns an [*InputError] wrapping [ErrNotExact] unless the set
-// has exactly six contacts of rank 6. A near-singular set is analysed; its
-// small indices say so.
-func (a Analysis) Stability() (Stability, error) {
-	if len(a.lines) != 6 || a.Rank != 6 {
-		return Stability{}, &InputError{Field: "cs", Err: fmt.Errorf(
-			"%w: %d contacts of rank %d (%d free motions, %d redundant); Maxwell indices need six independent contacts",
-			ErrNotExact, len(a.lines), a.Rank, len(a.Free), len(a.Redundant))}
-	}
-	ts, ok := freed(a.lines, a.Centre, a.Length)
-	if !ok {
-		return Stability{}, &InputError{Field: "cs", Err: fmt.Errorf("%w: the six contacts are singular to working precision", ErrNotExact)}
-	}
-	st := Stability{Contacts: make([]Maxwell, 6)}
-	for i, t := range ts {
-		l := &a.lines[i]
-		// Scale so that n·v = 1 exactly (it is 1 to rounding already).
-		t = t.Scale(1 / r3.Dot(l.n, t.At(l.p)))
-		m := &st.Contacts[i]
-		m.Label, m.Freed = l.label, t
-		m.Index = 1 / linalg.Norm3(t.At(l.p))
-		m.CentreIndex = m.Index
-		if l.ball {
-			m.CentreIndex = 1 / linalg.Norm3(t.At(l.centre))
-		}
-	}
-	low := st.Contacts[0].Index
-	for _, m := range st.Contacts {
-		low = math.Min(low, m.Index)
-	}
-	for i, m := range st.Contacts {
-		if m.Index <= low+tieTol {
-			st.Weakest = i
-			break
-		}
-	}
-	return st, nil
-}
-
-// freed returns the twists freed by removing each of six contacts known
-// to be independent: twist i has power δᵢⱼ with contact j. Moments are
-// taken about pc and divided by L (a reference point and a characteristic
-// length of the lines, such as screw.Analysis's Centre and Length), so that
-// the matrix's conditioning is that of the geometry, not of its units or
-// position. freed reports false if the 6×6 system is singular to working
-// precision.
-func freed(ls []line, pc r3.Vec, L float64) (ts [6]screw.Twist, ok bool) {
-	if !(L > 0) || len(ls) != 6 {
-		return ts, false
-	}
-	var c [36]float64 // column j: (n_j, (p_j − pc) × n_j / L)
-	for j := range ls {
-		l := &ls[j]
-		m := r3.Scale(1/L, r3.Cross(r3.Sub(l.p, pc), l.n))
-		c[6*j], c[6*j+1], c[6*j+2], c[6*j+3], c[6*j+4], c[6*j+5] = l.n.X, l.n.Y, l.n.Z, m.X, m.Y, m.Z
-	}
-	if !linalg.Inverse6(&c, singularTol) {
-		return ts, false
-	}
-	// Row i of C⁻¹ pairs with column j to δᵢⱼ: it is the twist
-	// (V at pc, W·L) in the same normalised coordinates.
-	for i := range ts {
-		vpc := r3.Vec{X: c[0*6+i], Y: c[1*6+i], Z: c[2*6+i]}
-		w := r3.Scale(1/L, r3.Vec{X: c[3*6+i], Y: c[4*6+i], Z: c[5*6+i]})
-		ts[i] = screw.Twist{W: w, V: r3.Sub(vpc, r3.Cross(w, pc))}
-	}
-	return ts, true
-}
-
-// singularTol is the pivot, relative to the largest entry of its column,
-// below which freed treats the normalised 6×6 contact matrix as singular.
-// Its entries are at most 1 in magnitude; a pivot of 1e-12 is within
-// rounding (1e-16 times the growth of elimination) of a singular matrix.
-const singularTol = 1e-12

@@ -7,7 +7,7 @@ var sinkStability Stability
 // BenchmarkAnalyzeStability measures the constraint report and the
 // Maxwell stability of a six-contact coupling, from its contacts.
 func BenchmarkAnalyzeStability(b *testing.B) {
-	bis, err := BisectorVees(isosceles(), vee45)
+	bis, err := BisectorVees(isosceles(), three(vee45))
 	if err != nil {
 		b.Fatal(err)
 	}
@@ -42,7 +42,7 @@ var sinkGrooves GrooveResult
 // BenchmarkOptimizeGrooves measures the groove optimiser on a three-vee
 // coupling, with and without azimuth windows.
 func BenchmarkOptimizeGrooves(b *testing.B) {
-	bis, err := BisectorVees(isosceles(), vee45)
+	bis, err := BisectorVees(isosceles(), three(vee45))
 	if err != nil {
 		b.Fatal(err)
 	}

@@ -1,25 +1,44 @@
 package kinematic
 
-import "errors"
+import (
+	"errors"
+	"strings"
 
-// Sentinel errors wrapped by [InputError].
+	"github.com/sixfold-dev/sixfold/hertz"
+	"github.com/sixfold-dev/sixfold/internal/errs"
+	"github.com/sixfold-dev/sixfold/screw"
+)
+
+// Sentinel errors wrapped by [InputError]. ErrNonFinite, ErrRange and
+// ErrDegenerate are the same values as screw's and hertz's sentinels of the
+// same names, so errors.Is gives one answer whichever package's name a
+// caller tests with.
 var (
 	// ErrNonFinite reports a NaN or infinite number.
-	ErrNonFinite = errors.New("not finite")
-	// ErrRange reports a number outside its domain: a radius that is not
-	// positive, a half-angle outside (0, π/2), an azimuth window that is
-	// empty.
-	ErrRange = errors.New("out of range")
+	ErrNonFinite = errs.NonFinite
+
+	// ErrRange reports a finite number outside its domain: a radius that
+	// is not positive, a half-angle outside (0, π/2), an empty azimuth
+	// window; or input whose result would leave the floating-point range.
+	ErrRange = errs.Range
+
 	// ErrDegenerate reports geometry that defines nothing: a zero
 	// direction, a groove along its own up direction, coincident balls,
-	// too few contacts.
-	ErrDegenerate = errors.New("degenerate")
+	// too few contacts, two bodies without a Hertz point contact
+	// (hertz.ErrGeometry and hertz.ErrLineContact refine it).
+	ErrDegenerate = errs.Degenerate
+
 	// ErrNotExact reports a contact set that is not exactly constrained
 	// (six independent contacts) where an analysis needs one.
 	ErrNotExact = errors.New("not exactly constrained")
 )
 
-// InputError reports an invalid input: the field that holds it, and why.
+// InputError reports an invalid input: the field that holds it, as the
+// caller wrote it, and why. Errors that arise in package screw or hertz
+// come back as an InputError of this package too, with the field path
+// translated into the caller's terms ("cs[3].Normal", not "ws[3].F";
+// "Pairs[2].Seat.Material.E", not "b2.Material.E") and Err holding the
+// other package's reason, so that errors.Is finds its sentinels as well.
 type InputError struct {
 	Field string // the input as the caller wrote it, e.g. "Pairs[1].Seat.HalfAngle" or "cs[4].Normal"
 	Err   error  // wraps one of the package's sentinel errors
@@ -31,3 +50,58 @@ func (e *InputError) Error() string { return "kinematic: " + e.Field + ": " + e.
 
 // Unwrap returns the underlying error, which wraps a sentinel.
 func (e *InputError) Unwrap() error { return e.Err }
+
+// fromHertz translates an error of package hertz about the bodies of one
+// contact into this package's vocabulary: hertz's "b1" (the moving body's
+// surface) becomes moving, "b2" becomes base, and any other name (the
+// load, a pressure) is looked up in params ("load" → "cs[2] force").
+// Errors that are not hertz input errors are returned as they are.
+func fromHertz(err error, moving, base string, params map[string]string) error {
+	var he *hertz.InputError
+	if !errors.As(err, &he) {
+		return err
+	}
+	parts := strings.Split(he.Field, ", ")
+	for i, p := range parts {
+		head, rest, _ := strings.Cut(p, ".")
+		switch {
+		case head == "b1":
+			parts[i] = joinField(moving, rest)
+		case head == "b2":
+			parts[i] = joinField(base, rest)
+		case params[head] != "":
+			parts[i] = joinField(params[head], rest)
+		}
+	}
+	return &InputError{Field: strings.Join(parts, ", "), Err: he.Err}
+}
+
+func joinField(head, rest string) string {
+	if rest == "" {
+		return head
+	}
+	return head + "." + rest
+}
+
+// fromScrew translates an error of package screw about the wrenches of the
+// contacts into this package's vocabulary: "ws[i].F" is the normal of
+// contact i, "ws[i].M" and "ws[i]" its point (the moment of a unit force is
+// p × n), "ws" the contact set.
+func fromScrew(err error, set string) error {
+	var se *screw.InputError
+	if !errors.As(err, &se) {
+		return err
+	}
+	f := se.Field
+	switch {
+	case f == "ws":
+		f = set
+	case strings.HasPrefix(f, "ws["):
+		idx, part, _ := strings.Cut(f[2:], ".")
+		f = set + idx + ".Point"
+		if part == "F" {
+			f = set + idx + ".Normal"
+		}
+	}
+	return &InputError{Field: f, Err: se.Err}
+}

@@ -26,7 +26,7 @@ func ExampleBisectorVees() {
 		{Centre: r3.Vec{X: 0.005, Y: 0.040}, Radius: 4e-3, Material: hertz.SiliconNitride},
 	}
 	vee := kinematic.Vee{Up: r3.Vec{Z: 1}, HalfAngle: math.Pi / 4, Material: hertz.Steel440C}
-	c, err := kinematic.BisectorVees(balls, vee)
+	c, err := kinematic.BisectorVees(balls, [3]kinematic.Vee{vee, vee, vee})
 	if err != nil {
 		log.Fatal(err)
 	}
@@ -72,7 +72,7 @@ func ExampleOptimizeGrooves() {
 		{Centre: r3.Vec{X: 0.005, Y: 0.040}, Radius: 4e-3},
 	}
 	vee := kinematic.Vee{Up: r3.Vec{Z: 1}, HalfAngle: math.Pi / 4}
-	c, err := kinematic.BisectorVees(balls, vee)
+	c, err := kinematic.BisectorVees(balls, [3]kinematic.Vee{vee, vee, vee})
 	if err != nil {
 		log.Fatal(err)
 	}

@@ -97,7 +97,7 @@ func FuzzAnalyze(f *testing.F) {
 }
 
 func threeVeesF(f *testing.F) Coupling {
-	c, err := BisectorVees(isosceles(), vee45)
+	c, err := BisectorVees(isosceles(), three(vee45))
 	if err != nil {
 		f.Fatal(err)
 	}

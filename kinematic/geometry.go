@@ -13,23 +13,31 @@ import (
 // groove axes point, the instantaneous axis of each pair of vees, and the
 // coupling centre.
 type Geometry struct {
+	// HasCentre reports whether the coupling has two or more vees, so
+	// that Centre, Spread and Parallel are set.
+	//
 	// Centre is the point nearest to all groove axes in least squares, m:
 	// the coupling centre. Spread is the RMS distance of the groove axes
 	// from it, m; zero when the axes meet in one point. When all grooves
 	// are parallel (Parallel), the nearest points form a line along them
 	// and Centre is the one nearest to the centroid of the seated balls.
-	Centre   r3.Vec
-	Spread   float64
-	Parallel bool
+	HasCentre bool
+	Centre    r3.Vec
+	Spread    float64
+	Parallel  bool
 
 	Grooves []Groove
 	Axes    []PairAxis
 
-	// Triangle reports whether the coupling has three balls, so that the
-	// ball triangle's Centroid and Incentre, and each groove's
-	// OffBisector, are set. The angle bisectors of a triangle meet at its
+	// Socket is the index into Coupling.Pairs of the coupling's one
+	// socket (a Trihedral or Cone seat), or −1 if it has none or several.
+	Socket int
+
+	// Triangle reports whether the coupling has three balls that are not
+	// in a line, so that the ball triangle's Incentre and each groove's
+	// OffBisector are set. The angle bisectors of a triangle meet at its
 	// incentre, which is also the centroid only for an equilateral
-	// triangle.
+	// triangle. Centroid, the centroid of all ball centres, is always set.
 	Triangle bool
 	Centroid r3.Vec
 	Incentre r3.Vec
@@ -42,18 +50,26 @@ type Groove struct {
 	Point     r3.Vec // the ball's centre, m
 	Direction r3.Vec // unit, normal to the seat's Up
 
-	// Azimuth is the groove's angle about Up from the direction that
-	// points from the ball towards the centroid of all ball centres
-	// ("radial"), right-handed, in (−π/2, π/2] (a groove is a line, so
-	// azimuths π apart are the same groove). Radial is the direction
-	// towards the centroid projected normal to Up; it is undefined, and
-	// Azimuth zero, when that projection vanishes.
-	Azimuth float64
+	// Azimuth is the groove's angle about Up from the [Radial] direction,
+	// right-handed, in (−π/2, π/2] (a groove is a line, so azimuths π
+	// apart are the same groove); zero when the radial direction is
+	// undefined (the ball straight above or below the centroid of the
+	// balls). FrameAzimuth is the same angle from the [FrameX] direction.
+	Azimuth      float64
+	FrameAzimuth float64
 
 	// OffBisector is the angle in [0, π/2] between the groove axis and
-	// the bisector of the ball triangle's angle at this ball (when
+	// the bisector of the ball triangle's angle at this ball, projected
+	// into the seat's plane as [BisectorVees] lays it (when
 	// Geometry.Triangle is set; zero otherwise).
 	OffBisector float64
+
+	// OffSocket is the angle in [0, π/2] between the groove axis and the
+	// direction from this ball to the socket's ball, projected into the
+	// seat's plane (when Geometry.Socket ≥ 0; zero otherwise). A vee aimed
+	// at the socket has OffSocket zero, so that the coupling expands
+	// about the socket without tilting.
+	OffSocket float64
 }
 
 // PairAxis is the instantaneous axis of two vee seats: with only these two
@@ -77,57 +93,69 @@ type PairAxis struct {
 // α of one direction, is below n·parallelTol².
 const parallelTol = 1e-6
 
-// Geometry returns the layout of the coupling's vee seats. It needs at
-// least two vees. Errors are those of [Coupling.Contacts], and an
-// [*InputError] wrapping [ErrDegenerate] with fewer than two vees.
+// Geometry returns the layout of the coupling's vee seats: every groove,
+// and with two or more vees the pair axes and the coupling centre. Errors
+// are those of [Coupling.Contacts].
 func (c Coupling) Geometry() (Geometry, error) {
 	if _, err := c.Contacts(); err != nil { // validates every pair
 		return Geometry{}, err
 	}
-	var g Geometry
-	g.Centroid = ballCentroid(c)
+	g := Geometry{Socket: -1, Centroid: ballCentroid(c)}
+	for i, p := range c.Pairs {
+		switch p.Seat.(type) {
+		case Trihedral, Cone:
+			if g.Socket == -1 {
+				g.Socket = i
+			} else {
+				g.Socket = -2
+			}
+		}
+	}
+	g.Socket = max(g.Socket, -1)
+	if len(c.Pairs) == 3 {
+		a, b, cc := c.Pairs[0].Ball.Centre, c.Pairs[1].Ball.Centre, c.Pairs[2].Ball.Centre
+		if isTriangle(a, b, cc) {
+			g.Triangle = true
+			g.Incentre = incentre(a, b, cc)
+		}
+	}
 	for i, p := range c.Pairs {
 		v, ok := p.Seat.(Vee)
 		if !ok {
 			continue
 		}
-		up := r3.Unit(v.Up)
-		dir, _ := horizontal(v.Direction, up, "")
-		g.Grooves = append(g.Grooves, Groove{
-			Pair:      i,
-			Point:     p.Ball.Centre,
-			Direction: dir,
-			Azimuth:   azimuth(dir, up, radial(p.Ball.Centre, g.Centroid, up)),
-		})
+		up, dir, _ := v.groove("") // validated by Contacts
+		gr := Groove{Pair: i, Point: p.Ball.Centre, Direction: dir}
+		if rad, err := c.reference(i, up, Radial); err == nil {
+			gr.Azimuth = azimuthFrom(dir, up, rad)
+		}
+		gr.FrameAzimuth = azimuthFrom(dir, up, frameX(up))
+		if g.Triangle {
+			gr.OffBisector = offAxis(dir, up, r3.Sub(g.Incentre, p.Ball.Centre))
+		}
+		if g.Socket >= 0 {
+			gr.OffSocket = offAxis(dir, up, r3.Sub(c.Pairs[g.Socket].Ball.Centre, p.Ball.Centre))
+		}
+		g.Grooves = append(g.Grooves, gr)
 	}
 	if len(g.Grooves) < 2 {
-		return Geometry{}, &InputError{Field: "Pairs", Err: fmt.Errorf("%w: %d vee seats; the layout of grooves needs two or more", ErrDegenerate, len(g.Grooves))}
+		return g, nil
 	}
 
-	// Coupling centre: Σ(I − ddᵀ) x = Σ(I − ddᵀ) p over the groove axes,
-	// solved relative to the ball centroid with the eigen-directions of
-	// zero weight (all grooves parallel) dropped.
-	var s [9]float64
-	var b [3]float64
+	// Coupling centre: the point nearest to the groove axes, solved
+	// relative to the ball centroid with the eigen-directions of zero
+	// weight (all grooves parallel) dropped.
+	var q linalg.NearestPoint
 	for _, gr := range g.Grooves {
-		q := r3.Sub(gr.Point, g.Centroid)
-		q = r3.Sub(q, r3.Scale(r3.Dot(q, gr.Direction), gr.Direction))
-		b[0], b[1], b[2] = b[0]+q.X, b[1]+q.Y, b[2]+q.Z
-		d := [3]float64{gr.Direction.X, gr.Direction.Y, gr.Direction.Z}
-		for r := 0; r < 3; r++ {
-			for k := 0; k < 3; k++ {
-				s[3*k+r] -= d[r] * d[k]
-			}
-			s[3*r+r]++
-		}
+		q.Add(r3.Sub(gr.Point, g.Centroid), gr.Direction)
 	}
-	x, rank := linalg.SolvePSD3(s, b, float64(len(g.Grooves))*parallelTol*parallelTol)
-	g.Centre = r3.Add(g.Centroid, r3.Vec{X: x[0], Y: x[1], Z: x[2]})
+	x, rank := q.Solve(float64(q.Len()) * parallelTol * parallelTol)
+	g.HasCentre = true
+	g.Centre = r3.Add(g.Centroid, x)
 	g.Parallel = rank < 3
 	var ss float64
 	for _, gr := range g.Grooves {
-		q := r3.Sub(gr.Point, g.Centre)
-		ss += r3.Norm2(r3.Cross(q, gr.Direction))
+		ss += r3.Norm2(r3.Cross(r3.Sub(gr.Point, g.Centre), gr.Direction))
 	}
 	g.Spread = math.Sqrt(ss / float64(len(g.Grooves)))
 
@@ -144,7 +172,7 @@ func (c Coupling) Geometry() (Geometry, error) {
 				g.Axes = append(g.Axes, ax)
 				continue
 			}
-			ax.Dir = r3.Unit(u)
+			ax.Dir, _ = linalg.Unit3(u)
 			// The point of the line nearest the midpoint m: solve
 			// dᵢ·x = dᵢ·pᵢ, dⱼ·x = dⱼ·pⱼ, u·x = u·m.
 			m := r3.Scale(0.5, r3.Add(gi.Point, gj.Point))
@@ -153,18 +181,24 @@ func (c Coupling) Geometry() (Geometry, error) {
 			g.Axes = append(g.Axes, ax)
 		}
 	}
-
-	if len(c.Pairs) == 3 {
-		g.Triangle = true
-		a, bb, cc := c.Pairs[0].Ball.Centre, c.Pairs[1].Ball.Centre, c.Pairs[2].Ball.Centre
-		g.Incentre = incentre(a, bb, cc)
-		for k := range g.Grooves {
-			gr := &g.Grooves[k]
-			bis := r3.Unit(r3.Sub(g.Incentre, gr.Point))
-			gr.OffBisector = math.Acos(math.Min(1, math.Abs(r3.Dot(bis, gr.Direction))))
-		}
-	}
 	return g, nil
+}
+
+// offAxis returns the angle in [0, π/2] between the unit groove direction
+// dir and the direction d projected normal to the unit vector up; zero if
+// that projection vanishes (d along up, or zero).
+func offAxis(dir, up, d r3.Vec) float64 {
+	u, ok := linalg.Unit3(d)
+	if !ok {
+		return 0
+	}
+	h, ok := flatten(u, up)
+	if !ok {
+		return 0
+	}
+	// atan2 of sine and cosine is accurate at every angle, unlike acos
+	// near 0.
+	return math.Atan2(linalg.Norm3(r3.Cross(h, dir)), math.Abs(r3.Dot(h, dir)))
 }
 
 // planes returns the point x with a·x = ha, b·x = hb and u·x = 0, for unit
@@ -176,40 +210,7 @@ func planes(a r3.Vec, ha float64, b r3.Vec, hb float64, u r3.Vec) r3.Vec {
 	return r3.Scale(1/den, r3.Add(r3.Scale(ha, r3.Cross(b, u)), r3.Scale(hb, r3.Cross(u, a))))
 }
 
-// incentre returns the incentre of the triangle abc: the vertices weighted
-// by the lengths of the opposite sides.
-func incentre(a, b, c r3.Vec) r3.Vec {
-	la, lb, lc := linalg.Norm3(r3.Sub(b, c)), linalg.Norm3(r3.Sub(c, a)), linalg.Norm3(r3.Sub(a, b))
-	s := la + lb + lc
-	return r3.Scale(1/s, r3.Add(r3.Scale(la, a), r3.Add(r3.Scale(lb, b), r3.Scale(lc, c))))
-}
-
-func ballCentroid(c Coupling) r3.Vec {
-	var s r3.Vec
-	for _, p := range c.Pairs {
-		s = r3.Add(s, p.Ball.Centre)
-	}
-	return r3.Scale(1/float64(len(c.Pairs)), s)
-}
-
-// radial returns the unit direction from the ball centre p towards the
-// centroid, projected normal to the unit vector up, or the zero vector if
-// the projection vanishes (relative to the distance, by horizontalTol).
-func radial(p, centroid, up r3.Vec) r3.Vec {
-	d := r3.Sub(centroid, p)
-	h := r3.Sub(d, r3.Scale(r3.Dot(d, up), up))
-	if linalg.Norm3(h) <= horizontalTol*linalg.Norm3(d) || linalg.Norm3(h) == 0 {
-		return r3.Vec{}
-	}
-	return r3.Unit(h)
-}
-
-// azimuth returns the angle of the unit horizontal direction d about up
-// from the unit horizontal direction rad, in (−π/2, π/2]; zero if rad is
-// zero.
-func azimuth(d, up, rad r3.Vec) float64 {
-	if rad == (r3.Vec{}) {
-		return 0
-	}
-	return wrapAzimuth(math.Atan2(r3.Dot(up, r3.Cross(rad, d)), r3.Dot(rad, d)))
+// errNoVee is returned by analyses of grooves on a coupling without a vee.
+func errNoVee(field string) error {
+	return &InputError{Field: field, Err: fmt.Errorf("%w: no vee seat", ErrDegenerate)}
 }

@@ -97,3 +97,8 @@ func moved(c Coupling, s, angle float64, axis, off r3.Vec) Coupling {
 	}
 	return out
 }
+
+func near(a, b r3.Vec, tol float64) bool { return r3.Norm(r3.Sub(a, b)) <= tol }
+
+// three returns v three times, for the three-vee layouts.
+func three(v Vee) [3]Vee { return [3]Vee{v, v, v} }

@@ -21,9 +21,16 @@ type Ball struct {
 // [Trihedral] or [Cone]. Contacts of any other shape are given directly as
 // [Contact] values.
 type Seat interface {
-	// contacts returns the contacts that the seat makes with the seated
-	// ball b; name labels them and field names the seat in errors.
-	contacts(b Ball, name, field string) ([]Contact, error)
+	// appendContacts appends the contacts that the seat makes with the
+	// seated ball b to dst; name labels them and field names the seat in
+	// errors.
+	appendContacts(dst []Contact, b Ball, name, field string) ([]Contact, error)
+
+	// count returns the number of contacts the seat makes.
+	count() int
+
+	// up returns the seat's Up as given, for azimuths.
+	up() r3.Vec
 }
 
 // Vee is a groove of two flanks that holds a ball at two points, one on
@@ -67,13 +74,15 @@ type Trihedral struct {
 // Cone is a conical seat of half-angle HalfAngle between its surface and
 // its axis (Up). A ball in a cone bears on a ring, not at points; for
 // constraint analysis the ring stands as three contacts laid out as those
-// of a [Trihedral] with the same fields. The seat surface at those contacts
-// conforms to the ball around the ring, so a Hertz analysis of them reports
-// line contact ([hertz.ErrLineContact]): a cone's contact stresses need a
-// ring-contact model, which this package does not provide.
+// of a [Trihedral] with the same fields; the zero Azimuth chooses a
+// direction normal to Up (the cone is axisymmetric, so the verdicts do not
+// depend on it). The seat surface at those contacts conforms to the ball
+// around the ring, so a Hertz analysis of them reports line contact
+// ([hertz.ErrLineContact]): a cone's contact stresses need a ring-contact
+// model, which this package does not provide.
 type Cone struct {
 	Up        r3.Vec
-	Azimuth   r3.Vec
+	Azimuth   r3.Vec // zero: any direction normal to Up
 	HalfAngle float64 // rad, in (0, π/2)
 	Material  hertz.Material
 }
@@ -91,26 +100,6 @@ type Coupling struct {
 	Pairs []Pair
 }
 
-// Contact is a point contact between the moving body and the base.
-//
-// The base pushes the moving body along Normal at Point. For a contact made
-// by a ball, Centre and Radius are the ball's (Radius is 0 otherwise). The
-// surfaces that touch are Moving (the moving body's, usually the ball) and
-// Base, as [hertz.Body] values whose principal angles are measured about
-// Normal (right-handed) from Tangent, a unit vector normal to Normal.
-// Contacts given by hand may leave Tangent and the surfaces zero when only
-// constraint and stability are wanted.
-type Contact struct {
-	Label   string
-	Point   r3.Vec // m
-	Normal  r3.Vec // unit, into the moving body
-	Centre  r3.Vec // m, the ball's centre when Radius > 0
-	Radius  float64
-	Tangent r3.Vec
-	Moving  hertz.Body
-	Base    hertz.Body
-}
-
 // coincidentTol is the distance, relative to the largest distance between
 // two balls of a coupling, below which two balls are the same ball twice.
 // Drawings carry 1e-6 at worst; 1e-9 catches only a ball listed twice.
@@ -121,6 +110,12 @@ const coincidentTol = 1e-9
 // Name+"-" ("+" for the flank on the side Up × Direction), trihedral and
 // cone contacts Name+"1" to Name+"3", a flat's contact Name.
 //
+// Contacts checks the geometry only. Materials are not needed for
+// constraint, stability and layout geometry, and a zero [hertz.Material]
+// passes here; the analyses that use the Hertz surfaces (forces, stiffness,
+// seated pose under load) check them and name the pair's field
+// ("Pairs[2].Seat.Material.E").
+//
 // Contacts returns an [*InputError] naming the pair and field for a
 // missing seat, a ball radius that is not positive, a zero or non-finite
 // direction, a half-angle outside (0, π/2), a flank radius not larger than
@@ -129,65 +124,103 @@ func (c Coupling) Contacts() ([]Contact, error) {
 	if len(c.Pairs) == 0 {
 		return nil, &InputError{Field: "Pairs", Err: fmt.Errorf("%w: no pairs", ErrDegenerate)}
 	}
-	var span float64
-	for i, p := range c.Pairs {
-		if err := checkBall(p.Ball, fmt.Sprintf("Pairs[%d].Ball", i)); err != nil {
-			return nil, err
-		}
-		for j := 0; j < i; j++ {
-			span = math.Max(span, linalg.Norm3(r3.Sub(p.Ball.Centre, c.Pairs[j].Ball.Centre)))
-		}
+	if err := checkBalls(c.Pairs); err != nil {
+		return nil, err
 	}
+	n := 0
 	for i, p := range c.Pairs {
-		for j := 0; j < i; j++ {
-			if d := linalg.Norm3(r3.Sub(p.Ball.Centre, c.Pairs[j].Ball.Centre)); d <= coincidentTol*span {
-				return nil, &InputError{Field: fmt.Sprintf("Pairs[%d].Ball.Centre", i), Err: fmt.Errorf(
-					"%w: the same centre as Pairs[%d]'s ball", ErrDegenerate, j)}
-			}
-		}
-	}
-	var cs []Contact
-	for i, p := range c.Pairs {
-		field := fmt.Sprintf("Pairs[%d].Seat", i)
 		if p.Seat == nil {
-			return nil, &InputError{Field: field, Err: fmt.Errorf("%w: no seat", ErrDegenerate)}
+			return nil, &InputError{Field: pairField(i) + ".Seat", Err: fmt.Errorf("%w: no seat", ErrDegenerate)}
 		}
-		more, err := p.Seat.contacts(p.Ball, pairName(p.Name, i), field)
+		n += p.Seat.count()
+	}
+	cs := make([]Contact, 0, n)
+	for i, p := range c.Pairs {
+		var err error
+		cs, err = p.Seat.appendContacts(cs, p.Ball, pairName(p.Name, i), pairField(i)+".Seat")
 		if err != nil {
 			return nil, err
 		}
-		cs = append(cs, more...)
 	}
 	return cs, nil
 }
 
-// pairName returns name, or a letter by position if name is empty.
-func pairName(name string, i int) string {
-	if name != "" {
-		return name
+// pairField returns "Pairs[i]".
+func pairField(i int) string { return indexed("Pairs", i) }
+
+// checkBalls validates every ball and rejects coincident ones.
+func checkBalls(ps []Pair) error {
+	var span float64
+	for i, p := range ps {
+		if err := checkBall(p.Ball, pairField(i)+".Ball"); err != nil {
+			return err
+		}
+		for j := 0; j < i; j++ {
+			span = math.Max(span, linalg.Norm3(r3.Sub(p.Ball.Centre, ps[j].Ball.Centre)))
+		}
 	}
-	if i < 26 {
-		return string(rune('A' + i))
+	for i, p := range ps {
+		for j := 0; j < i; j++ {
+			if d := linalg.Norm3(r3.Sub(p.Ball.Centre, ps[j].Ball.Centre)); d <= coincidentTol*span {
+				return &InputError{Field: pairField(i) + ".Ball.Centre", Err: fmt.Errorf(
+					"%w: the same centre as Pairs[%d]'s ball", ErrDegenerate, j)}
+			}
+		}
 	}
-	return fmt.Sprintf("P%d", i+1)
+	return nil
 }
 
 func checkBall(b Ball, field string) error {
 	if !linalg.Finite3(b.Centre) {
 		return &InputError{Field: field + ".Centre", Err: fmt.Errorf("%w: %v", ErrNonFinite, b.Centre)}
 	}
-	if !(b.Radius > 0) || math.IsInf(b.Radius, 0) {
-		return &InputError{Field: field + ".Radius", Err: fmt.Errorf("%w: must be positive and finite, got %g", ErrRange, b.Radius)}
+	if math.IsNaN(b.Radius) || math.IsInf(b.Radius, 0) {
+		return &InputError{Field: field + ".Radius", Err: fmt.Errorf("%w: %g", ErrNonFinite, b.Radius)}
+	}
+	if !(b.Radius > 0) {
+		return &InputError{Field: field + ".Radius", Err: fmt.Errorf("%w: must be positive, got %g", ErrRange, b.Radius)}
 	}
 	return nil
 }
 
-func (v Vee) contacts(b Ball, name, field string) ([]Contact, error) {
-	up, err := unitOf(v.Up, field+".Up")
+func (v Vee) count() int  { return 2 }
+func (v Vee) up() r3.Vec  { return v.Up }
+func (f Flat) count() int { return 1 }
+func (f Flat) up() r3.Vec { return f.Up }
+
+func (t Trihedral) count() int { return 3 }
+func (t Trihedral) up() r3.Vec { return t.Up }
+func (c Cone) count() int      { return 3 }
+func (c Cone) up() r3.Vec      { return c.Up }
+
+// groove returns the vee's unit Up and unit groove direction (the part of
+// Direction normal to Up), validated.
+func (v Vee) groove(field string) (up, g r3.Vec, err error) {
+	up, err = unitOf(v.Up, field+".Up")
 	if err != nil {
-		return nil, err
+		return r3.Vec{}, r3.Vec{}, err
 	}
-	g, err := horizontal(v.Direction, up, field+".Direction")
+	g, err = horizontal(v.Direction, up, field+".Direction")
+	if err != nil {
+		return r3.Vec{}, r3.Vec{}, err
+	}
+	return up, g, nil
+}
+
+// flankNormals returns the contact normals of a vee of half-angle with
+// sine s and cosine c, unit Up up and unit groove direction g: the "+"
+// flank's on the side up × g, then the "−" flank's. Each leans the
+// half-angle from the plane normal to up and points into the ball.
+func flankNormals(up, g r3.Vec, s, c float64) [2]r3.Vec {
+	side := r3.Cross(up, g)
+	return [2]r3.Vec{
+		r3.Add(r3.Scale(s, up), r3.Scale(-c, side)),
+		r3.Add(r3.Scale(s, up), r3.Scale(c, side)),
+	}
+}
+
+func (v Vee) appendContacts(dst []Contact, b Ball, name, field string) ([]Contact, error) {
+	up, g, err := v.groove(field)
 	if err != nil {
 		return nil, err
 	}
@@ -205,57 +238,56 @@ func (v Vee) contacts(b Ball, name, field string) ([]Contact, error) {
 		// groove direction, so the axis angle is 0.
 		base = hertz.Groove(rf, 0, v.Material)
 	}
-	side := r3.Cross(up, g)
 	s, c := math.Sincos(v.HalfAngle)
-	cs := make([]Contact, 2)
-	for k, sgn := range [2]float64{1, -1} {
-		n := r3.Add(r3.Scale(s, up), r3.Scale(-sgn*c, side))
-		cs[k] = ballContact(b, name+[2]string{"+", "-"}[k], n, g, base)
-	}
-	return cs, nil
+	ns := flankNormals(up, g, s, c)
+	dst = append(dst,
+		ballContact(b, name+"+", ns[0], g, base),
+		ballContact(b, name+"-", ns[1], g, base))
+	return dst, nil
 }
 
-func (f Flat) contacts(b Ball, name, field string) ([]Contact, error) {
+func (f Flat) appendContacts(dst []Contact, b Ball, name, field string) ([]Contact, error) {
 	up, err := unitOf(f.Up, field+".Up")
 	if err != nil {
 		return nil, err
 	}
-	return []Contact{ballContact(b, name, up, anyNormal(up), hertz.Flat(f.Material))}, nil
+	return append(dst, ballContact(b, name, up, anyNormal(up), hertz.Flat(f.Material))), nil
 }
 
-func (t Trihedral) contacts(b Ball, name, field string) ([]Contact, error) {
-	return socket(b, name, field, t.Up, t.Azimuth, t.HalfAngle, func(Ball) hertz.Body { return hertz.Flat(t.Material) })
+func (t Trihedral) appendContacts(dst []Contact, b Ball, name, field string) ([]Contact, error) {
+	return socket(dst, b, name, field, t.Up, t.Azimuth, t.HalfAngle, hertz.Flat(t.Material), false)
 }
 
-func (c Cone) contacts(b Ball, name, field string) ([]Contact, error) {
+func (c Cone) appendContacts(dst []Contact, b Ball, name, field string) ([]Contact, error) {
 	// Around the ring (Tangent) the cone conforms to the ball: radius −r.
 	// Along the generator it is straight.
-	return socket(b, name, field, c.Up, c.Azimuth, c.HalfAngle, func(b Ball) hertz.Body {
-		return hertz.Toroid(-b.Radius, math.Inf(1), 0, c.Material)
-	})
+	surface := hertz.Toroid(-b.Radius, math.Inf(1), 0, c.Material)
+	return socket(dst, b, name, field, c.Up, c.Azimuth, c.HalfAngle, surface, true)
 }
 
-// socket returns the three contacts of a trihedral or conical seat.
-func socket(b Ball, name, field string, upv, az r3.Vec, half float64, surface func(Ball) hertz.Body) ([]Contact, error) {
+// socket appends the three contacts of a trihedral or conical seat. With
+// anyAzimuth a zero azimuth picks a direction normal to Up.
+func socket(dst []Contact, b Ball, name, field string, upv, az r3.Vec, half float64, surface hertz.Body, anyAzimuth bool) ([]Contact, error) {
 	up, err := unitOf(upv, field+".Up")
 	if err != nil {
 		return nil, err
 	}
-	h0, err := horizontal(az, up, field+".Azimuth")
-	if err != nil {
+	var h0 r3.Vec
+	if anyAzimuth && az == (r3.Vec{}) {
+		h0 = anyNormal(up)
+	} else if h0, err = horizontal(az, up, field+".Azimuth"); err != nil {
 		return nil, err
 	}
 	if err := checkHalfAngle(half, field+".HalfAngle"); err != nil {
 		return nil, err
 	}
 	s, c := math.Sincos(half)
-	cs := make([]Contact, 3)
-	for k := range cs {
+	for k := 0; k < 3; k++ {
 		h := r3.Rotate(h0, 2*math.Pi*float64(k)/3, up)
 		n := r3.Add(r3.Scale(s, up), r3.Scale(-c, h))
-		cs[k] = ballContact(b, fmt.Sprintf("%s%d", name, k+1), n, r3.Unit(r3.Cross(up, h)), surface(b))
+		dst = append(dst, ballContact(b, fmt.Sprintf("%s%d", name, k+1), n, r3.Cross(up, h), surface))
 	}
-	return cs, nil
+	return dst, nil
 }
 
 // ballContact returns the contact of ball b along the unit normal n.
@@ -273,53 +305,11 @@ func ballContact(b Ball, label string, n, tangent r3.Vec, base hertz.Body) Conta
 }
 
 func checkHalfAngle(a float64, field string) error {
+	if math.IsNaN(a) || math.IsInf(a, 0) {
+		return &InputError{Field: field, Err: fmt.Errorf("%w: %g", ErrNonFinite, a)}
+	}
 	if !(a > 0 && a < math.Pi/2) {
 		return &InputError{Field: field, Err: fmt.Errorf("%w: must be in (0, π/2) rad, got %g", ErrRange, a)}
 	}
 	return nil
-}
-
-// horizontalTol is the smallest fraction of a direction that must lie
-// normal to Up: a groove within about 1e-6 rad of Up has no horizontal
-// direction that its numbers can be trusted for.
-const horizontalTol = 1e-6
-
-// horizontal returns the unit part of d normal to the unit vector up.
-func horizontal(d, up r3.Vec, field string) (r3.Vec, error) {
-	u, err := unitOf(d, field)
-	if err != nil {
-		return r3.Vec{}, err
-	}
-	h := r3.Sub(u, r3.Scale(r3.Dot(u, up), up))
-	l := linalg.Norm3(h)
-	if l <= horizontalTol {
-		return r3.Vec{}, &InputError{Field: field, Err: fmt.Errorf("%w: along Up; it must have a part normal to Up", ErrDegenerate)}
-	}
-	return r3.Scale(1/l, h), nil
-}
-
-// unitOf returns v/|v|, or an error naming field if v is zero or not
-// finite.
-func unitOf(v r3.Vec, field string) (r3.Vec, error) {
-	if !linalg.Finite3(v) {
-		return r3.Vec{}, &InputError{Field: field, Err: fmt.Errorf("%w: %v", ErrNonFinite, v)}
-	}
-	l := linalg.Norm3(v)
-	if l == 0 {
-		return r3.Vec{}, &InputError{Field: field, Err: fmt.Errorf("%w: zero vector", ErrDegenerate)}
-	}
-	return r3.Scale(1/l, v), nil
-}
-
-// anyNormal returns a unit vector normal to the unit vector n, chosen
-// deterministically.
-func anyNormal(n r3.Vec) r3.Vec {
-	a := r3.Vec{X: 1}
-	if math.Abs(n.X) > math.Abs(n.Y) || math.Abs(n.X) > math.Abs(n.Z) {
-		a = r3.Vec{Y: 1}
-		if math.Abs(n.Y) > math.Abs(n.Z) {
-			a = r3.Vec{Z: 1}
-		}
-	}
-	return r3.Unit(r3.Cross(n, a))
 }

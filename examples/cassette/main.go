@@ -67,14 +67,14 @@ func main() {
 
 	// 2. Vees aimed at the centroid of the balls.
 	centroid := r3.Scale(1.0/3, r3.Add(balls[0].Centre, r3.Add(balls[1].Centre, balls[2].Centre)))
-	aimed := must(kinematic.AimedVees(balls, centroid, vee))
+	aimed := must(kinematic.AimedVees(balls, centroid, [3]kinematic.Vee{vee, vee, vee}))
 	section("2. Three vees aimed at the centroid of the balls")
 	constraint(must(aimed.Contacts()))
 	weakAimed := stability(must(aimed.Contacts()))
 	layout(aimed)
 
 	// 3. Vees on the bisectors of the ball triangle.
-	bis := must(kinematic.BisectorVees(balls, vee))
+	bis := must(kinematic.BisectorVees(balls, [3]kinematic.Vee{vee, vee, vee}))
 	section("3. Three vees on the bisectors of the ball triangle")
 	constraint(must(bis.Contacts()))
 	weakBis := stability(must(bis.Contacts()))

@@ -400,3 +400,31 @@ func TestUnit3(t *testing.T) {
 		}
 	}
 }
+
+// TestNearestPoint checks the least-squares point of lines against closed
+// forms worked by hand: three lines along x, y and z through (0, 1, 1),
+// (1, 0, 1) and (1, 1, 0) all pass through (1, 1, 1), which is therefore
+// the point (distance zero); two parallel lines along x at y = 1 and y = 3
+// have the mid-line y = 2 as their nearest points, of which the one nearest
+// the origin, (0, 2, 0), is kept, with rank 2.
+func TestNearestPoint(t *testing.T) {
+	var q NearestPoint
+	q.Add(r3.Vec{Y: 1, Z: 1}, r3.Vec{X: 1})
+	q.Add(r3.Vec{X: 1, Z: 1}, r3.Vec{Y: 1})
+	q.Add(r3.Vec{X: 1, Y: 1}, r3.Vec{Z: 1})
+	x, rank := q.Solve(1e-9)
+	if rank != 3 || Norm3(r3.Sub(x, r3.Vec{X: 1, Y: 1, Z: 1})) > 1e-15 {
+		t.Errorf("three skew axes: %v (rank %d), want (1, 1, 1) (rank 3)", x, rank)
+	}
+	var p NearestPoint
+	p.Add(r3.Vec{X: 5, Y: 1}, r3.Vec{X: 1})
+	p.Add(r3.Vec{X: -2, Y: 3}, r3.Vec{X: -1})
+	x, rank = p.Solve(1e-9)
+	if rank != 2 || Norm3(r3.Sub(x, r3.Vec{Y: 2})) > 1e-15 {
+		t.Errorf("parallel lines: %v (rank %d), want (0, 2, 0) (rank 2)", x, rank)
+	}
+	var e NearestPoint
+	if x, rank := e.Solve(0); rank != 0 || x != (r3.Vec{}) || e.Len() != 0 {
+		t.Errorf("no lines: %v rank %d", x, rank)
+	}
+}
