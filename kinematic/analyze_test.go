@@ -170,3 +170,49 @@ func TestInvariance(t *testing.T) {
 		}
 	}
 }
+
+// TestFarFromOrigin: the same coupling 10 km from the origin (120 mm
+// across) or 10 m from it at 0.12 mm across (size/distance about 1e-5), and
+// 0.12 mm at 100 km (about 1e-9), gets the verdicts and indices it has at
+// the origin. The coordinates themselves carry a rounding error of
+// ε·distance (ε = 2.2e-16): relative to the design's size that is 2e-11 at
+// 1e-5 and 2e-7 at 1e-9, and the indices move by about the condition
+// number (here under 10) times that. The tolerances, 1e-9 and 1e-5, leave
+// a margin of 5 or more over that bound.
+func TestFarFromOrigin(t *testing.T) {
+	bis, err := BisectorVees(isosceles(), three(vee45)) // 120 mm across
+	if err != nil {
+		t.Fatal(err)
+	}
+	s0 := mustStability(t, bis)
+	a0 := mustAnalyze(t, mustContacts(t, bis))
+	for _, tc := range []struct {
+		name  string
+		scale float64
+		off   r3.Vec
+		tol   float64
+	}{
+		{"100 mm at 10 km", 1, r3.Vec{X: 1e4 / math.Sqrt2, Y: 1e4 / math.Sqrt2, Z: 30}, 1e-9},
+		{"0.1 mm at 10 m", 1e-3, r3.Vec{X: -6, Y: 8, Z: 0.5}, 1e-9},
+		{"0.1 mm at 100 km", 1e-3, r3.Vec{Y: 1e5}, 1e-5},
+	} {
+		m := moved(bis, tc.scale, 0.7, r3.Vec{X: 1, Y: 1, Z: 3}, tc.off)
+		a1 := mustAnalyze(t, mustContacts(t, m))
+		if a1.Rank != 6 || a1.NearSingular || math.Abs(a1.Condition-a0.Condition) > tc.tol*a0.Condition {
+			t.Errorf("%s: rank %d, near-singular %v, condition %g; want 6, false, %g", tc.name, a1.Rank, a1.NearSingular, a1.Condition, a0.Condition)
+		}
+		if r := a1.Length / (tc.scale * a0.Length); math.Abs(r-1) > tc.tol {
+			t.Errorf("%s: length %g, want %g", tc.name, a1.Length, tc.scale*a0.Length)
+		}
+		s1, err := a1.Stability()
+		if err != nil {
+			t.Errorf("%s: %v", tc.name, err)
+			continue
+		}
+		for i := range s0.Contacts {
+			if d := math.Abs(s1.Contacts[i].Index - s0.Contacts[i].Index); d > tc.tol {
+				t.Errorf("%s: %s index changed by %g", tc.name, s0.Contacts[i].Label, d)
+			}
+		}
+	}
+}

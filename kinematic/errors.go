@@ -15,18 +15,18 @@ import (
 // caller tests with.
 var (
 	// ErrNonFinite reports a NaN or infinite number.
-	ErrNonFinite = errs.NonFinite
+	ErrNonFinite = errs.ErrNonFinite
 
 	// ErrRange reports a finite number outside its domain: a radius that
 	// is not positive, a half-angle outside (0, π/2), an empty azimuth
 	// window; or input whose result would leave the floating-point range.
-	ErrRange = errs.Range
+	ErrRange = errs.ErrRange
 
 	// ErrDegenerate reports geometry that defines nothing: a zero
 	// direction, a groove along its own up direction, coincident balls,
 	// too few contacts, two bodies without a Hertz point contact
 	// (hertz.ErrGeometry and hertz.ErrLineContact refine it).
-	ErrDegenerate = errs.Degenerate
+	ErrDegenerate = errs.ErrDegenerate
 
 	// ErrNotExact reports a contact set that is not exactly constrained
 	// (six independent contacts) where an analysis needs one.

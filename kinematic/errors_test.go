@@ -3,9 +3,12 @@ package kinematic
 import (
 	"errors"
 	"math"
+	"strings"
 	"testing"
 
 	"github.com/google/go-cmp/cmp"
+	"github.com/sixfold-dev/sixfold/hertz"
+	"github.com/sixfold-dev/sixfold/screw"
 	"gonum.org/v1/gonum/spatial/r3"
 )
 
@@ -100,4 +103,86 @@ func TestInputsNotModified(t *testing.T) {
 	if d := cmp.Diff(csBefore, cs); d != "" {
 		t.Errorf("contacts modified (-before +after):\n%s", d)
 	}
+}
+
+// TestErrorsKeepCallerVocabulary: an error that arises in package screw or
+// hertz reaches the caller as this package's *InputError, with the field
+// path the caller wrote, and errors.Is finds the sentinel under either
+// package's name (they are the same values).
+func TestErrorsKeepCallerVocabulary(t *testing.T) {
+	// Two contacts 1e300 m either side of the origin: finite, but the
+	// squared distances of the analysis overflow (screw reports ErrRange).
+	cs := []Contact{
+		{Point: r3.Vec{X: -1e300}, Normal: r3.Vec{Z: 1}},
+		{Point: r3.Vec{X: 1e300}, Normal: r3.Vec{Y: 1}},
+		{Point: r3.Vec{Y: 1}, Normal: r3.Vec{X: 1}},
+	}
+	_, err := Analyze(cs)
+	var ie *InputError
+	if !errors.As(err, &ie) || !strings.HasPrefix(ie.Field, "cs") || strings.Contains(ie.Field, "ws") {
+		t.Fatalf("far contacts: err = %v, want a *kinematic.InputError on cs...", err)
+	}
+	if !errors.Is(err, ErrRange) || !errors.Is(err, screw.ErrRange) {
+		t.Errorf("far contacts: err = %v, want ErrRange under both names", err)
+	}
+
+	// A zero Material fails in hertz; translated, the field is the pair's.
+	_, herr := hertz.Solve(hertz.Sphere(5e-3, hertz.Material{}), hertz.Flat(hertz.Steel440C), 10)
+	err = fromHertz(herr, "Pairs[2].Ball", "Pairs[2].Seat", map[string]string{"load": "preload"})
+	if !errors.As(err, &ie) || ie.Field != "Pairs[2].Ball.Material.E" || !errors.Is(err, ErrRange) || !errors.Is(err, hertz.ErrRange) {
+		t.Errorf("zero ball material: err = %v, want *InputError on Pairs[2].Ball.Material.E wrapping ErrRange", err)
+	}
+	_, herr = hertz.Solve(hertz.Sphere(5e-3, hertz.Steel52100), hertz.Flat(hertz.Steel440C), -1)
+	if err = fromHertz(herr, "cs[4].Moving", "cs[4].Base", map[string]string{"load": "preload"}); !errors.As(err, &ie) || ie.Field != "preload" {
+		t.Errorf("negative load: err = %v, want field preload", err)
+	}
+	_, herr = hertz.Solve(hertz.Flat(hertz.Steel52100), hertz.Flat(hertz.Steel440C), 1)
+	if err = fromHertz(herr, "cs[4].Moving", "cs[4].Base", nil); !errors.As(err, &ie) || ie.Field != "cs[4].Moving, cs[4].Base" || !errors.Is(err, hertz.ErrGeometry) {
+		t.Errorf("flat on flat: err = %v, want field \"cs[4].Moving, cs[4].Base\" wrapping hertz.ErrGeometry", err)
+	}
+}
+
+// TestSubnormalDirections: directions with subnormal components have a
+// direction all the same; they must give the contacts of the unit vector
+// along them, never NaN (normalising by 1/|v| overflows there).
+func TestSubnormalDirections(t *testing.T) {
+	tiny := r3.Vec{Z: 5e-324}
+	v := vee45
+	v.Direction = r3.Vec{X: 1}
+	ref := mustContacts(t, Coupling{Pairs: []Pair{{Ball: ball(0, 0, 0), Seat: v}, {Ball: ball(50, 0, 0), Seat: flatUp}}})
+	v.Up, v.Direction = tiny, r3.Vec{X: 5e-324}
+	f := flatUp
+	f.Up = tiny
+	c := Coupling{Pairs: []Pair{{Ball: ball(0, 0, 0), Seat: v}, {Ball: ball(50, 0, 0), Seat: f}}}
+	got := mustContacts(t, c)
+	if d := cmp.Diff(ref, got); d != "" {
+		t.Errorf("subnormal Up and Direction (-unit +subnormal):\n%s", d)
+	}
+	bs := isosceles()
+	tv := vee45
+	tv.Up = tiny
+	bis, err := BisectorVees(bs, three(tv))
+	if err != nil {
+		t.Fatal(err)
+	}
+	g, err := bis.Geometry()
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, gr := range g.Grooves {
+		if !linalgFinite(gr.Direction) || math.IsNaN(gr.Azimuth) || math.IsNaN(gr.OffBisector) {
+			t.Errorf("groove %d: %+v", gr.Pair, gr)
+		}
+	}
+	cs := []Contact{
+		{Point: r3.Vec{X: 1}, Normal: tiny},
+		{Point: r3.Vec{Y: 1}, Normal: r3.Vec{X: -5e-324, Y: 5e-324}},
+	}
+	if an, err := Analyze(cs); err != nil || an.Rank != 2 {
+		t.Errorf("subnormal normals: rank %d, err %v; want rank 2", an.Rank, err)
+	}
+}
+
+func linalgFinite(v r3.Vec) bool {
+	return !math.IsNaN(v.X+v.Y+v.Z) && !math.IsInf(v.X+v.Y+v.Z, 0)
 }

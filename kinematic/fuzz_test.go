@@ -45,6 +45,13 @@ func FuzzAnalyze(f *testing.F) {
 		f.Add(contactBytes(cs))
 	}
 	f.Add(contactBytes([]Contact{{Point: r3.Vec{X: 1}, Normal: up}, {Point: r3.Vec{Y: 1}, Normal: up}}))
+	// Subnormal normals, and a coupling 10 km from the origin.
+	f.Add(contactBytes([]Contact{{Point: r3.Vec{X: 1}, Normal: r3.Vec{Z: 5e-324}}, {Point: r3.Vec{Y: 1}, Normal: r3.Vec{X: -5e-324, Y: 5e-324}}}))
+	far, err := moved(threeVeesF(f), 1, 0.3, up, r3.Vec{X: 1e4, Y: -3e3}).Contacts()
+	if err != nil {
+		f.Fatal(err)
+	}
+	f.Add(contactBytes(far))
 	f.Fuzz(func(t *testing.T, b []byte) {
 		cs := bytesContacts(b)
 		if len(cs) > 16 {
@@ -64,8 +71,15 @@ func FuzzAnalyze(f *testing.F) {
 			}
 			return
 		}
+		// An index is 1 at most, to rounding of the coordinates: ε times
+		// their magnitude, relative to the size of the set.
+		var far float64
+		for _, c := range cs {
+			far = max(far, r3.Norm(c.Point), r3.Norm(c.Centre))
+		}
+		tol := 1e-12 + 1e-14*far/an.Length
 		for i, m := range st.Contacts {
-			if !(m.Index >= 0 && m.Index <= 1+1e-12) || !(m.CentreIndex >= 0 && m.CentreIndex <= 1+1e-12) {
+			if !(m.Index >= 0 && m.Index <= 1+tol) || !(m.CentreIndex >= 0 && m.CentreIndex <= 1+tol) {
 				t.Fatalf("%d: index %g, centre index %g", i, m.Index, m.CentreIndex)
 			}
 			if st.Contacts[st.Weakest].Index > m.Index+tieTol {
@@ -110,4 +124,76 @@ func svfF(f *testing.F) Coupling {
 		f.Fatal(err)
 	}
 	return c
+}
+
+// FuzzGeometry builds a three-ball coupling from fuzzed numbers (ball
+// centres, radius, and each seat's Up, Direction and half-angle; seat C a
+// flat when its half-angle is negative) and checks that Contacts and
+// Geometry never panic and return finite numbers whenever they return no
+// error: unit normals, contact points a radius from the centres, angles in
+// range.
+func FuzzGeometry(f *testing.F) {
+	seed := func(bs [3]Ball, vs [3]Vee) []byte {
+		var b []byte
+		for i := range bs {
+			c, v := bs[i].Centre, vs[i]
+			b = fuzzdata.Append(b, c.X, c.Y, c.Z, bs[i].Radius, v.Up.X, v.Up.Y, v.Up.Z, v.Direction.X, v.Direction.Y, v.Direction.Z, v.HalfAngle)
+		}
+		return b
+	}
+	bis := threeVeesF(f)
+	var bs [3]Ball
+	var vs [3]Vee
+	for i, p := range bis.Pairs {
+		bs[i], vs[i] = p.Ball, p.Seat.(Vee)
+	}
+	f.Add(seed(bs, vs))
+	sub := vs
+	sub[0].Up, sub[1].Direction = r3.Vec{Z: 5e-324}, r3.Vec{X: 5e-324}
+	f.Add(seed(bs, sub))
+	line := [3]Ball{ball(-50, 0, 0), ball(0, 0, 0), ball(50, 0, 0)}
+	f.Add(seed(line, vs))
+	f.Fuzz(func(t *testing.T, b []byte) {
+		xs := fuzzdata.Floats(b, 11)
+		if len(xs) != 3 {
+			return
+		}
+		var c Coupling
+		for i, x := range xs {
+			bl := Ball{Centre: r3.Vec{X: x[0], Y: x[1], Z: x[2]}, Radius: x[3]}
+			var s Seat = Vee{Up: r3.Vec{X: x[4], Y: x[5], Z: x[6]}, Direction: r3.Vec{X: x[7], Y: x[8], Z: x[9]}, HalfAngle: x[10]}
+			if i == 2 && x[10] < 0 {
+				s = Flat{Up: r3.Vec{X: x[4], Y: x[5], Z: x[6]}}
+			}
+			c.Pairs = append(c.Pairs, Pair{Ball: bl, Seat: s})
+		}
+		cs, err := c.Contacts()
+		if err != nil {
+			return
+		}
+		for _, ct := range cs {
+			if !linalgFinite(ct.Point) || math.Abs(r3.Norm(ct.Normal)-1) > 1e-12 {
+				t.Fatalf("contact %s: point %v, normal %v", ct.Label, ct.Point, ct.Normal)
+			}
+		}
+		g, err := c.Geometry()
+		if err != nil {
+			t.Fatalf("Geometry after Contacts succeeded: %v", err)
+		}
+		for _, gr := range g.Grooves {
+			for _, a := range []float64{gr.Azimuth, gr.FrameAzimuth} {
+				if !(a > -math.Pi/2-1e-12 && a <= math.Pi/2+1e-12) {
+					t.Fatalf("groove %d azimuth %g", gr.Pair, a)
+				}
+			}
+			for _, a := range []float64{gr.OffBisector, gr.OffSocket} {
+				if !(a >= 0 && a <= math.Pi/2+1e-12) {
+					t.Fatalf("groove %d off-angle %g", gr.Pair, a)
+				}
+			}
+		}
+		if g.HasCentre && (!linalgFinite(g.Centre) || math.IsNaN(g.Spread)) {
+			t.Fatalf("centre %v spread %g", g.Centre, g.Spread)
+		}
+	})
 }

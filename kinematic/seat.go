@@ -82,7 +82,7 @@ type Trihedral struct {
 // model, which this package does not provide.
 type Cone struct {
 	Up        r3.Vec
-	Azimuth   r3.Vec // zero: any direction normal to Up
+	Azimuth   r3.Vec  // zero: any direction normal to Up
 	HalfAngle float64 // rad, in (0, π/2)
 	Material  hertz.Material
 }

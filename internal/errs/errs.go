@@ -9,23 +9,23 @@ package errs
 import "errors"
 
 var (
-	// NonFinite reports a NaN or an infinity where a finite number is
+	// ErrNonFinite reports a NaN or an infinity where a finite number is
 	// needed.
-	NonFinite = errors.New("not finite")
+	ErrNonFinite = errors.New("not finite")
 
-	// Range reports a finite number outside its domain (a radius that is
+	// ErrRange reports a finite number outside its domain (a radius that is
 	// not positive, an angle outside its interval), or input whose result
 	// would leave the floating-point range.
-	Range = errors.New("out of range")
+	ErrRange = errors.New("out of range")
 
-	// Degenerate reports geometry that defines nothing: a zero direction,
+	// ErrDegenerate reports geometry that defines nothing: a zero direction,
 	// coincident points, too few elements, a layout with no answer.
-	Degenerate = errors.New("degenerate")
+	ErrDegenerate = errors.New("degenerate")
 )
 
 // Kind is a sentinel that refines another: errors.Is finds both the kind
 // and its parent. hertz.ErrLineContact, for example, is a Kind whose parent
-// is Degenerate.
+// is ErrDegenerate.
 type Kind struct {
 	msg    string
 	parent error
