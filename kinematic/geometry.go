@@ -120,7 +120,7 @@ func (c Coupling) Geometry() (Geometry, error) {
 		}
 	}
 	for i, p := range c.Pairs {
-		v, ok := p.Seat.(Vee)
+		v, ok := p.Seat.(grooveSeat)
 		if !ok {
 			continue
 		}

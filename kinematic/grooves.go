@@ -104,9 +104,8 @@ func OptimizeGrooves(c Coupling, opt *GrooveOptions) (GrooveResult, error) {
 	for j := range p.vees {
 		v := &p.vees[j]
 		res.Azimuths[v.pair] = wrapAzimuth(p.bestAz[j])
-		seat := c.Pairs[v.pair].Seat.(Vee)
-		seat.Direction = turn(v.rad, v.up, p.bestAz[j])
-		res.Coupling.Pairs[v.pair].Seat = seat
+		seat := c.Pairs[v.pair].Seat.(grooveSeat)
+		res.Coupling.Pairs[v.pair].Seat = seat.withDirection(turn(v.rad, v.up, p.bestAz[j]))
 	}
 	return res, nil
 }
@@ -149,13 +148,13 @@ func newGrooveProblem(c Coupling) (*grooveProblem, error) {
 	}
 	first := 0
 	for i, pr := range c.Pairs {
-		if v, ok := pr.Seat.(Vee); ok {
+		if v, ok := pr.Seat.(grooveSeat); ok {
 			up, dir, _ := v.groove("") // validated by Contacts
 			rad, err := c.reference(i, up, Radial)
 			if err != nil {
 				return nil, err
 			}
-			sn, cs := math.Sincos(v.HalfAngle)
+			sn, cs := math.Sincos(v.halfAngle())
 			p.vees = append(p.vees, veeVar{
 				pair: i, first: first, centre: pr.Ball.Centre, radius: pr.Ball.Radius,
 				up: up, rad: rad, sin: sn, cos: cs, dir0: dir,

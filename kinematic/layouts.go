@@ -176,9 +176,9 @@ func (c Coupling) WithGroove(i int, angle float64, ref Reference) (Coupling, err
 	if i < 0 || i >= len(c.Pairs) {
 		return Coupling{}, &InputError{Field: "i", Err: fmt.Errorf("%w: pair %d of %d", ErrRange, i, len(c.Pairs))}
 	}
-	v, ok := c.Pairs[i].Seat.(Vee)
+	v, ok := c.Pairs[i].Seat.(grooveSeat)
 	if !ok {
-		return Coupling{}, &InputError{Field: "i", Err: fmt.Errorf("%w: Pairs[%d].Seat is %T, not a Vee", ErrDegenerate, i, c.Pairs[i].Seat)}
+		return Coupling{}, &InputError{Field: "i", Err: fmt.Errorf("%w: Pairs[%d].Seat is %T, not a groove (Vee or Rods)", ErrDegenerate, i, c.Pairs[i].Seat)}
 	}
 	if math.IsNaN(angle) || math.IsInf(angle, 0) {
 		return Coupling{}, &InputError{Field: "angle", Err: fmt.Errorf("%w: %g", ErrNonFinite, angle)}
@@ -186,14 +186,13 @@ func (c Coupling) WithGroove(i int, angle float64, ref Reference) (Coupling, err
 	if _, err := c.Contacts(); err != nil {
 		return Coupling{}, err
 	}
-	up, _ := unitOf(v.Up, "")
+	up, _ := unitOf(v.up(), "")
 	x, err := c.reference(i, up, ref)
 	if err != nil {
 		return Coupling{}, err
 	}
-	v.Direction = turn(x, up, angle)
 	out := Coupling{Pairs: append([]Pair(nil), c.Pairs...)}
-	out.Pairs[i].Seat = v
+	out.Pairs[i].Seat = v.withDirection(turn(x, up, angle))
 	return out, nil
 }
 

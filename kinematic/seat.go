@@ -87,6 +87,36 @@ type Cone struct {
 	Material  hertz.Material
 }
 
+// Rods is a vee made of two parallel cylindrical rods (or dowel pins) that
+// hold a ball at two points, one on each rod: a seat that is easy to make
+// precisely. The ball is seated with its centre on the groove axis, the
+// line along Direction through the centre; each contact normal runs from a
+// rod's axis through the ball centre and leans HalfAngle from the
+// horizontal, as a [Vee]'s flank normal does (the rods' spacing follows
+// from HalfAngle and the radii: the rod axes lie (r + RodRadius)·cos
+// HalfAngle either side of the groove axis). The rods are convex, so each
+// contact is a ball on a cylinder: an elliptical Hertz contact.
+type Rods struct {
+	Direction r3.Vec  // along the rods, either sense; only its part normal to Up is used
+	Up        r3.Vec  // out of the groove towards the ball
+	HalfAngle float64 // rad, in (0, π/2)
+	RodRadius float64 // m, > 0
+	Material  hertz.Material
+}
+
+// grooveSeat is a seat with a groove axis that can turn about its Up: a
+// vee or a pair of rods. The groove optimiser and Geometry work with any.
+type grooveSeat interface {
+	Seat
+	// groove returns the unit Up and groove direction, validated.
+	groove(field string) (up, g r3.Vec, err error)
+	// halfAngle returns the lean of the contact normals from the
+	// horizontal.
+	halfAngle() float64
+	// withDirection returns the seat with its groove along d.
+	withDirection(d r3.Vec) Seat
+}
+
 // Pair is one ball in its seat.
 type Pair struct {
 	Name string // labels the pair's contacts; "" means a letter by position ("A", "B", ...)
@@ -183,10 +213,16 @@ func checkBall(b Ball, field string) error {
 	return nil
 }
 
-func (v Vee) count() int  { return 2 }
-func (v Vee) up() r3.Vec  { return v.Up }
-func (f Flat) count() int { return 1 }
-func (f Flat) up() r3.Vec { return f.Up }
+func (v Vee) count() int                   { return 2 }
+func (v Vee) up() r3.Vec                   { return v.Up }
+func (v Vee) halfAngle() float64           { return v.HalfAngle }
+func (v Vee) withDirection(d r3.Vec) Seat  { v.Direction = d; return v }
+func (r Rods) count() int                  { return 2 }
+func (r Rods) up() r3.Vec                  { return r.Up }
+func (r Rods) halfAngle() float64          { return r.HalfAngle }
+func (r Rods) withDirection(d r3.Vec) Seat { r.Direction = d; return r }
+func (f Flat) count() int                  { return 1 }
+func (f Flat) up() r3.Vec                  { return f.Up }
 
 func (t Trihedral) count() int { return 3 }
 func (t Trihedral) up() r3.Vec { return t.Up }
@@ -205,6 +241,35 @@ func (v Vee) groove(field string) (up, g r3.Vec, err error) {
 		return r3.Vec{}, r3.Vec{}, err
 	}
 	return up, g, nil
+}
+
+// groove returns the seat's unit Up and unit groove direction, validated.
+func (r Rods) groove(field string) (up, g r3.Vec, err error) {
+	return Vee{Up: r.Up, Direction: r.Direction}.groove(field)
+}
+
+func (r Rods) appendContacts(dst []Contact, b Ball, name, field string) ([]Contact, error) {
+	up, g, err := r.groove(field)
+	if err != nil {
+		return nil, err
+	}
+	if err := checkHalfAngle(r.HalfAngle, field+".HalfAngle"); err != nil {
+		return nil, err
+	}
+	if math.IsNaN(r.RodRadius) || math.IsInf(r.RodRadius, 0) {
+		return nil, &InputError{Field: field + ".RodRadius", Err: fmt.Errorf("%w: %g", ErrNonFinite, r.RodRadius)}
+	}
+	if !(r.RodRadius > 0) {
+		return nil, &InputError{Field: field + ".RodRadius", Err: fmt.Errorf("%w: must be positive, got %g", ErrRange, r.RodRadius)}
+	}
+	// A convex cylinder with its axis along the groove: Tangent is the
+	// groove direction, so the axis angle is 0.
+	base := hertz.Cylinder(r.RodRadius, 0, r.Material)
+	s, c := math.Sincos(r.HalfAngle)
+	ns := flankNormals(up, g, s, c)
+	return append(dst,
+		ballContact(b, name+"+", ns[0], g, base),
+		ballContact(b, name+"-", ns[1], g, base)), nil
 }
 
 // flankNormals returns the contact normals of a vee of half-angle with

@@ -1,0 +1,129 @@
+package linalg
+
+import "math"
+
+// Cholesky6 factors the symmetric positive definite 6×6 matrix a
+// (row-major, only the lower triangle read) in place into its lower
+// Cholesky factor L, a = L·Lᵀ (Golub & Van Loan, Matrix Computations, 4th
+// ed., 2013, Algorithm 4.2.1). It reports false, leaving a partly
+// overwritten, if a pivot is not positive or falls to tiny times the
+// largest diagonal entry or below: the matrix is singular, or indefinite,
+// to that relative precision.
+func Cholesky6(a *[36]float64, tiny float64) bool {
+	var big float64
+	for i := range 6 {
+		big = math.Max(big, a[7*i])
+	}
+	if !(big > 0) {
+		return false
+	}
+	for j := range 6 {
+		d := a[7*j]
+		for k := range j {
+			d -= a[6*j+k] * a[6*j+k]
+		}
+		if !(d > tiny*big) {
+			return false
+		}
+		d = math.Sqrt(d)
+		a[7*j] = d
+		for i := j + 1; i < 6; i++ {
+			s := a[6*i+j]
+			for k := range j {
+				s -= a[6*i+k] * a[6*j+k]
+			}
+			a[6*i+j] = s / d
+		}
+	}
+	for i := range 6 {
+		for j := i + 1; j < 6; j++ {
+			a[6*i+j] = 0
+		}
+	}
+	return true
+}
+
+// CholeskySolve6 solves L·Lᵀ·x = b in place in b, for the factor L of
+// Cholesky6.
+func CholeskySolve6(l *[36]float64, b *[6]float64) {
+	for i := range 6 {
+		s := b[i]
+		for k := range i {
+			s -= l[6*i+k] * b[k]
+		}
+		b[i] = s / l[7*i]
+	}
+	for i := 5; i >= 0; i-- {
+		s := b[i]
+		for k := i + 1; k < 6; k++ {
+			s -= l[6*k+i] * b[k]
+		}
+		b[i] = s / l[7*i]
+	}
+}
+
+// EigenSym6 returns the eigenvalues of the symmetric 6×6 matrix a
+// (row-major, overwritten) in ascending order in w, and the eigenvectors
+// as the columns of v (row-major: v[6*i+j] is component i of vector j),
+// by the cyclic Jacobi method (Golub & Van Loan, 4th ed., Algorithm 8.5.3,
+// with the rotation of §8.5.2 that keeps the tangent at most 1). Sweeps
+// continue until every off-diagonal entry is below ε times the root of the
+// product of its diagonal entries (the relative-accuracy criterion of
+// Demmel & Veselić 1992, "Jacobi's method is more accurate than QR", SIAM
+// J. Matrix Anal. Appl. 13(4)), at most 30 sweeps (convergence is
+// quadratic; six sweeps suffice in practice). The eigenvalues are accurate
+// to a small multiple of ε times the largest |eigenvalue|.
+func EigenSym6(a *[36]float64, v *[36]float64, w *[6]float64) {
+	*v = [36]float64{}
+	for i := range 6 {
+		v[7*i] = 1
+	}
+	const eps = 0x1p-52
+	for sweep := 0; sweep < 30; sweep++ {
+		rotated := false
+		for p := 0; p < 5; p++ {
+			for q := p + 1; q < 6; q++ {
+				apq := a[6*p+q]
+				app, aqq := a[7*p], a[7*q]
+				if math.Abs(apq) <= eps*math.Sqrt(math.Abs(app*aqq)) || apq == 0 {
+					continue
+				}
+				rotated = true
+				theta := (aqq - app) / (2 * apq)
+				t := 1 / (math.Abs(theta) + math.Sqrt(1+theta*theta))
+				if theta < 0 {
+					t = -t
+				}
+				c := 1 / math.Sqrt(1+t*t)
+				s := t * c
+				for k := range 6 {
+					akp, akq := a[6*k+p], a[6*k+q]
+					a[6*k+p], a[6*k+q] = c*akp-s*akq, s*akp+c*akq
+				}
+				for k := range 6 {
+					apk, aqk := a[6*p+k], a[6*q+k]
+					a[6*p+k], a[6*q+k] = c*apk-s*aqk, s*apk+c*aqk
+				}
+				for k := range 6 {
+					vkp, vkq := v[6*k+p], v[6*k+q]
+					v[6*k+p], v[6*k+q] = c*vkp-s*vkq, s*vkp+c*vkq
+				}
+			}
+		}
+		if !rotated {
+			break
+		}
+	}
+	for i := range 6 {
+		w[i] = a[7*i]
+	}
+	// Sort ascending, carrying the vectors (insertion sort of six).
+	for i := 1; i < 6; i++ {
+		for j := i; j > 0 && w[j] < w[j-1]; j-- {
+			w[j], w[j-1] = w[j-1], w[j]
+			for k := range 6 {
+				v[6*k+j], v[6*k+j-1] = v[6*k+j-1], v[6*k+j]
+			}
+		}
+	}
+}

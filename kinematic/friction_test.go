@@ -1,0 +1,117 @@
+package kinematic
+
+import (
+	"errors"
+	"math"
+	"testing"
+
+	"gonum.org/v1/gonum/spatial/r3"
+)
+
+// inclineBlock returns a block on an incline of slope β: three contacts
+// on the plane (normal (sin β, 0, cos β), so the downhill direction is
+// d = (cos β, 0, −sin β)), a stop at the downhill end (normal −d), and two
+// contacts against a side wall (normal +y) at different points along the
+// slope. The payload of mass m sits at the block's centre; a side force q
+// along −y presses the block against the wall.
+func inclineBlock(t *testing.T, beta, mass, q float64) *Model {
+	t.Helper()
+	s, c := math.Sincos(beta)
+	n := r3.Vec{X: s, Z: c}
+	d := r3.Vec{X: c, Z: -s}
+	y := r3.Vec{Y: 1}
+	at := func(u, v, w float64) r3.Vec { // u along d, v along y, w along n
+		return r3.Add(r3.Add(r3.Scale(u, d), r3.Scale(v, y)), r3.Scale(w, n))
+	}
+	cs := []Contact{
+		{Label: "plane1", Point: at(-0.03, -0.02, 0), Normal: n},
+		{Label: "plane2", Point: at(0.03, -0.02, 0), Normal: n},
+		{Label: "plane3", Point: at(0, 0.03, 0), Normal: n},
+		{Label: "stop", Point: at(0.04, 0, 0.01), Normal: r3.Scale(-1, d)},
+		{Label: "wall1", Point: at(-0.02, -0.03, 0.01), Normal: y},
+		{Label: "wall2", Point: at(0.02, -0.03, 0.01), Normal: y},
+	}
+	var pre []Preload
+	if q > 0 {
+		pre = []Preload{{Name: "side", Point: at(0, 0, 0.01), Direction: r3.Vec{Y: -1}, Force: q}}
+	}
+	m, err := NewModel(cs, pre, Payload{Mass: mass, Centre: at(0, 0, 0.01)})
+	if err != nil {
+		t.Fatal(err)
+	}
+	return m
+}
+
+// TestSeatingIncline: with the stop open the block slides down the incline
+// on the plane and along the wall. Gravity drives it with mg sin β; the
+// plane's friction resists with μ mg cos β and the wall's with μq (the
+// contacts slide at unit speed along d): ρ = mg sin β − μ(mg cos β + q),
+// which closes the stop while μ < mg sin β/(mg cos β + q) — with q = 0 the
+// textbook condition μ < tan β for a block on an incline.
+func TestSeatingIncline(t *testing.T) {
+	const mass = 2.0
+	g := StandardGravity
+	for _, tc := range []struct {
+		beta, q float64
+	}{
+		{20 * math.Pi / 180, 0},
+		{35 * math.Pi / 180, 0},
+		{35 * math.Pi / 180, 4},
+	} {
+		m := inclineBlock(t, tc.beta, mass, tc.q)
+		lc := LoadCase{Preload: 1, Gravity: r3.Vec{Z: -g}}
+		s, c := math.Sincos(tc.beta)
+		limit := mass * g * s / (mass*g*c + tc.q)
+		for _, mu := range []float64{0, 0.5 * limit, 0.9 * limit, 1.1 * limit} {
+			st, err := m.Seating(lc, mu)
+			if err != nil {
+				t.Fatal(err)
+			}
+			stop := st.Contacts[3]
+			want := mass*g*s - mu*(mass*g*c+tc.q)
+			if math.Abs(stop.Drive-want) > 1e-9*mass*g {
+				t.Errorf("β = %.0f°, q = %g, μ = %.3f: drive %.12g N, want mg sin β − μ(mg cos β + q) = %.12g", tc.beta*180/math.Pi, tc.q, mu, stop.Drive, want)
+			}
+			if math.Abs(stop.Limit-limit) > 1e-9*limit {
+				t.Errorf("β = %.0f°, q = %g: limit μ %.12g, want %.12g", tc.beta*180/math.Pi, tc.q, stop.Limit, limit)
+			}
+			if mu == 0 && math.Abs(stop.Margin-1) > 1e-12 {
+				t.Errorf("frictionless margin %g, want 1", stop.Margin)
+			}
+		}
+	}
+}
+
+// TestSeatingCoupling: a preloaded three-vee coupling seats without
+// friction (every contact carries load) and not beyond its limit; the
+// limit of a vee flank lies between 0 and tan of its slope, where a single
+// ball on a single flank would stop (the other contacts' friction only
+// adds resistance).
+func TestSeatingCoupling(t *testing.T) {
+	m, _ := equilateralModel(t, math.Pi/4, 60, 0, 0)
+	lc := LoadCase{Preload: 1}
+	st, err := m.Seating(lc, 0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !st.Seats || !(st.MaxMu > 0) || st.MaxMu > 1 {
+		t.Errorf("frictionless: seats %v, max μ %g; want true and a limit in (0, tan 45° = 1]", st.Seats, st.MaxMu)
+	}
+	above, err := m.Seating(lc, st.MaxMu*1.01)
+	if err != nil {
+		t.Fatal(err)
+	}
+	below, err := m.Seating(lc, st.MaxMu*0.99)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if above.Seats || !below.Seats {
+		t.Errorf("at 1.01·max μ seats %v, at 0.99·max μ %v", above.Seats, below.Seats)
+	}
+	if _, err := m.Seating(lc, -0.1); !errors.Is(err, ErrRange) {
+		t.Errorf("negative μ: %v", err)
+	}
+	if _, err := m.Seating(lc, math.NaN()); !errors.Is(err, ErrNonFinite) {
+		t.Errorf("NaN μ: %v", err)
+	}
+}

@@ -1,0 +1,638 @@
+package kinematic
+
+import (
+	"fmt"
+	"math"
+
+	"gonum.org/v1/gonum/spatial/r3"
+
+	"github.com/sixfold-dev/sixfold/hertz"
+	"github.com/sixfold-dev/sixfold/internal/linalg"
+	"github.com/sixfold-dev/sixfold/screw"
+)
+
+// StandardGravity is the standard acceleration of free fall, g₀, in m/s²
+// (3rd CGPM, 1901; ISO 80000-3:2019). Accelerations in this package are in
+// m/s²; multiply by StandardGravity to give them in g.
+const StandardGravity = 9.80665
+
+// Preload is one preload element: a force on the moving body that pushes
+// it into its seats (a spring plunger over a ball, a central clamp screw, a
+// magnet), a pure couple, or both.
+//
+// The force acts along the line through Point with direction Direction,
+// with magnitude Force at the seated position. Rate is how that magnitude
+// changes, in N/m, as the moving body moves along Direction from the
+// seated position: a compression spring pushing the body down loses force
+// as the body moves down (Rate = −k, its spring rate); a magnet pulling the
+// body into the seats gains force as the gap closes (Rate > 0). Rate enters
+// the stiffness and the nonlinear equilibrium; rigid statics uses Force.
+// Couple is a pure moment in N·m added to the element.
+type Preload struct {
+	Name      string
+	Point     r3.Vec  // m, a point of the line of action
+	Direction r3.Vec  // of the force on the moving body; need not be unit
+	Force     float64 // N, ≥ 0, at the seated position
+	Rate      float64 // N/m, d(Force)/d(displacement along Direction)
+	Couple    r3.Vec  // N·m
+}
+
+// Payload is the moving body and what it carries, for gravity, shocks and
+// vibration. The zero Payload is massless.
+type Payload struct {
+	Mass   float64 // kg, ≥ 0
+	Centre r3.Vec  // centre of mass, m
+
+	// Inertia is the inertia tensor about the centre of mass in the global
+	// frame, kg·m²: symmetric and positive definite, or zero (a point
+	// mass: enough for loads; natural frequencies need the full tensor).
+	Inertia [3][3]float64
+}
+
+// LoadCase is one combination of what acts on the moving body. Zero values
+// mean nothing applied: a case with Preload 0 has no preload.
+type LoadCase struct {
+	Name string
+
+	// Preload is the factor on every preload element's Force (and
+	// Couple): 1 applies them as given.
+	Preload float64
+
+	// Gravity is the acceleration of free fall in m/s², for example
+	// {Z: −StandardGravity} with z up; the payload's weight is
+	// Mass·Gravity at its centre.
+	Gravity r3.Vec
+
+	// Acceleration is the acceleration of the base in m/s² (transport,
+	// handling, a shock), which the seated payload follows: its inertial
+	// load is −Mass·Acceleration at its centre. Angular accelerations are
+	// not modelled.
+	Acceleration r3.Vec
+
+	// Applied are further loads on the moving body (a cable pull, a tool
+	// force), as wrenches in N and N·m about the origin; screw.Line(p,
+	// d).Scale(F) is a force F along d through p.
+	Applied []screw.Wrench
+}
+
+// Model is a contact set prepared for load, stiffness and vibration
+// analyses, with its preload elements and payload. Make one with
+// [NewModel]; its methods do not modify it and may be called from several
+// goroutines at once.
+//
+// # Assumptions
+//
+// The bodies are rigid apart from the contacts, which are frictionless
+// unilateral points (compression only) obeying Hertz's force–approach law
+// where their surfaces are given; displacements are small. Rigid statics
+// ([Model.Statics], [Model.Shock], [Model.WrenchLimit], [Model.LiftOff],
+// [Model.SizePreload]) needs an exactly constrained set (six independent
+// contacts), where the contact forces follow from equilibrium alone;
+// [Model.Equilibrium] solves any set with the contacts' elasticity.
+type Model struct {
+	lines  []line // contact lines about origin
+	origin r3.Vec // the contacts' centroid; everything is held relative to it
+	exact  bool
+	freed  [6]screw.Twist // when exact: power δᵢⱼ with contact j, about origin
+	size   float64        // RMS distance of the contacts from origin, m
+
+	surf []surface
+
+	preloads []preloadLine
+	preload  screw.Wrench // the preload elements at factor 1, about origin
+
+	payload Payload // Centre about origin
+}
+
+// surface is the Hertz description of one contact.
+type surface struct {
+	b1, b2 hertz.Body
+	err    error   // why the contact has no Hertz model, in the caller's terms
+	allow  float64 // the allowable peak pressure, Pa; 0 when none is on file
+	k      float64 // F = k δ^(3/2), N/m^(3/2)
+}
+
+// preloadLine is one preload element about origin.
+type preloadLine struct {
+	name string
+	w    screw.Wrench // at factor 1
+	dir  r3.Vec       // unit direction of the force (zero for a pure couple)
+	p    r3.Vec       // point of the line, about origin
+	rate float64
+}
+
+// NewModel returns the contacts cs prepared with the preload elements and
+// the payload. The contacts are validated as by [Analyze]; a contact whose
+// Hertz surfaces are missing or do not make a point contact (a cone's ring,
+// a zero material) is accepted, and the analyses that need its elasticity
+// or stresses return an error naming it.
+//
+// NewModel returns an [*InputError] naming the field: cs as for Analyze;
+// "preloads[i].Direction" for a zero or non-finite direction (when Force is
+// not zero), "preloads[i].Force" for a negative or non-finite force,
+// "preloads[i].Point", ".Rate" or ".Couple" when not finite; "payload.Mass"
+// for a negative or non-finite mass, "payload.Centre" when not finite, and
+// "payload.Inertia" for a tensor that is not finite, not symmetric, or
+// neither zero nor positive definite.
+func NewModel(cs []Contact, preloads []Preload, payload Payload) (*Model, error) {
+	an, err := Analyze(cs)
+	if err != nil {
+		return nil, err
+	}
+	m := &Model{lines: an.lines, origin: an.origin}
+	var s2 float64
+	for _, l := range m.lines {
+		s2 += r3.Norm2(l.p)
+	}
+	m.size = math.Sqrt(s2 / float64(len(m.lines)))
+	if len(cs) == 6 && an.Rank == 6 {
+		ts, ok := freed(m.lines, r3.Sub(an.Centre, an.origin), an.Length)
+		if ok {
+			m.exact, m.freed = true, ts
+		}
+	}
+	m.surf = make([]surface, len(cs))
+	for i := range cs {
+		m.surf[i] = newSurface(&cs[i], i)
+	}
+	if err := m.setPreloads(preloads); err != nil {
+		return nil, err
+	}
+	if err := checkPayload(payload); err != nil {
+		return nil, err
+	}
+	m.payload = payload
+	m.payload.Centre = r3.Sub(payload.Centre, m.origin)
+	return m, nil
+}
+
+// refDepth is the approach, as a fraction of the contact's smallest
+// radius, at which newSurface measures the Hertz law F = kδ^(3/2): any
+// depth gives the same k (the law is exact for Hertz), and 1e-6 keeps the
+// load in the range the package is valid for.
+const refDepth = 1e-6
+
+func newSurface(c *Contact, i int) surface {
+	s := surface{b1: c.Moving, b2: c.Base}
+	moving, base := indexed("cs", i)+".Moving", indexed("cs", i)+".Base"
+	if c.Moving == (hertz.Body{}) || c.Base == (hertz.Body{}) {
+		s.err = &InputError{Field: moving + ", " + base, Err: fmt.Errorf(
+			"%w: contact %s has no Hertz surfaces (given by hand?)", ErrDegenerate, labelOf(c.Label, i))}
+		return s
+	}
+	r := math.Min(math.Min(math.Abs(c.Moving.R1), math.Abs(c.Moving.R2)), math.Min(math.Abs(c.Base.R1), math.Abs(c.Base.R2)))
+	if math.IsInf(r, 1) || r == 0 {
+		r = 1
+	}
+	d := refDepth * r
+	f, err := hertz.LoadForApproach(c.Moving, c.Base, d)
+	if err != nil {
+		s.err = fromHertz(err, moving, base, nil)
+		return s
+	}
+	s.k = f / (d * math.Sqrt(d))
+	a1, a2 := c.Moving.Material.Allowable, c.Base.Material.Allowable
+	switch {
+	case a1 > 0 && a2 > 0:
+		s.allow = math.Min(a1, a2)
+	case a1 > 0:
+		s.allow = a1
+	default:
+		s.allow = a2
+	}
+	return s
+}
+
+func (m *Model) setPreloads(ps []Preload) error {
+	m.preloads = make([]preloadLine, len(ps))
+	for i, p := range ps {
+		f := indexed("preloads", i)
+		if !linalg.Finite3(p.Point) {
+			return &InputError{Field: f + ".Point", Err: fmt.Errorf("%w: %v", ErrNonFinite, p.Point)}
+		}
+		if !linalg.Finite3(p.Couple) {
+			return &InputError{Field: f + ".Couple", Err: fmt.Errorf("%w: %v", ErrNonFinite, p.Couple)}
+		}
+		if math.IsNaN(p.Force) || math.IsInf(p.Force, 0) {
+			return &InputError{Field: f + ".Force", Err: fmt.Errorf("%w: %g", ErrNonFinite, p.Force)}
+		}
+		if p.Force < 0 {
+			return &InputError{Field: f + ".Force", Err: fmt.Errorf("%w: must be ≥ 0 (Direction gives the sense), got %g", ErrRange, p.Force)}
+		}
+		if math.IsNaN(p.Rate) || math.IsInf(p.Rate, 0) {
+			return &InputError{Field: f + ".Rate", Err: fmt.Errorf("%w: %g", ErrNonFinite, p.Rate)}
+		}
+		pl := preloadLine{name: p.Name, p: r3.Sub(p.Point, m.origin), rate: p.Rate}
+		if p.Force != 0 || p.Rate != 0 {
+			d, err := unitOf(p.Direction, f+".Direction")
+			if err != nil {
+				return err
+			}
+			pl.dir = d
+			pl.w = screw.Wrench{F: r3.Scale(p.Force, d), M: r3.Scale(p.Force, r3.Cross(pl.p, d))}
+		}
+		pl.w.M = r3.Add(pl.w.M, p.Couple)
+		m.preloads[i] = pl
+		m.preload = m.preload.Add(pl.w)
+	}
+	return nil
+}
+
+// symTol is the relative asymmetry that an inertia tensor may have: a
+// tensor typed from a drawing or a CAD report carries about 1e-12; 1e-9
+// accepts rounding and rejects a mistyped entry.
+const symTol = 1e-9
+
+func checkPayload(p Payload) error {
+	if math.IsNaN(p.Mass) || math.IsInf(p.Mass, 0) {
+		return &InputError{Field: "payload.Mass", Err: fmt.Errorf("%w: %g", ErrNonFinite, p.Mass)}
+	}
+	if p.Mass < 0 {
+		return &InputError{Field: "payload.Mass", Err: fmt.Errorf("%w: must be ≥ 0, got %g", ErrRange, p.Mass)}
+	}
+	if !linalg.Finite3(p.Centre) {
+		return &InputError{Field: "payload.Centre", Err: fmt.Errorf("%w: %v", ErrNonFinite, p.Centre)}
+	}
+	j := p.Inertia
+	var big float64
+	for r := range 3 {
+		for c := range 3 {
+			if math.IsNaN(j[r][c]) || math.IsInf(j[r][c], 0) {
+				return &InputError{Field: fmt.Sprintf("payload.Inertia[%d][%d]", r, c), Err: fmt.Errorf("%w: %g", ErrNonFinite, j[r][c])}
+			}
+			big = math.Max(big, math.Abs(j[r][c]))
+		}
+	}
+	if big == 0 {
+		return nil
+	}
+	for r := range 3 {
+		for c := r + 1; c < 3; c++ {
+			if math.Abs(j[r][c]-j[c][r]) > symTol*big {
+				return &InputError{Field: "payload.Inertia", Err: fmt.Errorf(
+					"%w: not symmetric: [%d][%d] = %g, [%d][%d] = %g", ErrRange, r, c, j[r][c], c, r, j[c][r])}
+			}
+		}
+	}
+	if !spd3(j) {
+		return &InputError{Field: "payload.Inertia", Err: fmt.Errorf("%w: not positive definite: %v", ErrRange, j)}
+	}
+	return nil
+}
+
+// spd3 reports whether the symmetric 3×3 matrix j is positive definite,
+// by Sylvester's criterion on its leading minors (exact in sign for
+// a tensor whose eigenvalues are not within rounding of zero).
+func spd3(j [3][3]float64) bool {
+	d1 := j[0][0]
+	d2 := j[0][0]*j[1][1] - j[0][1]*j[1][0]
+	d3 := j[0][0]*(j[1][1]*j[2][2]-j[1][2]*j[2][1]) - j[0][1]*(j[1][0]*j[2][2]-j[1][2]*j[2][0]) + j[0][2]*(j[1][0]*j[2][1]-j[1][1]*j[2][0])
+	return d1 > 0 && d2 > 0 && d3 > 0
+}
+
+// wrench returns the total load of the case on the moving body, about
+// the model's origin.
+func (m *Model) wrench(lc *LoadCase) (screw.Wrench, error) {
+	if math.IsNaN(lc.Preload) || math.IsInf(lc.Preload, 0) {
+		return screw.Wrench{}, &InputError{Field: "lc.Preload", Err: fmt.Errorf("%w: %g", ErrNonFinite, lc.Preload)}
+	}
+	if !linalg.Finite3(lc.Gravity) {
+		return screw.Wrench{}, &InputError{Field: "lc.Gravity", Err: fmt.Errorf("%w: %v", ErrNonFinite, lc.Gravity)}
+	}
+	if !linalg.Finite3(lc.Acceleration) {
+		return screw.Wrench{}, &InputError{Field: "lc.Acceleration", Err: fmt.Errorf("%w: %v", ErrNonFinite, lc.Acceleration)}
+	}
+	w := m.preload.Scale(lc.Preload)
+	if m.payload.Mass > 0 {
+		f := r3.Scale(m.payload.Mass, r3.Sub(lc.Gravity, lc.Acceleration))
+		w = w.Add(screw.Wrench{F: f, M: r3.Cross(m.payload.Centre, f)})
+	}
+	for k, a := range lc.Applied {
+		if !linalg.Finite3(a.F) || !linalg.Finite3(a.M) {
+			return screw.Wrench{}, &InputError{Field: indexed("lc.Applied", k), Err: fmt.Errorf("%w: %+v", ErrNonFinite, a)}
+		}
+		w = w.Add(a.About(m.origin))
+	}
+	if !linalg.Finite3(w.F) || !linalg.Finite3(w.M) {
+		return screw.Wrench{}, &InputError{Field: "lc", Err: fmt.Errorf("%w: the total load overflows", ErrRange)}
+	}
+	return w, nil
+}
+
+// errNotExact is returned by the rigid-statics methods of a model whose
+// contacts are not exactly constrained.
+func (m *Model) errNotExact() error {
+	return &InputError{Field: "cs", Err: fmt.Errorf(
+		"%w: rigid statics needs six independent contacts, the model has %d; use Equilibrium", ErrNotExact, len(m.lines))}
+}
+
+// forces sets f to the rigid contact forces that balance the wrench w
+// (about origin): Σ fᵢ lᵢ + w = 0, so fᵢ = −Power(Tᵢ, w) with Tᵢ the twist
+// of power δᵢⱼ with contact j (the rows of the inverse of the contact
+// matrix).
+func (m *Model) forces(w screw.Wrench, f *[6]float64) {
+	for i := range f {
+		f[i] = -screw.Power(m.freed[i], w)
+	}
+}
+
+// ContactLoad is the load at one contact.
+type ContactLoad struct {
+	Label string
+
+	// Force is the normal force in N, compression positive. Under rigid
+	// statics a negative force means the contact would have to pull: it
+	// opens, and the rigid solution does not apply.
+	Force float64
+
+	// Hertz is the Hertz contact at Force, with subsurface stresses; its
+	// zero value when Force ≤ 0.
+	Hertz hertz.Contact
+
+	// Allowable is the allowable peak contact pressure in Pa, the smaller
+	// of the two bodies' Material.Allowable values that are set; 0 means
+	// no allowable on file, and PressureRatio is then 0 too.
+	// PressureRatio is Hertz.PeakPressure / Allowable: above 1 the
+	// contact is overloaded.
+	Allowable     float64
+	PressureRatio float64
+}
+
+// Statics is the rigid-statics solution of one load case.
+type Statics struct {
+	Case     string
+	Contacts [6]ContactLoad
+
+	// Tensile lists the labels of contacts whose force would be tensile:
+	// those contacts open, and the rigid solution does not hold (see
+	// [Model.Equilibrium]). Nil when every contact is in compression.
+	Tensile []string
+
+	// Load is the total load of the case on the moving body, about the
+	// origin.
+	Load screw.Wrench
+}
+
+// Statics returns the contact forces that balance the load case on an
+// exactly constrained set, and at every compressed contact its Hertz
+// contact with stresses against the allowable.
+//
+// Statics returns an [*InputError] wrapping [ErrNotExact] if the model is
+// not exactly constrained, one naming the load case's field ("lc.Gravity")
+// for bad numbers, and, for a compressed contact without a Hertz model
+// (see [NewModel]), the error that names it.
+func (m *Model) Statics(lc LoadCase) (Statics, error) {
+	if !m.exact {
+		return Statics{}, m.errNotExact()
+	}
+	w, err := m.wrench(&lc)
+	if err != nil {
+		return Statics{}, err
+	}
+	var f [6]float64
+	m.forces(w, &f)
+	s := Statics{Case: lc.Name, Load: w.About(r3.Scale(-1, m.origin))}
+	for i := range s.Contacts {
+		cl := &s.Contacts[i]
+		cl.Label, cl.Force = labelOf(m.lines[i].label, i), f[i]
+		if f[i] < 0 {
+			s.Tensile = append(s.Tensile, labelOf(m.lines[i].label, i))
+			continue
+		}
+		if err := m.hertzAt(i, f[i], cl); err != nil {
+			return Statics{}, err
+		}
+	}
+	return s, nil
+}
+
+// hertzAt fills cl's Hertz contact and pressure ratio at the force f ≥ 0.
+func (m *Model) hertzAt(i int, f float64, cl *ContactLoad) error {
+	s := &m.surf[i]
+	if s.err != nil {
+		return s.err
+	}
+	h, err := hertz.Solve(s.b1, s.b2, f)
+	if err != nil {
+		return fromHertz(err, indexed("cs", i)+".Moving", indexed("cs", i)+".Base", map[string]string{"load": indexed("cs", i) + " force"})
+	}
+	cl.Hertz, cl.Allowable = h, s.allow
+	if s.allow > 0 {
+		cl.PressureRatio = h.PeakPressure / s.allow
+	}
+	return nil
+}
+
+// unloadTol is the relative margin within which contacts tie as the first
+// to unload: forces and gains are good to about 1e-14 relative, and
+// symmetric designs have exact ties that rounding would order at random.
+const unloadTol = 1e-9
+
+// Shock is the worst case of an acceleration of given magnitude in any
+// direction, added to a base load case.
+type Shock struct {
+	Magnitude float64 // the acceleration magnitude studied, m/s²
+	Contacts  [6]ShockContact
+
+	// Unload is the smallest acceleration magnitude, in m/s², in the
+	// worst direction, at which a contact unloads: the shock level the
+	// coupling survives with every contact closed. +Inf if none can
+	// unload (a massless payload), 0 if a contact is already open in
+	// the base case.
+	Unload float64
+
+	// First lists the contacts that unload first (several when they tie
+	// within 1e-9), and Direction the acceleration of the base that
+	// unloads First[0] soonest (unit).
+	First     []string
+	Direction r3.Vec
+}
+
+// ShockContact is one contact under the worst shock.
+type ShockContact struct {
+	Label string
+	Base  float64 // N, the force in the base case
+	Gain  float64 // N per m/s²: the largest change of force per unit acceleration, in any direction
+	Worst r3.Vec  // unit direction of the base's acceleration that unloads this contact soonest
+	Least float64 // N, the smallest force at Magnitude in any direction: Base − Magnitude·Gain
+	// Unload is the acceleration magnitude in m/s² along Worst at which
+	// the contact unloads, Base/Gain (+Inf when Gain is 0; 0 when Base ≤ 0).
+	Unload float64
+}
+
+// Shock returns, for an acceleration of the base of the given magnitude in
+// m/s² in any direction added to the load case base (usually preload and
+// gravity), the smallest force at every contact, the direction that
+// produces it, and the acceleration at which the first contact unloads.
+//
+// The contact forces are linear in the acceleration: with the payload's
+// inertial load −m·a at its centre c, contact i carries
+// fᵢ = f₀ᵢ + m a (Tᵢ(c)·u) for a unit direction u, where Tᵢ(c) is the
+// velocity of c under the twist of power δᵢⱼ with contact j; so the worst
+// direction is u = −Tᵢ(c)/|Tᵢ(c)| and the least force f₀ᵢ − m a |Tᵢ(c)|, in
+// closed form. Rotational accelerations are not modelled.
+//
+// Shock returns the errors of [Model.Statics] (without the Hertz ones),
+// and an [*InputError] naming "magnitude" when it is negative or not
+// finite, "payload.Mass" when the payload is massless.
+func (m *Model) Shock(base LoadCase, magnitude float64) (Shock, error) {
+	if !m.exact {
+		return Shock{}, m.errNotExact()
+	}
+	if math.IsNaN(magnitude) || math.IsInf(magnitude, 0) {
+		return Shock{}, &InputError{Field: "magnitude", Err: fmt.Errorf("%w: %g", ErrNonFinite, magnitude)}
+	}
+	if magnitude < 0 {
+		return Shock{}, &InputError{Field: "magnitude", Err: fmt.Errorf("%w: must be ≥ 0, got %g", ErrRange, magnitude)}
+	}
+	if !(m.payload.Mass > 0) {
+		return Shock{}, &InputError{Field: "payload.Mass", Err: fmt.Errorf("%w: a shock needs a payload with mass", ErrDegenerate)}
+	}
+	w, err := m.wrench(&base)
+	if err != nil {
+		return Shock{}, err
+	}
+	var f [6]float64
+	m.forces(w, &f)
+	s := Shock{Magnitude: magnitude, Unload: math.Inf(1)}
+	for i := range s.Contacts {
+		g := r3.Scale(m.payload.Mass, m.freed[i].At(m.payload.Centre))
+		sc := &s.Contacts[i]
+		sc.Label, sc.Base, sc.Gain = labelOf(m.lines[i].label, i), f[i], linalg.Norm3(g)
+		if sc.Gain > 0 {
+			sc.Worst = r3.Scale(-1/sc.Gain, g)
+		}
+		sc.Least = f[i] - magnitude*sc.Gain
+		switch {
+		case f[i] <= 0:
+			sc.Unload = 0
+		case sc.Gain == 0:
+			sc.Unload = math.Inf(1)
+		default:
+			sc.Unload = f[i] / sc.Gain
+		}
+		s.Unload = math.Min(s.Unload, sc.Unload)
+	}
+	for _, sc := range s.Contacts {
+		if sc.Unload <= s.Unload*(1+unloadTol) && !math.IsInf(sc.Unload, 1) {
+			if s.First == nil {
+				s.Direction = sc.Worst
+			}
+			s.First = append(s.First, sc.Label)
+		}
+	}
+	return s, nil
+}
+
+// Limit is how far one load can grow before a contact unloads.
+type Limit struct {
+	// Scale is the largest factor on the load for which every contact
+	// stays closed: +Inf if no contact ever unloads, 0 if one is already
+	// open in the base case.
+	Scale float64
+
+	// First lists the contacts that unload at Scale (several when they
+	// tie within 1e-9).
+	First []string
+}
+
+// WrenchLimit returns how large a multiple of the wrench w (N and N·m
+// about the origin, on the moving body) can be added to the load case base
+// before a contact unloads. The contact forces are fᵢ = f₀ᵢ − s·Power(Tᵢ, w)
+// for the scale s, so contact i unloads at s = f₀ᵢ/Power(Tᵢ, w) when that
+// power is positive. Errors are those of [Model.Shock] and an
+// [*InputError] naming "w" when it is not finite.
+func (m *Model) WrenchLimit(base LoadCase, w screw.Wrench) (Limit, error) {
+	if !m.exact {
+		return Limit{}, m.errNotExact()
+	}
+	if !linalg.Finite3(w.F) || !linalg.Finite3(w.M) {
+		return Limit{}, &InputError{Field: "w", Err: fmt.Errorf("%w: %+v", ErrNonFinite, w)}
+	}
+	b, err := m.wrench(&base)
+	if err != nil {
+		return Limit{}, err
+	}
+	var f [6]float64
+	m.forces(b, &f)
+	wl := w.About(m.origin)
+	var rate [6]float64
+	for i := range rate {
+		rate[i] = screw.Power(m.freed[i], wl)
+	}
+	return m.limit(&f, &rate), nil
+}
+
+// limit returns the scale s at which the first force f[i] − s·rate[i]
+// reaches zero, and which contacts do.
+func (m *Model) limit(f, rate *[6]float64) Limit {
+	var at [6]float64
+	l := Limit{Scale: math.Inf(1)}
+	for i := range f {
+		switch {
+		case f[i] <= 0:
+			at[i] = 0
+		case rate[i] > 0:
+			at[i] = f[i] / rate[i]
+		default:
+			at[i] = math.Inf(1)
+		}
+		l.Scale = math.Min(l.Scale, at[i])
+	}
+	if !math.IsInf(l.Scale, 1) {
+		for i, a := range at {
+			if a <= l.Scale*(1+unloadTol) {
+				l.First = append(l.First, labelOf(m.lines[i].label, i))
+			}
+		}
+	}
+	return l
+}
+
+// LiftOff is the largest force that can be applied at one point before a
+// contact unloads.
+type LiftOff struct {
+	Point   r3.Vec  // m, where the force is applied
+	Force   float64 // N; +Inf if no contact ever unloads, 0 if one is open in the base case
+	Contact string  // the label of the contact that unloads first ("" when Force is +Inf)
+}
+
+// LiftOff returns, for a force of the given direction applied in turn at
+// each of the points (on the moving body: where a probe, a tool or a hand
+// presses), the largest force before the first contact unloads, added to
+// the load case base; a map a drawing can colour. Errors are those of
+// [Model.WrenchLimit], and an [*InputError] naming "dir" for a zero or
+// non-finite direction and "points[i]" for a point that is not finite.
+func (m *Model) LiftOff(base LoadCase, dir r3.Vec, points []r3.Vec) ([]LiftOff, error) {
+	if !m.exact {
+		return nil, m.errNotExact()
+	}
+	d, err := unitOf(dir, "dir")
+	if err != nil {
+		return nil, err
+	}
+	b, err := m.wrench(&base)
+	if err != nil {
+		return nil, err
+	}
+	var f [6]float64
+	m.forces(b, &f)
+	out := make([]LiftOff, len(points))
+	for k, q := range points {
+		if !linalg.Finite3(q) {
+			return nil, &InputError{Field: indexed("points", k), Err: fmt.Errorf("%w: %v", ErrNonFinite, q)}
+		}
+		ql := r3.Sub(q, m.origin)
+		var rate [6]float64
+		for i := range rate {
+			// Power of the unit force (d, q × d) on twist i: Tᵢ(q)·d.
+			rate[i] = r3.Dot(m.freed[i].At(ql), d)
+		}
+		l := m.limit(&f, &rate)
+		out[k] = LiftOff{Point: q, Force: l.Scale}
+		if len(l.First) > 0 {
+			out[k].Contact = l.First[0]
+		}
+	}
+	return out, nil
+}

@@ -1,0 +1,249 @@
+package kinematic
+
+import (
+	"errors"
+	"fmt"
+	"math"
+
+	"gonum.org/v1/gonum/mat"
+	"gonum.org/v1/gonum/optimize/convex/lp"
+
+	"github.com/sixfold-dev/sixfold/hertz"
+	"github.com/sixfold-dev/sixfold/internal/linalg"
+)
+
+// Bound names a load case and a contact: where a requirement binds or
+// cannot be met.
+type Bound struct {
+	Case    string // the load case's Name, or "cases[i]" if it has none
+	Contact string // the contact's label
+}
+
+// PreloadSizing is the window of preload that keeps a coupling closed and
+// within its allowable contact pressures over a list of load cases.
+type PreloadSizing struct {
+	// Factors holds, per preload element, the factor on its Force (and
+	// Couple) that meets MinForce at every contact in every case with the
+	// smallest total force, Total = Σ Factors[j]·Force[j], in N. With one
+	// element this is the closed form; with several, the optimum of a
+	// linear program. Binding lists the case and contact pairs that sit
+	// at MinForce there.
+	Factors []float64
+	Total   float64
+	Binding []Bound
+
+	// MinScale and MaxScale bound one common factor s on every element
+	// (the preload as given, scaled): at MinScale the first contact
+	// reaches MinForce in its worst case (MinBinding), at MaxScale the
+	// first contact's peak pressure reaches its allowable (MaxBinding);
+	// MaxScale is +Inf when no compressed contact has an allowable on
+	// file. A design is feasible with a common scale when
+	// MinScale ≤ MaxScale.
+	MinScale, MaxScale     float64
+	MinBinding, MaxBinding Bound
+}
+
+// bindTol is the relative margin within which a contact counts as binding
+// at the optimum: the simplex solution is accurate to about 1e-10 of the
+// forces involved.
+const bindTol = 1e-7
+
+// SizePreload returns the preload window for the load cases: the
+// smallest preload that keeps every contact's force at or above minForce
+// (N, ≥ 0) in every case, and the largest that keeps every peak pressure at
+// or below its allowable. The cases' own Preload factors are ignored: the
+// sizing chooses them. Rigid statics: the forces are linear in each
+// element's factor, fᵢₖ = Σⱼ sⱼ aᵢⱼ + eᵢₖ (aᵢⱼ from element j at factor 1,
+// eᵢₖ from the rest of case k), so with one element the smallest factor is
+// maxᵢₖ (minForce − eᵢₖ)/aᵢ over the contacts it pushes closed (aᵢ > 0), and
+// with several the smallest total force Σ sⱼ Fⱼ subject to fᵢₖ ≥ minForce,
+// s ≥ 0 is a linear program, solved by gonum's simplex
+// (optimize/convex/lp; Dantzig's method, Strang 1976, ch. 8).
+//
+// The largest common scale uses the load at which each contact reaches its
+// allowable, p₀ ∝ F^(1/3) (hertz.LoadForPressure), so it is exact for the
+// Hertz model.
+//
+// Errors are [*InputError]s: "preloads" wrapping [ErrDegenerate] when the
+// model has no preload element, "cases" when it is empty, "minForce" when
+// negative or not finite, the load cases' fields as "cases[k].Gravity",
+// [ErrNotExact] as for [Model.Statics]; and [ErrRange] with the case and
+// contact named when the requirement cannot be met: a contact that no
+// element pushes closed but whose case leaves it below minForce, or (with
+// several elements) a linear program that is infeasible.
+func (m *Model) SizePreload(cases []LoadCase, minForce float64) (PreloadSizing, error) {
+	if !m.exact {
+		return PreloadSizing{}, m.errNotExact()
+	}
+	if len(m.preloads) == 0 {
+		return PreloadSizing{}, &InputError{Field: "preloads", Err: fmt.Errorf("%w: the model has no preload element to size", ErrDegenerate)}
+	}
+	if len(cases) == 0 {
+		return PreloadSizing{}, &InputError{Field: "cases", Err: fmt.Errorf("%w: no load cases", ErrDegenerate)}
+	}
+	if math.IsNaN(minForce) || math.IsInf(minForce, 0) {
+		return PreloadSizing{}, &InputError{Field: "minForce", Err: fmt.Errorf("%w: %g", ErrNonFinite, minForce)}
+	}
+	if minForce < 0 {
+		return PreloadSizing{}, &InputError{Field: "minForce", Err: fmt.Errorf("%w: must be ≥ 0, got %g", ErrRange, minForce)}
+	}
+	nj, nk := len(m.preloads), len(cases)
+	// a[i][j]: force at contact i from element j at factor 1; e[k][i]:
+	// from the rest of case k.
+	a := make([][6]float64, nj)
+	for j, p := range m.preloads {
+		m.forces(p.w, &a[j])
+	}
+	e := make([][6]float64, nk)
+	names := make([]string, nk)
+	for k := range cases {
+		lc := cases[k]
+		lc.Preload = 0
+		w, err := m.wrench(&lc)
+		if err != nil {
+			if ie, ok := err.(*InputError); ok {
+				ie.Field = indexed("cases", k) + ie.Field[len("lc"):]
+			}
+			return PreloadSizing{}, err
+		}
+		m.forces(w, &e[k])
+		names[k] = cases[k].Name
+		if names[k] == "" {
+			names[k] = indexed("cases", k)
+		}
+	}
+	bound := func(k, i int) Bound { return Bound{Case: names[k], Contact: labelOf(m.lines[i].label, i)} }
+
+	var sz PreloadSizing
+	// The common scale: every element at the same factor s.
+	var sum [6]float64
+	for j := range a {
+		for i := range sum {
+			sum[i] += a[j][i]
+		}
+	}
+	sz.MinScale = math.Inf(-1)
+	for k := range e {
+		for i := range sum {
+			need := minForce - e[k][i]
+			switch {
+			case sum[i] > 0:
+				if s := need / sum[i]; s > sz.MinScale {
+					sz.MinScale, sz.MinBinding = s, bound(k, i)
+				}
+			case need > 0:
+				return PreloadSizing{}, &InputError{Field: "cases", Err: fmt.Errorf(
+					"%w: case %q leaves contact %s at %.6g N, below minForce %g N, and the preload does not push it closed",
+					ErrRange, names[k], labelOf(m.lines[i].label, i), e[k][i], minForce)}
+			}
+		}
+	}
+	if sz.MinScale < 0 {
+		// Every contact meets minForce without preload.
+		sz.MinScale, sz.MinBinding = 0, Bound{}
+	}
+	sz.MaxScale = math.Inf(1)
+	for i := range sum {
+		s := &m.surf[i]
+		if s.err != nil || s.allow == 0 || sum[i] <= 0 {
+			continue
+		}
+		fa, err := hertz.LoadForPressure(s.b1, s.b2, s.allow)
+		if err != nil {
+			return PreloadSizing{}, fromHertz(err, indexed("cs", i)+".Moving", indexed("cs", i)+".Base", nil)
+		}
+		for k := range e {
+			if v := (fa - e[k][i]) / sum[i]; v < sz.MaxScale {
+				sz.MaxScale, sz.MaxBinding = v, bound(k, i)
+			}
+		}
+	}
+
+	// The smallest total preload, element by element.
+	if nj == 1 {
+		sz.Factors = []float64{sz.MinScale}
+	} else {
+		f, err := m.sizeLP(a, e, minForce)
+		if err != nil {
+			return PreloadSizing{}, err
+		}
+		sz.Factors = f
+	}
+	for j, s := range sz.Factors {
+		sz.Total += s * linalg.Norm3(m.preloads[j].w.F)
+	}
+	// Binding pairs at the optimum.
+	scale := math.Max(minForce, 1e-300)
+	for k := range e {
+		for i := 0; i < 6; i++ {
+			f := e[k][i]
+			var mag float64
+			for j, s := range sz.Factors {
+				f += s * a[j][i]
+				mag = math.Max(mag, math.Abs(s*a[j][i]))
+			}
+			if math.Abs(f-minForce) <= bindTol*math.Max(scale, math.Max(mag, math.Abs(e[k][i]))) {
+				sz.Binding = append(sz.Binding, bound(k, i))
+			}
+		}
+	}
+	return sz, nil
+}
+
+// sizeLP solves min Σ sⱼ Fⱼ subject to Σⱼ sⱼ aᵢⱼ + eᵢₖ ≥ minForce, s ≥ 0, in
+// the standard form of lp.Simplex with a slack zᵢₖ ≥ 0 per constraint:
+// Σⱼ sⱼ aᵢⱼ − zᵢₖ = minForce − eᵢₖ. Each row is divided by its largest
+// coefficient, so that the simplex's tolerances act on numbers near 1.
+func (m *Model) sizeLP(a [][6]float64, e [][6]float64, minForce float64) ([]float64, error) {
+	// An element that pushes no contact has an all-zero column, which the
+	// simplex rejects: it is left out (its factor is 0).
+	var used []int
+	for j := range a {
+		for i := range 6 {
+			if a[j][i] != 0 {
+				used = append(used, j)
+				break
+			}
+		}
+	}
+	nu, rows := len(used), 6*len(e)
+	A := mat.NewDense(rows, nu+rows, nil)
+	b := make([]float64, rows)
+	c := make([]float64, nu+rows)
+	for jj, j := range used {
+		c[jj] = linalg.Norm3(m.preloads[j].w.F)
+		if c[jj] == 0 {
+			c[jj] = 1 // a pure couple: count its factor
+		}
+	}
+	for k := range e {
+		for i := range 6 {
+			r := 6*k + i
+			big := math.Abs(minForce - e[k][i])
+			for _, j := range used {
+				big = math.Max(big, math.Abs(a[j][i]))
+			}
+			if big == 0 {
+				big = 1
+			}
+			for jj, j := range used {
+				A.Set(r, jj, a[j][i]/big)
+			}
+			A.Set(r, nu+r, -1/big)
+			b[r] = (minForce - e[k][i]) / big
+		}
+	}
+	_, x, err := lp.Simplex(c, A, b, 1e-10, nil)
+	if err != nil {
+		if errors.Is(err, lp.ErrInfeasible) {
+			return nil, &InputError{Field: "cases", Err: fmt.Errorf(
+				"%w: no combination of the %d preload elements keeps every contact at minForce %g N in every case", ErrRange, len(a), minForce)}
+		}
+		return nil, &InputError{Field: "cases", Err: fmt.Errorf("%w: the preload linear program failed: %v", ErrRange, err)}
+	}
+	out := make([]float64, len(a))
+	for jj, j := range used {
+		out[j] = math.Max(0, x[jj])
+	}
+	return out, nil
+}

@@ -1,0 +1,169 @@
+package kinematic
+
+import (
+	"errors"
+	"math"
+	"testing"
+
+	"gonum.org/v1/gonum/spatial/r3"
+
+	"github.com/sixfold-dev/sixfold/hertz"
+)
+
+// TestSizePreloadClosedForm: equilateral three-vee, one vertical preload
+// element through the centroid, a payload of mass m on the axis. Under
+// gravity down the flanks carry (P + mg)/(6 sin θ); turned upside down
+// (gravity up) (P − mg)/(6 sin θ). Keeping every flank at fmin in both
+// cases needs P = 6 fmin sin θ + mg (the upside-down case binds). The
+// largest preload keeps p₀ at the allowable: for a ball on a flat,
+// p₀ = 3F/(2πa²) and a³ = 3FR/(4E*) (Johnson 1985, eq. 4.22–4.23) give
+// a = πp₀R/(2E*) and F = 2πp₀a²/3, and the gravity-down case binds there:
+// P = 6 F sin θ − mg.
+func TestSizePreloadClosedForm(t *testing.T) {
+	const mass, fmin = 0.8, 2.0
+	th := math.Pi / 4
+	m, _ := equilateralModel(t, th, 50, mass, 0.03)
+	g := StandardGravity
+	cases := []LoadCase{
+		{Name: "upright", Gravity: r3.Vec{Z: -g}},
+		{Name: "inverted", Gravity: r3.Vec{Z: g}},
+	}
+	sz, err := m.SizePreload(cases, fmin)
+	if err != nil {
+		t.Fatal(err)
+	}
+	wantP := 6*fmin*math.Sin(th) + mass*g
+	if got := sz.Total; math.Abs(got-wantP) > 1e-10*wantP {
+		t.Errorf("minimum preload %.12g N, want 6 fmin sin θ + mg = %.12g N", got, wantP)
+	}
+	if math.Abs(sz.MinScale*50-wantP) > 1e-10*wantP || sz.MinBinding.Case != "inverted" {
+		t.Errorf("min scale %g (binding %+v), want %g in the inverted case", sz.MinScale, sz.MinBinding, wantP/50)
+	}
+	if len(sz.Binding) != 6 {
+		t.Errorf("binding %v; want the six flanks in the inverted case (symmetry)", sz.Binding)
+	}
+	b, f := hertz.Steel52100, hertz.Steel440C
+	es := 1 / ((1-b.Nu*b.Nu)/b.E + (1-f.Nu*f.Nu)/f.E)
+	a := math.Pi * 4200e6 * 5e-3 / (2 * es)
+	fa := 2 * math.Pi * 4200e6 * a * a / 3
+	wantMax := (6*fa*math.Sin(th) - mass*g) / 50
+	if math.Abs(sz.MaxScale-wantMax) > 1e-9*wantMax || sz.MaxBinding.Case != "upright" {
+		t.Errorf("max scale %.12g (binding %+v), want %.12g in the upright case", sz.MaxScale, sz.MaxBinding, wantMax)
+	}
+}
+
+// TestSizePreloadLP: the linear program with one element gives the closed
+// form (the two paths are independent: simplex against a maximum of
+// ratios), and with three plungers (one over each ball) the smallest total
+// for a lateral load, checked against the optimality conditions the
+// solution must meet: every case feasible, and no element can be lowered
+// without breaking a binding contact.
+func TestSizePreloadLP(t *testing.T) {
+	m, cs := equilateralModel(t, math.Pi/4, 50, 0.8, 0.03)
+	cases := []LoadCase{
+		{Name: "upright", Gravity: r3.Vec{Z: -StandardGravity}},
+		{Name: "side", Gravity: r3.Vec{X: StandardGravity}},
+	}
+	sz, err := m.SizePreload(cases, 1)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var a [][6]float64 = make([][6]float64, 1)
+	m.forces(m.preloads[0].w, &a[0])
+	e := make([][6]float64, len(cases))
+	for k := range cases {
+		w, _ := m.wrench(&cases[k])
+		m.forces(w, &e[k])
+	}
+	lp, err := m.sizeLP(a, e, 1)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if math.Abs(lp[0]-sz.Factors[0]) > 1e-9*sz.Factors[0] {
+		t.Errorf("one element: simplex %.12g, closed form %.12g", lp[0], sz.Factors[0])
+	}
+
+	// Three plungers, one over each ball.
+	var pre []Preload
+	for k := 0; k < 3; k++ {
+		pre = append(pre, Preload{Name: "plunger", Point: cs[2*k].Centre, Direction: r3.Vec{Z: -1}, Force: 10})
+	}
+	m3, err := NewModel(cs, pre, Payload{Mass: 0.8, Centre: r3.Vec{Z: 0.03}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	s3, err := m3.SizePreload(cases, 1)
+	if err != nil {
+		t.Fatal(err)
+	}
+	force := func(fac []float64, k, i int) float64 {
+		lc := cases[k]
+		w, _ := m3.wrench(&lc)
+		var f [6]float64
+		m3.forces(w, &f)
+		v := f[i]
+		for j, s := range fac {
+			var aj [6]float64
+			m3.forces(m3.preloads[j].w.Scale(s), &aj)
+			v += aj[i]
+		}
+		return v
+	}
+	for k := range cases {
+		for i := 0; i < 6; i++ {
+			if f := force(s3.Factors, k, i); f < 1-1e-7 {
+				t.Errorf("case %d contact %d: %g N below 1 N at the optimum", k, i, f)
+			}
+		}
+	}
+	for j := range s3.Factors {
+		if s3.Factors[j] == 0 {
+			continue
+		}
+		lower := append([]float64(nil), s3.Factors...)
+		lower[j] *= 1 - 1e-4
+		ok := true
+		for k := range cases {
+			for i := 0; i < 6; i++ {
+				if force(lower, k, i) < 1-1e-9 {
+					ok = false
+				}
+			}
+		}
+		if ok {
+			t.Errorf("element %d can be lowered below its optimum %g", j, s3.Factors[j])
+		}
+	}
+	// A single central clamp can only be as good as the best plungers.
+	if s3.Total > sz.Total*(1+1e-9) {
+		t.Errorf("three plungers need %g N, one central clamp %g N", s3.Total, sz.Total)
+	}
+}
+
+// TestSizePreloadErrors: a requirement that no preload can meet names the
+// case and contact; bad numbers name their field.
+func TestSizePreloadErrors(t *testing.T) {
+	m, _ := equilateralModel(t, math.Pi/4, 50, 0.8, 0.03)
+	if _, err := m.SizePreload(nil, 1); !errors.Is(err, ErrDegenerate) {
+		t.Errorf("no cases: %v", err)
+	}
+	for _, f := range []float64{-1, math.NaN()} {
+		var ie *InputError
+		if _, err := m.SizePreload([]LoadCase{{}}, f); !errors.As(err, &ie) || ie.Field != "minForce" {
+			t.Errorf("minForce %g: %v", f, err)
+		}
+	}
+	var ie *InputError
+	if _, err := m.SizePreload([]LoadCase{{}, {Gravity: r3.Vec{X: math.NaN()}}}, 1); !errors.As(err, &ie) || ie.Field != "cases[1].Gravity" {
+		t.Errorf("NaN gravity in case 1: %v", err)
+	}
+	// A preload that pulls up cannot keep anything closed.
+	_, cs := equilateralModel(t, math.Pi/4, 50, 0, 0)
+	up, err := NewModel(cs, []Preload{{Point: r3.Vec{}, Direction: r3.Vec{Z: 1}, Force: 5}}, Payload{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if _, err := up.SizePreload([]LoadCase{{Name: "rest"}}, 1); !errors.Is(err, ErrRange) {
+		t.Errorf("upward preload: %v", err)
+	}
+}

@@ -1,0 +1,433 @@
+package kinematic
+
+import (
+	"fmt"
+	"math"
+
+	"gonum.org/v1/gonum/spatial/r3"
+
+	"github.com/sixfold-dev/sixfold/hertz"
+	"github.com/sixfold-dev/sixfold/internal/linalg"
+	"github.com/sixfold-dev/sixfold/screw"
+)
+
+// StiffnessOptions holds options for [Model.Stiffness]; the zero value and
+// a nil pointer mean defaults.
+type StiffnessOptions struct {
+	// Tangential adds each contact's tangential (Mindlin, no-slip)
+	// stiffness in its tangent plane to the normal stiffness: an upper
+	// bound for small vibrations below the friction limit. The default
+	// is normal stiffness only, the usual model of a kinematic coupling
+	// whose contacts can slip.
+	Tangential bool
+
+	// Equilibrium sets the options of the nonlinear equilibrium that
+	// finds the contact forces when the model is not exactly constrained
+	// (an exactly constrained model uses rigid statics).
+	Equilibrium *EquilibriumOptions
+}
+
+// Stiffness is the 6×6 stiffness of a preloaded coupling: the restoring
+// load on the moving body per unit small displacement.
+type Stiffness struct {
+	Case string
+
+	// Forces holds the contact force used at each contact, N; their
+	// normal stiffnesses are dF/dδ = (3/2)·F/δ at those forces (Hertz).
+	Forces []float64
+
+	// Normal holds each contact's normal stiffness dF/dδ in N/m.
+	Normal []float64
+
+	k       [36]float64 // scaled (V, W·L) → (F, M/L) about origin
+	origin  r3.Vec
+	L       float64
+	payload Payload // Centre about origin
+}
+
+// Stiffness returns the stiffness of the coupling under the load case:
+// the contacts act as springs in parallel, K = Σ kᵢ lᵢ lᵢᵀ with kᵢ the
+// Hertz normal stiffness of contact i at its force and lᵢ its unit line of
+// force (the model of Hale & Slocum 2001, "Optimal design techniques for
+// kinematic couplings", Precision Engineering 25(2)), plus, with
+// opt.Tangential, the Mindlin no-slip tangential stiffness in each tangent
+// plane (hertz.Contact.TangentialStiffness), minus each preload element's
+// Rate along its line (a force that grows as the body moves along it
+// destabilises). The forces come from rigid statics on an exactly
+// constrained model and from [Model.Equilibrium] otherwise; an open
+// contact adds nothing.
+//
+// Errors are those of [Model.Statics] or [Model.Equilibrium], and an
+// [*InputError] wrapping [ErrRange] naming the case when a contact would be
+// in tension under rigid statics.
+func (m *Model) Stiffness(lc LoadCase, opt *StiffnessOptions) (Stiffness, error) {
+	var o StiffnessOptions
+	if opt != nil {
+		o = *opt
+	}
+	n := len(m.lines)
+	st := Stiffness{Case: lc.Name, Forces: make([]float64, n), Normal: make([]float64, n), origin: m.origin, L: m.size, payload: m.payload}
+	if !(st.L > 0) {
+		st.L = 1
+	}
+	if m.exact {
+		w, err := m.wrench(&lc)
+		if err != nil {
+			return Stiffness{}, err
+		}
+		var f [6]float64
+		m.forces(w, &f)
+		for i := range f {
+			if f[i] < 0 {
+				return Stiffness{}, &InputError{Field: "lc", Err: fmt.Errorf(
+					"%w: contact %s is in tension (%.4g N) under case %q: add preload, or use Equilibrium", ErrRange, labelOf(m.lines[i].label, i), f[i], lc.Name)}
+			}
+		}
+		copy(st.Forces, f[:])
+	} else {
+		eq, err := m.Equilibrium(lc, o.Equilibrium)
+		if err != nil {
+			return Stiffness{}, err
+		}
+		for i, c := range eq.Contacts {
+			st.Forces[i] = c.Force
+		}
+	}
+	L := st.L
+	for i, l := range m.lines {
+		f := st.Forces[i]
+		if f <= 0 {
+			continue
+		}
+		s := &m.surf[i]
+		if s.err != nil {
+			return Stiffness{}, s.err
+		}
+		// δ = (F/k)^(2/3), dF/dδ = 3F/(2δ).
+		d := math.Cbrt(f / s.k)
+		d *= d
+		st.Normal[i] = 1.5 * f / d
+		g := scaledWrench(screw.Wrench{F: l.n, M: r3.Cross(l.p, l.n)}, L)
+		addOuter(&st.k, st.Normal[i], &g)
+		if o.Tangential {
+			h, err := hertz.Solve(s.b1, s.b2, f)
+			if err != nil {
+				return Stiffness{}, fromHertz(err, indexed("cs", i)+".Moving", indexed("cs", i)+".Base", nil)
+			}
+			kt, err := h.TangentialStiffness(1, 0) // at zero tangential load the result does not depend on μ
+			if err != nil {
+				return Stiffness{}, fromHertz(err, indexed("cs", i)+".Moving", indexed("cs", i)+".Base", nil)
+			}
+			t1 := anyNormal(l.n)
+			t2 := r3.Cross(l.n, t1)
+			for _, t := range [2]r3.Vec{t1, t2} {
+				g := scaledWrench(screw.Wrench{F: t, M: r3.Cross(l.p, t)}, L)
+				addOuter(&st.k, kt, &g)
+			}
+		}
+	}
+	if lc.Preload != 0 {
+		for _, p := range m.preloads {
+			if p.rate != 0 {
+				g := scaledWrench(screw.Wrench{F: p.dir, M: r3.Cross(p.p, p.dir)}, L)
+				addOuter(&st.k, -p.rate, &g)
+			}
+		}
+	}
+	return st, nil
+}
+
+// addOuter adds k·g·gᵀ to the row-major 6×6 matrix a.
+func addOuter(a *[36]float64, k float64, g *[6]float64) {
+	for r := range 6 {
+		kr := k * g[r]
+		for c := range 6 {
+			a[6*r+c] += kr * g[c]
+		}
+	}
+}
+
+// Matrix returns the stiffness about the point about: the restoring load
+// (F in N, M in N·m about that point) per unit small displacement (V in m,
+// the translation of the body point at about, and W in rad), ordered
+// (Vx, Vy, Vz, Wx, Wy, Wz) → (Fx, Fy, Fz, Mx, My, Mz). It is symmetric.
+func (s Stiffness) Matrix(about r3.Vec) [6][6]float64 {
+	// Shift: with o the origin of k, r = about − o, a twist with V at
+	// about has V_o = V − W × r, and a wrench about o has M_about =
+	// M_o − r × F. Build the 6×6 map T (V, W at about) → (V_o, W) and
+	// return Tᵀ K_o T (the wrench shift is the transpose).
+	r := r3.Sub(about, s.origin)
+	var t [6][6]float64 // unscaled
+	for i := range 6 {
+		t[i][i] = 1
+	}
+	// V_o = V − W × r = V + r × W: the block [r]×.
+	t[0][4], t[0][5] = -r.Z, r.Y
+	t[1][3], t[1][5] = r.Z, -r.X
+	t[2][3], t[2][4] = -r.Y, r.X
+	var k [6][6]float64
+	for a := range 6 {
+		for b := range 6 {
+			// Undo the scaling: K = D⁻¹ Ks D⁻¹ with D = diag(1, 1, 1, 1/L...)
+			// for y = (V, W·L), g = (F, M/L).
+			f := 1.0
+			if a >= 3 {
+				f *= s.L
+			}
+			if b >= 3 {
+				f *= s.L
+			}
+			k[a][b] = s.k[6*a+b] * f
+		}
+	}
+	var out [6][6]float64
+	for a := range 6 {
+		for b := range 6 {
+			var v float64
+			for c := range 6 {
+				for d := range 6 {
+					v += t[c][a] * k[c][d] * t[d][b]
+				}
+			}
+			out[a][b] = v
+		}
+	}
+	for a := range 6 {
+		for b := range a {
+			out[a][b] = (out[a][b] + out[b][a]) / 2
+			out[b][a] = out[a][b]
+		}
+	}
+	return out
+}
+
+// Compliance is the flexibility of the coupling seen at one point of the
+// moving body.
+type Compliance struct {
+	Point r3.Vec // m
+
+	// Matrix maps a load at Point (F in N, M in N·m about Point) to the
+	// small displacement it causes (V in m, the translation of the body
+	// point at Point, and W in rad), ordered (Fx, Fy, Fz, Mx, My, Mz) →
+	// (Vx, Vy, Vz, Wx, Wy, Wz): m/N, m/(N·m), rad/N and rad/(N·m). It is
+	// the inverse of Stiffness.Matrix(Point).
+	Matrix [6][6]float64
+}
+
+// Along returns the displacement of the point, in m, along the unit
+// direction of u per newton applied there along u: uᵀ C_VF u.
+func (c Compliance) Along(u r3.Vec) float64 {
+	d, ok := linalg.Unit3(u)
+	if !ok {
+		return 0
+	}
+	v := [3]float64{d.X, d.Y, d.Z}
+	var s float64
+	for a := range 3 {
+		for b := range 3 {
+			s += v[a] * c.Matrix[a][b] * v[b]
+		}
+	}
+	return s
+}
+
+// singularStiffness is the pivot, relative to the largest diagonal entry
+// of the scaled stiffness (all entries in N/m), below which the stiffness
+// is singular: the coupling does not resist some motion (an open contact,
+// or a preload rate that cancels a contact) to within rounding.
+const singularStiffness = 1e-13
+
+// Compliance returns the compliance at the point at of the moving body.
+// It returns an [*InputError] naming "at" when the point is not finite,
+// and one wrapping [ErrDegenerate] when the stiffness is singular or not
+// positive definite.
+func (s Stiffness) Compliance(at r3.Vec) (Compliance, error) {
+	if !linalg.Finite3(at) {
+		return Compliance{}, &InputError{Field: "at", Err: fmt.Errorf("%w: %v", ErrNonFinite, at)}
+	}
+	// Invert the scaled matrix about its own origin, then shift.
+	l := s.k
+	if !linalg.Cholesky6(&l, singularStiffness) {
+		return Compliance{}, &InputError{Field: "cs", Err: fmt.Errorf("%w: the stiffness is singular or not positive definite: some motion is not resisted", ErrDegenerate)}
+	}
+	var cs [6][6]float64 // scaled compliance: g → y
+	for j := range 6 {
+		var b [6]float64
+		b[j] = 1
+		linalg.CholeskySolve6(&l, &b)
+		for i := range 6 {
+			cs[i][j] = b[i]
+		}
+	}
+	// Unscale: y = (V, W·L) and g = (F, M/L): C = D Cs D with
+	// D = diag(1, 1, 1, 1/L, 1/L, 1/L).
+	var co [6][6]float64
+	for a := range 6 {
+		for b := range 6 {
+			f := 1.0
+			if a >= 3 {
+				f /= s.L
+			}
+			if b >= 3 {
+				f /= s.L
+			}
+			co[a][b] = cs[a][b] * f
+		}
+	}
+	// Shift from the origin o to at (r = at − o): a load (F, M_at) is
+	// (F, M_at + r × F) about o; the displacement (V_o, W) gives
+	// V_at = V_o + W × r. So C_at = S C_o Sᵀ with S the map of twists
+	// (V_o, W) → (V_at, W), whose transpose maps wrenches at `at` to o.
+	r := r3.Sub(at, s.origin)
+	var sm [6][6]float64
+	for i := range 6 {
+		sm[i][i] = 1
+	}
+	// V_at = V_o + W × r = V_o − r × W: the block −[r]×.
+	sm[0][4], sm[0][5] = r.Z, -r.Y
+	sm[1][3], sm[1][5] = -r.Z, r.X
+	sm[2][3], sm[2][4] = r.Y, -r.X
+	c := Compliance{Point: at}
+	for a := range 6 {
+		for b := range 6 {
+			var v float64
+			for p := range 6 {
+				for q := range 6 {
+					v += sm[a][p] * co[p][q] * sm[b][q]
+				}
+			}
+			c.Matrix[a][b] = v
+		}
+	}
+	for a := range 6 {
+		for b := range a {
+			c.Matrix[a][b] = (c.Matrix[a][b] + c.Matrix[b][a]) / 2
+			c.Matrix[b][a] = c.Matrix[a][b]
+		}
+	}
+	return c, nil
+}
+
+// Mode is one natural mode of the payload on the coupling.
+type Mode struct {
+	// Frequency is the natural frequency in Hz.
+	Frequency float64
+
+	// Shape is the mode shape as a small-displacement twist (W in rad, V
+	// in m at the origin), scaled so that the larger of the centre of
+	// mass's translation and the rotation times the contact set's size
+	// is 1, with its largest component positive.
+	Shape screw.Twist
+}
+
+// Modes returns the six natural modes of the model's payload on the
+// coupling, lowest first: the generalised symmetric eigenproblem
+// K φ = ω² M φ with M the payload's rigid-body mass matrix, solved by a
+// Cholesky factorisation M = LLᵀ and the symmetric eigenproblem of
+// L⁻¹KL⁻ᵀ (Golub & Van Loan, 4th ed., §8.7.2), on a fixed-size Jacobi
+// kernel checked against gonum's mat.EigenSym. Frequencies are
+// f = ω/(2π).
+//
+// Modes returns an [*InputError] naming "payload.Mass" or
+// "payload.Inertia" when the payload has no mass or no positive-definite
+// inertia, and one wrapping [ErrDegenerate] when the stiffness is not
+// positive definite (an unresisted or unstable motion).
+func (s Stiffness) Modes() ([6]Mode, error) {
+	var modes [6]Mode
+	p := s.payload
+	if !(p.Mass > 0) {
+		return modes, &InputError{Field: "payload.Mass", Err: fmt.Errorf("%w: natural frequencies need a payload with mass", ErrDegenerate)}
+	}
+	if p.Inertia == ([3][3]float64{}) {
+		return modes, &InputError{Field: "payload.Inertia", Err: fmt.Errorf("%w: natural frequencies need the payload's inertia tensor", ErrDegenerate)}
+	}
+	L := s.L
+	// Scaled mass matrix for y = (V, W·L), V at the origin o, centre
+	// c = com − o: the kinetic energy ½m|V + W × c|² + ½WᵀJW gives
+	// M_VV = mI, M_VW = −m[c]×, M_WW = J − m[c]×², then D M D.
+	c := p.Centre
+	cx := [3][3]float64{{0, -c.Z, c.Y}, {c.Z, 0, -c.X}, {-c.Y, c.X, 0}}
+	var mm [36]float64
+	for a := range 3 {
+		mm[6*a+a] = p.Mass
+		for b := range 3 {
+			mm[6*a+3+b] = -p.Mass * cx[a][b] / L
+			mm[6*(3+b)+a] = mm[6*a+3+b]
+			var c2 float64
+			for k := range 3 {
+				c2 += cx[a][k] * cx[k][b]
+			}
+			mm[6*(3+a)+3+b] = (p.Inertia[a][b] - p.Mass*c2) / (L * L)
+		}
+	}
+	l := mm
+	if !linalg.Cholesky6(&l, 1e-14) {
+		return modes, &InputError{Field: "payload.Inertia", Err: fmt.Errorf("%w: the mass matrix is not positive definite", ErrDegenerate)}
+	}
+	// B = L⁻¹ K L⁻ᵀ: solve column by column.
+	var x [36]float64 // L⁻¹ K
+	for j := range 6 {
+		for i := range 6 {
+			v := s.k[6*i+j]
+			for k := range i {
+				v -= l[6*i+k] * x[6*k+j]
+			}
+			x[6*i+j] = v / l[7*i]
+		}
+	}
+	var b [36]float64 // (L⁻¹ (L⁻¹ K)ᵀ) = L⁻¹ K L⁻ᵀ, K symmetric
+	for j := range 6 {
+		for i := range 6 {
+			v := x[6*j+i]
+			for k := range i {
+				v -= l[6*i+k] * b[6*k+j]
+			}
+			b[6*i+j] = v / l[7*i]
+		}
+	}
+	for i := range 6 {
+		for j := range i {
+			b[6*i+j] = (b[6*i+j] + b[6*j+i]) / 2
+			b[6*j+i] = b[6*i+j]
+		}
+	}
+	var v [36]float64
+	var w [6]float64
+	linalg.EigenSym6(&b, &v, &w)
+	var big float64
+	for i := range 6 {
+		big = math.Max(big, math.Abs(w[i]))
+	}
+	for j := range 6 {
+		if !(w[j] > singularStiffness*big) {
+			return modes, &InputError{Field: "cs", Err: fmt.Errorf("%w: the stiffness is singular or not positive definite: some motion is not resisted", ErrDegenerate)}
+		}
+		// φ = L⁻ᵀ ψ.
+		var phi [6]float64
+		for i := 5; i >= 0; i-- {
+			s := v[6*i+j]
+			for k := i + 1; k < 6; k++ {
+				s -= l[6*k+i] * phi[k]
+			}
+			phi[i] = s / l[7*i]
+		}
+		t := screw.Twist{V: r3.Vec{X: phi[0], Y: phi[1], Z: phi[2]}, W: r3.Vec{X: phi[3] / L, Y: phi[4] / L, Z: phi[5] / L}}
+		size := math.Max(linalg.Norm3(t.At(c)), linalg.Norm3(t.W)*L)
+		t = t.Scale(signOfTwist(t, L) / size)
+		modes[j] = Mode{Frequency: math.Sqrt(w[j]) / (2 * math.Pi), Shape: global(t, s.origin)}
+	}
+	return modes, nil
+}
+
+// signOfTwist returns the sign that makes the largest component of the
+// twist, in the scaled coordinates (V, W·L), positive.
+func signOfTwist(t screw.Twist, L float64) float64 {
+	best, sgn := 0.0, 1.0
+	for _, x := range [6]float64{t.V.X, t.V.Y, t.V.Z, t.W.X * L, t.W.Y * L, t.W.Z * L} {
+		if math.Abs(x) > best {
+			best = math.Abs(x)
+			sgn = math.Copysign(1, x)
+		}
+	}
+	return sgn
+}
