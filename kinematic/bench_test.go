@@ -1,6 +1,11 @@
 package kinematic
 
-import "testing"
+import (
+	"math"
+	"testing"
+
+	"gonum.org/v1/gonum/spatial/r3"
+)
 
 var sinkStability Stability
 
@@ -63,5 +68,108 @@ func BenchmarkOptimizeGrooves(b *testing.B) {
 				sinkGrooves = r
 			}
 		})
+	}
+}
+
+var (
+	sinkStatics  Statics
+	sinkShock    Shock
+	sinkEq       Equilibrium
+	sinkModes    [6]Mode
+	sinkStiffErr error
+)
+
+// BenchmarkStatics measures rigid statics with the Hertz contact, and
+// subsurface stresses, at all six contacts of a preloaded three-vee
+// coupling: flat flanks (circular contacts) and gothic-arch flanks
+// (elliptical).
+func BenchmarkStatics(b *testing.B) {
+	arch := vee45
+	arch.FlankRadius = 5.3e-3
+	for _, bc := range []struct {
+		name string
+		v    Vee
+	}{{"flat-flanks", vee45}, {"gothic-arch", arch}} {
+		c, err := BisectorVees(isosceles(), three(bc.v))
+		if err != nil {
+			b.Fatal(err)
+		}
+		m, err := NewModel(mustContacts(b, c), []Preload{{Point: r3.Vec{Y: 0.01, Z: 0.02}, Direction: r3.Vec{Z: -1}, Force: 60}}, Payload{Mass: 0.8, Centre: r3.Vec{Y: 0.01, Z: 0.03}})
+		if err != nil {
+			b.Fatal(err)
+		}
+		lc := LoadCase{Preload: 1, Gravity: r3.Vec{Z: -StandardGravity}}
+		b.Run(bc.name, func(b *testing.B) {
+			b.ReportAllocs()
+			for b.Loop() {
+				s, err := m.Statics(lc)
+				if err != nil {
+					b.Fatal(err)
+				}
+				sinkStatics = s
+			}
+		})
+	}
+}
+
+// BenchmarkShock measures the worst-direction shock check.
+func BenchmarkShock(b *testing.B) {
+	m, _ := equilateralModel(b, math.Pi/4, 60, 0.8, 0.03)
+	lc := LoadCase{Preload: 1, Gravity: r3.Vec{Z: -StandardGravity}}
+	b.ReportAllocs()
+	for b.Loop() {
+		s, err := m.Shock(lc, 5*StandardGravity)
+		if err != nil {
+			b.Fatal(err)
+		}
+		sinkShock = s
+	}
+}
+
+// BenchmarkEquilibrium measures the nonlinear Hertz equilibrium of three
+// vees and a hold-down pad set 2 µm into the body (seven contacts), and of
+// the six contacts alone.
+func BenchmarkEquilibrium(b *testing.B) {
+	_, cs := equilateralModel(b, math.Pi/4, 60, 0, 0)
+	pad := mustContacts(b, Coupling{Pairs: []Pair{{Name: "pad", Ball: ball(0, 0, 20), Seat: Flat{Up: r3.Vec{Z: -1}, Material: vee45.Material}}}})
+	seven := append(append([]Contact(nil), cs...), pad...)
+	pre := []Preload{{Point: r3.Vec{Z: 0.02}, Direction: r3.Vec{Z: -1}, Force: 60}}
+	for _, bc := range []struct {
+		name string
+		cs   []Contact
+		opt  *EquilibriumOptions
+	}{
+		{"six", cs, nil},
+		{"seven-with-pad", seven, &EquilibriumOptions{Gaps: map[string]float64{"pad": -2e-6}}},
+	} {
+		m, err := NewModel(bc.cs, pre, Payload{})
+		if err != nil {
+			b.Fatal(err)
+		}
+		b.Run(bc.name, func(b *testing.B) {
+			b.ReportAllocs()
+			for b.Loop() {
+				e, err := m.Equilibrium(LoadCase{Preload: 1}, bc.opt)
+				if err != nil {
+					b.Fatal(err)
+				}
+				sinkEq = e
+			}
+		})
+	}
+}
+
+// BenchmarkStiffnessModes measures the stiffness of a preloaded coupling
+// and the six natural frequencies of its payload.
+func BenchmarkStiffnessModes(b *testing.B) {
+	m, _ := equilateralModel(b, math.Pi/4, 60, 0.8, 0.03)
+	lc := LoadCase{Preload: 1, Gravity: r3.Vec{Z: -StandardGravity}}
+	b.ReportAllocs()
+	for b.Loop() {
+		st, err := m.Stiffness(lc, nil)
+		if err != nil {
+			b.Fatal(err)
+		}
+		sinkModes, sinkStiffErr = st.Modes()
 	}
 }

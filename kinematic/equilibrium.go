@@ -327,9 +327,17 @@ func (s *solver) residual() float64 {
 func (s *solver) newton(tol float64, maxIt int) (int, error) {
 	var grad, step [6]float64
 	var hess [36]float64
+	tooLarge := &InputError{Field: "lc", Err: fmt.Errorf(
+		"%w: the load is beyond the small-displacement model (approaches or displacements over a tenth of the contact set's size)", ErrRange)}
 	for it := 0; ; it++ {
+		if math.Sqrt(dot6(&s.y, &s.y)) > escapeLimit*s.L {
+			return it, tooLarge
+		}
 		pi := s.state(&s.y, &grad, &hess)
 		scale := s.scaleOfLoads()
+		if math.IsNaN(pi) || math.IsInf(pi, 0) || math.IsInf(scale, 0) || math.IsNaN(scale) {
+			return it, tooLarge
+		}
 		if r := math.Sqrt(dot6(&grad, &grad)); r <= tol*scale || scale == 0 {
 			return it, nil
 		}
@@ -378,10 +386,10 @@ func (s *solver) newton(tol float64, maxIt int) (int, error) {
 			}
 			t /= 2
 		}
-		s.y = y
 		if math.Sqrt(dot6(&y, &y)) > escapeLimit*s.L {
 			return it, &InputError{Field: "lc", Err: fmt.Errorf(
 				"%w: the contacts cannot hold the load: the body leaves its seats (more preload, or a contact against the load, is needed)", ErrRange)}
 		}
+		s.y = y
 	}
 }

@@ -197,3 +197,89 @@ func FuzzGeometry(f *testing.F) {
 		}
 	})
 }
+
+// FuzzLoads builds a load case and a payload from fuzzed numbers (preload
+// factor, gravity, base acceleration, an applied wrench, payload mass and
+// centre, a gap for one contact) on a preloaded three-vee coupling, and
+// checks that Statics, Shock, Equilibrium and Stiffness never panic and,
+// without an error, return finite numbers: rigid forces that balance the
+// load, a non-negative shock level, non-negative elastic forces with a
+// small residual.
+func FuzzLoads(f *testing.F) {
+	add := func(x ...float64) { f.Add(fuzzdata.Append(nil, x...)) }
+	add(1, 0, 0, -9.80665, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0.8, 0, 0, 0.03, 0)
+	add(2, 0, 3, -9.8, 30, 0, 0, 1, -2, 3, 0.1, 0, 0, 0.5, 0.01, 0, 0.05, -1e-6)
+	add(0, 0, 0, 9.8, 0, 0, 0, 0, 0, 5, 0, 0, 0, 1, 0, 0, 0, 1e-6)
+	add(1, 5e-324, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 1e-300, 0, 0, 0, 0)
+	add(1e300, 0, 0, -1e300, 0, 0, 0, 0, 0, 0, 0, 0, 0, 1e300, 0, 0, 0, 0)
+	c, err := BisectorVees(isosceles(), three(vee45))
+	if err != nil {
+		f.Fatal(err)
+	}
+	cs, err := c.Contacts()
+	if err != nil {
+		f.Fatal(err)
+	}
+	pre := []Preload{{Point: r3.Vec{Y: 0.01, Z: 0.02}, Direction: r3.Vec{Z: -1}, Force: 60}}
+	f.Fuzz(func(t *testing.T, b []byte) {
+		xs := fuzzdata.Floats(b, 18)
+		if len(xs) != 1 {
+			return
+		}
+		x := xs[0]
+		lc := LoadCase{
+			Preload:      x[0],
+			Gravity:      r3.Vec{X: x[1], Y: x[2], Z: x[3]},
+			Acceleration: r3.Vec{X: x[4], Y: x[5], Z: x[6]},
+			Applied:      []screw.Wrench{{F: r3.Vec{X: x[7], Y: x[8], Z: x[9]}, M: r3.Vec{X: x[10], Y: x[11], Z: x[12]}}},
+		}
+		m, err := NewModel(cs, pre, Payload{Mass: x[13], Centre: r3.Vec{X: x[14], Y: x[15], Z: x[16]}})
+		if err != nil {
+			return
+		}
+		s, err := m.Statics(lc)
+		if err == nil {
+			for _, cl := range s.Contacts {
+				if math.IsNaN(cl.Force) || math.IsInf(cl.Force, 0) || math.IsNaN(cl.Hertz.PeakPressure) || math.IsNaN(cl.PressureRatio) {
+					t.Fatalf("statics: %+v", cl)
+				}
+			}
+		}
+		if sh, err := m.Shock(lc, 9.8); err == nil {
+			if math.IsNaN(sh.Unload) || sh.Unload < 0 {
+				t.Fatalf("shock level %g", sh.Unload)
+			}
+		}
+		opt := &EquilibriumOptions{Gaps: map[string]float64{"A+": x[17]}}
+		if eq, err := m.Equilibrium(lc, opt); err == nil {
+			for _, cl := range eq.Contacts {
+				if !(cl.Force >= 0) || math.IsInf(cl.Force, 0) {
+					t.Fatalf("equilibrium force %g", cl.Force)
+				}
+			}
+			if !(eq.Residual <= 1e-9) {
+				t.Fatalf("equilibrium residual %g", eq.Residual)
+			}
+			if !linalgFinite(eq.Displacement.W) || !linalgFinite(eq.Displacement.V) {
+				t.Fatalf("displacement %+v", eq.Displacement)
+			}
+		}
+		if st, err := m.Stiffness(lc, nil); err == nil {
+			k := st.Matrix(r3.Vec{})
+			for i := range k {
+				for j := range k[i] {
+					if math.IsNaN(k[i][j]) || math.IsInf(k[i][j], 0) {
+						t.Fatalf("stiffness %v", k)
+					}
+				}
+			}
+			if md, err := st.Modes(); err == nil {
+				for _, mo := range md {
+					if !(mo.Frequency > 0) || math.IsInf(mo.Frequency, 0) {
+						t.Fatalf("frequency %g", mo.Frequency)
+					}
+				}
+			}
+		}
+	})
+}

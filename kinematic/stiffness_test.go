@@ -275,3 +275,72 @@ func TestStiffnessAgainstEquilibrium(t *testing.T) {
 		t.Errorf("displacement of q: equilibrium %v, compliance %v (differ by %g)", got, want, d)
 	}
 }
+
+// TestLoadsScaleInvariance: the same design in mm, N and MPa (lengths
+// ×1000, moduli and allowables ×1e-6, mass in tonnes ×1e-3, inertia in
+// t·mm² ×1e3) has the same forces, shock level in mm/s² ×1000, stiffness
+// in N/mm ×1e-3, and the same natural frequencies: the equations are the
+// same in any coherent set of units.
+func TestLoadsScaleInvariance(t *testing.T) {
+	si, siCs := equilateralModel(t, math.Pi/4, 60, 0.8, 0.03)
+	mm := make([]Contact, len(siCs))
+	for i, c := range siCs {
+		c.Point, c.Centre, c.Radius = r3.Scale(1000, c.Point), r3.Scale(1000, c.Centre), c.Radius*1000
+		for _, b := range []*hertz.Body{&c.Moving, &c.Base} {
+			b.R1, b.R2 = b.R1*1000, b.R2*1000
+			b.Material.E *= 1e-6
+			b.Material.Allowable *= 1e-6
+		}
+		mm[i] = c
+	}
+	pay := si.payload
+	pay.Centre = r3.Scale(1000, r3.Add(pay.Centre, si.origin))
+	pay.Mass *= 1e-3
+	for a := range 3 {
+		for b := range 3 {
+			pay.Inertia[a][b] *= 1e3
+		}
+	}
+	mmModel, err := NewModel(mm, []Preload{{Point: r3.Vec{Z: 20}, Direction: r3.Vec{Z: -1}, Force: 60}}, pay)
+	if err != nil {
+		t.Fatal(err)
+	}
+	lcSI := LoadCase{Preload: 1, Gravity: r3.Vec{Z: -StandardGravity}}
+	lcMM := LoadCase{Preload: 1, Gravity: r3.Vec{Z: -StandardGravity * 1000}}
+	a, _ := si.Statics(lcSI)
+	b, err := mmModel.Statics(lcMM)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for i := range a.Contacts {
+		if d := math.Abs(a.Contacts[i].Force - b.Contacts[i].Force); d > 1e-12*a.Contacts[i].Force {
+			t.Errorf("%s: %g N in SI, %g N in mm", a.Contacts[i].Label, a.Contacts[i].Force, b.Contacts[i].Force)
+		}
+		if d := math.Abs(a.Contacts[i].PressureRatio - b.Contacts[i].PressureRatio); d > 1e-12 {
+			t.Errorf("%s: pressure ratio %g, %g", a.Contacts[i].Label, a.Contacts[i].PressureRatio, b.Contacts[i].PressureRatio)
+		}
+	}
+	sa, _ := si.Shock(lcSI, 0)
+	sb, _ := mmModel.Shock(lcMM, 0)
+	if math.Abs(sb.Unload-1000*sa.Unload) > 1e-11*sb.Unload {
+		t.Errorf("shock level %g m/s², %g mm/s²", sa.Unload, sb.Unload)
+	}
+	ka, _ := si.Stiffness(lcSI, nil)
+	kb, err := mmModel.Stiffness(lcMM, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if k1, k2 := ka.Matrix(r3.Vec{})[2][2], kb.Matrix(r3.Vec{})[2][2]; math.Abs(k2-1e-3*k1) > 1e-11*k2 {
+		t.Errorf("vertical stiffness %g N/m, %g N/mm", k1, k2)
+	}
+	ma, _ := ka.Modes()
+	mb, err := kb.Modes()
+	if err != nil {
+		t.Fatal(err)
+	}
+	for i := range ma {
+		if math.Abs(ma[i].Frequency-mb[i].Frequency) > 1e-9*ma[i].Frequency {
+			t.Errorf("mode %d: %g Hz in SI, %g Hz in mm", i, ma[i].Frequency, mb[i].Frequency)
+		}
+	}
+}
