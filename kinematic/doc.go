@@ -20,6 +20,19 @@
 // [OptimizeGrooves] turns the vee grooves to maximise the weakest Maxwell
 // index within allowed azimuth windows.
 //
+// For forces, a [Model] holds the contacts with their [Preload] elements
+// and [Payload]; a [LoadCase] combines preload, gravity, the base's
+// acceleration and applied wrenches. [Model.Statics] gives the contact
+// forces and Hertz stresses against the allowables, [Model.Shock] the worst
+// direction and level of a shock, [Model.WrenchLimit] and [Model.LiftOff]
+// how far a load can grow before a contact unloads, [Model.SizePreload]
+// the preload window, [Model.Equilibrium] the elastic equilibrium of any
+// contact set (a hold-down pad, a fourth ball, interferences),
+// [Model.Stiffness] the 6×6 stiffness with [Stiffness.Compliance] at a
+// point and [Stiffness.Modes] the natural frequencies, and [Model.Seating]
+// whether friction lets the part slide home. [FormClosure] and
+// [ForceClosure] say whether a contact set holds against every load.
+//
 // # Units, frame and signs
 //
 // SI units throughout (m, N, Pa, rad). One right-handed global frame. The
@@ -31,6 +44,30 @@
 // (from the ball towards the centroid of all ball centres, projected
 // normal to Up; the default) or [FrameX] (the global x axis projected
 // normal to Up: the drawing's frame). Azimuths π apart are the same groove.
+//
+// # Forces and loads
+//
+// A contact force is the magnitude of the force the base applies to the
+// moving body along the contact's Normal: compression positive. Rigid
+// statics reports a negative force for a contact that would have to pull
+// (it opens). Loads on the moving body are wrenches (F in N, M in N·m about
+// the origin); accelerations are in m/s² ([StandardGravity] converts from
+// g); stiffnesses in N/m, N/rad and N·m/rad, compliances in their
+// inverses; frequencies in Hz.
+//
+// A load case is linear in its parts: the preload elements times the
+// case's Preload factor, the payload's weight Mass·Gravity and its
+// inertial load −Mass·Acceleration at its centre of mass, and the applied
+// wrenches. The zero value of every part means nothing applied.
+//
+// The load analyses assume rigid bodies apart from the contacts,
+// frictionless point contacts following Hertz's force–approach law (the
+// surfaces in [Contact.Moving] and [Contact.Base]), small displacements,
+// and quasi-static loads (a shock is a steady acceleration of the base).
+// Hertz results carry the validity of package hertz (half-spaces, contact
+// small against the radii: see hertz.Contact.Valid). A cone's ring
+// contact is not a Hertz point contact; the analyses that need its
+// elasticity or stress return an error naming it.
 //
 // # Maxwell's criterion in 3D
 //
@@ -77,9 +114,14 @@
 //
 // # Scope
 //
-// The analyses treat the bodies as rigid and the contacts as frictionless
-// points. A ball in a cone bears on a ring; it is represented by three
-// contacts for constraint purposes only (see [Cone]).
+// Constraint and stability treat the bodies as rigid and the contacts as
+// frictionless points. A ball in a cone bears on a ring; it is represented
+// by three contacts for constraint and rigid statics only (see [Cone]).
+//
+// The numbers are engineering estimates from idealised models. Where a
+// result bears on safety or on hardware that can be damaged (a preload
+// that overloads a contact, a stress above the allowable), verify it by
+// test and defer to the applicable codes and a qualified engineer.
 //
 // Maxwell indices and the arithmetic NearSingular flag screen layouts; they
 // are not design figures. Among sensible layouts the weakest index varies

@@ -9,7 +9,7 @@ import (
 	"github.com/sixfold-dev/sixfold/internal/linalg"
 )
 
-// Geometry describes the layout of a coupling's vee seats: where their
+// Geometry describes the layout of a coupling's groove seats (vees and rods): where their
 // groove axes point, the instantaneous axis of each pair of vees, and the
 // coupling centre.
 type Geometry struct {
@@ -93,7 +93,7 @@ type PairAxis struct {
 // α of one direction, is below n·parallelTol².
 const parallelTol = 1e-6
 
-// Geometry returns the layout of the coupling's vee seats: every groove,
+// Geometry returns the layout of the coupling's groove seats (vees and rods): every groove,
 // and with two or more vees the pair axes and the coupling centre. Errors
 // are those of [Coupling.Contacts].
 func (c Coupling) Geometry() (Geometry, error) {

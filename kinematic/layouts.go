@@ -165,12 +165,13 @@ func (r Reference) String() string {
 	return fmt.Sprintf("Reference(%d)", int(r))
 }
 
-// WithGroove returns a copy of the coupling with the vee of pair i turned
-// so that its groove lies at the azimuth angle, in radians, measured from
-// ref about the seat's Up. Azimuths π apart are the same groove.
+// WithGroove returns a copy of the coupling with the groove of pair i (a
+// [Vee] or [Rods]) turned so that it lies at the azimuth angle, in
+// radians, measured from ref about the seat's Up. Azimuths π apart are the
+// same groove.
 //
 // WithGroove returns an [*InputError] naming "i" if the pair does not
-// exist or its seat is not a [Vee], "angle" if it is not finite, "ref" for
+// exist or its seat is not a groove, "angle" if it is not finite, "ref" for
 // an unknown reference, and the errors of [Coupling.Contacts].
 func (c Coupling) WithGroove(i int, angle float64, ref Reference) (Coupling, error) {
 	if i < 0 || i >= len(c.Pairs) {

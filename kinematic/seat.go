@@ -10,16 +10,24 @@ import (
 	"github.com/sixfold-dev/sixfold/internal/linalg"
 )
 
-// Ball is a ball fixed to the moving body.
+// Ball is a ball fixed to the moving body: a sphere, or the spherical
+// surface that touches a seat.
+//
+// A canoe ball (a spherical segment of large radius on a small body, which
+// gives a stiffer, stronger contact than a ball of the body's size) is a
+// Ball whose Radius is the segment's radius and whose Centre is that
+// sphere's centre, often far outside the part; each contact of its seat
+// then lies a Radius from it along the normal, as for a ball. The segment
+// must be large enough to hold every contact of its seat.
 type Ball struct {
 	Centre   r3.Vec  // m
 	Radius   float64 // m, > 0
 	Material hertz.Material
 }
 
-// Seat is the feature of the base that receives one ball: a [Vee], [Flat],
-// [Trihedral] or [Cone]. Contacts of any other shape are given directly as
-// [Contact] values.
+// Seat is the feature of the base that receives one ball: a [Vee], [Rods],
+// [Flat], [Trihedral] or [Cone]. Contacts of any other shape are given
+// directly as [Contact] values.
 type Seat interface {
 	// appendContacts appends the contacts that the seat makes with the
 	// seated ball b to dst; name labels them and field names the seat in

@@ -84,3 +84,49 @@ func TestContactSurfaces(t *testing.T) {
 		t.Errorf("hertz on a cone contact: err = %v, want line contact", err)
 	}
 }
+
+// TestRodsContacts: a ball on two rods touches each rod where the normal
+// from the rod's axis through the ball centre meets the ball; the normals
+// are those of a vee of the same half-angle, and each contact is a ball on
+// a convex cylinder along the groove, whose half relative curvatures are
+// A = 1/(2r) along the rod and B = (1/r + 1/R)/2 across it (Johnson 1985,
+// §4.1, for a sphere of radius r on a cylinder of radius R).
+func TestRodsContacts(t *testing.T) {
+	const r, R = 5e-3, 3e-3
+	rods := Rods{Direction: r3.Vec{X: 1}, Up: up, HalfAngle: math.Pi / 4, RodRadius: R, Material: hertz.Steel440C}
+	v := vee45
+	v.Direction = r3.Vec{X: 1}
+	got := mustContacts(t, Coupling{Pairs: []Pair{{Ball: ball(0, 0, 0), Seat: rods}}})
+	want := mustContacts(t, Coupling{Pairs: []Pair{{Ball: ball(0, 0, 0), Seat: v}}})
+	for k := range got {
+		if !near(got[k].Normal, want[k].Normal, 1e-16) || !near(got[k].Point, want[k].Point, 1e-18) || got[k].Label != want[k].Label {
+			t.Errorf("contact %d: %+v, want the vee's %+v", k, got[k], want[k])
+		}
+		h, err := hertz.Solve(got[k].Moving, got[k].Base, 10)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if a, b := 1/(2*r), (1/r+1/R)/2; math.Abs(h.A-a) > 1e-12*a || math.Abs(h.B-b) > 1e-12*b {
+			t.Errorf("contact %d: A = %g, B = %g; want %g, %g", k, h.A, h.B, a, b)
+		}
+	}
+	// The rods turn with the optimiser and report as grooves.
+	c := Coupling{Pairs: []Pair{{Ball: ball(-60, 0, 0), Seat: rods}, {Ball: ball(60, 0, 0), Seat: v}, {Ball: ball(0, 30, 0), Seat: v}}}
+	g, err := c.Geometry()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(g.Grooves) != 3 {
+		t.Errorf("%d grooves, want 3 (rods count)", len(g.Grooves))
+	}
+	if _, err := OptimizeGrooves(c, nil); err != nil {
+		t.Errorf("optimising a coupling with rods: %v", err)
+	}
+	for _, bad := range []float64{0, -1, math.NaN()} {
+		rb := rods
+		rb.RodRadius = bad
+		if _, err := (Coupling{Pairs: []Pair{{Ball: ball(0, 0, 0), Seat: rb}}}).Contacts(); err == nil {
+			t.Errorf("rod radius %g accepted", bad)
+		}
+	}
+}
