@@ -39,6 +39,11 @@ type Seat interface {
 
 	// up returns the seat's Up as given, for azimuths.
 	up() r3.Vec
+
+	// surfaces returns the seat's surfaces in the base frame, one per
+	// contact, and its named dimensions (see Assembly), for the seated
+	// ball b and its nominal contacts cs.
+	surfaces(b Ball, cs []Contact) ([]seatSurface, []dimension)
 }
 
 // Vee is a groove of two flanks that holds a ball at two points, one on
