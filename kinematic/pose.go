@@ -136,6 +136,8 @@ type assemblyPair struct {
 	name  string
 	ball  Ball
 	surfs []seatSurface
+	root  r3.Vec  // the seat's reference point in the base frame: a groove's root under the ball, a socket's apex, a flat's contact point
+	alpha float64 // the seat's expansion coefficient, 1/K
 }
 
 type assemblyContact struct {
@@ -175,8 +177,8 @@ func (c Coupling) Assembly() (*Assembly, error) {
 	k := 0
 	for i, p := range c.Pairs {
 		name := pairName(p.Name, i)
-		surfs, dims := p.Seat.surfaces(p.Ball, cs[k:k+p.Seat.count()])
-		ap := assemblyPair{name: name, ball: p.Ball, surfs: surfs}
+		surfs, dims, root, alpha := p.Seat.surfaces(p.Ball, cs[k:k+p.Seat.count()])
+		ap := assemblyPair{name: name, ball: p.Ball, surfs: surfs, root: root, alpha: alpha}
 		for j := range surfs {
 			a.conts = append(a.conts, assemblyContact{pair: i, surf: j, label: cs[k+j].Label})
 		}
@@ -248,7 +250,7 @@ func grooveDimensions(up, g, c, root r3.Vec) []dimension {
 	return append(ds, turn, tilt)
 }
 
-func (v Vee) surfaces(b Ball, cs []Contact) ([]seatSurface, []dimension) {
+func (v Vee) surfaces(b Ball, cs []Contact) ([]seatSurface, []dimension, r3.Vec, float64) {
 	up, g, _ := v.groove("")
 	s := math.Sin(v.HalfAngle)
 	root := r3.Sub(b.Centre, r3.Scale(b.Radius/s, up))
@@ -278,10 +280,10 @@ func (v Vee) surfaces(b Ball, cs []Contact) ([]seatSurface, []dimension) {
 			dimension{name: "FlankRadius+", kind: surfaceRadius, surf: 0},
 			dimension{name: "FlankRadius-", kind: surfaceRadius, surf: 1})
 	}
-	return surfs, ds
+	return surfs, ds, root, v.Material.Alpha
 }
 
-func (r Rods) surfaces(b Ball, cs []Contact) ([]seatSurface, []dimension) {
+func (r Rods) surfaces(b Ball, cs []Contact) ([]seatSurface, []dimension, r3.Vec, float64) {
 	up, g, _ := r.groove("")
 	s := math.Sin(r.HalfAngle)
 	root := r3.Sub(b.Centre, r3.Scale(b.Radius/s, up))
@@ -296,10 +298,10 @@ func (r Rods) surfaces(b Ball, cs []Contact) ([]seatSurface, []dimension) {
 		dimension{name: "Rod-", kind: seatMotion, motions: []motion{{surf: 1, axis: cs[1].Normal}}},
 		dimension{name: "RodRadius+", kind: surfaceRadius, surf: 0},
 		dimension{name: "RodRadius-", kind: surfaceRadius, surf: 1})
-	return surfs, ds
+	return surfs, ds, root, r.Material.Alpha
 }
 
-func (f Flat) surfaces(b Ball, cs []Contact) ([]seatSurface, []dimension) {
+func (f Flat) surfaces(b Ball, cs []Contact) ([]seatSurface, []dimension, r3.Vec, float64) {
 	n := cs[0].Normal
 	t1 := cs[0].Tangent
 	t2 := r3.Cross(n, t1)
@@ -308,20 +310,22 @@ func (f Flat) surfaces(b Ball, cs []Contact) ([]seatSurface, []dimension) {
 		{name: "Height", kind: seatMotion, motions: []motion{{surf: 0, axis: n}}},
 		{name: "Tilt1", kind: seatMotion, motions: []motion{{surf: 0, rot: true, axis: t1, point: p}}},
 		{name: "Tilt2", kind: seatMotion, motions: []motion{{surf: 0, rot: true, axis: t2, point: p}}},
-	}
+	}, p, f.Material.Alpha
 }
 
-func (t Trihedral) surfaces(b Ball, cs []Contact) ([]seatSurface, []dimension) {
-	return socketSurfaces(t.Up, t.HalfAngle, b, cs)
+func (t Trihedral) surfaces(b Ball, cs []Contact) ([]seatSurface, []dimension, r3.Vec, float64) {
+	s, d, apex := socketSurfaces(t.Up, t.HalfAngle, b, cs)
+	return s, d, apex, t.Material.Alpha
 }
 
-func (c Cone) surfaces(b Ball, cs []Contact) ([]seatSurface, []dimension) {
-	return socketSurfaces(c.Up, c.HalfAngle, b, cs)
+func (c Cone) surfaces(b Ball, cs []Contact) ([]seatSurface, []dimension, r3.Vec, float64) {
+	s, d, apex := socketSurfaces(c.Up, c.HalfAngle, b, cs)
+	return s, d, apex, c.Material.Alpha
 }
 
 // socketSurfaces returns the three faces of a trihedral socket, or the
 // three planes tangent to a cone at its contacts.
-func socketSurfaces(upv r3.Vec, half float64, b Ball, cs []Contact) ([]seatSurface, []dimension) {
+func socketSurfaces(upv r3.Vec, half float64, b Ball, cs []Contact) ([]seatSurface, []dimension, r3.Vec) {
 	up, _ := linalg.Unit3(upv)
 	apex := r3.Sub(b.Centre, r3.Scale(b.Radius/math.Sin(half), up))
 	surfs := make([]seatSurface, 3)
@@ -337,7 +341,7 @@ func socketSurfaces(upv r3.Vec, half float64, b Ball, cs []Contact) ([]seatSurfa
 		faces = append(faces, dimension{name: fmt.Sprintf("Face%d", k+1), kind: seatMotion, motions: []motion{{surf: k, axis: n}}})
 	}
 	ds := append(translations(3), ha)
-	return surfs, append(ds, faces...)
+	return surfs, append(ds, faces...), apex
 }
 
 // Deviation is the deviation of one named dimension from nominal, in m or

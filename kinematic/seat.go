@@ -41,9 +41,10 @@ type Seat interface {
 	up() r3.Vec
 
 	// surfaces returns the seat's surfaces in the base frame, one per
-	// contact, and its named dimensions (see Assembly), for the seated
+	// contact, its named dimensions (see Assembly), its reference point
+	// (root) and its material's expansion coefficient, for the seated
 	// ball b and its nominal contacts cs.
-	surfaces(b Ball, cs []Contact) ([]seatSurface, []dimension)
+	surfaces(b Ball, cs []Contact) ([]seatSurface, []dimension, r3.Vec, float64)
 }
 
 // Vee is a groove of two flanks that holds a ball at two points, one on

@@ -1,0 +1,157 @@
+package kinematic
+
+import (
+	"fmt"
+	"math"
+
+	"gonum.org/v1/gonum/spatial/r3"
+
+	"github.com/sixfold-dev/sixfold/internal/linalg"
+	"github.com/sixfold-dev/sixfold/screw"
+)
+
+// Thermal is a uniform temperature change of a coupling. The balls and
+// the seats expand with their own materials' Alpha (hertz.Material); the
+// moving body and the base, whose materials the coupling does not hold,
+// with the coefficients given here.
+type Thermal struct {
+	DeltaT float64 // K
+
+	// Moving is the expansion coefficient of the moving body, 1/K: the
+	// ball centres and the point of interest move apart with it. Base is
+	// that of the base, 1/K: the seats' positions move apart with it,
+	// about BaseRef, the point where the base is held in the frame
+	// (zero: the origin). A seat's own material expands about the seat's
+	// root (a plane seat's geometry does not change; a rod or a
+	// gothic-arch flank grows).
+	Moving, Base float64
+	BaseRef      r3.Vec
+}
+
+// Drift is the motion of a point of interest of the moving body under a
+// uniform temperature change, relative to the frame.
+type Drift struct {
+	Point r3.Vec
+
+	// Exact is the point's displacement, in m, from the exact seat of the
+	// expanded geometry, and ExactTilt the body's rotation vector, rad;
+	// Linear and LinearTilt the same from the first-order model.
+	Exact, ExactTilt   r3.Vec
+	Linear, LinearTilt r3.Vec
+
+	// Centre is the thermal centre: the point of the moving body, in the
+	// plane through the ball centres' centroid normal to the seats' mean
+	// Up, that does not move in that plane (first order; for three vees,
+	// where the groove lines meet). HasCentre is false when no such point
+	// exists (a pure lateral translation). Distance is the lateral distance
+	// from the point of interest to Centre, m.
+	Centre    r3.Vec
+	HasCentre bool
+	Distance  float64
+}
+
+// Drift returns the motion of the point p of the moving body under the
+// uniform temperature change th, by the exact seat of the expanded
+// geometry and by the first-order model, with the thermal centre. The
+// first-order model changes each gap by ∂gᵢ/∂ΔT =
+// −α_ball r + α_moving n·c − α_base n·(root − BaseRef) − α_seat n·(p − root)
+// (ball centre c, contact point p, normal n), moves the body by
+// x = −ΔT Σ (∂gᵢ/∂ΔT) Tᵢ, and adds the point's own expansion α_moving ΔT p.
+//
+// Drift returns an [*InputError] naming "th.DeltaT", "th.Moving",
+// "th.Base", "th.BaseRef" or "p" for numbers that are not finite, and the
+// errors of [Assembly.Seat].
+func (a *Assembly) Drift(th Thermal, p r3.Vec) (Drift, error) {
+	for _, f := range []struct {
+		name string
+		v    float64
+	}{{"th.DeltaT", th.DeltaT}, {"th.Moving", th.Moving}, {"th.Base", th.Base}} {
+		if math.IsNaN(f.v) || math.IsInf(f.v, 0) {
+			return Drift{}, &InputError{Field: f.name, Err: fmt.Errorf("%w: %g", ErrNonFinite, f.v)}
+		}
+	}
+	if !linalg.Finite3(th.BaseRef) {
+		return Drift{}, &InputError{Field: "th.BaseRef", Err: fmt.Errorf("%w: %v", ErrNonFinite, th.BaseRef)}
+	}
+	if !linalg.Finite3(p) {
+		return Drift{}, &InputError{Field: "p", Err: fmt.Errorf("%w: %v", ErrNonFinite, p)}
+	}
+	dt := th.DeltaT
+	d := Drift{Point: p}
+
+	// First order.
+	var x screw.Twist // about origin
+	for i, c := range a.conts {
+		pr := &a.pairs[c.pair]
+		l := &a.lines[i]
+		cg := r3.Add(l.centre, a.origin)
+		pg := r3.Add(l.p, a.origin)
+		e := -pr.ball.Material.Alpha*pr.ball.Radius + th.Moving*r3.Dot(l.n, cg) -
+			th.Base*r3.Dot(l.n, r3.Sub(pr.root, th.BaseRef)) - pr.alpha*r3.Dot(l.n, r3.Sub(pg, pr.root))
+		x = x.Add(a.freed[i].Scale(-e * dt))
+	}
+	pl := r3.Sub(p, a.origin)
+	d.Linear = r3.Add(x.At(pl), r3.Scale(th.Moving*dt, p))
+	d.LinearTilt = x.W
+
+	// Exact: the expanded geometry, seated.
+	g := a.nominal()
+	for i, c := range a.conts {
+		pr := &a.pairs[c.pair]
+		g.c[i] = r3.Sub(r3.Scale(1+th.Moving*dt, r3.Add(g.c[i], a.origin)), a.origin)
+		g.r[i] *= 1 + pr.ball.Material.Alpha*dt
+		s := &g.surfs[i]
+		root := pr.root
+		newRoot := r3.Add(th.BaseRef, r3.Scale(1+th.Base*dt, r3.Sub(root, th.BaseRef)))
+		q := r3.Add(s.q, a.origin)
+		q = r3.Add(newRoot, r3.Scale(1+pr.alpha*dt, r3.Sub(q, root)))
+		s.q = r3.Sub(q, a.origin)
+		s.R *= 1 + pr.alpha*dt
+	}
+	var zero [6]float64
+	pose, err := a.seat(&g, &zero, 1e-13, 50)
+	if err != nil {
+		return Drift{}, err
+	}
+	d.Exact = r3.Sub(pose.Apply(r3.Scale(1+th.Moving*dt, p)), p)
+	d.ExactTilt = pose.Rotation
+
+	// Thermal centre: the lateral part of v(q) = V + W × q + α ΔT q
+	// vanishes at q = c₀ + s e₁ + t e₂ in the plane of the balls.
+	var upSum, cen r3.Vec
+	for _, pr := range a.pairs {
+		cen = r3.Add(cen, pr.ball.Centre)
+	}
+	cen = r3.Scale(1/float64(len(a.pairs)), cen)
+	for i := range a.lines {
+		upSum = r3.Add(upSum, a.lines[i].n)
+	}
+	upv, ok := linalg.Unit3(upSum)
+	if !ok {
+		return d, nil
+	}
+	e1 := anyNormal(upv)
+	e2 := r3.Cross(upv, e1)
+	xg := global(x, a.origin)
+	vel := func(q r3.Vec) r3.Vec { return r3.Add(xg.At(q), r3.Scale(th.Moving*dt, q)) }
+	v0 := vel(cen)
+	a1 := r3.Sub(vel(r3.Add(cen, e1)), v0) // the linear part along e1 and e2
+	a2 := r3.Sub(vel(r3.Add(cen, e2)), v0)
+	m11, m12, m21, m22 := r3.Dot(e1, a1), r3.Dot(e1, a2), r3.Dot(e2, a1), r3.Dot(e2, a2)
+	det := m11*m22 - m12*m21
+	scale := math.Max(math.Abs(m11)+math.Abs(m12), math.Abs(m21)+math.Abs(m22))
+	// The lateral motion must change across the plane by more than
+	// rounding of the translation for a centre to be defined.
+	if !(math.Abs(det) > 1e-12*scale*scale) || scale == 0 {
+		return d, nil
+	}
+	b1, b2 := -r3.Dot(e1, v0), -r3.Dot(e2, v0)
+	s := (b1*m22 - m12*b2) / det
+	t := (m11*b2 - m21*b1) / det
+	d.Centre = r3.Add(cen, r3.Add(r3.Scale(s, e1), r3.Scale(t, e2)))
+	d.HasCentre = true
+	off := r3.Sub(p, d.Centre)
+	off = r3.Sub(off, r3.Scale(r3.Dot(off, upv), upv))
+	d.Distance = linalg.Norm3(off)
+	return d, nil
+}

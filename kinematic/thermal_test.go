@@ -1,0 +1,105 @@
+package kinematic
+
+import (
+	"errors"
+	"math"
+	"testing"
+
+	"gonum.org/v1/gonum/spatial/r3"
+)
+
+// lateral returns the part of v normal to z.
+func lateral(v r3.Vec) r3.Vec { return r3.Vec{X: v.X, Y: v.Y} }
+
+// TestDriftThermalCentre: when the moving body and the base expand about
+// the point G where the groove lines meet, every ball centre moves along
+// its own groove line (a scaling about G maps lines through G to
+// themselves), so the body need not turn and G stays put laterally: the
+// thermal centre is where the groove lines meet (common practice, and this
+// geometry). Checked for radial grooves on an equilateral triangle (G the
+// centroid, by symmetry) and bisector grooves on the isosceles triangle (G
+// the incentre), with aluminium on steel (23.6e-6 and 11.9e-6 1/K) over
+// 10 K: a point of the body moves laterally by exactly α_moving ΔT times
+// its lateral offset from G (the body is seated by the translation −αΔT·G
+// of its own expansion, which keeps each ball on its groove line).
+func TestDriftThermalCentre(t *testing.T) {
+	for name, bs := range map[string][3]Ball{"equilateral": equilateral(), "isosceles": isosceles()} {
+		c, err := BisectorVees(bs, three(vee45))
+		if err != nil {
+			t.Fatal(err)
+		}
+		a, err := c.Assembly()
+		if err != nil {
+			t.Fatal(err)
+		}
+		g := incentre(bs[0].Centre, bs[1].Centre, bs[2].Centre)
+		th := Thermal{DeltaT: 10, Moving: 23.6e-6, Base: 11.9e-6, BaseRef: g}
+		for _, p := range []r3.Vec{g, r3.Add(g, r3.Vec{X: 0.04, Z: 0.03})} {
+			d, err := a.Drift(th, p)
+			if err != nil {
+				t.Fatal(err)
+			}
+			want := r3.Scale(th.Moving*th.DeltaT, lateral(r3.Sub(p, g)))
+			for _, got := range []r3.Vec{d.Linear, d.Exact} {
+				if e := r3.Norm(r3.Sub(lateral(got), want)); e > 1e-12*0.05 {
+					t.Errorf("%s, point %v: lateral drift %v, want %v", name, p, lateral(got), want)
+				}
+			}
+			if !d.HasCentre || r3.Norm(lateral(r3.Sub(d.Centre, g))) > 1e-9 {
+				t.Errorf("%s: thermal centre %v (has %v), want where the grooves meet, %v", name, d.Centre, d.HasCentre, g)
+			}
+			if r3.Norm(d.ExactTilt) > 1e-15 || r3.Norm(d.LinearTilt) > 1e-15 {
+				t.Errorf("%s: tilt %v / %v, want none", name, d.ExactTilt, d.LinearTilt)
+			}
+		}
+	}
+}
+
+// TestDriftSocketVeeFlat: a socket–vee–flat whose vee points at the
+// socket expands about the socket without turning (ball B slides along its
+// groove); turn the vee off the socket and the body must turn about Up to
+// keep ball B in its groove. The exact and linear drifts agree to second
+// order in ΔT: the difference at 20 K is about four times that at 10 K.
+func TestDriftSocketVeeFlat(t *testing.T) {
+	c := mustSVF(t)
+	a, err := c.Assembly()
+	if err != nil {
+		t.Fatal(err)
+	}
+	th := Thermal{DeltaT: 10, Moving: 23.6e-6, Base: 11.9e-6, BaseRef: c.Pairs[0].Ball.Centre}
+	d, err := a.Drift(th, r3.Vec{Z: 0.03})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if r3.Norm(d.ExactTilt) > 1e-14 || r3.Norm(d.LinearTilt) > 1e-14 {
+		t.Errorf("vee at the socket: tilt %v, %v; want none", d.ExactTilt, d.LinearTilt)
+	}
+	off, err := c.WithGroove(1, 0.3, FrameX)
+	if err != nil {
+		t.Fatal(err)
+	}
+	ao, err := off.Assembly()
+	if err != nil {
+		t.Fatal(err)
+	}
+	diff := func(dt float64) (float64, r3.Vec) {
+		th := th
+		th.DeltaT = dt
+		d, err := ao.Drift(th, r3.Vec{Z: 0.03})
+		if err != nil {
+			t.Fatal(err)
+		}
+		return r3.Norm(r3.Sub(d.Exact, d.Linear)), d.LinearTilt
+	}
+	d10, tilt := diff(10)
+	d20, _ := diff(20)
+	if math.Abs(tilt.Z) < 1e-7 {
+		t.Errorf("vee 0.3 rad off the socket: turn about Up %g rad, want a visible one", tilt.Z)
+	}
+	if r := d20 / d10; r < 3.5 || r > 4.5 {
+		t.Errorf("exact − linear: %g at 10 K, %g at 20 K (ratio %g, want about 4)", d10, d20, r)
+	}
+	if _, err := ao.Drift(Thermal{DeltaT: math.NaN()}, r3.Vec{}); !errors.Is(err, ErrNonFinite) {
+		t.Errorf("NaN ΔT: %v", err)
+	}
+}
