@@ -2,6 +2,7 @@ package kinematic
 
 import (
 	"math"
+	"math/rand/v2"
 	"testing"
 
 	"gonum.org/v1/gonum/spatial/r3"
@@ -171,5 +172,64 @@ func BenchmarkStiffnessModes(b *testing.B) {
 			b.Fatal(err)
 		}
 		sinkModes, sinkStiffErr = st.Modes()
+	}
+}
+
+var (
+	sinkPose   Pose
+	sinkSample r3.Vec
+)
+
+// BenchmarkSeat measures the exact seated pose of a three-vee assembly
+// with every dimension deviating by a few micrometres.
+func BenchmarkSeat(b *testing.B) {
+	a := generalAssemblies(b)["three-vee"]
+	var devs []Deviation
+	for i, d := range a.Dimensions() {
+		devs = append(devs, Deviation{d, 2e-6 * math.Sin(float64(i+1))})
+	}
+	b.ReportAllocs()
+	for b.Loop() {
+		p, err := a.Seat(devs, nil)
+		if err != nil {
+			b.Fatal(err)
+		}
+		sinkPose = p
+	}
+}
+
+// BenchmarkStudySample measures one Monte Carlo sample (eleven toleranced
+// dimensions drawn, then seated), linear and exact, without the study's
+// bookkeeping.
+func BenchmarkStudySample(b *testing.B) {
+	a := generalAssemblies(b)["three-vee"]
+	tols := studyTolerances()
+	idx, _ := a.checkTolerances(tols)
+	p := r3.Vec{X: 0.01, Y: 0.02, Z: 0.05}
+	for _, exact := range []bool{false, true} {
+		s := &sampler{a: a, p: p, pl: r3.Sub(p, a.origin), idx: idx, exact: exact, base: a.nominal()}
+		s.lim = make([]float64, len(tols))
+		s.normal = make([]bool, len(tols))
+		s.jd = make([]r3.Vec, len(tols))
+		s.jw = make([]r3.Vec, len(tols))
+		for i, k := range idx {
+			s.lim[i], s.normal[i] = tols[i].Value, true
+			x := a.sensitivity(k)
+			s.jd[i], s.jw[i] = x.At(s.pl), x.W
+		}
+		name := "linear"
+		if exact {
+			name = "exact"
+		}
+		rng := rand.New(rand.NewPCG(1, 2))
+		dev := make([]float64, len(tols))
+		b.Run(name, func(b *testing.B) {
+			b.ReportAllocs()
+			for b.Loop() {
+				s.draw(rng, dev)
+				d, _, _ := s.sample(dev)
+				sinkSample = d
+			}
+		})
 	}
 }

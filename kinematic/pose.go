@@ -569,8 +569,9 @@ func (a *Assembly) apply(g *geom, k int, v float64) {
 func (a *Assembly) Seat(devs []Deviation, opt *SeatOptions) (Pose, error) {
 	g := a.nominal()
 	for i, d := range devs {
-		k, err := a.lookup(d.Dimension, indexed("devs", i)+".Dimension")
-		if err != nil {
+		k, ok := a.index[d.Dimension]
+		if !ok {
+			_, err := a.lookup(d.Dimension, indexed("devs", i)+".Dimension")
 			return Pose{}, err
 		}
 		if math.IsNaN(d.Value) || math.IsInf(d.Value, 0) {
@@ -628,6 +629,14 @@ func (a *Assembly) seat(g *geom, appr *[6]float64, tol float64, maxIt int) (Pose
 	var ls [6]line
 	it := 0
 	var resid float64
+	// The steps use the twists of the nominal contacts while they
+	// contract the gaps quickly (a chord method: the Jacobian differs
+	// from the nominal by the contact normals' rotation, about the
+	// deviations over the size, so each step gains that factor); when a
+	// step gains less than a factor 100 the twists are rebuilt at the
+	// current pose (Newton's method proper, quadratic).
+	ts := a.freed
+	prev := math.Inf(1)
 	for ; ; it++ {
 		resid = 0
 		var gaps [6]float64
@@ -651,10 +660,13 @@ func (a *Assembly) seat(g *geom, appr *[6]float64, tol float64, maxIt int) (Pose
 		if it >= maxIt {
 			return Pose{}, a.errUnseated(0, fmt.Sprintf("the seated pose did not converge in %d iterations (largest gap %.3g m)", maxIt, resid))
 		}
-		ts, ok := freed(ls[:], r3.Vec{}, L)
-		if !ok {
-			return Pose{}, a.errUnseated(0, "the contacts are singular at this pose")
+		if resid > prev/100 {
+			var ok bool
+			if ts, ok = freed(ls[:], r3.Vec{}, L); !ok {
+				return Pose{}, a.errUnseated(0, "the contacts are singular at this pose")
+			}
 		}
+		prev = resid
 		var x screw.Twist
 		for i := range ts {
 			x = x.Add(ts[i].Scale(-gaps[i]))

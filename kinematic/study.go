@@ -1,0 +1,298 @@
+package kinematic
+
+import (
+	"context"
+	"fmt"
+	"math"
+	"math/rand/v2"
+	"runtime"
+	"sort"
+	"sync"
+	"sync/atomic"
+
+	"gonum.org/v1/gonum/spatial/r3"
+
+	"github.com/sixfold-dev/sixfold/internal/linalg"
+)
+
+// StudyOptions holds options for [Assembly.Study].
+type StudyOptions struct {
+	// Samples is the number of parts drawn, > 0 and at most 1e7.
+	Samples int
+
+	// Seed makes the study reproducible: the same seed gives the same
+	// samples and the same statistics whatever the number of workers.
+	Seed uint64
+
+	// Workers is the number of goroutines; zero means GOMAXPROCS.
+	Workers int
+
+	// Exact seats every sample with the exact model ([Assembly.Seat])
+	// instead of the first-order one ([Assembly.Sensitivities]).
+	Exact bool
+
+	// Calibration holds deviations that are known (a measured part):
+	// every sample starts from them, and the tolerances add to them.
+	Calibration []Deviation
+
+	// Progress, when not nil, is called with the samples done and the
+	// total, after each block of samples, from one goroutine at a time.
+	Progress func(done, total int)
+
+	// KeepSamples keeps every seated sample's displacement in the result.
+	KeepSamples bool
+}
+
+// Stats summarises one quantity over the samples.
+type Stats struct {
+	Mean, StdDev float64
+
+	// P50, P95, P99 and P9973 are percentiles of the quantity's
+	// magnitude (for a coordinate, of its absolute value): the envelope
+	// that holds that fraction of the parts.
+	P50, P95, P99, P9973 float64
+}
+
+// StudyResult is the outcome of a Monte Carlo tolerance study: the
+// interchangeability of parts made to the drawing.
+type StudyResult struct {
+	Samples int // drawn
+	Failed  int // that could not seat (exact model only); left out of the statistics
+
+	// X, Y and Z are the point of interest's displacement along the
+	// frame's axes, m; Radial its magnitude, m; Tilt the magnitude of the
+	// body's rotation, rad.
+	X, Y, Z, Radial, Tilt Stats
+
+	// Points holds each seated sample's displacement, in the order drawn,
+	// when KeepSamples was set.
+	Points []r3.Vec
+}
+
+// maxSamples bounds a study's memory: 32 bytes a sample.
+const maxSamples = 10_000_000
+
+// studyBlock is the number of samples drawn from one random stream: block
+// k uses the stream PCG(seed, k), so the samples do not depend on which
+// worker draws them.
+const studyBlock = 4096
+
+// Study returns the Monte Carlo tolerance study of the point p of the
+// moving body: each sample draws every toleranced dimension independently
+// from its distribution, adds the calibration, seats the part (first-order
+// or exact) and records where the point goes and how far the body turns.
+// It answers "how far does a different part made to the same drawing
+// sit" — interchangeability; how well the same part comes back is
+// [Model.Repeatability]'s question.
+//
+// The study stops early with ctx's error when ctx is cancelled.
+// Errors are those of [Assembly.Budget] and [Assembly.Seat] (for the
+// calibration), and an [*InputError] naming "opt" when it is nil,
+// "opt.Samples" out of range or "opt.Workers" negative.
+func (a *Assembly) Study(ctx context.Context, p r3.Vec, tols []Tolerance, opt *StudyOptions) (StudyResult, error) {
+	if opt == nil {
+		return StudyResult{}, &InputError{Field: "opt", Err: fmt.Errorf("%w: a study needs options (at least Samples)", ErrRange)}
+	}
+	if opt.Samples <= 0 || opt.Samples > maxSamples {
+		return StudyResult{}, &InputError{Field: "opt.Samples", Err: fmt.Errorf("%w: must be in [1, %d], got %d", ErrRange, maxSamples, opt.Samples)}
+	}
+	if opt.Workers < 0 {
+		return StudyResult{}, &InputError{Field: "opt.Workers", Err: fmt.Errorf("%w: must be ≥ 0, got %d", ErrRange, opt.Workers)}
+	}
+	if !linalg.Finite3(p) {
+		return StudyResult{}, &InputError{Field: "p", Err: fmt.Errorf("%w: %v", ErrNonFinite, p)}
+	}
+	idx, err := a.checkTolerances(tols)
+	if err != nil {
+		return StudyResult{}, err
+	}
+	s := &sampler{a: a, p: p, pl: r3.Sub(p, a.origin), idx: idx, exact: opt.Exact}
+	s.lim = make([]float64, len(tols))
+	s.normal = make([]bool, len(tols))
+	for i, t := range tols {
+		s.lim[i], s.normal[i] = t.Value, t.Distribution == Normal
+	}
+	// The calibrated part: its geometry for the exact model, its
+	// first-order displacement for the linear one.
+	s.base = a.nominal()
+	for i, d := range opt.Calibration {
+		k, err := a.lookup(d.Dimension, indexed("opt.Calibration", i)+".Dimension")
+		if err != nil {
+			return StudyResult{}, err
+		}
+		if math.IsNaN(d.Value) || math.IsInf(d.Value, 0) {
+			return StudyResult{}, &InputError{Field: indexed("opt.Calibration", i) + ".Value", Err: fmt.Errorf("%w: %g", ErrNonFinite, d.Value)}
+		}
+		a.apply(&s.base, k, d.Value)
+		x := a.sensitivity(k)
+		s.d0 = r3.Add(s.d0, r3.Scale(d.Value, x.At(s.pl)))
+		s.w0 = r3.Add(s.w0, r3.Scale(d.Value, x.W))
+	}
+	s.jd = make([]r3.Vec, len(tols))
+	s.jw = make([]r3.Vec, len(tols))
+	for i, k := range idx {
+		x := a.sensitivity(k)
+		s.jd[i], s.jw[i] = x.At(s.pl), x.W
+	}
+	if opt.Exact {
+		// The calibrated part itself must seat.
+		var zero [6]float64
+		base := s.base
+		if _, err := a.seat(&base, &zero, 1e-13, 50); err != nil {
+			return StudyResult{}, err
+		}
+	}
+
+	n := opt.Samples
+	disp := make([]r3.Vec, n)
+	tilt := make([]float64, n)
+	ok := make([]bool, n)
+	workers := opt.Workers
+	if workers == 0 {
+		workers = runtime.GOMAXPROCS(0)
+	}
+	blocks := (n + studyBlock - 1) / studyBlock
+	workers = min(workers, blocks)
+	var next atomic.Int64
+	var mu sync.Mutex
+	done := 0
+	var wg sync.WaitGroup
+	var stopped atomic.Bool
+	for w := 0; w < workers; w++ {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			dev := make([]float64, len(tols))
+			for {
+				k := int(next.Add(1) - 1)
+				if k >= blocks || stopped.Load() {
+					return
+				}
+				if ctx.Err() != nil {
+					stopped.Store(true)
+					return
+				}
+				rng := rand.New(rand.NewPCG(opt.Seed, uint64(k)))
+				lo, hi := k*studyBlock, min(n, (k+1)*studyBlock)
+				for j := lo; j < hi; j++ {
+					s.draw(rng, dev)
+					disp[j], tilt[j], ok[j] = s.sample(dev)
+				}
+				if opt.Progress != nil {
+					mu.Lock()
+					done += hi - lo
+					opt.Progress(done, n)
+					mu.Unlock()
+				}
+			}
+		}()
+	}
+	wg.Wait()
+	if err := ctx.Err(); err != nil {
+		return StudyResult{}, err
+	}
+	return summarise(disp, tilt, ok, opt.KeepSamples), nil
+}
+
+// sampler draws and seats samples; it is shared, read-only, by the
+// workers.
+type sampler struct {
+	a      *Assembly
+	p, pl  r3.Vec // the point of interest, in the frame and about the origin
+	idx    []int
+	lim    []float64
+	normal []bool
+	exact  bool
+	base   geom     // the calibrated geometry
+	d0, w0 r3.Vec   // its first-order displacement and tilt
+	jd, jw []r3.Vec // per toleranced dimension
+}
+
+// draw fills dev with one sample of every toleranced dimension.
+func (s *sampler) draw(rng *rand.Rand, dev []float64) {
+	for i := range dev {
+		if s.normal[i] {
+			dev[i] = s.lim[i] * rng.NormFloat64()
+		} else {
+			dev[i] = s.lim[i] * (2*rng.Float64() - 1)
+		}
+	}
+}
+
+// sample returns the displacement of the point and the tilt magnitude of
+// one part with the deviations dev, and whether it seated.
+func (s *sampler) sample(dev []float64) (r3.Vec, float64, bool) {
+	if !s.exact {
+		d, w := s.d0, s.w0
+		for i, v := range dev {
+			d.X += v * s.jd[i].X
+			d.Y += v * s.jd[i].Y
+			d.Z += v * s.jd[i].Z
+			w.X += v * s.jw[i].X
+			w.Y += v * s.jw[i].Y
+			w.Z += v * s.jw[i].Z
+		}
+		return d, linalg.Norm3(w), true
+	}
+	g := s.base
+	for i, v := range dev {
+		s.a.apply(&g, s.idx[i], v)
+	}
+	var zero [6]float64
+	pose, err := s.a.seat(&g, &zero, 1e-13, 50)
+	if err != nil {
+		return r3.Vec{}, 0, false
+	}
+	return r3.Sub(pose.Apply(s.p), s.p), linalg.Norm3(pose.Rotation), true
+}
+
+// summarise returns the statistics of the seated samples.
+func summarise(disp []r3.Vec, tilt []float64, ok []bool, keep bool) StudyResult {
+	res := StudyResult{Samples: len(disp)}
+	var xs, ys, zs, rs, ts []float64
+	for i := range disp {
+		if !ok[i] {
+			res.Failed++
+			continue
+		}
+		d := disp[i]
+		xs, ys, zs = append(xs, d.X), append(ys, d.Y), append(zs, d.Z)
+		rs, ts = append(rs, linalg.Norm3(d)), append(ts, tilt[i])
+		if keep {
+			res.Points = append(res.Points, d)
+		}
+	}
+	res.X, res.Y, res.Z = stats(xs), stats(ys), stats(zs)
+	res.Radial, res.Tilt = stats(rs), stats(ts)
+	return res
+}
+
+// stats returns the mean and standard deviation of x (Welford's update,
+// Welford 1962, Technometrics 4(3)), and percentiles of |x| by the
+// nearest-rank method on the sorted magnitudes.
+func stats(x []float64) Stats {
+	if len(x) == 0 {
+		return Stats{}
+	}
+	var mean, m2 float64
+	for i, v := range x {
+		d := v - mean
+		mean += d / float64(i+1)
+		m2 += d * (v - mean)
+	}
+	s := Stats{Mean: mean}
+	if len(x) > 1 {
+		s.StdDev = math.Sqrt(m2 / float64(len(x)-1))
+	}
+	mag := make([]float64, len(x))
+	for i, v := range x {
+		mag[i] = math.Abs(v)
+	}
+	sort.Float64s(mag)
+	pick := func(q float64) float64 {
+		k := int(math.Ceil(q*float64(len(mag)))) - 1
+		return mag[max(0, min(len(mag)-1, k))]
+	}
+	s.P50, s.P95, s.P99, s.P9973 = pick(0.50), pick(0.95), pick(0.99), pick(0.9973)
+	return s
+}

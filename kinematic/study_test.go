@@ -1,0 +1,145 @@
+package kinematic
+
+import (
+	"context"
+	"errors"
+	"math"
+	"reflect"
+	"testing"
+
+	"gonum.org/v1/gonum/spatial/r3"
+)
+
+// studyTolerances returns normal tolerances on a mix of dimensions of the
+// three-vee assembly: ball radii and centres, seat positions, a turn and
+// a half-angle.
+func studyTolerances() []Tolerance {
+	return []Tolerance{
+		{"A.Ball.Radius", 1e-6, Normal}, {"B.Ball.Radius", 1e-6, Normal}, {"C.Ball.Radius", 1e-6, Normal},
+		{"A.Ball.X", 2e-6, Normal}, {"B.Ball.Y", 2e-6, Normal}, {"C.Ball.Z", 2e-6, Normal},
+		{"A.Seat.X", 3e-6, Normal}, {"B.Seat.Z", 3e-6, Normal}, {"C.Seat.Turn", 1e-4, Normal},
+		{"B.Seat.HalfAngle", 2e-4, Normal}, {"C.Seat.Flank+", 1e-6, Normal},
+	}
+}
+
+// TestStudyLinearMoments: for the linear model with normal tolerances the
+// displacement of the point is exactly normal with mean zero and variance
+// Σ (Jᵈ σᵈ)² per axis (a linear map of independent normals: the linear
+// covariance JΣJᵀ). The sample mean is tested against 0 with a z-test at
+// 4.5 standard errors, and the sample variance against σ² with
+// (N−1)s²/σ² ~ χ²(N−1), approximately normal with standard deviation
+// √(2/(N−1)) in s²/σ² at N = 2e5, at 4.5 of those: each check has a
+// false-alarm rate of about 7e-6 over seeds (two-sided normal tail at
+// 4.5σ), and the seed is fixed.
+func TestStudyLinearMoments(t *testing.T) {
+	a := generalAssemblies(t)["three-vee"]
+	p := r3.Vec{X: 0.01, Y: 0.02, Z: 0.05}
+	tols := studyTolerances()
+	const n = 200000
+	res, err := a.Study(context.Background(), p, tols, &StudyOptions{Samples: n, Seed: 7})
+	if err != nil {
+		t.Fatal(err)
+	}
+	sens, _ := a.Sensitivities(p)
+	idx, _ := a.checkTolerances(tols)
+	var vx, vy, vz float64
+	for i, k := range idx {
+		j := sens[k].Displacement
+		s := tols[i].Value
+		vx, vy, vz = vx+j.X*j.X*s*s, vy+j.Y*j.Y*s*s, vz+j.Z*j.Z*s*s
+	}
+	for _, c := range []struct {
+		name string
+		st   Stats
+		v    float64
+	}{{"x", res.X, vx}, {"y", res.Y, vy}, {"z", res.Z, vz}} {
+		sd := math.Sqrt(c.v)
+		if math.Abs(c.st.Mean) > 4.5*sd/math.Sqrt(n) {
+			t.Errorf("%s: mean %g, want 0 within %g", c.name, c.st.Mean, 4.5*sd/math.Sqrt(n))
+		}
+		if r := c.st.StdDev * c.st.StdDev / c.v; math.Abs(r-1) > 4.5*math.Sqrt(2.0/(n-1)) {
+			t.Errorf("%s: s²/σ² = %g, want 1 within %g", c.name, r, 4.5*math.Sqrt(2.0/(n-1)))
+		}
+	}
+	// The budget's Sigma is the root of the summed variances.
+	b, err := a.Budget(p, tols)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if math.Abs(b.Sigma*b.Sigma-(vx+vy+vz)) > 1e-12*(vx+vy+vz) {
+		t.Errorf("budget sigma² %g, want %g", b.Sigma*b.Sigma, vx+vy+vz)
+	}
+	for i := 1; i < len(b.Contributors); i++ {
+		if b.Contributors[i].Effect > b.Contributors[i-1].Effect {
+			t.Errorf("contributors not ranked at %d", i)
+		}
+	}
+	// A normal coordinate's |x| has its 50th percentile at 0.6745σ
+	// (the quartile of the standard normal, Abramowitz & Stegun 1964,
+	// Table 26.1); check within 1 %.
+	if r := res.Z.P50 / math.Sqrt(vz); math.Abs(r-0.6745) > 0.01*0.6745 {
+		t.Errorf("z: P50/σ = %g, want 0.6745", r)
+	}
+}
+
+// TestStudyReproducible: the same seed gives identical results on one
+// worker and on four; another seed gives different ones; the exact model
+// agrees with the linear one for micrometre tolerances to well within the
+// spread; progress reaches the total; cancellation stops the study.
+func TestStudyReproducible(t *testing.T) {
+	a := generalAssemblies(t)["socket-vee-flat"]
+	p := r3.Vec{Z: 0.04}
+	tols := []Tolerance{{"A.Ball.Radius", 2e-6, Uniform}, {"B.Seat.Y", 5e-6, Uniform}, {"C.Seat.Height", 3e-6, Normal}, {"B.Seat.Turn", 1e-4, Uniform}}
+	run := func(workers int, seed uint64, exact bool) StudyResult {
+		var last, total int
+		res, err := a.Study(context.Background(), p, tols, &StudyOptions{
+			Samples: 20000, Seed: seed, Workers: workers, Exact: exact, KeepSamples: true,
+			Progress: func(done, n int) { last, total = done, n },
+		})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if last != total || total != 20000 {
+			t.Errorf("progress ended at %d of %d", last, total)
+		}
+		return res
+	}
+	one, four := run(1, 3, false), run(4, 3, false)
+	if !reflect.DeepEqual(one, four) {
+		t.Error("seed 3: one worker and four workers differ")
+	}
+	if other := run(2, 4, false); other.Radial.Mean == one.Radial.Mean {
+		t.Error("seeds 3 and 4 give the same mean")
+	}
+	ex1, ex4 := run(1, 3, true), run(4, 3, true)
+	if !reflect.DeepEqual(ex1, ex4) {
+		t.Error("exact model: one worker and four workers differ")
+	}
+	if ex1.Failed != 0 {
+		t.Errorf("%d exact samples failed to seat", ex1.Failed)
+	}
+	// Same samples, two models: they differ at second order, about
+	// |deviation|²/size ≈ (5e-6)²/0.05 = 5e-10 m, far below the spread.
+	for i := range ex1.Points {
+		if d := r3.Norm(r3.Sub(ex1.Points[i], one.Points[i])); d > 1e-8 {
+			t.Fatalf("sample %d: exact and linear differ by %g m", i, d)
+		}
+	}
+	ctx, cancel := context.WithCancel(context.Background())
+	cancel()
+	if _, err := a.Study(ctx, p, tols, &StudyOptions{Samples: 100000}); !errors.Is(err, context.Canceled) {
+		t.Errorf("cancelled study: %v", err)
+	}
+	for _, o := range []*StudyOptions{nil, {Samples: 0}, {Samples: 10, Workers: -1}} {
+		if _, err := a.Study(context.Background(), p, tols, o); !errors.Is(err, ErrRange) {
+			t.Errorf("options %+v: %v", o, err)
+		}
+	}
+	var ie *InputError
+	if _, err := a.Study(context.Background(), p, []Tolerance{{"A.Ball.Radius", -1, Uniform}}, &StudyOptions{Samples: 10}); !errors.As(err, &ie) || ie.Field != "tols[0].Value" {
+		t.Errorf("negative tolerance: %v", err)
+	}
+	if _, err := a.Study(context.Background(), p, []Tolerance{{"A.Ball.Radius", 1, Uniform}, {"A.Ball.Radius", 1, Uniform}}, &StudyOptions{Samples: 10}); !errors.As(err, &ie) || ie.Field != "tols[1].Dimension" {
+		t.Errorf("repeated dimension: %v", err)
+	}
+}
