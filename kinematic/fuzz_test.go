@@ -283,3 +283,46 @@ func FuzzLoads(f *testing.F) {
 		}
 	})
 }
+
+// FuzzSeat seats a three-vee assembly (one gothic-arch vee) with fuzzed
+// deviations of its first dimensions and checks that Seat never panics
+// and, without an error, returns a finite pose whose contacts are closed
+// to the tolerance: every gap, recomputed here from the pose, within
+// 1e-12 of the size.
+func FuzzSeat(f *testing.F) {
+	f.Add(fuzzdata.Append(nil, 1e-6, -2e-6, 3e-6, 0, 1e-4, 0, 0, 0))
+	f.Add(fuzzdata.Append(nil, 0, 0, 0, 0, 0, 0, 0, 0))
+	f.Add(fuzzdata.Append(nil, 5e-324, -5e-324, 1e300, 0, 0, 0, 0, 0))
+	f.Add(fuzzdata.Append(nil, -6e-3, 0, 0, 0, 0, 0, 0, 0))
+	a := generalAssemblies(f)["three-vee"]
+	dims := a.Dimensions()
+	f.Fuzz(func(t *testing.T, b []byte) {
+		xs := fuzzdata.Floats(b, 1)
+		if len(xs) == 0 || len(xs) > len(dims) {
+			return
+		}
+		devs := make([]Deviation, len(xs))
+		for i, x := range xs {
+			// Spread over every dimension by a stride.
+			devs[i] = Deviation{dims[(7*i)%len(dims)], x[0]}
+		}
+		p, err := a.Seat(devs, nil)
+		if err != nil {
+			return
+		}
+		if !linalgFinite(p.Rotation) || !linalgFinite(p.Translation) {
+			t.Fatalf("pose %+v", p)
+		}
+		g := a.nominal()
+		for _, d := range devs {
+			a.apply(&g, a.index[d.Dimension], d.Value)
+		}
+		for i := range g.c {
+			w := r3.Sub(p.Apply(r3.Add(g.c[i], a.origin)), a.origin)
+			gi, _, ok := g.surfs[i].gap(w, g.r[i])
+			if !ok || math.Abs(gi) > 1e-12*a.size {
+				t.Fatalf("contact %d: gap %g after seating (ok %v)", i, gi, ok)
+			}
+		}
+	})
+}
