@@ -13,7 +13,7 @@ import (
 // Stability is the Maxwell stability of an exactly constrained contact set:
 // one entry per contact, in the order analysed, and the weakest of them.
 type Stability struct {
-	Contacts []Maxwell
+	Contacts [6]Maxwell
 	Weakest  int // index into Contacts of the smallest Index; the first of those within 1e-12 of it
 }
 
@@ -64,14 +64,14 @@ type Maxwell struct {
 // has exactly six contacts of rank 6. A near-singular set is analysed; its
 // small indices say so.
 func (a Analysis) Stability() (Stability, error) {
-	st := Stability{Contacts: make([]Maxwell, 6)}
+	var st Stability
 	if err := a.stability(&st); err != nil {
 		return Stability{}, err
 	}
 	return st, nil
 }
 
-// stability fills st.Contacts, which has room for six.
+// stability fills st.
 func (a *Analysis) stability(st *Stability) error {
 	if len(a.lines) != 6 || a.Rank != 6 {
 		return &InputError{Field: "cs", Err: fmt.Errorf(
