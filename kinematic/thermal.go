@@ -116,9 +116,7 @@ func (a *Assembly) Drift(th Thermal, p r3.Vec) (Drift, error) {
 	d.Exact = r3.Sub(pose.Apply(r3.Scale(1+th.Moving*dt, p)), p)
 	d.ExactTilt = pose.Rotation
 
-	// Thermal centre: the lateral part of v(q) = V + W × q + α ΔT q
-	// vanishes at q = c₀ + s e₁ + t e₂ in the plane of the balls.
-	var upSum, cen r3.Vec
+	var cen, upSum r3.Vec
 	for _, pr := range a.pairs {
 		cen = r3.Add(cen, pr.ball.Centre)
 	}
@@ -126,14 +124,24 @@ func (a *Assembly) Drift(th Thermal, p r3.Vec) (Drift, error) {
 	for i := range a.lines {
 		upSum = r3.Add(upSum, a.lines[i].n)
 	}
-	upv, ok := linalg.Unit3(upSum)
+	d.Centre, d.HasCentre, d.Distance = thermalCentre(global(x, a.origin), th.Moving*dt, cen, upSum, p)
+	return d, nil
+}
+
+// thermalCentre returns the point q, in the plane through cen normal to
+// up, at which the lateral part of the displacement field
+// v(q) = x(q) + am·q vanishes (x the body's small displacement twist, V at
+// the origin, and am the moving body's own expansion, α_moving ΔT), and
+// the lateral distance from p to it; ok is false when the lateral motion
+// does not vary across the plane (a pure translation: no centre).
+func thermalCentre(x screw.Twist, am float64, cen, up, p r3.Vec) (centre r3.Vec, ok bool, dist float64) {
+	upv, ok := linalg.Unit3(up)
 	if !ok {
-		return d, nil
+		return r3.Vec{}, false, 0
 	}
 	e1 := anyNormal(upv)
 	e2 := r3.Cross(upv, e1)
-	xg := global(x, a.origin)
-	vel := func(q r3.Vec) r3.Vec { return r3.Add(xg.At(q), r3.Scale(th.Moving*dt, q)) }
+	vel := func(q r3.Vec) r3.Vec { return r3.Add(x.At(q), r3.Scale(am, q)) }
 	v0 := vel(cen)
 	a1 := r3.Sub(vel(r3.Add(cen, e1)), v0) // the linear part along e1 and e2
 	a2 := r3.Sub(vel(r3.Add(cen, e2)), v0)
@@ -141,17 +149,15 @@ func (a *Assembly) Drift(th Thermal, p r3.Vec) (Drift, error) {
 	det := m11*m22 - m12*m21
 	scale := math.Max(math.Abs(m11)+math.Abs(m12), math.Abs(m21)+math.Abs(m22))
 	// The lateral motion must change across the plane by more than
-	// rounding of the translation for a centre to be defined.
-	if !(math.Abs(det) > 1e-12*scale*scale) || scale == 0 {
-		return d, nil
+	// rounding for a centre to be defined.
+	if scale == 0 || !(math.Abs(det) > 1e-12*scale*scale) {
+		return r3.Vec{}, false, 0
 	}
 	b1, b2 := -r3.Dot(e1, v0), -r3.Dot(e2, v0)
 	s := (b1*m22 - m12*b2) / det
 	t := (m11*b2 - m21*b1) / det
-	d.Centre = r3.Add(cen, r3.Add(r3.Scale(s, e1), r3.Scale(t, e2)))
-	d.HasCentre = true
-	off := r3.Sub(p, d.Centre)
+	centre = r3.Add(cen, r3.Add(r3.Scale(s, e1), r3.Scale(t, e2)))
+	off := r3.Sub(p, centre)
 	off = r3.Sub(off, r3.Scale(r3.Dot(off, upv), upv))
-	d.Distance = linalg.Norm3(off)
-	return d, nil
+	return centre, true, linalg.Norm3(off)
 }

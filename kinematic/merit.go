@@ -1,0 +1,439 @@
+package kinematic
+
+import (
+	"fmt"
+	"math"
+
+	"gonum.org/v1/gonum/spatial/r3"
+
+	"github.com/sixfold-dev/sixfold/hertz"
+	"github.com/sixfold-dev/sixfold/internal/linalg"
+	"github.com/sixfold-dev/sixfold/screw"
+)
+
+// Scenario is what a layout is judged by: the point that matters and what
+// acts on the coupling. Figures that need a field left zero are reported
+// as zero (see each figure of [Scorecard]).
+type Scenario struct {
+	// Point is the point of interest on the moving body (an optical
+	// axis, a probe tip), m; Axis, when not zero, a direction there that
+	// matters most (the optical axis).
+	Point r3.Vec
+	Axis  r3.Vec
+
+	// Preloads and Payload as for [NewModel]; Gravity, m/s², the
+	// gravity of the working orientation.
+	Preloads []Preload
+	Payload  Payload
+	Gravity  r3.Vec
+
+	// Shock is the shock level, m/s² in any direction, the coupling must
+	// survive with every contact at MinForce or more (N); it sets the
+	// lower end of the preload window.
+	Shock    float64
+	MinForce float64
+
+	// Thermal gives the expansion coefficients; its DeltaT is ignored
+	// (the drift is per kelvin).
+	Thermal Thermal
+}
+
+// DesignCondition is the condition number of the normalised contact
+// matrix above which [Scorecard.Poor] flags a layout. The error of a
+// point within the contacts' RMS distance of their centre, per unit gap
+// error at the contacts, is bounded by about √6 times the largest entry
+// of the inverse of that matrix, √6/σ_min (each freed twist has norm at
+// most 1/σ_min in normalised units, and there are six), and σ_max is at
+// most √6 (the columns have unit norm): a condition of 10 already allows
+// amplifications of ten — a micrometre of seat error moving the part by
+// up to ten micrometres, against the sub-micrometre budgets kinematic
+// couplings are chosen for. Sensible layouts have conditions of 2 to 5.
+// This is a design warning, distinct from the arithmetic
+// screw.NearSingularRatio (1e3).
+const DesignCondition = 10
+
+// Scorecard holds the design figures of one exactly constrained layout in
+// its scenario. Each figure says its unit and which direction is better.
+type Scorecard struct {
+	// WeakestIndex and WeakestCentreIndex are the smallest Maxwell
+	// indices at the contact points and at the ball centres (0 to 1,
+	// higher is better; see [Maxwell]); WeakestAngle is the angle, rad,
+	// between the freed motion of the ball centre and the normal at the
+	// contact with the weakest centre index, acos of it (lower is
+	// better). MaxwellRatio is the smallest ratio of a contact's centre
+	// index to its seat's ideal (|sin 2θ| for a vee or rods of half-angle
+	// θ, 1 for a flat, the exact value for a socket's own contacts): 1
+	// means the layout spends nothing of what the seats allow, whatever
+	// their angle (higher is better).
+	WeakestIndex, WeakestCentreIndex, WeakestAngle, MaxwellRatio float64
+
+	// MinSingular is the smallest singular value of the normalised
+	// contact matrix (dimensionless, higher is better), Condition the
+	// ratio of the largest to it (lower is better), and Poor reports a
+	// condition above DesignCondition.
+	MinSingular, Condition float64
+	Poor                   bool
+
+	// Amplification is the worst displacement of the point of interest
+	// per unit gap error at the contacts, m/m (µm per µm), and
+	// AmplificationRSS its root sum of squares; AxisAmplification the
+	// worst along Axis (0 without one); Tilt and TiltRSS the same for
+	// the rotation, rad/m (µrad per µm). Lower is better. See
+	// [PointError].
+	Amplification, AmplificationRSS, AxisAmplification float64
+	Tilt, TiltRSS                                      float64
+
+	// LoadAmplification is the largest contact force per newton of the
+	// payload's inertial load in its worst direction, N/N (lower is
+	// better); zero without a payload mass.
+	LoadAmplification float64
+
+	// ShockLevel is the acceleration of the base, m/s² in the worst
+	// direction, at which the first contact unloads under the preload
+	// and gravity (higher is better; +Inf for a massless payload).
+	ShockLevel float64
+
+	// PreloadMin and PreloadMax bound a common factor on the preload
+	// elements: at PreloadMin every contact keeps MinForce under gravity
+	// and Shock in the worst direction; at PreloadMax the first contact
+	// reaches its allowable peak pressure under the same (+Inf when no
+	// contact has an allowable on file). A wider window is better;
+	// PreloadMin > PreloadMax means no preload works. PressureRatio is
+	// the largest peak pressure over allowable under the preload as
+	// given with gravity (lower is better; 0 when none is on file).
+	PreloadMin, PreloadMax, PressureRatio float64
+
+	// Stiffness is the smallest translational stiffness at the point of
+	// interest, N/m (the inverse of the largest eigenvalue of the
+	// translational block of the compliance there; higher is better);
+	// AxisCompliance the compliance along Axis, m/N (lower is better).
+	// FirstFrequency is the lowest natural frequency of the payload, Hz
+	// (higher is better; zero without a payload inertia).
+	Stiffness, AxisCompliance, FirstFrequency float64
+
+	// Drift is the displacement of the point of interest per kelvin of
+	// uniform temperature change, m/K (lower is better), and
+	// ThermalCentreDistance the lateral distance from it to the thermal
+	// centre, m (lower is better; zero when there is none).
+	Drift, ThermalCentreDistance float64
+}
+
+// Score returns the design figures of the coupling, which must be exactly
+// constrained, in the scenario. Every figure comes from the one
+// factorisation of the 6×6 contact matrix and agrees with the API it
+// summarises ([Stability.ErrorAt], [Model.Shock], [Model.Stiffness],
+// [Stiffness.Compliance], [Stiffness.Modes], [Assembly.Drift]).
+//
+// Score returns the errors of [Coupling.Contacts], [Analyze] and
+// [NewModel], an [*InputError] wrapping [ErrNotExact] for a set that is
+// not exactly constrained, and the Hertz errors of a contact without a
+// point-contact model (a cone) when a figure needs them.
+func (c Coupling) Score(s Scenario) (Scorecard, error) {
+	sc, err := newScorer(c, s)
+	if err != nil {
+		return Scorecard{}, err
+	}
+	var card Scorecard
+	if err := sc.score(&card, allFigures); err != nil {
+		return Scorecard{}, err
+	}
+	return card, nil
+}
+
+// figures selects what scorer.score computes.
+type figures uint
+
+const (
+	figMaxwell figures = 1 << iota
+	figSingular
+	figError
+	figLoads
+	figStiffness
+	figModes
+	figDrift
+	allFigures = figMaxwell | figSingular | figError | figLoads | figStiffness | figModes | figDrift
+)
+
+// scorer evaluates the figures of a layout quickly: what does not change
+// as the grooves turn and the balls move (Hertz constants, allowables,
+// seat ideals, expansion data) is held, and the contact lines are set by
+// the caller (the optimiser) or by newScorer.
+type scorer struct {
+	s     Scenario
+	lines [6]line // about origin
+	ideal [6]float64
+	k     [6]float64 // Hertz F = k δ^(3/2); 0 when the contact has no model
+	kerr  error      // why a contact has no Hertz model
+	fall  [6]float64 // force at the allowable peak pressure, N; 0 when none on file
+	root  [6]r3.Vec  // each contact's seat root, about origin
+	alpha  [6]float64 // the seat's α, per contact
+	balpha [6]float64 // the ball's α, per contact
+	origin r3.Vec
+	pre    screw.Wrench // the preload elements at factor 1, about origin
+	pay    Payload      // Centre about origin
+	L      float64
+}
+
+// newScorer prepares the scorer of a coupling: its contacts, their Hertz
+// constants and allowables, their seats' ideals and roots.
+func newScorer(c Coupling, s Scenario) (*scorer, error) {
+	cs, err := c.Contacts()
+	if err != nil {
+		return nil, err
+	}
+	m, err := NewModel(cs, s.Preloads, s.Payload)
+	if err != nil {
+		return nil, err
+	}
+	if !m.exact {
+		an, _ := Analyze(cs)
+		return nil, &InputError{Field: "Pairs", Err: fmt.Errorf("%w: a scorecard needs six independent contacts, the coupling has %d of rank %d", ErrNotExact, len(cs), an.Rank)}
+	}
+	for _, f := range []struct {
+		name string
+		v    r3.Vec
+	}{{"s.Point", s.Point}, {"s.Axis", s.Axis}, {"s.Gravity", s.Gravity}, {"s.Thermal.BaseRef", s.Thermal.BaseRef}} {
+		if !linalg.Finite3(f.v) {
+			return nil, &InputError{Field: f.name, Err: fmt.Errorf("%w: %v", ErrNonFinite, f.v)}
+		}
+	}
+	for _, f := range []struct {
+		name string
+		v    float64
+	}{{"s.Shock", s.Shock}, {"s.MinForce", s.MinForce}, {"s.Thermal.Moving", s.Thermal.Moving}, {"s.Thermal.Base", s.Thermal.Base}} {
+		if math.IsNaN(f.v) || math.IsInf(f.v, 0) {
+			return nil, &InputError{Field: f.name, Err: fmt.Errorf("%w: %g", ErrNonFinite, f.v)}
+		}
+		if f.v < 0 && (f.name == "s.Shock" || f.name == "s.MinForce") {
+			return nil, &InputError{Field: f.name, Err: fmt.Errorf("%w: must be ≥ 0, got %g", ErrRange, f.v)}
+		}
+	}
+	sc := &scorer{s: s, origin: m.origin, pre: m.preload, pay: m.payload, L: m.size}
+	copy(sc.lines[:], m.lines)
+	for i := range cs {
+		sf := &m.surf[i]
+		if sf.err != nil {
+			if sc.kerr == nil {
+				sc.kerr = sf.err
+			}
+			continue
+		}
+		sc.k[i] = sf.k
+		if sf.allow > 0 {
+			f, err := hertz.LoadForPressure(sf.b1, sf.b2, sf.allow)
+			if err != nil {
+				return nil, fromHertz(err, indexed("cs", i)+".Moving", indexed("cs", i)+".Base", nil)
+			}
+			sc.fall[i] = f
+		}
+	}
+	k := 0
+	for _, p := range c.Pairs {
+		n := p.Seat.count()
+		_, _, root, alpha := p.Seat.surfaces(p.Ball, cs[k:k+n])
+		ideal := seatIdeal(p.Seat, cs[k:k+n])
+		for j := 0; j < n; j++ {
+			sc.ideal[k+j] = ideal[j]
+			sc.root[k+j] = r3.Sub(root, m.origin)
+			sc.alpha[k+j] = alpha
+			sc.balpha[k+j] = p.Ball.Material.Alpha
+		}
+		k += n
+	}
+	return sc, nil
+}
+
+// seatIdeal returns, for each contact of a seat, the best centre index a
+// layout can give it: |sin 2θ| in a groove of half-angle θ (the best
+// freed motion of the ball centre lies in the plane normal to the groove,
+// normal to the other flank's normal, and the two normals make the angle
+// π − 2θ), 1 on a flat, and for a socket's contact the index
+// of the one motion its other two contacts leave the ball's centre: along
+// their normals' cross product.
+func seatIdeal(seat Seat, cs []Contact) []float64 {
+	out := make([]float64, len(cs))
+	switch s := seat.(type) {
+	case grooveSeat:
+		v := math.Abs(math.Sin(2 * s.halfAngle()))
+		for i := range out {
+			out[i] = v
+		}
+	case Trihedral, Cone:
+		for i := range out {
+			d := r3.Cross(cs[(i+1)%3].Normal, cs[(i+2)%3].Normal)
+			out[i] = math.Abs(r3.Dot(cs[i].Normal, d)) / linalg.Norm3(d)
+		}
+	default:
+		for i := range out {
+			out[i] = 1
+		}
+	}
+	return out
+}
+
+// score fills the figures selected by need for the scorer's current
+// lines.
+func (sc *scorer) score(card *Scorecard, need figures) error {
+	var ts [6]screw.Twist
+	if !freedOf(sc.lines[:], &ts) {
+		return &InputError{Field: "Pairs", Err: fmt.Errorf("%w: the six contacts are singular to working precision", ErrNotExact)}
+	}
+	if need&figMaxwell != 0 {
+		card.WeakestIndex, card.WeakestCentreIndex, card.MaxwellRatio = 1, 1, math.Inf(1)
+		for i, t := range ts {
+			l := &sc.lines[i]
+			v := t.At(l.p)
+			s := r3.Dot(l.n, v)
+			idx := math.Abs(s) / linalg.Norm3(v)
+			ci := idx
+			if l.ball {
+				ci = math.Abs(s) / linalg.Norm3(t.At(l.centre))
+			}
+			card.WeakestIndex = math.Min(card.WeakestIndex, idx)
+			card.WeakestCentreIndex = math.Min(card.WeakestCentreIndex, ci)
+			if sc.ideal[i] > 0 {
+				card.MaxwellRatio = math.Min(card.MaxwellRatio, ci/sc.ideal[i])
+			}
+		}
+		card.WeakestAngle = math.Acos(math.Min(1, card.WeakestCentreIndex))
+	}
+	if need&figSingular != 0 {
+		var ws [6]screw.Wrench
+		for i, l := range sc.lines {
+			ws[i] = screw.Wrench{F: l.n, M: r3.Cross(l.p, l.n)}
+		}
+		an, err := screw.Analyze(ws[:])
+		if err != nil {
+			return fromScrew(err, "cs")
+		}
+		card.MinSingular, card.Condition = an.Singular[len(an.Singular)-1], an.Condition
+		card.Poor = an.Condition > DesignCondition
+	}
+	p := r3.Sub(sc.s.Point, sc.origin)
+	if need&figError != 0 {
+		var d, w [6]r3.Vec
+		var rss, rssw float64
+		for i, t := range ts {
+			d[i], w[i] = t.At(p), t.W
+			rss += r3.Norm2(d[i])
+			rssw += r3.Norm2(w[i])
+		}
+		card.Amplification, card.AmplificationRSS = zonotopeNorm(&d), math.Sqrt(rss)
+		card.Tilt, card.TiltRSS = zonotopeNorm(&w), math.Sqrt(rssw)
+		if u, ok := linalg.Unit3(sc.s.Axis); ok {
+			card.AxisAmplification = 0
+			for i := range d {
+				card.AxisAmplification += math.Abs(r3.Dot(u, d[i]))
+			}
+		}
+	}
+	var f0 [6]float64
+	if need&(figLoads|figStiffness|figModes) != 0 {
+		grav := r3.Scale(sc.pay.Mass, sc.s.Gravity)
+		gw := screw.Wrench{F: grav, M: r3.Cross(sc.pay.Centre, grav)}
+		var gain [6]float64
+		card.ShockLevel, card.LoadAmplification = math.Inf(1), 0
+		card.PreloadMin, card.PreloadMax, card.PressureRatio = 0, math.Inf(1), 0
+		for i, t := range ts {
+			a := -screw.Power(t, sc.pre)
+			e := -screw.Power(t, gw)
+			f0[i] = a + e
+			tc := linalg.Norm3(t.At(sc.pay.Centre))
+			gain[i] = sc.pay.Mass * tc
+			if sc.pay.Mass > 0 {
+				card.LoadAmplification = math.Max(card.LoadAmplification, tc)
+			}
+			switch {
+			case f0[i] <= 0:
+				card.ShockLevel = 0
+			case gain[i] > 0:
+				card.ShockLevel = math.Min(card.ShockLevel, f0[i]/gain[i])
+			}
+			need := sc.s.MinForce - e + sc.s.Shock*gain[i]
+			switch {
+			case a > 0:
+				card.PreloadMin = math.Max(card.PreloadMin, need/a)
+				if sc.fall[i] > 0 {
+					card.PreloadMax = math.Min(card.PreloadMax, (sc.fall[i]-e-sc.s.Shock*gain[i])/a)
+				}
+			case need > 0:
+				card.PreloadMin = math.Inf(1)
+			}
+			if sc.fall[i] > 0 && f0[i] > 0 {
+				card.PressureRatio = math.Max(card.PressureRatio, math.Cbrt(f0[i]/sc.fall[i]))
+			}
+		}
+	}
+	if need&(figStiffness|figModes) != 0 {
+		if sc.kerr != nil {
+			return sc.kerr
+		}
+		st := Stiffness{origin: sc.origin, L: sc.L, payload: sc.pay}
+		for i, l := range sc.lines {
+			if f0[i] <= 0 {
+				return &InputError{Field: "s.Preloads", Err: fmt.Errorf(
+					"%w: contact %s is in tension (%.4g N) under the preload and gravity; the stiffness needs every contact loaded", ErrRange, labelOf(l.label, i), f0[i])}
+			}
+			// dF/dδ = (3/2) k^(2/3) F^(1/3) for F = k δ^(3/2).
+			kn := 1.5 * math.Cbrt(sc.k[i]*sc.k[i]*f0[i])
+			g := scaledWrench(screw.Wrench{F: l.n, M: r3.Cross(l.p, l.n)}, sc.L)
+			addOuter(&st.k, kn, &g)
+		}
+		if need&figStiffness != 0 {
+			c, err := st.Compliance(sc.s.Point)
+			if err != nil {
+				return err
+			}
+			card.Stiffness = 1 / largestEigen3(&c.Matrix)
+			card.AxisCompliance = c.Along(sc.s.Axis)
+		}
+		if need&figModes != 0 && sc.pay.Mass > 0 && sc.pay.Inertia != ([3][3]float64{}) {
+			modes, err := st.Modes()
+			if err != nil {
+				return err
+			}
+			card.FirstFrequency = modes[0].Frequency
+		}
+	}
+	if need&figDrift != 0 {
+		th := sc.s.Thermal
+		var x screw.Twist
+		for i, t := range ts {
+			l := &sc.lines[i]
+			r := linalg.Norm3(r3.Sub(l.centre, l.p))
+			cg := r3.Add(l.centre, sc.origin)
+			e := -sc.balpha[i]*r + th.Moving*r3.Dot(l.n, cg) -
+				th.Base*r3.Dot(l.n, r3.Sub(r3.Add(sc.root[i], sc.origin), th.BaseRef)) - sc.alpha[i]*r3.Dot(l.n, r3.Sub(l.p, sc.root[i]))
+			x = x.Add(t.Scale(-e))
+		}
+		card.Drift = linalg.Norm3(r3.Add(x.At(p), r3.Scale(th.Moving, sc.s.Point)))
+		var cen r3.Vec
+		var up r3.Vec
+		for _, l := range sc.lines {
+			cen = r3.Add(cen, l.centre)
+			up = r3.Add(up, l.n)
+		}
+		cen = r3.Add(r3.Scale(1.0/6, cen), sc.origin)
+		if _, ok, dist := thermalCentre(global(x, sc.origin), th.Moving, cen, up, sc.s.Point); ok {
+			card.ThermalCentreDistance = dist
+		}
+	}
+	return nil
+}
+
+// largestEigen3 returns the largest eigenvalue of the symmetric positive
+// semi-definite translational block (the top-left 3×3) of a, by one-sided
+// Jacobi (its singular values are its eigenvalues).
+func largestEigen3(a *[6][6]float64) float64 {
+	var m [9]float64
+	for i := range 3 {
+		for j := range 3 {
+			m[3*j+i] = a[i][j]
+		}
+	}
+	var v [9]float64
+	var sv [3]float64
+	linalg.Jacobi(m[:], 3, 3, v[:])
+	linalg.SortColumns(m[:], 3, 3, v[:], sv[:])
+	return sv[0]
+}
