@@ -43,30 +43,55 @@ func BenchmarkAnalyzeStability(b *testing.B) {
 	}
 }
 
-var sinkGrooves GrooveResult
+var (
+	sinkOptimum Optimum
+	sinkCard    Scorecard
+)
 
-// BenchmarkOptimizeGrooves measures the groove optimiser on a three-vee
-// coupling, with and without azimuth windows.
-func BenchmarkOptimizeGrooves(b *testing.B) {
-	bis, err := BisectorVees(isosceles(), three(vee45))
+// BenchmarkScore measures one evaluation of every design figure of a
+// layout, on the optimiser's path (contacts already set).
+func BenchmarkScore(b *testing.B) {
+	c, err := BisectorVees([3]Ball{ball(-60, -35, 0), ball(65, -30, 0), ball(10, 55, 0)}, three(vee45))
 	if err != nil {
 		b.Fatal(err)
 	}
+	sc, err := newScorer(c, scenario())
+	if err != nil {
+		b.Fatal(err)
+	}
+	b.ReportAllocs()
+	for b.Loop() {
+		if err := sc.score(&sinkCard, allFigures); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+// BenchmarkOptimize measures the optimiser: groove azimuths only, with
+// ball regions and two half-angles, and a trade-off curve of 20 layouts.
+func BenchmarkOptimize(b *testing.B) {
+	c, err := BisectorVees([3]Ball{ball(-60, -35, 0), ball(65, -30, 0), ball(10, 55, 0)}, three(vee45))
+	if err != nil {
+		b.Fatal(err)
+	}
+	s := scenario()
 	for _, bc := range []struct {
 		name string
-		opt  *GrooveOptions
+		opt  *OptimizeOptions
 	}{
-		{"free", nil},
-		{"windows", &GrooveOptions{Windows: []Window{{Min: 0.3, Max: 1.2}, {Min: -0.5, Max: 0.1}, {Min: -1, Max: 1}}}},
+		{"azimuths", nil},
+		{"windows", &OptimizeOptions{Windows: []Window{{Min: 0.3, Max: 1.2}, {Min: -0.5, Max: 0.1}, {Min: -1, Max: 1}}}},
+		{"regions-and-angles", &OptimizeOptions{Regions: []Region{{Radius: 0.01}, {Radius: 0.01}, {Radius: 0.01}}, HalfAngles: []float64{math.Pi / 4, math.Pi / 3}}},
+		{"trade-off-20", &OptimizeOptions{TradeOff: &TradeOff{Objective: MinDrift, Points: 20}}},
 	} {
 		b.Run(bc.name, func(b *testing.B) {
 			b.ReportAllocs()
 			for b.Loop() {
-				r, err := OptimizeGrooves(bis, bc.opt)
+				r, err := Optimize(c, s, bc.opt)
 				if err != nil {
 					b.Fatal(err)
 				}
-				sinkGrooves = r
+				sinkOptimum = r
 			}
 		})
 	}

@@ -77,15 +77,6 @@ func TestErrors(t *testing.T) {
 	if _, err := AimedVees(isosceles(), r3.Vec{X: -60e-3, Z: 1}, three(vee45)); !errors.Is(err, ErrDegenerate) {
 		t.Errorf("target above a ball: err = %v, want ErrDegenerate", err)
 	}
-	bis, _ := BisectorVees(isosceles(), three(vee45))
-	for _, w := range [][]Window{{{}, {}}, {{Min: 1, Max: 0}, {}, {}}, {{Min: nan}, {}, {}}} {
-		if _, err := OptimizeGrooves(bis, &GrooveOptions{Windows: w}); err == nil {
-			t.Errorf("windows %v accepted", w)
-		}
-	}
-	if _, err := OptimizeGrooves(Coupling{Pairs: bis.Pairs[:2]}, nil); !errors.Is(err, ErrNotExact) {
-		t.Errorf("four contacts: err = %v, want ErrNotExact", err)
-	}
 }
 
 func TestInputsNotModified(t *testing.T) {
@@ -93,7 +84,7 @@ func TestInputsNotModified(t *testing.T) {
 	before := moved(bis, 1, 0, up, r3.Vec{}) // a deep copy
 	cs := mustContacts(t, bis)
 	csBefore := append([]Contact(nil), cs...)
-	if _, err := OptimizeGrooves(bis, nil); err != nil {
+	if _, err := Optimize(bis, Scenario{}, nil); err != nil {
 		t.Fatal(err)
 	}
 	mustAnalyze(t, cs)

@@ -3,12 +3,13 @@ package kinematic
 import (
 	"fmt"
 	"math"
+	"math/rand/v2"
+	"sort"
 
 	"gonum.org/v1/gonum/optimize"
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"github.com/sixfold-dev/sixfold/internal/linalg"
-	"github.com/sixfold-dev/sixfold/screw"
 )
 
 // Window is a range of allowed groove azimuths in radians, Min ≤ azimuth ≤
@@ -23,379 +24,903 @@ type Window struct {
 	From     Reference
 }
 
-// GrooveOptions holds options for [OptimizeGrooves]; the zero value and a
-// nil pointer mean defaults.
-type GrooveOptions struct {
-	// Windows limits each pair's groove azimuth, one entry per pair
-	// (entries for seats that are not vees are ignored). Nil allows every
-	// azimuth.
-	Windows []Window
+// Region is where a ball may be placed: a box or a disc in the plane of
+// its seat (normal to the seat's Up) centred on the ball's drawn centre.
+// The zero Region keeps the ball where it is.
+type Region struct {
+	// HalfWidth gives a box of ±HalfWidth[0] along the seat plane's first
+	// axis ([FrameX] projected) and ±HalfWidth[1] along the second (Up ×
+	// the first), m. Radius, when positive, gives a disc instead, m.
+	HalfWidth [2]float64
+	Radius    float64
 }
 
-// GrooveResult is the outcome of [OptimizeGrooves].
-type GrooveResult struct {
-	// Coupling is the input coupling with each vee's Direction set to the
-	// best groove found.
+// Objective is the design figure that [Optimize] improves (see
+// [Scorecard] for each figure's meaning and unit).
+type Objective int
+
+const (
+	// MinAmplification minimises Scorecard.Amplification: the worst
+	// displacement of the point of interest per unit gap error. The zero
+	// value: the figure that decides most layouts.
+	MinAmplification Objective = iota
+	// MinDrift minimises Scorecard.Drift, the thermal drift of the point.
+	MinDrift
+	// MinCompliance minimises the compliance at the point: AxisCompliance
+	// along Scenario.Axis, or 1/Stiffness without an axis.
+	MinCompliance
+	// MaxShockLevel maximises Scorecard.ShockLevel.
+	MaxShockLevel
+	// MaxFirstFrequency maximises Scorecard.FirstFrequency.
+	MaxFirstFrequency
+	// MaxMaxwell maximises Scorecard.WeakestIndex, the weakest Maxwell
+	// index: a screen, not a design figure (see package documentation).
+	MaxMaxwell
+)
+
+// String returns the objective's name.
+func (o Objective) String() string {
+	switch o {
+	case MinAmplification:
+		return "MinAmplification"
+	case MinDrift:
+		return "MinDrift"
+	case MinCompliance:
+		return "MinCompliance"
+	case MaxShockLevel:
+		return "MaxShockLevel"
+	case MaxFirstFrequency:
+		return "MaxFirstFrequency"
+	case MaxMaxwell:
+		return "MaxMaxwell"
+	}
+	return fmt.Sprintf("Objective(%d)", int(o))
+}
+
+// OptimizeOptions holds options for [Optimize]; the zero value and a nil
+// pointer mean defaults: MinAmplification over every groove azimuth.
+type OptimizeOptions struct {
+	Objective Objective
+
+	// Windows limits each pair's groove azimuth, one entry per pair
+	// (entries for seats that are not grooves are ignored); nil allows
+	// every azimuth. With Regions, radial windows are taken at the drawn
+	// ball positions.
+	Windows []Window
+
+	// Regions lets each pair's ball move within a region, one entry per
+	// pair; nil or a zero Region keeps the ball where it is drawn.
+	Regions []Region
+
+	// HalfAngles lists the half-angles, rad, in (0, π/2), that every
+	// groove seat may take (each chooses one); nil keeps them as drawn.
+	HalfAngles []float64
+
+	// MinMaxwell is a floor on Scorecard.WeakestCentreIndex, and
+	// MaxPressureRatio a ceiling on Scorecard.PressureRatio; zero means
+	// no constraint.
+	MinMaxwell, MaxPressureRatio float64
+
+	// TradeOff, when set, asks for the trade-off curve between the
+	// objective and a second one: Points layouts (at least 2) on the
+	// Pareto front, from the best of the first to the best of the second.
+	TradeOff *TradeOff
+
+	// Seed makes the random starts of a search with ball regions
+	// reproducible.
+	Seed uint64
+}
+
+// TradeOff names the second objective of a trade-off curve.
+type TradeOff struct {
+	Objective Objective
+	Points    int
+}
+
+// Optimum is what [Optimize] found.
+type Optimum struct {
+	// Coupling is the best layout: the input with its grooves turned,
+	// balls moved and half-angles chosen.
 	Coupling Coupling
 
-	// Azimuths holds each pair's groove azimuth in radians from [Radial]
-	// (zero for seats that are not vees).
+	// Value is the objective's figure for it (in the figure's unit, the
+	// sign as reported by the Scorecard). Azimuths holds each pair's
+	// groove azimuth from [Radial] at the drawn ball positions, rad (zero
+	// for seats that are not grooves).
+	Value    float64
 	Azimuths []float64
 
-	// Weakest is the weakest Maxwell index (at the contact points) of the
-	// best layout.
-	Weakest float64
+	// Score, Start and Bisector are the scorecards of the optimum, of the
+	// coupling as given, and (when HasBisector: three grooves on three
+	// balls) of the grooves on the bisectors of the ball triangle as
+	// drawn; BisectorFeasible reports whether that layout meets the
+	// windows and constraints (the optimum is then at least as good).
+	Score, Start, Bisector        Scorecard
+	HasBisector, BisectorFeasible bool
 
-	// For three-ball couplings of three vees (Bisector > 0): the weakest
-	// Maxwell index with the grooves on the bisectors of the ball
-	// triangle, and whether those bisectors lie inside the windows. When
-	// they do, Weakest ≥ Bisector.
-	Bisector        float64
-	BisectorAllowed bool
+	// Binding names the constraints that hold the optimum back:
+	// "Windows[i].Min", "Windows[i].Max", "Regions[i]", "MinMaxwell",
+	// "MaxPressureRatio".
+	Binding []string
+
+	// Front is the trade-off curve when one was asked for: layouts on
+	// the Pareto front, ordered from the best of the first objective to
+	// the best of the second.
+	Front []FrontPoint
 
 	// Evaluations is the number of layouts evaluated.
 	Evaluations int
 }
 
-// searchPoints is the number of layouts of the grid search that precedes
-// the local refinement; spread over one azimuth per vee.
-const searchPoints = 4096
+// FrontPoint is one layout of a trade-off curve.
+type FrontPoint struct {
+	Coupling      Coupling
+	Score         Scorecard
+	First, Second float64 // the two objectives' figures
+}
 
-// OptimizeGrooves returns the groove directions of the coupling's vee
-// seats that maximise the weakest Maxwell index of its six contacts,
-// within the allowed azimuth windows; the other seats stay as they are.
+// Optimize returns the layout of the coupling that is best for the
+// objective in the scenario: groove azimuths within their windows, ball
+// positions within their regions and groove half-angles from a list, with
+// a floor on the Maxwell index and a ceiling on the contact pressure as
+// constraints. It reports the optimum's scorecard beside those of the
+// coupling as given and of the bisector layout, which constraints bind,
+// and on request the trade-off curve with a second objective.
 //
-// The Maxwell index is a screen, not a design figure: among sensible
-// layouts it varies little, and the layout that maximises it can be worse
-// at the point that matters (error amplification, stiffness, shock margin,
-// thermal drift).
-//
-// The weakest index is a continuous but non-smooth function of the
-// azimuths (a minimum of six), so the search is global then local: a grid
-// of about 4096 layouts over the windows, then Nelder–Mead (Nelder & Mead
-// 1965, "A simplex method for function minimization", Computer Journal
+// Method: the figures are smooth, or piecewise smooth (minima, worst
+// cases), in the variables, which are mapped to unbounded ones
+// (az = mid + half·sin u for a window narrower than π, the azimuth itself
+// when every direction is allowed; the sine map per axis of a box, a disc
+// as a box projected onto it). The search is global then local: a grid of
+// about 1000 layouts over the azimuths (and seeded random ball positions
+// with regions), then Nelder–Mead (Nelder & Mead 1965, Computer Journal
 // 7(4); gonum's optimize.NelderMead) from the best grid points, the
-// coupling's own grooves and the bisector layout, with the windows mapped
-// to unbounded variables by az = mid + half·sin(u). The result is the best
-// layout seen, so it is never worse than any start that lies inside the
-// windows. It is a local optimum of a search, not a proof of the global
-// one.
+// coupling as given and the bisector layout, once per combination of
+// half-angles. The constraints are exact penalties, and the result is the
+// best feasible layout seen, so it is never worse than any feasible start,
+// the bisector layout included. The trade-off curve uses the ε-constraint
+// method: the first objective optimised with the second bounded at evenly
+// spaced levels between the two single-objective optima (Haimes, Lasdon &
+// Wismer 1971, IEEE Trans. SMC 1(3)); dominated points are dropped.
 //
-// OptimizeGrooves returns the errors of [Coupling.Contacts]; an
-// [*InputError] wrapping [ErrNotExact] unless the coupling has six
-// contacts, [ErrDegenerate] if it has no vee or a ball lies straight above
-// or below the centroid of the balls (its azimuth has no reference), and
-// [ErrRange] or [ErrNonFinite] for a bad window.
-func OptimizeGrooves(c Coupling, opt *GrooveOptions) (GrooveResult, error) {
-	p, err := newGrooveProblem(c)
+// Optimize returns the errors of [Coupling.Score], and [*InputError]s:
+// "opt.Objective" for an unknown objective or one whose figure the
+// scenario cannot give (MaxShockLevel without a payload mass,
+// MaxFirstFrequency without a payload inertia, MinCompliance or
+// MaxShockLevel without preload); "opt.Windows" or "opt.Regions" of the
+// wrong length, "opt.Windows[i]" inverted or not finite, "opt.Regions[i]"
+// negative or not finite; "opt.HalfAngles[i]" outside (0, π/2);
+// "opt.MinMaxwell" outside [0, 1), "opt.MaxPressureRatio" negative;
+// "opt.TradeOff" with fewer than two points; and one wrapping ErrRange
+// naming the constraints when no layout seen meets them.
+func Optimize(c Coupling, s Scenario, opt *OptimizeOptions) (Optimum, error) {
+	var o OptimizeOptions
+	if opt != nil {
+		o = *opt
+	}
+	p, err := newOptProblem(c, s, &o)
 	if err != nil {
-		return GrooveResult{}, err
+		return Optimum{}, err
 	}
-	if err := p.limit(c, opt); err != nil {
-		return GrooveResult{}, err
+	var res Optimum
+	if err := p.sc.score(&res.Start, allFigures); err != nil {
+		return Optimum{}, err
 	}
-	var res GrooveResult
-	starts := p.starts(c, &res)
-	starts = append(starts, p.grid()...)
-	p.refine(starts)
-	res.Weakest, res.Evaluations = p.best, p.evals
-	res.Azimuths = make([]float64, len(c.Pairs))
-	res.Coupling = Coupling{Pairs: append([]Pair(nil), c.Pairs...)}
-	for j := range p.vees {
-		v := &p.vees[j]
-		res.Azimuths[v.pair] = wrapAzimuth(p.bestAz[j])
-		seat := c.Pairs[v.pair].Seat.(grooveSeat)
-		res.Coupling.Pairs[v.pair].Seat = seat.withDirection(turn(v.rad, v.up, p.bestAz[j]))
+	if err := p.checkObjective(o.Objective, &res.Start, "opt.Objective"); err != nil {
+		return Optimum{}, err
 	}
+	if o.TradeOff != nil {
+		if o.TradeOff.Points < 2 {
+			return Optimum{}, &InputError{Field: "opt.TradeOff.Points", Err: fmt.Errorf("%w: need at least 2, got %d", ErrRange, o.TradeOff.Points)}
+		}
+		if err := p.checkObjective(o.TradeOff.Objective, &res.Start, "opt.TradeOff.Objective"); err != nil {
+			return Optimum{}, err
+		}
+	}
+	best, ok := p.search(o.Objective, nil)
+	if !ok {
+		return Optimum{}, &InputError{Field: "opt", Err: fmt.Errorf("%w: no layout seen meets the constraints (MinMaxwell %g, MaxPressureRatio %g) within the windows and regions",
+			ErrRange, o.MinMaxwell, o.MaxPressureRatio)}
+	}
+	res.Coupling, res.Azimuths = p.coupling(best.x, best.combo)
+	p.set(best.x, best.combo)
+	if err := p.sc.score(&res.Score, allFigures); err != nil {
+		return Optimum{}, err
+	}
+	res.Value = figure(o.Objective, &res.Score)
+	res.Binding = p.binding(best.x, &res.Score)
+	if baz, ok := p.bisectorAzimuths(); ok && p.ownCombo >= 0 {
+		_, in := p.vars(baz)
+		p.setLayout(baz, make([]r3.Vec, len(p.pairs)), nil, p.ownCombo)
+		if err := p.sc.score(&res.Bisector, allFigures); err == nil {
+			res.HasBisector = true
+			res.BisectorFeasible = in && p.violation(&res.Bisector) == 0
+		}
+	}
+	if o.TradeOff != nil {
+		front, err := p.front(o.Objective, o.TradeOff.Objective, o.TradeOff.Points, best)
+		if err != nil {
+			return Optimum{}, err
+		}
+		res.Front = front
+	}
+	res.Evaluations = p.evals
 	return res, nil
 }
 
-// grooveProblem evaluates the weakest Maxwell index of a coupling as its
-// vee grooves turn, and keeps the best layout seen.
-type grooveProblem struct {
-	lines  []line
-	vees   []veeVar
-	lo, hi []float64 // allowed azimuths from radial, per vee
-
-	best   float64
-	bestAz []float64
-	evals  int
+// figure returns the objective's figure from a scorecard, and cost the
+// value to minimise.
+func figure(obj Objective, c *Scorecard) float64 {
+	switch obj {
+	case MinDrift:
+		return c.Drift
+	case MinCompliance:
+		if c.AxisCompliance > 0 {
+			return c.AxisCompliance
+		}
+		return 1 / c.Stiffness
+	case MaxShockLevel:
+		return c.ShockLevel
+	case MaxFirstFrequency:
+		return c.FirstFrequency
+	case MaxMaxwell:
+		return c.WeakestIndex
+	}
+	return c.Amplification
 }
 
-// veeVar is one vee seat whose groove turns about its Up.
-type veeVar struct {
-	pair     int // index into Coupling.Pairs
-	first    int // index of its first contact in lines
-	centre   r3.Vec
-	radius   float64
-	up, rad  r3.Vec // Up and radial, unit
-	sin, cos float64
-	dir0     r3.Vec // the coupling's own groove direction
+func cost(obj Objective, c *Scorecard) float64 {
+	switch obj {
+	case MaxShockLevel, MaxFirstFrequency, MaxMaxwell:
+		return -figure(obj, c)
+	}
+	return figure(obj, c)
 }
 
-func newGrooveProblem(c Coupling) (*grooveProblem, error) {
-	cs, err := c.Contacts()
-	if err != nil {
-		return nil, err
+// need returns the figures an objective and the constraints use.
+func (p *optProblem) need(obj Objective) figures {
+	f := figMaxwell // for the Maxwell floor and the binding report
+	switch obj {
+	case MinAmplification:
+		f |= figError
+	case MinDrift:
+		f |= figDrift
+	case MinCompliance:
+		f |= figStiffness | figLoads
+	case MaxShockLevel:
+		f |= figLoads
+	case MaxFirstFrequency:
+		f |= figModes | figLoads
 	}
-	if len(cs) != 6 {
-		return nil, &InputError{Field: "Pairs", Err: fmt.Errorf(
-			"%w: %d contacts; groove optimisation needs a coupling of six", ErrNotExact, len(cs))}
+	if p.o.MaxPressureRatio > 0 {
+		f |= figLoads
 	}
-	p := &grooveProblem{lines: make([]line, 6), best: -1}
-	for i, ct := range cs {
-		p.lines[i] = line{label: ct.Label, p: ct.Point, n: ct.Normal, centre: ct.Centre, ball: ct.Radius != 0}
-	}
-	first := 0
-	for i, pr := range c.Pairs {
-		if v, ok := pr.Seat.(grooveSeat); ok {
-			up, dir, _ := v.groove("") // validated by Contacts
-			rad, err := c.reference(i, up, Radial)
-			if err != nil {
-				return nil, err
-			}
-			sn, cs := math.Sincos(v.halfAngle())
-			p.vees = append(p.vees, veeVar{
-				pair: i, first: first, centre: pr.Ball.Centre, radius: pr.Ball.Radius,
-				up: up, rad: rad, sin: sn, cos: cs, dir0: dir,
-			})
-		}
-		first += pr.Seat.count()
-	}
-	if len(p.vees) == 0 {
-		return nil, errNoVee("Pairs")
-	}
-	p.bestAz = make([]float64, len(p.vees))
-	return p, nil
+	return f
 }
 
-// limit sets the allowed azimuth range of each vee from the options,
-// converting windows given in the frame to azimuths from radial.
-func (p *grooveProblem) limit(c Coupling, opt *GrooveOptions) error {
-	k := len(p.vees)
-	p.lo, p.hi = make([]float64, k), make([]float64, k)
-	if opt != nil && opt.Windows != nil && len(opt.Windows) != len(c.Pairs) {
-		return &InputError{Field: "opt.Windows", Err: fmt.Errorf(
-			"%w: %d windows for %d pairs", ErrRange, len(opt.Windows), len(c.Pairs))}
-	}
-	for j := range p.vees {
-		v := &p.vees[j]
-		p.lo[j], p.hi[j] = -math.Pi/2, math.Pi/2
-		if opt == nil || opt.Windows == nil {
-			continue
+// checkObjective reports an objective the scenario cannot give.
+func (p *optProblem) checkObjective(obj Objective, start *Scorecard, field string) error {
+	switch obj {
+	case MinAmplification, MinDrift, MaxMaxwell:
+	case MinCompliance:
+		if len(p.sc.s.Preloads) == 0 {
+			return &InputError{Field: field, Err: fmt.Errorf("%w: %v needs preload elements (Scenario.Preloads) to set the contact stiffness", ErrDegenerate, obj)}
 		}
-		w := opt.Windows[v.pair]
-		field := indexed("opt.Windows", v.pair)
-		if math.IsNaN(w.Min) || math.IsNaN(w.Max) || math.IsInf(w.Min, 0) || math.IsInf(w.Max, 0) {
-			return &InputError{Field: field, Err: fmt.Errorf("%w: %+v", ErrNonFinite, w)}
+	case MaxShockLevel:
+		if !(p.sc.pay.Mass > 0) || len(p.sc.s.Preloads) == 0 {
+			return &InputError{Field: field, Err: fmt.Errorf("%w: %v needs a payload mass and preload elements", ErrDegenerate, obj)}
 		}
-		if w.Min > w.Max {
-			return &InputError{Field: field, Err: fmt.Errorf("%w: Min %g > Max %g", ErrRange, w.Min, w.Max)}
+	case MaxFirstFrequency:
+		if !(p.sc.pay.Mass > 0) || p.sc.pay.Inertia == ([3][3]float64{}) || len(p.sc.s.Preloads) == 0 {
+			return &InputError{Field: field, Err: fmt.Errorf("%w: %v needs a payload with mass and inertia, and preload elements", ErrDegenerate, obj)}
 		}
-		x, err := c.reference(v.pair, v.up, w.From)
-		if err != nil {
-			if ie, ok := err.(*InputError); ok && ie.Field == "ref" {
-				ie.Field = field + ".From"
-			}
-			return err
-		}
-		if w.Max-w.Min < math.Pi {
-			// Shift by the angle of the window's reference from radial.
-			off := math.Atan2(r3.Dot(v.up, r3.Cross(v.rad, x)), r3.Dot(v.rad, x))
-			p.lo[j], p.hi[j] = w.Min+off, w.Max+off
-		}
+	default:
+		return &InputError{Field: field, Err: fmt.Errorf("%w: unknown objective %d", ErrRange, int(obj))}
 	}
 	return nil
 }
 
-// inside reports whether every azimuth lies in its window.
-func (p *grooveProblem) inside(az []float64) bool {
-	for j := range az {
-		if !within(az[j], p.lo[j], p.hi[j]) {
-			return false
-		}
-	}
-	return true
+// optProblem evaluates layouts of a coupling as its variables change.
+type optProblem struct {
+	c     Coupling
+	o     OptimizeOptions
+	sc    *scorer
+	pairs []optPair
+	nvar  int
+	evals int
+
+	combos   [][]float64 // half-angle choices, one per groove pair, per combination
+	ownCombo int         // index of the drawn half-angles in combos (−1 if not there)
 }
 
-// try evaluates a layout and keeps it if it is the best so far.
-func (p *grooveProblem) try(az []float64) float64 {
-	w := p.weakest(az)
+// optPair is one pair's variables.
+type optPair struct {
+	first, count int
+	centre       r3.Vec
+	radius       float64
+	up, rad      r3.Vec // unit Up and radial at the drawn positions (grooves)
+	groove       bool
+	az0          float64 // the drawn azimuth from radial
+	lo, hi       float64 // allowed azimuths from radial
+	azVar        int     // index of the azimuth variable, −1 if fixed
+	normals      [3]r3.Vec
+	e1, e2       r3.Vec // the seat plane's axes
+	box          [2]float64
+	disc         float64
+	posVar       int    // index of the first position variable, −1 if fixed
+	grooveIdx    int    // index among groove pairs
+	root0        r3.Vec // the seat's root about the origin, as drawn
+	periodic     bool   // every azimuth allowed: the variable is the azimuth itself
+}
+
+func newOptProblem(c Coupling, s Scenario, o *OptimizeOptions) (*optProblem, error) {
+	sc, err := newScorer(c, s)
+	if err != nil {
+		return nil, err
+	}
+	n := len(c.Pairs)
+	if o.Windows != nil && len(o.Windows) != n {
+		return nil, &InputError{Field: "opt.Windows", Err: fmt.Errorf("%w: %d windows for %d pairs", ErrRange, len(o.Windows), n)}
+	}
+	if o.Regions != nil && len(o.Regions) != n {
+		return nil, &InputError{Field: "opt.Regions", Err: fmt.Errorf("%w: %d regions for %d pairs", ErrRange, len(o.Regions), n)}
+	}
+	for i, h := range o.HalfAngles {
+		if err := checkHalfAngle(h, indexed("opt.HalfAngles", i)); err != nil {
+			return nil, err
+		}
+	}
+	if math.IsNaN(o.MinMaxwell) || !(o.MinMaxwell >= 0 && o.MinMaxwell < 1) {
+		return nil, &InputError{Field: "opt.MinMaxwell", Err: fmt.Errorf("%w: must be in [0, 1), got %g", ErrRange, o.MinMaxwell)}
+	}
+	if math.IsNaN(o.MaxPressureRatio) || math.IsInf(o.MaxPressureRatio, 0) || o.MaxPressureRatio < 0 {
+		return nil, &InputError{Field: "opt.MaxPressureRatio", Err: fmt.Errorf("%w: must be finite and ≥ 0, got %g", ErrRange, o.MaxPressureRatio)}
+	}
+	p := &optProblem{c: c, o: *o, sc: sc}
+	first, ng := 0, 0
+	var own []float64
+	for i, pr := range c.Pairs {
+		op := optPair{first: first, count: pr.Seat.count(), centre: pr.Ball.Centre, radius: pr.Ball.Radius, azVar: -1, posVar: -1, grooveIdx: -1}
+		up, _ := unitOf(pr.Seat.up(), "")
+		op.up = up
+		op.e1 = frameX(up)
+		op.e2 = r3.Cross(up, op.e1)
+		for k := 0; k < op.count; k++ {
+			op.normals[k] = sc.lines[first+k].n
+		}
+		op.root0 = sc.root[first]
+		if g, ok := pr.Seat.(grooveSeat); ok {
+			_, dir, _ := g.groove("")
+			rad, err := c.reference(i, up, Radial)
+			if err != nil {
+				return nil, err
+			}
+			op.groove, op.rad, op.grooveIdx = true, rad, ng
+			op.az0 = azimuthFrom(dir, up, rad)
+			op.lo, op.hi = -math.Pi/2, math.Pi/2
+			own = append(own, g.halfAngle())
+			ng++
+			if o.Windows != nil {
+				w := o.Windows[i]
+				field := indexed("opt.Windows", i)
+				if math.IsNaN(w.Min) || math.IsNaN(w.Max) || math.IsInf(w.Min, 0) || math.IsInf(w.Max, 0) {
+					return nil, &InputError{Field: field, Err: fmt.Errorf("%w: %+v", ErrNonFinite, w)}
+				}
+				if w.Min > w.Max {
+					return nil, &InputError{Field: field, Err: fmt.Errorf("%w: Min %g > Max %g", ErrRange, w.Min, w.Max)}
+				}
+				x, err := c.reference(i, up, w.From)
+				if err != nil {
+					if ie, ok := err.(*InputError); ok && ie.Field == "ref" {
+						ie.Field = field + ".From"
+					}
+					return nil, err
+				}
+				if w.Max-w.Min < math.Pi {
+					off := math.Atan2(r3.Dot(up, r3.Cross(rad, x)), r3.Dot(rad, x))
+					op.lo, op.hi = w.Min+off, w.Max+off
+				}
+			}
+			op.periodic = op.hi-op.lo >= math.Pi
+			if op.hi > op.lo {
+				op.azVar = p.nvar
+				p.nvar++
+			}
+		}
+		if o.Regions != nil {
+			rg := o.Regions[i]
+			field := indexed("opt.Regions", i)
+			for _, v := range []float64{rg.HalfWidth[0], rg.HalfWidth[1], rg.Radius} {
+				if math.IsNaN(v) || math.IsInf(v, 0) || v < 0 {
+					return nil, &InputError{Field: field, Err: fmt.Errorf("%w: sizes must be finite and ≥ 0, got %+v", ErrRange, rg)}
+				}
+			}
+			if rg.Radius > 0 {
+				op.disc = rg.Radius
+				op.box = [2]float64{rg.Radius, rg.Radius}
+			} else {
+				op.box = rg.HalfWidth
+			}
+			if op.box[0] > 0 || op.box[1] > 0 {
+				op.posVar = p.nvar
+				p.nvar += 2
+			}
+		}
+		p.pairs = append(p.pairs, op)
+		first += op.count
+	}
+	// Half-angle combinations: every choice for every groove, or the
+	// drawn ones.
+	p.combos = [][]float64{own}
+	p.ownCombo = 0
+	if len(o.HalfAngles) > 0 && ng > 0 {
+		p.combos = nil
+		p.ownCombo = -1
+		total := 1
+		for range ng {
+			total *= len(o.HalfAngles)
+			if total > 4096 {
+				return nil, &InputError{Field: "opt.HalfAngles", Err: fmt.Errorf("%w: %d choices for %d grooves is more than 4096 combinations", ErrRange, len(o.HalfAngles), ng)}
+			}
+		}
+		for k := 0; k < total; k++ {
+			combo := make([]float64, ng)
+			r := k
+			same := true
+			for j := range combo {
+				combo[j] = o.HalfAngles[r%len(o.HalfAngles)]
+				r /= len(o.HalfAngles)
+				same = same && combo[j] == own[j]
+			}
+			if same {
+				p.ownCombo = len(p.combos)
+			}
+			p.combos = append(p.combos, combo)
+		}
+	}
+	return p, nil
+}
+
+// violation returns the constraints' total violation, dimensionless.
+func (p *optProblem) violation(c *Scorecard) float64 {
+	var v float64
+	if p.o.MinMaxwell > 0 && c.WeakestCentreIndex < p.o.MinMaxwell {
+		v += p.o.MinMaxwell - c.WeakestCentreIndex
+	}
+	if p.o.MaxPressureRatio > 0 && c.PressureRatio > p.o.MaxPressureRatio {
+		v += c.PressureRatio/p.o.MaxPressureRatio - 1
+	}
+	return v
+}
+
+// candidate is a layout seen by the search.
+type candidate struct {
+	x     []float64
+	combo int
+	cost  float64
+	ok    bool // feasible
+}
+
+// bound is an extra constraint of the trade-off search: the second
+// objective's cost at most limit.
+type bound struct {
+	obj   Objective
+	limit float64
+}
+
+// evaluate returns the cost of a layout, the penalised cost the local
+// search minimises, and whether it is feasible.
+func (p *optProblem) evaluate(obj Objective, extra *bound, x []float64, k int) (cst, pen float64, ok bool) {
 	p.evals++
-	if w > p.best {
-		p.best = w
-		copy(p.bestAz, az)
+	p.set(x, k)
+	need := p.need(obj)
+	if extra != nil {
+		need |= p.need(extra.obj)
 	}
-	return w
+	var card Scorecard
+	if err := p.sc.score(&card, need); err != nil {
+		return math.Inf(1), math.Inf(1), false
+	}
+	cst = cost(obj, &card)
+	v := p.violation(&card)
+	if extra != nil {
+		if e := cost(extra.obj, &card); e > extra.limit {
+			v += (e - extra.limit) / math.Max(math.Abs(extra.limit), 1e-300)
+		}
+	}
+	if math.IsNaN(cst) || math.IsInf(cst, 0) {
+		return math.Inf(1), math.Inf(1), false
+	}
+	// An exact penalty: a unit of relative violation costs a thousand
+	// times the objective's own size.
+	return cst, cst + 1e3*(math.Abs(cst)+1e-300)*v, v == 0
 }
 
-// starts evaluates the coupling's own grooves and, for three vees on three
-// balls, the bisectors (recording them in res), and returns those inside
-// the windows as starts for the refinement.
-func (p *grooveProblem) starts(c Coupling, res *GrooveResult) [][]float64 {
-	var starts [][]float64
-	own := make([]float64, len(p.vees))
-	for j, v := range p.vees {
-		own[j] = azimuthFrom(v.dir0, v.up, v.rad)
+// toVar returns the variable u of a pair's azimuth az (mod π), and
+// whether az lies in the pair's window.
+func (p *optProblem) toVar(op *optPair, az float64) (float64, bool) {
+	if op.periodic {
+		return az, true
 	}
-	if p.inside(own) {
-		starts = append(starts, own)
+	mid, half := (op.lo+op.hi)/2, (op.hi-op.lo)/2
+	// The azimuth nearest the window's middle, modulo π.
+	a := mid + wrapAzimuth(az-mid)
+	in := math.Abs(a-mid) <= half+1e-12
+	if half == 0 {
+		return 0, in
 	}
-	if bis, ok := p.bisectors(c); ok {
-		res.Bisector = p.weakest(bis)
-		if p.inside(bis) {
-			res.BisectorAllowed = true
-			starts = append(starts, bis)
-		}
-	}
-	for _, s := range starts {
-		p.try(s)
-	}
-	return starts
+	return math.Asin(math.Max(-1, math.Min(1, (a-mid)/half))), in
 }
 
-// grid evaluates about searchPoints layouts spread evenly over the
-// windows and returns the best few as starts.
-func (p *grooveProblem) grid() [][]float64 {
-	k := len(p.vees)
-	m := min(256, max(3, int(math.Pow(searchPoints, 1/float64(k)))))
-	const keep = 4
-	type cand struct {
-		az []float64
-		w  float64
-	}
-	var top []cand
-	az := make([]float64, k)
-	idx := make([]int, k)
-	for {
-		for j := range az {
-			az[j] = p.lo[j] + (float64(idx[j])+0.5)/float64(m)*(p.hi[j]-p.lo[j])
+// vars returns the variables of the azimuths az (per pair, from radial)
+// with every ball at its drawn place, and whether all lie in their
+// windows.
+func (p *optProblem) vars(az []float64) ([]float64, bool) {
+	x := make([]float64, p.nvar)
+	in := true
+	for i := range p.pairs {
+		op := &p.pairs[i]
+		if !op.groove {
+			continue
 		}
-		w := p.try(az)
-		if len(top) < keep || w > top[len(top)-1].w {
-			pos := len(top)
-			for pos > 0 && top[pos-1].w < w {
-				pos--
-			}
-			top = append(top, cand{})
-			copy(top[pos+1:], top[pos:])
-			top[pos] = cand{append([]float64(nil), az...), w}
-			if len(top) > keep {
-				top = top[:keep]
-			}
-		}
-		j := 0
-		for ; j < k; j++ {
-			idx[j]++
-			if idx[j] < m {
-				break
-			}
-			idx[j] = 0
-		}
-		if j == k {
-			break
+		u, ok := p.toVar(op, az[i])
+		in = in && ok
+		if op.azVar >= 0 {
+			x[op.azVar] = u
+		} else {
+			in = in && math.Abs(wrapAzimuth(az[i]-op.az0)) <= 1e-12
 		}
 	}
-	out := make([][]float64, len(top))
-	for i, t := range top {
-		out[i] = t.az
-	}
-	return out
+	return x, in
 }
 
-// refine runs Nelder–Mead from each start in u, with az = mid + half·sin(u)
-// keeping every azimuth inside its window.
-func (p *grooveProblem) refine(starts [][]float64) {
-	k := len(p.vees)
-	toAz := func(u, out []float64) {
-		for j := range u {
-			mid, half := (p.lo[j]+p.hi[j])/2, (p.hi[j]-p.lo[j])/2
-			out[j] = mid + half*math.Sin(u[j])
-		}
+// ownVars returns the variables of the drawn layout.
+func (p *optProblem) ownVars() ([]float64, bool) {
+	az := make([]float64, len(p.pairs))
+	for i := range p.pairs {
+		az[i] = p.pairs[i].az0
 	}
-	work := make([]float64, k)
-	problem := optimize.Problem{Func: func(u []float64) float64 {
-		toAz(u, work)
-		return -p.try(work)
-	}}
-	settings := &optimize.Settings{
-		FuncEvaluations: 300 * k,
-		Converger:       &optimize.FunctionConverge{Absolute: 1e-10, Iterations: 30 * k},
-	}
-	for _, s := range starts {
-		u := make([]float64, k)
-		for j := range s {
-			mid, half := (p.lo[j]+p.hi[j])/2, (p.hi[j]-p.lo[j])/2
-			if half == 0 {
-				continue
-			}
-			u[j] = math.Asin(math.Max(-1, math.Min(1, (s[j]-mid)/half)))
-		}
-		// Errors here only report the evaluation budget running out; the
-		// best layout seen is kept by try either way.
-		_, _ = optimize.Minimize(problem, u, settings, &optimize.NelderMead{SimplexSize: 0.1})
-	}
+	return p.vars(az)
 }
 
-// within reports whether the azimuth a lies in [lo, hi], modulo π.
-func within(a, lo, hi float64) bool {
-	if hi-lo >= math.Pi {
-		return true
-	}
-	d := math.Mod(a-lo, math.Pi)
-	if d < 0 {
-		d += math.Pi
-	}
-	return d <= hi-lo+1e-12
-}
-
-// bisectors returns the azimuths of the bisector layout (as BisectorVees
-// lays it), for a coupling of three vees on three balls in a triangle.
-func (p *grooveProblem) bisectors(c Coupling) ([]float64, bool) {
-	if len(c.Pairs) != 3 || len(p.vees) != 3 {
+// bisectorAzimuths returns the azimuths of the bisector layout (as
+// BisectorVees lays it), for three grooves on three balls in a triangle.
+func (p *optProblem) bisectorAzimuths() ([]float64, bool) {
+	if len(p.pairs) != 3 {
 		return nil, false
 	}
-	a, b, cc := c.Pairs[0].Ball.Centre, c.Pairs[1].Ball.Centre, c.Pairs[2].Ball.Centre
-	if !isTriangle(a, b, cc) {
+	for _, op := range p.pairs {
+		if !op.groove {
+			return nil, false
+		}
+	}
+	a, b, c := p.pairs[0].centre, p.pairs[1].centre, p.pairs[2].centre
+	if !isTriangle(a, b, c) {
 		return nil, false
 	}
-	in := incentre(a, b, cc)
+	in := incentre(a, b, c)
 	az := make([]float64, 3)
-	for j, v := range p.vees {
-		d, ok := linalg.Unit3(r3.Sub(in, v.centre))
+	for i := range p.pairs {
+		op := &p.pairs[i]
+		d, ok := linalg.Unit3(r3.Sub(in, op.centre))
 		var h r3.Vec
 		if ok {
-			h, ok = flatten(d, v.up)
+			h, ok = flatten(d, op.up)
 		}
 		if !ok {
 			return nil, false
 		}
-		az[j] = azimuthFrom(h, v.up, v.rad)
+		az[i] = azimuthFrom(h, op.up, op.rad)
 	}
 	return az, true
 }
 
-// weakest returns the weakest Maxwell index at the contact points with
-// the vee grooves at azimuths az, or 0 if the layout is singular.
-func (p *grooveProblem) weakest(az []float64) float64 {
-	for j := range p.vees {
-		v := &p.vees[j]
-		ns := flankNormals(v.up, turn(v.rad, v.up, az[j]), v.sin, v.cos)
-		for k, n := range ns {
-			l := &p.lines[v.first+k]
-			l.n = n
-			l.p = r3.Sub(v.centre, r3.Scale(v.radius, n))
+// decode returns the azimuth (from radial) and ball offset of pair i for
+// the variables x.
+func (p *optProblem) decode(i int, x []float64) (az float64, off r3.Vec) {
+	op := &p.pairs[i]
+	az = op.az0
+	switch {
+	case op.azVar >= 0 && op.periodic:
+		az = x[op.azVar]
+	case op.azVar >= 0:
+		mid, half := (op.lo+op.hi)/2, (op.hi-op.lo)/2
+		az = mid + half*math.Sin(x[op.azVar])
+	}
+	if op.posVar >= 0 {
+		a := op.box[0] * math.Sin(x[op.posVar])
+		b := op.box[1] * math.Sin(x[op.posVar+1])
+		if op.disc > 0 {
+			if r := math.Hypot(a, b); r > op.disc {
+				a, b = a*op.disc/r, b*op.disc/r
+			}
+		}
+		off = r3.Add(r3.Scale(a, op.e1), r3.Scale(b, op.e2))
+	}
+	return az, off
+}
+
+// set puts the layout of the variables x and half-angle combination k
+// into the scorer's lines.
+func (p *optProblem) set(x []float64, k int) {
+	az := make([]float64, 0, 8)
+	var offs [16]r3.Vec
+	for i := range p.pairs {
+		a, off := p.decode(i, x)
+		az = append(az, a)
+		if i < len(offs) {
+			offs[i] = off
 		}
 	}
-	var ts [6]screw.Twist
-	if !freedOf(p.lines, &ts) {
-		return 0
+	p.setLayout(az, offs[:min(len(p.pairs), len(offs))], x, k)
+}
+
+// setLayout puts the layout of the azimuths az (from radial), ball offsets
+// offs (or, past their length, those decoded from x) and half-angle
+// combination k into the scorer's lines.
+func (p *optProblem) setLayout(az []float64, offs []r3.Vec, x []float64, k int) {
+	sc := p.sc
+	for i := range p.pairs {
+		op := &p.pairs[i]
+		var off r3.Vec
+		if i < len(offs) {
+			off = offs[i]
+		} else if x != nil {
+			_, off = p.decode(i, x)
+		}
+		c := r3.Sub(r3.Add(op.centre, off), sc.origin)
+		var ns [3]r3.Vec
+		copy(ns[:], op.normals[:op.count])
+		root := r3.Add(op.root0, off)
+		if op.groove {
+			h := p.combos[k][op.grooveIdx]
+			s, co := math.Sincos(h)
+			fl := flankNormals(op.up, turn(op.rad, op.up, az[i]), s, co)
+			ns[0], ns[1] = fl[0], fl[1]
+			ideal := math.Abs(math.Sin(2 * h))
+			sc.ideal[op.first], sc.ideal[op.first+1] = ideal, ideal
+			root = r3.Sub(c, r3.Scale(op.radius/s, op.up))
+		}
+		for j := 0; j < op.count; j++ {
+			l := &sc.lines[op.first+j]
+			l.n = ns[j]
+			l.centre = c
+			l.p = r3.Sub(c, r3.Scale(op.radius, ns[j]))
+			sc.root[op.first+j] = root
+		}
 	}
-	w := math.Inf(1)
-	for i, t := range ts {
-		l := &p.lines[i]
-		v := t.At(l.p)
-		w = min(w, math.Abs(r3.Dot(l.n, v))/linalg.Norm3(v))
+}
+
+// grid returns the starting points of the global search: a grid of about
+// 1000 layouts over the azimuths with the balls at their drawn places,
+// and, with ball regions, 64 layouts drawn at random from the regions
+// (and the azimuth windows).
+func (p *optProblem) grid(rng *rand.Rand) [][]float64 {
+	var az []int
+	for i := range p.pairs {
+		if p.pairs[i].azVar >= 0 {
+			az = append(az, i)
+		}
 	}
-	return w
+	var out [][]float64
+	if len(az) > 0 {
+		m := max(2, int(math.Pow(1000, 1/float64(len(az)))+1e-9))
+		idx := make([]int, len(az))
+		for {
+			x := make([]float64, p.nvar)
+			for j, i := range az {
+				op := &p.pairs[i]
+				a := op.lo + (float64(idx[j])+0.5)/float64(m)*(op.hi-op.lo)
+				x[op.azVar], _ = p.toVar(op, a)
+			}
+			out = append(out, x)
+			j := 0
+			for ; j < len(idx); j++ {
+				idx[j]++
+				if idx[j] < m {
+					break
+				}
+				idx[j] = 0
+			}
+			if j == len(idx) {
+				break
+			}
+		}
+	}
+	hasPos := false
+	for i := range p.pairs {
+		hasPos = hasPos || p.pairs[i].posVar >= 0
+	}
+	if hasPos {
+		for r := 0; r < 64; r++ {
+			x := make([]float64, p.nvar)
+			for j := range x {
+				x[j] = math.Asin(2*rng.Float64() - 1)
+			}
+			for i := range p.pairs {
+				if op := &p.pairs[i]; op.azVar >= 0 && op.periodic {
+					x[op.azVar] = math.Pi * (rng.Float64() - 0.5)
+				}
+			}
+			out = append(out, x)
+		}
+	}
+	return out
+}
+
+// search runs the global-then-local search for the objective (with the
+// extra bound of a trade-off point) and returns the best feasible layout.
+func (p *optProblem) search(obj Objective, extra *bound) (candidate, bool) {
+	best := candidate{cost: math.Inf(1)}
+	keep := func(x []float64, k int, c float64, ok bool) {
+		if ok && c < best.cost {
+			best = candidate{x: append([]float64(nil), x...), combo: k, cost: c, ok: true}
+		}
+	}
+	rng := rand.New(rand.NewPCG(p.o.Seed, 0x5eed))
+	grid := p.grid(rng)
+	for k := range p.combos {
+		var starts, tried []candidate
+		own, in := p.ownVars()
+		seeds := [][]float64{}
+		if in {
+			seeds = append(seeds, own)
+		}
+		if baz, ok := p.bisectorAzimuths(); ok {
+			if bx, in := p.vars(baz); in {
+				seeds = append(seeds, bx)
+			}
+		}
+		for _, x := range seeds {
+			c, pen, ok := p.evaluate(obj, extra, x, k)
+			keep(x, k, c, ok)
+			starts = append(starts, candidate{x: x, cost: pen})
+		}
+		for _, x := range grid {
+			c, pen, ok := p.evaluate(obj, extra, x, k)
+			keep(x, k, c, ok)
+			tried = append(tried, candidate{x: x, cost: pen})
+		}
+		sort.SliceStable(tried, func(i, j int) bool { return tried[i].cost < tried[j].cost })
+		starts = append(starts, tried[:min(8, len(tried))]...)
+		if p.nvar == 0 {
+			if len(seeds) == 0 {
+				c, _, ok := p.evaluate(obj, extra, nil, k)
+				keep(nil, k, c, ok)
+			}
+			continue
+		}
+		problem := optimize.Problem{Func: func(x []float64) float64 {
+			c, pen, ok := p.evaluate(obj, extra, x, k)
+			keep(x, k, c, ok)
+			return pen
+		}}
+		settings := &optimize.Settings{
+			FuncEvaluations: 150 * p.nvar,
+			Converger:       &optimize.FunctionConverge{Relative: 1e-10, Absolute: 1e-300, Iterations: 20 * p.nvar},
+		}
+		for _, s := range starts {
+			// Errors report the evaluation budget running out; the best
+			// layout seen is kept either way.
+			_, _ = optimize.Minimize(problem, append([]float64(nil), s.x...), settings, &optimize.NelderMead{SimplexSize: 0.1})
+		}
+		// Polish the best with a small simplex: the figures are minima
+		// and maxima of smooth ones, where a large simplex stalls.
+		if best.ok && best.combo == k {
+			_, _ = optimize.Minimize(problem, append([]float64(nil), best.x...), settings, &optimize.NelderMead{SimplexSize: 0.01})
+		}
+	}
+	return best, best.ok
+}
+
+// coupling returns the coupling of the variables x and half-angle
+// combination k, and each pair's azimuth from radial.
+func (p *optProblem) coupling(x []float64, k int) (Coupling, []float64) {
+	out := Coupling{Pairs: append([]Pair(nil), p.c.Pairs...)}
+	az := make([]float64, len(p.pairs))
+	for i := range p.pairs {
+		op := &p.pairs[i]
+		a, off := p.decode(i, x)
+		out.Pairs[i].Ball.Centre = r3.Add(op.centre, off)
+		if op.groove {
+			az[i] = wrapAzimuth(a)
+			g := out.Pairs[i].Seat.(grooveSeat)
+			out.Pairs[i].Seat = g.withDirection(turn(op.rad, op.up, a)).(grooveSeat).withHalfAngle(p.combos[k][op.grooveIdx])
+		}
+	}
+	return out, az
+}
+
+// binding returns the constraints active at the variables x.
+func (p *optProblem) binding(x []float64, card *Scorecard) []string {
+	var out []string
+	for i := range p.pairs {
+		op := &p.pairs[i]
+		if op.azVar >= 0 && !op.periodic {
+			if s := math.Sin(x[op.azVar]); s <= -1+1e-8 {
+				out = append(out, indexed("Windows", i)+".Min")
+			} else if s >= 1-1e-8 {
+				out = append(out, indexed("Windows", i)+".Max")
+			}
+		}
+		if op.posVar >= 0 {
+			_, off := p.decode(i, x)
+			a, b := r3.Dot(off, op.e1), r3.Dot(off, op.e2)
+			edge := false
+			if op.disc > 0 {
+				edge = math.Hypot(a, b) >= op.disc*(1-1e-6)
+			} else {
+				edge = (op.box[0] > 0 && math.Abs(a) >= op.box[0]*(1-1e-6)) || (op.box[1] > 0 && math.Abs(b) >= op.box[1]*(1-1e-6))
+			}
+			if edge {
+				out = append(out, indexed("Regions", i))
+			}
+		}
+	}
+	if p.o.MinMaxwell > 0 && card.WeakestCentreIndex <= p.o.MinMaxwell*(1+1e-6) {
+		out = append(out, "MinMaxwell")
+	}
+	if p.o.MaxPressureRatio > 0 && card.PressureRatio >= p.o.MaxPressureRatio*(1-1e-6) {
+		out = append(out, "MaxPressureRatio")
+	}
+	return out
+}
+
+// front returns the trade-off curve between the objectives a and b.
+func (p *optProblem) front(a, b Objective, n int, bestA candidate) ([]FrontPoint, error) {
+	bestB, ok := p.search(b, nil)
+	if !ok {
+		return nil, &InputError{Field: "opt.TradeOff", Err: fmt.Errorf("%w: no feasible layout for %v", ErrRange, b)}
+	}
+	score := func(c candidate) (FrontPoint, error) {
+		p.set(c.x, c.combo)
+		var card Scorecard
+		if err := p.sc.score(&card, allFigures); err != nil {
+			return FrontPoint{}, err
+		}
+		cp, _ := p.coupling(c.x, c.combo)
+		return FrontPoint{Coupling: cp, Score: card, First: figure(a, &card), Second: figure(b, &card)}, nil
+	}
+	ends := [2]FrontPoint{}
+	var err error
+	if ends[0], err = score(bestA); err != nil {
+		return nil, err
+	}
+	if ends[1], err = score(bestB); err != nil {
+		return nil, err
+	}
+	hi, lo := cost(b, &ends[0].Score), cost(b, &ends[1].Score)
+	pts := []FrontPoint{ends[0]}
+	for k := 1; k < n-1; k++ {
+		limit := hi + (lo-hi)*float64(k)/float64(n-1)
+		c, ok := p.search(a, &bound{obj: b, limit: limit})
+		if !ok {
+			continue
+		}
+		fp, err := score(c)
+		if err != nil {
+			return nil, err
+		}
+		pts = append(pts, fp)
+	}
+	pts = append(pts, ends[1])
+	// Drop dominated points (in cost terms, both minimised).
+	var out []FrontPoint
+	for i, q := range pts {
+		dominated := false
+		for j, r := range pts {
+			if i == j {
+				continue
+			}
+			qa, qb, ra, rb := cost(a, &q.Score), cost(b, &q.Score), cost(a, &r.Score), cost(b, &r.Score)
+			if ra <= qa && rb <= qb && (ra < qa || rb < qb) && (ra < qa*(1-1e-9) || rb < qb*(1-1e-9)) {
+				dominated = true
+				break
+			}
+		}
+		if !dominated {
+			out = append(out, q)
+		}
+	}
+	return out, nil
 }

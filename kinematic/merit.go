@@ -124,10 +124,14 @@ type Scorecard struct {
 // summarises ([Stability.ErrorAt], [Model.Shock], [Model.Stiffness],
 // [Stiffness.Compliance], [Stiffness.Modes], [Assembly.Drift]).
 //
+// The stiffness figures (Stiffness, AxisCompliance, FirstFrequency) need
+// every contact in compression under the preload and gravity, and a Hertz
+// point contact at every contact (not a cone's ring); otherwise they are
+// zero.
+//
 // Score returns the errors of [Coupling.Contacts], [Analyze] and
-// [NewModel], an [*InputError] wrapping [ErrNotExact] for a set that is
-// not exactly constrained, and the Hertz errors of a contact without a
-// point-contact model (a cone) when a figure needs them.
+// [NewModel], and an [*InputError] wrapping [ErrNotExact] for a set that
+// is not exactly constrained.
 func (c Coupling) Score(s Scenario) (Scorecard, error) {
 	sc, err := newScorer(c, s)
 	if err != nil {
@@ -159,13 +163,13 @@ const (
 // seat ideals, expansion data) is held, and the contact lines are set by
 // the caller (the optimiser) or by newScorer.
 type scorer struct {
-	s     Scenario
-	lines [6]line // about origin
-	ideal [6]float64
-	k     [6]float64 // Hertz F = k δ^(3/2); 0 when the contact has no model
-	kerr  error      // why a contact has no Hertz model
-	fall  [6]float64 // force at the allowable peak pressure, N; 0 when none on file
-	root  [6]r3.Vec  // each contact's seat root, about origin
+	s      Scenario
+	lines  [6]line // about origin
+	ideal  [6]float64
+	k      [6]float64 // Hertz F = k δ^(3/2); 0 when the contact has no model
+	kerr   error      // why a contact has no Hertz model
+	fall   [6]float64 // force at the allowable peak pressure, N; 0 when none on file
+	root   [6]r3.Vec  // each contact's seat root, about origin
 	alpha  [6]float64 // the seat's α, per contact
 	balpha [6]float64 // the ball's α, per contact
 	origin r3.Vec
@@ -364,35 +368,31 @@ func (sc *scorer) score(card *Scorecard, need figures) error {
 			}
 		}
 	}
-	if need&(figStiffness|figModes) != 0 {
-		if sc.kerr != nil {
-			return sc.kerr
-		}
+	// The stiffness needs every contact loaded (Hertz stiffness at zero
+	// force is zero) and a Hertz model at every contact; without them the
+	// figures stay zero.
+	loaded := sc.kerr == nil
+	for i := range f0 {
+		loaded = loaded && f0[i] > 0
+	}
+	if need&(figStiffness|figModes) != 0 && loaded {
 		st := Stiffness{origin: sc.origin, L: sc.L, payload: sc.pay}
 		for i, l := range sc.lines {
-			if f0[i] <= 0 {
-				return &InputError{Field: "s.Preloads", Err: fmt.Errorf(
-					"%w: contact %s is in tension (%.4g N) under the preload and gravity; the stiffness needs every contact loaded", ErrRange, labelOf(l.label, i), f0[i])}
-			}
 			// dF/dδ = (3/2) k^(2/3) F^(1/3) for F = k δ^(3/2).
 			kn := 1.5 * math.Cbrt(sc.k[i]*sc.k[i]*f0[i])
 			g := scaledWrench(screw.Wrench{F: l.n, M: r3.Cross(l.p, l.n)}, sc.L)
 			addOuter(&st.k, kn, &g)
 		}
 		if need&figStiffness != 0 {
-			c, err := st.Compliance(sc.s.Point)
-			if err != nil {
-				return err
+			if c, err := st.Compliance(sc.s.Point); err == nil {
+				card.Stiffness = 1 / largestEigen3(&c.Matrix)
+				card.AxisCompliance = c.Along(sc.s.Axis)
 			}
-			card.Stiffness = 1 / largestEigen3(&c.Matrix)
-			card.AxisCompliance = c.Along(sc.s.Axis)
 		}
 		if need&figModes != 0 && sc.pay.Mass > 0 && sc.pay.Inertia != ([3][3]float64{}) {
-			modes, err := st.Modes()
-			if err != nil {
-				return err
+			if modes, err := st.Modes(); err == nil {
+				card.FirstFrequency = modes[0].Frequency
 			}
-			card.FirstFrequency = modes[0].Frequency
 		}
 	}
 	if need&figDrift != 0 {

@@ -129,6 +129,8 @@ type grooveSeat interface {
 	halfAngle() float64
 	// withDirection returns the seat with its groove along d.
 	withDirection(d r3.Vec) Seat
+	// withHalfAngle returns the seat with the half-angle h.
+	withHalfAngle(h float64) Seat
 }
 
 // Pair is one ball in its seat.
@@ -227,16 +229,18 @@ func checkBall(b Ball, field string) error {
 	return nil
 }
 
-func (v Vee) count() int                   { return 2 }
-func (v Vee) up() r3.Vec                   { return v.Up }
-func (v Vee) halfAngle() float64           { return v.HalfAngle }
-func (v Vee) withDirection(d r3.Vec) Seat  { v.Direction = d; return v }
-func (r Rods) count() int                  { return 2 }
-func (r Rods) up() r3.Vec                  { return r.Up }
-func (r Rods) halfAngle() float64          { return r.HalfAngle }
-func (r Rods) withDirection(d r3.Vec) Seat { r.Direction = d; return r }
-func (f Flat) count() int                  { return 1 }
-func (f Flat) up() r3.Vec                  { return f.Up }
+func (v Vee) count() int                    { return 2 }
+func (v Vee) up() r3.Vec                    { return v.Up }
+func (v Vee) halfAngle() float64            { return v.HalfAngle }
+func (v Vee) withDirection(d r3.Vec) Seat   { v.Direction = d; return v }
+func (v Vee) withHalfAngle(h float64) Seat  { v.HalfAngle = h; return v }
+func (r Rods) withHalfAngle(h float64) Seat { r.HalfAngle = h; return r }
+func (r Rods) count() int                   { return 2 }
+func (r Rods) up() r3.Vec                   { return r.Up }
+func (r Rods) halfAngle() float64           { return r.HalfAngle }
+func (r Rods) withDirection(d r3.Vec) Seat  { r.Direction = d; return r }
+func (f Flat) count() int                   { return 1 }
+func (f Flat) up() r3.Vec                   { return f.Up }
 
 func (t Trihedral) count() int { return 3 }
 func (t Trihedral) up() r3.Vec { return t.Up }

@@ -111,7 +111,9 @@ func TestRodsContacts(t *testing.T) {
 		}
 	}
 	// The rods turn with the optimiser and report as grooves.
-	c := Coupling{Pairs: []Pair{{Ball: ball(-60, 0, 0), Seat: rods}, {Ball: ball(60, 0, 0), Seat: v}, {Ball: ball(0, 30, 0), Seat: v}}}
+	vb, vc := v, v
+	vb.Direction, vc.Direction = r3.Vec{X: -1, Y: 0.4}, r3.Vec{Y: 1}
+	c := Coupling{Pairs: []Pair{{Ball: ball(-60, 0, 0), Seat: rods}, {Ball: ball(60, 0, 0), Seat: vb}, {Ball: ball(0, 30, 0), Seat: vc}}}
 	g, err := c.Geometry()
 	if err != nil {
 		t.Fatal(err)
@@ -119,7 +121,7 @@ func TestRodsContacts(t *testing.T) {
 	if len(g.Grooves) != 3 {
 		t.Errorf("%d grooves, want 3 (rods count)", len(g.Grooves))
 	}
-	if _, err := OptimizeGrooves(c, nil); err != nil {
+	if _, err := Optimize(c, Scenario{}, nil); err != nil {
 		t.Errorf("optimising a coupling with rods: %v", err)
 	}
 	for _, bad := range []float64{0, -1, math.NaN()} {
