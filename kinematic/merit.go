@@ -289,17 +289,22 @@ func (sc *scorer) score(card *Scorecard, need figures) error {
 			v := t.At(l.p)
 			s := r3.Dot(l.n, v)
 			idx := math.Abs(s) / linalg.Norm3(v)
-			ci := idx
+			vc := v
 			if l.ball {
-				ci = math.Abs(s) / linalg.Norm3(t.At(l.centre))
+				vc = t.At(l.centre)
 			}
+			ci := math.Abs(s) / linalg.Norm3(vc)
 			card.WeakestIndex = math.Min(card.WeakestIndex, idx)
-			card.WeakestCentreIndex = math.Min(card.WeakestCentreIndex, ci)
+			if ci <= card.WeakestCentreIndex {
+				card.WeakestCentreIndex = ci
+				// The angle from its sine and cosine: accurate near 0,
+				// where acos of the index is not.
+				card.WeakestAngle = math.Atan2(linalg.Norm3(r3.Cross(l.n, vc)), math.Abs(r3.Dot(l.n, vc)))
+			}
 			if sc.ideal[i] > 0 {
 				card.MaxwellRatio = math.Min(card.MaxwellRatio, ci/sc.ideal[i])
 			}
 		}
-		card.WeakestAngle = math.Acos(math.Min(1, card.WeakestCentreIndex))
 	}
 	if need&figSingular != 0 {
 		var ws [6]screw.Wrench
