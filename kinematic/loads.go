@@ -1,6 +1,7 @@
 package kinematic
 
 import (
+	"errors"
 	"fmt"
 	"math"
 
@@ -188,6 +189,12 @@ func newSurface(c *Contact, i int) surface {
 	f, err := hertz.LoadForApproach(c.Moving, c.Base, d)
 	if err != nil {
 		s.err = fromHertz(err, moving, base, nil)
+		var ie *InputError
+		if errors.Is(err, hertz.ErrLineContact) && errors.As(s.err, &ie) {
+			ie.Err = fmt.Errorf(
+				"%w (contact %s bears along a line, as a ball in a cone bears on a ring; no ring-contact model is provided, so only rigid-statics forces are computed, not its stiffness or stresses)",
+				ie.Err, labelOf(c.Label, i))
+		}
 		return s
 	}
 	s.k = f / (d * math.Sqrt(d))
