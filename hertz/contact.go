@@ -56,8 +56,20 @@ type pair struct {
 	a3           float64 // a³/F, m³/N
 }
 
+// inputErr returns an *InputError for field wrapping the sentinel kind,
+// with a message built from format and args.
+func inputErr(field string, kind error, format string, args ...any) error {
+	return &InputError{Field: field, Err: fmt.Errorf("%w: "+format, append([]any{kind}, args...)...)}
+}
+
+// rangeErr returns an *InputError for field wrapping ErrRange.
 func rangeErr(field, format string, args ...any) error {
-	return &InputError{Field: field, Err: fmt.Errorf("%w: "+format, append([]any{ErrRange}, args...)...)}
+	return inputErr(field, ErrRange, format, args...)
+}
+
+// nonFiniteErr returns an *InputError for field wrapping ErrNonFinite.
+func nonFiniteErr(field, format string, args ...any) error {
+	return inputErr(field, ErrNonFinite, format, args...)
 }
 
 func finite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
@@ -67,7 +79,7 @@ func finite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
 func curvature(r float64, name, field string) (float64, error) {
 	switch {
 	case math.IsNaN(r):
-		return 0, rangeErr(name+"."+field, "radius is NaN")
+		return 0, nonFiniteErr(name+"."+field, "radius is NaN")
 	case r == 0:
 		return 0, rangeErr(name+"."+field, "radius must be nonzero (±Inf for a straight surface), got 0")
 	case math.IsInf(r, 0):
@@ -82,13 +94,19 @@ func curvature(r float64, name, field string) (float64, error) {
 
 func checkMaterial(m Material, name string) error {
 	switch {
-	case math.IsNaN(m.E) || !(m.E > 0):
+	case math.IsNaN(m.E):
+		return nonFiniteErr(name+".Material.E", "Young's modulus is NaN")
+	case !(m.E > 0):
 		return rangeErr(name+".Material.E", "Young's modulus must be positive (or +Inf for a rigid body), got %g", m.E)
-	case math.IsNaN(m.Nu) || !(m.Nu > -1 && m.Nu <= 0.5):
+	case !finite(m.Nu):
+		return nonFiniteErr(name+".Material.Nu", "Poisson's ratio must be finite, in (-1, 0.5], got %g", m.Nu)
+	case !(m.Nu > -1 && m.Nu <= 0.5):
 		return rangeErr(name+".Material.Nu", "Poisson's ratio must be in (-1, 0.5], got %g", m.Nu)
 	case !finite(m.Alpha):
-		return rangeErr(name+".Material.Alpha", "expansion coefficient must be finite, got %g", m.Alpha)
-	case !finite(m.Allowable) || m.Allowable < 0:
+		return nonFiniteErr(name+".Material.Alpha", "expansion coefficient must be finite, got %g", m.Alpha)
+	case !finite(m.Allowable):
+		return nonFiniteErr(name+".Material.Allowable", "allowable pressure must be finite and ≥ 0, got %g", m.Allowable)
+	case m.Allowable < 0:
 		return rangeErr(name+".Material.Allowable", "allowable pressure must be finite and ≥ 0, got %g", m.Allowable)
 	}
 	return nil
@@ -106,7 +124,7 @@ func bodyTerms(b Body, name string) (mean, dc, ds float64, err error) {
 		return 0, 0, 0, err
 	}
 	if !finite(b.Angle) {
-		return 0, 0, 0, rangeErr(name+".Angle", "angle must be finite, got %g", b.Angle)
+		return 0, 0, 0, nonFiniteErr(name+".Angle", "angle must be finite, got %g", b.Angle)
 	}
 	if err := checkMaterial(b.Material, name); err != nil {
 		return 0, 0, 0, err
@@ -239,15 +257,20 @@ func (c *Contact) finite() bool {
 // with zero pressures, approach, stiffness and stresses, and with
 // MajorAngle, A, B, EStar and GStar set.
 //
-// Errors are *InputError wrapping ErrRange (a field outside its domain, a
-// negative load), ErrLineContact or ErrGeometry (no Hertz point contact).
-// The inputs are not modified.
+// Errors are *InputError wrapping ErrNonFinite (a NaN, or an infinity
+// where a finite number is needed), ErrRange (a field outside its domain, a
+// negative load, a result outside the floating-point range), or
+// ErrLineContact or ErrGeometry (no Hertz point contact; both refine
+// ErrDegenerate). The inputs are not modified.
 func Solve(b1, b2 Body, load float64) (Contact, error) {
 	p, err := newPair(b1, b2)
 	if err != nil {
 		return Contact{}, err
 	}
-	if !finite(load) || load < 0 {
+	if !finite(load) {
+		return Contact{}, nonFiniteErr("load", "normal load must be finite and ≥ 0, got %g", load)
+	}
+	if load < 0 {
 		return Contact{}, rangeErr("load", "normal load must be finite and ≥ 0, got %g", load)
 	}
 	c := p.contact(load)
@@ -325,7 +348,10 @@ func LoadForPressure(b1, b2 Body, p0 float64) (float64, error) {
 	if err != nil {
 		return 0, err
 	}
-	if !finite(p0) || p0 < 0 {
+	if !finite(p0) {
+		return 0, nonFiniteErr("p0", "peak pressure must be finite and ≥ 0, got %g", p0)
+	}
+	if p0 < 0 {
 		return 0, rangeErr("p0", "peak pressure must be finite and ≥ 0, got %g", p0)
 	}
 	// p0 = 3F/(2π a b) with a = (a3 F)^(1/3), b = k' a.
@@ -347,7 +373,10 @@ func LoadForApproach(b1, b2 Body, delta float64) (float64, error) {
 	if err != nil {
 		return 0, err
 	}
-	if !finite(delta) || delta < 0 {
+	if !finite(delta) {
+		return 0, nonFiniteErr("delta", "approach must be finite and ≥ 0, got %g", delta)
+	}
+	if delta < 0 {
 		return 0, rangeErr("delta", "approach must be finite and ≥ 0, got %g", delta)
 	}
 	// δ = 3 F K/(2π a E*) with a = (a3 F)^(1/3): F^(2/3) = 2π a3^(1/3) E* δ/(3K).

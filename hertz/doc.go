@@ -86,9 +86,22 @@
 // # Errors
 //
 // Invalid input gives an *InputError naming the field ("b1.R2",
-// "b2.Material.Nu", "load", "p0", ...) and wrapping one of ErrRange,
-// ErrLineContact or ErrGeometry; errors.Is and errors.As work. No function
-// panics on its arguments or returns NaN or Inf without an error.
+// "b2.Material.Nu", "load", "p0", "b1, b2", ...; the forms are listed on
+// InputError) and wrapping one of the module's shared sentinels:
+//
+//   - ErrNonFinite: a NaN, or an infinity where a finite number is needed
+//     (radii and Young's modulus accept +Inf, radii also −Inf);
+//   - ErrRange: a number outside its domain, or a result that would leave
+//     the floating-point range;
+//   - ErrDegenerate: no Hertz point contact, refined as ErrLineContact
+//     (the bodies touch along a line) or ErrGeometry (conforming or
+//     separating surfaces, both bodies rigid), both of which errors.Is
+//     also reports as ErrDegenerate.
+//
+// ErrNonFinite, ErrRange and ErrDegenerate are the same values as the
+// sentinels of those names in the module's other packages. errors.Is and
+// errors.As work. No function panics on its arguments or returns NaN or Inf
+// without an error.
 //
 // # Aliasing
 //

@@ -28,7 +28,7 @@ func FuzzSolve(f *testing.F) {
 			if !errors.As(err, &ie) || ie.Field == "" {
 				t.Fatalf("error %v is not an *InputError with a field", err)
 			}
-			if !errors.Is(err, ErrRange) && !errors.Is(err, ErrLineContact) && !errors.Is(err, ErrGeometry) {
+			if !errors.Is(err, ErrNonFinite) && !errors.Is(err, ErrRange) && !errors.Is(err, ErrDegenerate) {
 				t.Fatalf("error %v wraps no sentinel", err)
 			}
 			if c != (Contact{}) {
