@@ -1,6 +1,10 @@
 package hertz
 
-import "github.com/sixfold-dev/sixfold/internal/errs"
+import (
+	"fmt"
+
+	"github.com/sixfold-dev/sixfold/internal/errs"
+)
 
 // Sentinel errors wrapped by every *InputError this package returns; test
 // for them with errors.Is.
@@ -72,3 +76,19 @@ func (e *InputError) Error() string { return "hertz: " + e.Field + ": " + e.Err.
 
 // Unwrap returns the wrapped error, so that errors.Is finds the sentinel.
 func (e *InputError) Unwrap() error { return e.Err }
+
+// inputErr returns an *InputError for field wrapping the sentinel kind,
+// with a message built from format and args.
+func inputErr(field string, kind error, format string, args ...any) error {
+	return &InputError{Field: field, Err: fmt.Errorf("%w: "+format, append([]any{kind}, args...)...)}
+}
+
+// rangeErr returns an *InputError for field wrapping ErrRange.
+func rangeErr(field, format string, args ...any) error {
+	return inputErr(field, ErrRange, format, args...)
+}
+
+// nonFiniteErr returns an *InputError for field wrapping ErrNonFinite.
+func nonFiniteErr(field, format string, args ...any) error {
+	return inputErr(field, ErrNonFinite, format, args...)
+}
