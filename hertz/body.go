@@ -94,6 +94,13 @@ func bodyTerms(b *Body, name string) (mean, dc, ds float64, err error) {
 	if d == 0 {
 		return k1, 0, 0, nil // sphere, socket or flat: no direction
 	}
-	s, c := math.Sincos(2 * b.Angle)
+	var s, c float64
+	if math.Abs(b.Angle) <= math.MaxFloat64/2 {
+		s, c = math.Sincos(2 * b.Angle)
+	} else {
+		// 2θ would overflow: the double-angle formulas on θ itself.
+		s1, c1 := math.Sincos(b.Angle)
+		s, c = 2*s1*c1, (c1-s1)*(c1+s1)
+	}
 	return (k1 + k2) / 2, d * c, d * s, nil
 }

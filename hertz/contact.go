@@ -51,7 +51,8 @@ func finite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
 //
 // Errors are *InputError wrapping ErrNonFinite (a NaN, or an infinity
 // where a finite number is needed), ErrRange (a field outside its domain, a
-// negative load, a result outside the floating-point range), or
+// negative or subnormal load, a result that would overflow or underflow
+// the normal float64 range), or
 // ErrLineContact or ErrGeometry (no Hertz point contact; both refine
 // ErrDegenerate). The inputs are not modified. Solve is NewPair followed
 // by Pair.Solve; a caller that evaluates the same bodies at many loads

@@ -111,10 +111,11 @@ func checkMaterial(m *Material, name string) error {
 }
 
 // compliance returns (1−ν²)/E and (2−ν)/G = 2(2−ν)(1+ν)/E; both are 0 for a
-// rigid body.
+// rigid body. 1 − ν² is formed as (1 − ν)(1 + ν), exact to a rounding for
+// ν near −1, where 1 − ν·ν would cancel (to 5e-14 relative at ν = −0.999).
 func compliance(m *Material) (normal, shear float64) {
 	if math.IsInf(m.E, 1) {
 		return 0, 0
 	}
-	return (1 - m.Nu*m.Nu) / m.E, 2 * (2 - m.Nu) * (1 + m.Nu) / m.E
+	return (1 - m.Nu) * (1 + m.Nu) / m.E, 2 * (2 - m.Nu) * (1 + m.Nu) / m.E
 }

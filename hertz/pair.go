@@ -36,7 +36,11 @@ type Pair struct {
 // NewPair returns bodies b1 and b2 prepared for Hertz contact at any load.
 // Errors are those of Solve for the bodies: *InputError naming a field of
 // b1 or b2 (or "b1, b2" for the two together) and wrapping ErrNonFinite,
-// ErrRange, ErrLineContact or ErrGeometry. The inputs are not modified.
+// ErrRange, ErrLineContact or ErrGeometry. ErrRange also covers a Young's
+// modulus so small that its compliance overflows ("b1.Material.E"),
+// effective moduli outside the normal float64 range
+// ("b1.Material, b2.Material") and a contact size a³/F outside it
+// ("b1, b2"). The inputs are not modified.
 func NewPair(b1, b2 Body) (Pair, error) {
 	m1, c1, s1, err := bodyTerms(&b1, "b1")
 	if err != nil {
@@ -51,7 +55,13 @@ func NewPair(b1, b2 Body) (Pair, error) {
 	if b2.Material.E != b1.Material.E || b2.Material.Nu != b1.Material.Nu {
 		n2, g2 = compliance(&b2.Material)
 	}
-	if n1+n2 == 0 {
+	if !(n1 <= math.MaxFloat64 && g1 <= math.MaxFloat64) {
+		return Pair{}, rangeErr("b1.Material.E", "Young's modulus %g Pa is too small for floating point: its compliance overflows", b1.Material.E)
+	}
+	if !(n2 <= math.MaxFloat64 && g2 <= math.MaxFloat64) {
+		return Pair{}, rangeErr("b2.Material.E", "Young's modulus %g Pa is too small for floating point: its compliance overflows", b2.Material.E)
+	}
+	if math.IsInf(b1.Material.E, 1) && math.IsInf(b2.Material.E, 1) { // not n1+n2 == 0, which may underflow
 		return Pair{}, &InputError{Field: "b1.Material.E, b2.Material.E", Err: fmt.Errorf("%w: both bodies are rigid (E = +Inf)", ErrGeometry)}
 	}
 
@@ -88,8 +98,8 @@ func NewPair(b1, b2 Body) (Pair, error) {
 		nu:    [2]float64{b1.Material.Nu, b2.Material.Nu},
 		minR:  minAbsRadius(&b1, &b2),
 	}
-	if !positive(p.estar) || !positive(p.gstar) {
-		return Pair{}, rangeErr("b1.Material, b2.Material", "effective moduli E* = %g, G* = %g Pa outside the floating-point range", p.estar, p.gstar)
+	if !normal(p.estar) || !normal(p.gstar) {
+		return Pair{}, rangeErr("b1.Material, b2.Material", "effective moduli E* = %g, G* = %g Pa outside the normal floating-point range", p.estar, p.gstar)
 	}
 	if D > 0 {
 		// The larger eigenvalue M + D has its eigenvector at φ =
@@ -97,10 +107,13 @@ func NewPair(b1, b2 Body) (Pair, error) {
 		p.angle = modPi(math.Atan2(ds, dc)/2 + 3*math.Pi/2)
 	}
 	p.sh = solveShape(D / A)
-	// a·b² = 3F E(e)/(2π E* (A+B)) (Johnson 1985, §3.5) with b = k'a.
-	p.a3 = 3 * p.sh.E / (2 * math.Pi * p.estar * M * p.sh.kp * p.sh.kp)
-	if !positive(p.a3) {
-		return Pair{}, rangeErr("b1, b2", "contact size outside the floating-point range")
+	// a·b² = 3F E(e)/(2π E* (A+B)) (Johnson 1985, §3.5) with b = k'a. The
+	// partial products of den only shrink after the first (k' ≤ 1), so a
+	// normal den has no underflow on the way.
+	den := 2 * math.Pi * p.estar * M * p.sh.kp * p.sh.kp
+	p.a3 = 3 * p.sh.E / den
+	if !normal(den) || !normal(p.a3) {
+		return Pair{}, rangeErr("b1, b2", "contact size a³/F = %g m³/N outside the normal floating-point range", p.a3)
 	}
 	return p, nil
 }
@@ -147,6 +160,9 @@ func checkLoadArg(load float64) error {
 	if load < 0 {
 		return rangeErr("load", "normal load must be finite and ≥ 0, got %g", load)
 	}
+	if load > 0 && load < minNormal {
+		return rangeErr("load", "normal load %g N is subnormal (below 2.2e-308 N), where float64 loses precision", load)
+	}
 	return nil
 }
 
@@ -157,9 +173,11 @@ func checkLoadArg(load float64) error {
 // stiffness, EStar, GStar, A, B and Valid. A zero load gives a contact of
 // zero size with MajorAngle, A, B, EStar and GStar set.
 //
-// Errors are *InputError wrapping ErrNonFinite or ErrRange for the field
-// "load" (not finite, negative, or a contact outside the floating-point
-// range), or ErrDegenerate for the zero Pair. Contact allocates nothing
+// Errors are *InputError for the field "load" wrapping ErrNonFinite (NaN
+// or infinite) or ErrRange (negative; subnormal, below 2.2e-308 N; or a
+// contact whose sizes, pressures, approach or stiffness would overflow or
+// underflow the normal float64 range, which keeps every answer at full
+// precision), or ErrDegenerate for the zero Pair. Contact allocates nothing
 // unless it returns an error.
 func (p Pair) Contact(load float64) (c Contact, err error) {
 	if err := p.check(); err != nil {
@@ -169,7 +187,7 @@ func (p Pair) Contact(load float64) (c Contact, err error) {
 		return Contact{}, err
 	}
 	if !p.contact(load, &c) {
-		return Contact{}, rangeErr("load", "contact of load %g N is outside the floating-point range", load)
+		return Contact{}, rangeErr("load", "contact of load %g N is outside the normal floating-point range", load)
 	}
 	return c, nil
 }
@@ -177,13 +195,20 @@ func (p Pair) Contact(load float64) (c Contact, err error) {
 // Solve returns the Hertz contact of the pair under the normal load, in
 // newtons, with the subsurface stresses: the result of the package-level
 // Solve for the bodies the pair was made from. Errors are those of
-// Pair.Contact.
+// Pair.Contact, and ErrRange for "load" when a stress would leave the
+// normal float64 range (a peak pressure within a factor of about 5 of
+// either end of it).
 func (p Pair) Solve(load float64) (Contact, error) {
 	c, err := p.Contact(load)
 	if err != nil || load == 0 {
 		return c, err
 	}
 	p.stresses(&c)
+	for _, st := range c.Stress {
+		if !normal(st.MaxShear) || !normal(st.MaxVonMises) {
+			return Contact{}, rangeErr("load", "stresses under load %g N (peak pressure %g Pa) outside the normal floating-point range", load, c.PeakPressure)
+		}
+	}
 	return c, nil
 }
 
@@ -191,8 +216,8 @@ func (p Pair) Solve(load float64) (Contact, error) {
 // reaches the peak contact pressure p0, in pascals. Since p0 ∝ F^(1/3),
 // the load is exact (to rounding) and p0 = 0 gives 0. Errors are
 // *InputError for the field "p0" wrapping ErrNonFinite or ErrRange (not
-// finite, negative, or a load outside the floating-point range), or
-// ErrDegenerate for the zero Pair.
+// finite, negative, or a load that would overflow or underflow the normal
+// float64 range), or ErrDegenerate for the zero Pair.
 func (p Pair) LoadForPressure(p0 float64) (float64, error) {
 	if err := p.check(); err != nil {
 		return 0, err
@@ -203,12 +228,16 @@ func (p Pair) LoadForPressure(p0 float64) (float64, error) {
 	if p0 < 0 {
 		return 0, rangeErr("p0", "peak pressure must be finite and ≥ 0, got %g", p0)
 	}
-	// p0 = 3F/(2π a b) with a = (a3 F)^(1/3), b = k' a.
+	if p0 == 0 {
+		return 0, nil
+	}
+	// p0 = 3F/(2π a b) with a = (a3 F)^(1/3), b = k' a. a3 is normal, so
+	// 2π ca² k' is (above 1e-213); x is normal when F is.
 	ca := math.Cbrt(p.a3)
 	x := 2 * math.Pi * ca * ca * p.sh.kp * p0 / 3
 	F := x * x * x
-	if !finite(F) {
-		return 0, rangeErr("p0", "load for peak pressure %g Pa is outside the floating-point range", p0)
+	if !normal(F) {
+		return 0, rangeErr("p0", "load for peak pressure %g Pa is outside the normal floating-point range", p0)
 	}
 	return F, nil
 }
@@ -217,8 +246,8 @@ func (p Pair) LoadForPressure(p0 float64) (float64, error) {
 // reaches the mutual approach delta, in metres. Since δ ∝ F^(2/3), the
 // load is exact (to rounding) and delta = 0 gives 0. Errors are
 // *InputError for the field "delta" wrapping ErrNonFinite or ErrRange (not
-// finite, negative, or a load outside the floating-point range), or
-// ErrDegenerate for the zero Pair.
+// finite, negative, or a load that would overflow or underflow the normal
+// float64 range), or ErrDegenerate for the zero Pair.
 func (p Pair) LoadForApproach(delta float64) (float64, error) {
 	if err := p.check(); err != nil {
 		return 0, err
@@ -229,36 +258,57 @@ func (p Pair) LoadForApproach(delta float64) (float64, error) {
 	if delta < 0 {
 		return 0, rangeErr("delta", "approach must be finite and ≥ 0, got %g", delta)
 	}
+	if delta == 0 {
+		return 0, nil
+	}
 	// δ = 3 F K/(2π a E*) with a = (a3 F)^(1/3): F^(2/3) = 2π a3^(1/3) E* δ/(3K).
-	x := 2 * math.Pi * math.Cbrt(p.a3) * p.estar * delta / (3 * p.sh.K)
+	y := 2 * math.Pi * math.Cbrt(p.a3) * p.estar
+	x := y * delta / (3 * p.sh.K)
 	F := x * math.Sqrt(x)
-	if !finite(F) {
-		return 0, rangeErr("delta", "load for approach %g m is outside the floating-point range", delta)
+	if !normal(y) || !normal(F) {
+		return 0, rangeErr("delta", "load for approach %g m is outside the normal floating-point range", delta)
 	}
 	return F, nil
 }
 
 // contact sets the fields of c, which must be zero, to the contact at load
-// F ≥ 0 without the subsurface stresses, and reports whether its sizes, pressures, approach and
-// stiffness are finite (and positive under a positive load).
+// F (0 or normal) without the subsurface stresses, and reports whether the
+// sizes, pressures, approach and stiffness, and the products they are
+// divided by, are normal float64 numbers (so that no underflow has cost
+// precision and nothing overflowed).
 func (p *Pair) contact(F float64, c *Contact) bool {
 	c.Load, c.MajorAngle, c.EStar, c.GStar, c.A, c.B = F, p.angle, p.estar, p.gstar, p.a, p.b
 	c.Valid = true
 	if F == 0 {
 		return true
 	}
-	a := math.Cbrt(p.a3 * F)
+	var a float64
+	if x := p.a3 * F; normal(x) {
+		a = math.Cbrt(x)
+	} else {
+		// a³ leaves the normal range though a need not: the product of
+		// the cube roots, within a few ulp.
+		a = math.Cbrt(p.a3) * math.Cbrt(F)
+	}
 	b := a * p.sh.kp
 	c.SemiMajor, c.SemiMinor = a, b
-	c.PeakPressure = 3 * F / (2 * math.Pi * a * b) // Johnson 1985, §3.5
-	c.MeanPressure = F / (math.Pi * a * b)
+	d1 := 2 * math.Pi * a * b
+	d2 := math.Pi * a * b
+	d3 := 2 * math.Pi * a * p.estar
+	c.PeakPressure = 3 * F / d1 // Johnson 1985, §3.5
+	c.MeanPressure = F / d2
 	// δ = p0 b K(e)/E* (Johnson 1985, §3.5: δ = L/(πE*), L = π p0 b K(e)).
-	c.Approach = 3 * F * p.sh.K / (2 * math.Pi * a * p.estar)
+	c.Approach = 3 * F * p.sh.K / d3
 	c.Stiffness = 1.5 * F / c.Approach // δ ∝ F^(2/3)
 	c.Valid = a <= validRatio*p.minR
-	return positive(a) && positive(b) && positive(c.PeakPressure) && positive(c.MeanPressure) &&
-		positive(c.Approach) && positive(c.Stiffness)
+	return normal(a) && normal(b) && normal(d1) && normal(d2) && normal(d3) &&
+		normal(c.PeakPressure) && normal(c.MeanPressure) && normal(c.Approach) && normal(c.Stiffness)
 }
 
-// positive reports whether x is positive and finite.
-func positive(x float64) bool { return x > 0 && x <= math.MaxFloat64 }
+// minNormal is the smallest normal float64, 2⁻¹⁰²² ≈ 2.2e-308. Below it a
+// result keeps fewer than 53 significant bits.
+const minNormal = 0x1p-1022
+
+// normal reports whether x is a positive normal float64: finite and at
+// least minNormal.
+func normal(x float64) bool { return x >= minNormal && x <= math.MaxFloat64 }

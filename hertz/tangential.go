@@ -34,7 +34,8 @@ import "math"
 //
 // A contact with zero load has zero stiffness at q = 0. Errors are
 // *InputError wrapping ErrNonFinite (mu or q, or a field of c, NaN or
-// infinite) or ErrRange (mu ≤ 0, |q| ≥ μN: gross sliding, or a Contact
+// infinite) or ErrRange (mu ≤ 0, μN underflowing, |q| ≥ μN: gross
+// sliding, a stiffness outside the normal float64 range, or a Contact
 // whose fields are not those of a solution).
 func (c Contact) TangentialStiffness(mu, q float64) (float64, error) {
 	if err := c.check(); err != nil {
@@ -53,6 +54,9 @@ func (c Contact) TangentialStiffness(mu, q float64) (float64, error) {
 		return 0, nil
 	}
 	limit := mu * c.Load
+	if limit < minNormal {
+		return 0, rangeErr("mu", "sliding limit μN = %g × %g N underflows float64", mu, c.Load)
+	}
 	if !(math.Abs(q) < limit) {
 		return 0, rangeErr("q", "|q| = %g N reaches the sliding limit μN = %g N (gross sliding)", math.Abs(q), limit)
 	}
@@ -60,12 +64,15 @@ func (c Contact) TangentialStiffness(mu, q float64) (float64, error) {
 	k0 := 8 * c.GStar * a
 	if b < a {
 		kp := b / a
+		if kp < minNormal {
+			return 0, rangeErr("c.SemiMinor", "axis ratio b/a = %g / %g underflows float64", b, a)
+		}
 		K, _ := agm(kp, (1-kp)*(1+kp))
 		k0 = 4 * math.Pi * c.GStar * a / K
 	}
 	k := k0 * math.Cbrt(1-math.Abs(q)/limit)
-	if !finite(k) {
-		return 0, rangeErr("c.GStar", "stiffness outside the floating-point range (G* = %g Pa, a = %g m)", c.GStar, a)
+	if !normal(k) {
+		return 0, rangeErr("c.GStar", "stiffness %g N/m outside the normal floating-point range (G* = %g Pa, a = %g m)", k, c.GStar, a)
 	}
 	return k, nil
 }
@@ -73,7 +80,8 @@ func (c Contact) TangentialStiffness(mu, q float64) (float64, error) {
 // SlidingLimit returns the tangential load μN, in newtons, at which the
 // contact slides as a whole, for the coefficient of friction mu.
 // Errors are *InputError wrapping ErrNonFinite when mu or c.Load is NaN or
-// infinite, ErrRange when either is negative.
+// infinite, ErrRange when either is negative or when μN, for positive mu
+// and load, would overflow or underflow the normal float64 range.
 func (c Contact) SlidingLimit(mu float64) (float64, error) {
 	if !finite(mu) {
 		return 0, nonFiniteErr("mu", "coefficient of friction must be finite and ≥ 0, got %g", mu)
@@ -84,7 +92,11 @@ func (c Contact) SlidingLimit(mu float64) (float64, error) {
 	if err := checkLoad(c.Load); err != nil {
 		return 0, err
 	}
-	return mu * c.Load, nil
+	l := mu * c.Load
+	if mu > 0 && c.Load > 0 && !normal(l) {
+		return 0, rangeErr("mu", "sliding limit μN = %g × %g N outside the normal floating-point range", mu, c.Load)
+	}
+	return l, nil
 }
 
 // check reports, as an error, a Contact whose fields used by the
