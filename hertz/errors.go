@@ -9,12 +9,12 @@ import (
 // Sentinel errors wrapped by every *InputError this package returns; test
 // for them with errors.Is.
 //
-// ErrNonFinite, ErrRange and ErrDegenerate are the meanings every package
-// of the module shares: they are the same values as screw's and
-// kinematic's sentinels of those names, so a caller may test with either
-// package's. ErrLineContact and ErrGeometry refine ErrDegenerate:
-// errors.Is(err, ErrDegenerate) is true for an error that wraps either of
-// them.
+// ErrNonFinite, ErrRange and ErrDegenerate are the meanings the module's
+// packages share: the values of the module's internal/errs, which each
+// package re-exports under these names, so that an error translated into
+// another package's vocabulary still matches. ErrLineContact and
+// ErrGeometry refine ErrDegenerate: errors.Is(err, ErrDegenerate) is true
+// for an error that wraps either of them.
 var (
 	// ErrNonFinite reports a NaN anywhere, or an infinity where only a
 	// finite number is accepted: an angle, Poisson's ratio, an expansion
