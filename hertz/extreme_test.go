@@ -163,6 +163,27 @@ func TestExtremeInputErrors(t *testing.T) {
 		{"μN overflows", value(heavy.SlidingLimit, 1e300), "mu", ErrRange},
 		{"tangential, μN underflows", func() (bool, error) { k, err := light.TangentialStiffness(1e-300, 0); return k == 0, err }, "mu", ErrRange},
 	}
+	// R = 1e300 m, E* = E/(2(1 − 0.09)) = 7.5e-9 Pa, F = 1.157e-305 N:
+	// a³ = 3FR/(4E*) = 1157 m³, a ≈ 10.5 m, δ = a²/R ≈ 1.1e-298 m,
+	// p0 = 3F/(2πa²) ≈ 5e-308 Pa and the mean pressure 2p0/3 are normal
+	// float64 numbers; the largest shear stress, about 0.31 p0 (Johnson
+	// 1985, §3.4), is not.
+	soft := Material{E: 1.365e-8, Nu: 0.3}
+	big := func() (bool, error) {
+		c, err := Solve(Sphere(1e300, soft), Flat(soft), 1.157e-305)
+		return c == Contact{}, err
+	}
+	if q, err := NewPair(Sphere(1e300, soft), Flat(soft)); err != nil {
+		t.Error(err)
+	} else if c, err := q.Contact(1.157e-305); err != nil || c.PeakPressure > 7e-308 || c.PeakPressure < 3.4e-308 {
+		t.Errorf("Pair.Contact with p0 near the smallest normal float64: %+v, %v", c, err)
+	}
+	cases = append(cases, struct {
+		name  string
+		call  func() (zero bool, err error)
+		field string
+		kind  error
+	}{"stresses underflow", big, "load", ErrRange})
 	for _, c := range cases {
 		zero, err := c.call()
 		var ie *InputError
