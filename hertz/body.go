@@ -50,3 +50,57 @@ func Groove(r, axis float64, m Material) Body {
 func Toroid(r1, r2, angle float64, m Material) Body {
 	return Body{R1: r1, R2: r2, Angle: angle, Material: m}
 }
+
+// curvature returns 1/r for a valid radius r: 0 for ±Inf (a straight
+// surface). The field name is name + "." + field, built only on error so
+// that NewPair does not allocate.
+func curvature(r float64, name, field string) (float64, error) {
+	k := 1 / r
+	if k-k == 0 { // k finite: r is not NaN, not 0 and not below 1/MaxFloat64
+		if k == 0 {
+			return 0, nil // ±Inf radius; +0, whatever the sign of the infinity
+		}
+		return k, nil
+	}
+	switch {
+	case math.IsNaN(r):
+		return 0, nonFiniteErr(name+"."+field, "radius is NaN")
+	case r == 0:
+		return 0, rangeErr(name+"."+field, "radius must be nonzero (±Inf for a straight surface), got 0")
+	}
+	return 0, rangeErr(name+"."+field, "radius %g is too small for floating point", r)
+}
+
+// bodyTerms validates a body and returns the mean curvature and the
+// components of its curvature difference along 2θ.
+func bodyTerms(b *Body, name string) (mean, dc, ds float64, err error) {
+	k1, err := curvature(b.R1, name, "R1")
+	if err != nil {
+		return 0, 0, 0, err
+	}
+	k2 := k1 // a sphere, a socket or a flat
+	if b.R2 != b.R1 {
+		if k2, err = curvature(b.R2, name, "R2"); err != nil {
+			return 0, 0, 0, err
+		}
+	}
+	if b.Angle-b.Angle != 0 { // NaN or ±Inf
+		return 0, 0, 0, nonFiniteErr(name+".Angle", "angle must be finite, got %g", b.Angle)
+	}
+	if err := checkMaterial(&b.Material, name); err != nil {
+		return 0, 0, 0, err
+	}
+	d := (k1 - k2) / 2
+	if d == 0 {
+		return k1, 0, 0, nil // sphere, socket or flat: no direction
+	}
+	var s, c float64
+	if math.Abs(b.Angle) <= math.MaxFloat64/2 {
+		s, c = math.Sincos(2 * b.Angle)
+	} else {
+		// 2θ would overflow: the double-angle formulas on θ itself.
+		s1, c1 := math.Sincos(b.Angle)
+		s, c = 2*s1*c1, (c1-s1)*(c1+s1)
+	}
+	return (k1 + k2) / 2, d * c, d * s, nil
+}

@@ -25,7 +25,7 @@
 // Cylinder (convex, with its axis angle), Socket (concave spherical seat),
 // Groove (concave cylindrical groove, one flank of a gothic arch) and Toroid
 // (any signed pair, a saddle when the signs differ). They take magnitudes
-// and set the signs; they do not validate, Solve does.
+// and set the signs; they do not validate, Solve and NewPair do.
 //
 // Johnson's half relative curvatures A ≤ B (Johnson, Contact Mechanics,
 // 1985, §4.1) are the principal values of half the sum of the two bodies'
@@ -51,11 +51,31 @@
 // Contact methods TangentialStiffness and SlidingLimit give Mindlin's
 // tangential stiffness and the sliding limit μN.
 //
+// # Many loads on the same bodies
+//
+// Everything but the load is solved once by NewPair, which validates the
+// bodies and returns a Pair: the relative curvatures, the effective moduli
+// and the shape of the contact ellipse. Pair.Contact then gives the contact
+// at any load for a cube root and a few divisions, without the subsurface
+// stresses (Stress is left zero), and allocates nothing; Pair.Solve adds the
+// stresses; Pair.LoadForPressure and Pair.LoadForApproach invert them. Loads,
+// stiffness and tolerance studies that evaluate each contact many times
+// make the Pair once:
+//
+//	p, err := hertz.NewPair(ball, flank) // validates once
+//	...
+//	c, err := p.Contact(load)            // every load
+//
+// The package-level Solve, LoadForPressure and LoadForApproach are NewPair
+// followed by the Pair method, and Pair.Contact returns exactly the fields
+// Solve returns but Stress.
+//
 // # Zero values
 //
 // A zero load gives a Contact of zero size: a = b = 0, zero pressures,
 // approach, stiffness and stresses, with MajorAngle, A, B, EStar and GStar
-// set. A Material with E = +Inf is rigid (it adds nothing to 1/E* and 1/G*);
+// set. The zero Pair is not a pair of bodies: its methods return an error
+// wrapping ErrDegenerate. A Material with E = +Inf is rigid (it adds nothing to 1/E* and 1/G*);
 // the stresses reported for a rigid body are those of an elastic half-space
 // with its ν under the same pressure. The zero Material is not valid (E = 0).
 //
@@ -74,25 +94,49 @@
 // relative error is about 1e-16·B/A, which no solver can remove. Solve
 // accepts B/A up to about 1.4e14 (see ErrLineContact).
 //
-// The subsurface maxima come from exact expressions of the axis stresses
-// in Carlson's integral R_D, maximized in depth by a bracketed Halley
-// iteration on exact derivatives. The tests compare them with the closed
-// forms for a circle (1e-12) and a line contact, with a direct quadrature
-// of Boussinesq's solution (1e-9, the quadrature's own accuracy), and with
-// dense sampling in depth over −0.95 ≤ ν ≤ 0.5 and 1 ≤ B/A ≤ 1e10; the
-// maxima are correct to about 1e-12 relative and their depths to about
-// 1e-9 of b.
+// The subsurface maxima of an ellipse come from exact expressions of the
+// axis stresses in Carlson's integral R_D, maximized in depth by a
+// bracketed Halley iteration on exact derivatives; those of a circle
+// (k' = b/a = 1) from Johnson's closed form of the axis stresses (1985,
+// eq. 3.45) by the same iteration, without elliptic integrals. The tests
+// compare them with the closed forms for a circle (1e-12) and a line
+// contact, with a direct quadrature of Boussinesq's solution (1e-9, the
+// quadrature's own accuracy), and with dense sampling in depth over
+// −0.95 ≤ ν ≤ 0.5 and 1 ≤ B/A ≤ 1e10; the maxima are correct to about
+// 1e-12 relative and their depths to about 1e-9 of b (the circle's to
+// rounding).
+//
+// These bounds hold over the whole float64 range because no result is
+// returned that has passed through a subnormal number: a load below
+// 2.2e-308 N, or a contact, stress or inverse load that would overflow or
+// underflow the normal range, gives ErrRange instead.
 //
 // # Errors
 //
 // Invalid input gives an *InputError naming the field ("b1.R2",
-// "b2.Material.Nu", "load", "p0", ...) and wrapping one of ErrRange,
-// ErrLineContact or ErrGeometry; errors.Is and errors.As work. No function
-// panics on its arguments or returns NaN or Inf without an error.
+// "b2.Material.Nu", "load", "p0", "b1, b2", ...; the forms are listed on
+// InputError) and wrapping one of the module's shared sentinels:
+//
+//   - ErrNonFinite: a NaN, or an infinity where a finite number is needed
+//     (radii and Young's modulus accept +Inf, radii also −Inf);
+//   - ErrRange: a number outside its domain (including a subnormal load),
+//     or a result that would overflow or underflow the normal float64
+//     range;
+//   - ErrDegenerate: no Hertz point contact, refined as ErrLineContact
+//     (the bodies touch along a line) or ErrGeometry (conforming or
+//     separating surfaces, both bodies rigid), both of which errors.Is
+//     also reports as ErrDegenerate; and a Pair method called on the zero
+//     Pair (field "p").
+//
+// ErrNonFinite, ErrRange and ErrDegenerate are the module's shared values
+// (internal/errs), re-exported under these names. errors.Is and errors.As
+// work. No function panics on its arguments or returns NaN or Inf
+// without an error.
 //
 // # Aliasing
 //
-// Input arguments are never modified. Materials returns a fresh slice.
+// Input arguments are never modified. Materials returns a fresh slice. A
+// Pair holds no reference to the bodies it was made from.
 //
 // # References
 //

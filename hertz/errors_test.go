@@ -5,6 +5,8 @@ import (
 	"math"
 	"strings"
 	"testing"
+
+	"github.com/sixfold-dev/sixfold/internal/errs"
 )
 
 // TestSolveErrors checks that every invalid input gives an *InputError
@@ -22,23 +24,26 @@ func TestSolveErrors(t *testing.T) {
 		target error
 		text   string
 	}{
-		{"NaN radius", Body{R1: nan, R2: 0.005, Material: s}, flat, 1, "b1.R1", ErrRange, "NaN"},
+		{"NaN radius", Body{R1: nan, R2: 0.005, Material: s}, flat, 1, "b1.R1", ErrNonFinite, "NaN"},
 		{"zero radius", ball, Body{R1: inf, R2: 0, Material: s}, 1, "b2.R2", ErrRange, "nonzero"},
 		{"denormal radius", Body{R1: 1e-320, R2: 0.005, Material: s}, flat, 1, "b1.R1", ErrRange, "too small"},
-		{"NaN angle", Cylinder(0.005, nan, s), Cylinder(0.005, 0, s), 1, "b1.Angle", ErrRange, "finite"},
-		{"Inf angle", ball, Groove(0.006, inf, s), 1, "b2.Angle", ErrRange, "finite"},
+		{"NaN angle", Cylinder(0.005, nan, s), Cylinder(0.005, 0, s), 1, "b1.Angle", ErrNonFinite, "finite"},
+		{"Inf angle", ball, Groove(0.006, inf, s), 1, "b2.Angle", ErrNonFinite, "finite"},
 		{"E zero", withMat(ball, func(m *Material) { m.E = 0 }), flat, 1, "b1.Material.E", ErrRange, "positive"},
 		{"E negative", ball, withMat(flat, func(m *Material) { m.E = -1 }), 1, "b2.Material.E", ErrRange, "positive"},
-		{"E NaN", withMat(ball, func(m *Material) { m.E = nan }), flat, 1, "b1.Material.E", ErrRange, "positive"},
+		{"E NaN", withMat(ball, func(m *Material) { m.E = nan }), flat, 1, "b1.Material.E", ErrNonFinite, "NaN"},
 		{"E −Inf", withMat(ball, func(m *Material) { m.E = -inf }), flat, 1, "b1.Material.E", ErrRange, "positive"},
 		{"ν = −1", withMat(ball, func(m *Material) { m.Nu = -1 }), flat, 1, "b1.Material.Nu", ErrRange, "(-1, 0.5]"},
 		{"ν > 0.5", ball, withMat(flat, func(m *Material) { m.Nu = 0.5000001 }), 1, "b2.Material.Nu", ErrRange, "(-1, 0.5]"},
-		{"ν NaN", ball, withMat(flat, func(m *Material) { m.Nu = nan }), 1, "b2.Material.Nu", ErrRange, "(-1, 0.5]"},
-		{"α Inf", withMat(ball, func(m *Material) { m.Alpha = inf }), flat, 1, "b1.Material.Alpha", ErrRange, "finite"},
+		{"ν NaN", ball, withMat(flat, func(m *Material) { m.Nu = nan }), 1, "b2.Material.Nu", ErrNonFinite, "(-1, 0.5]"},
+		{"ν −Inf", ball, withMat(flat, func(m *Material) { m.Nu = -inf }), 1, "b2.Material.Nu", ErrNonFinite, "finite"},
+		{"α Inf", withMat(ball, func(m *Material) { m.Alpha = inf }), flat, 1, "b1.Material.Alpha", ErrNonFinite, "finite"},
+		{"allowable NaN", ball, withMat(flat, func(m *Material) { m.Allowable = nan }), 1, "b2.Material.Allowable", ErrNonFinite, "finite"},
 		{"allowable negative", ball, withMat(flat, func(m *Material) { m.Allowable = -1 }), 1, "b2.Material.Allowable", ErrRange, "≥ 0"},
 		{"negative load", ball, flat, -1, "load", ErrRange, "≥ 0"},
-		{"NaN load", ball, flat, nan, "load", ErrRange, "≥ 0"},
-		{"Inf load", ball, flat, inf, "load", ErrRange, "≥ 0"},
+		{"NaN load", ball, flat, nan, "load", ErrNonFinite, "finite"},
+		{"Inf load", ball, flat, inf, "load", ErrNonFinite, "finite"},
+		{"−Inf load", ball, flat, -inf, "load", ErrNonFinite, "finite"},
 		{"huge load", Sphere(1e300, s), Flat(s), 1e300, "load", ErrRange, "floating-point"},
 		{"parallel cylinders", Cylinder(0.005, 0.3, s), Cylinder(0.008, 0.3+math.Pi, s), 1, "b1, b2", ErrLineContact, "line"},
 		{"cylinder on flat", Cylinder(0.005, 1, s), flat, 1, "b1, b2", ErrLineContact, "line"},
@@ -84,15 +89,54 @@ func TestSolveErrors(t *testing.T) {
 // TestInverseErrors checks the inverse problems' own fields.
 func TestInverseErrors(t *testing.T) {
 	b1, b2 := Sphere(0.005, Steel52100), Flat(Steel52100)
-	for _, v := range []float64{-1, math.NaN(), math.Inf(1)} {
-		if _, err := LoadForPressure(b1, b2, v); !errors.Is(err, ErrRange) || !strings.Contains(err.Error(), "p0") {
-			t.Errorf("LoadForPressure(%v): %v", v, err)
+	for _, c := range []struct {
+		v    float64
+		kind error
+	}{{-1, ErrRange}, {math.NaN(), ErrNonFinite}, {math.Inf(1), ErrNonFinite}, {math.Inf(-1), ErrNonFinite}} {
+		if _, err := LoadForPressure(b1, b2, c.v); !errors.Is(err, c.kind) || !strings.Contains(err.Error(), "p0") {
+			t.Errorf("LoadForPressure(%v): %v, want %v", c.v, err, c.kind)
 		}
-		if _, err := LoadForApproach(b1, b2, v); !errors.Is(err, ErrRange) || !strings.Contains(err.Error(), "delta") {
-			t.Errorf("LoadForApproach(%v): %v", v, err)
+		if _, err := LoadForApproach(b1, b2, c.v); !errors.Is(err, c.kind) || !strings.Contains(err.Error(), "delta") {
+			t.Errorf("LoadForApproach(%v): %v, want %v", c.v, err, c.kind)
 		}
 	}
 	if _, err := LoadForPressure(Sphere(1e-300, Steel52100), Flat(Steel52100), 1e300); !errors.Is(err, ErrRange) {
 		t.Errorf("LoadForPressure overflow: %v", err)
+	}
+}
+
+// TestSentinels checks the error vocabulary: the shared meanings are the
+// module's values (internal/errs), the two refined kinds are found by
+// errors.Is both as themselves and as ErrDegenerate, and no sentinel
+// matches an unrelated one.
+func TestSentinels(t *testing.T) {
+	if ErrNonFinite != errs.NonFinite || ErrRange != errs.Range || ErrDegenerate != errs.Degenerate {
+		t.Fatal("ErrNonFinite, ErrRange, ErrDegenerate are not the module's shared sentinels")
+	}
+	s := Steel52100
+	_, line := Solve(Cylinder(0.005, 0, s), Flat(s), 1)
+	_, geom := Solve(Flat(s), Flat(s), 1)
+	_, nan := Solve(Sphere(math.NaN(), s), Flat(s), 1)
+	_, neg := Solve(Sphere(0.005, s), Flat(s), -1)
+	for _, c := range []struct {
+		name     string
+		err      error
+		is, isnt []error
+	}{
+		{"line contact", line, []error{ErrLineContact, ErrDegenerate}, []error{ErrGeometry, ErrRange, ErrNonFinite}},
+		{"flat on flat", geom, []error{ErrGeometry, ErrDegenerate}, []error{ErrLineContact, ErrRange, ErrNonFinite}},
+		{"NaN radius", nan, []error{ErrNonFinite}, []error{ErrRange, ErrDegenerate, ErrLineContact, ErrGeometry}},
+		{"negative load", neg, []error{ErrRange}, []error{ErrNonFinite, ErrDegenerate, ErrLineContact, ErrGeometry}},
+	} {
+		for _, target := range c.is {
+			if !errors.Is(c.err, target) {
+				t.Errorf("%s: %v does not match %v", c.name, c.err, target)
+			}
+		}
+		for _, target := range c.isnt {
+			if errors.Is(c.err, target) {
+				t.Errorf("%s: %v matches %v", c.name, c.err, target)
+			}
+		}
 	}
 }

@@ -83,3 +83,30 @@ func ExampleLoadForPressure() {
 	// Output:
 	// 733 N
 }
+
+// A stiffness study sweeps the preload on one vee flank: the bodies are
+// validated and the contact shape solved once by NewPair, then each load
+// costs one Pair.Contact. (The numbers agree with Hertz's closed forms for
+// a ball on a flat, Johnson 1985, §4.2: a³ = 3FR/(4E*), δ = a²/R,
+// k = 3F/(2δ), evaluated independently with E* = 111.3 GPa.)
+func ExampleNewPair() {
+	p, err := hertz.NewPair(hertz.Sphere(0.005, hertz.Steel52100), hertz.Flat(hertz.Steel440C))
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	for _, load := range []float64{5, 10, 20, 40} {
+		c, err := p.Contact(load)
+		if err != nil {
+			fmt.Println(err)
+			return
+		}
+		fmt.Printf("%2.0f N: a %6.2f µm, δ %.4f µm, k %5.2f N/µm, p0 %4.0f MPa\n",
+			load, c.SemiMajor*1e6, c.Approach*1e6, c.Stiffness/1e6, c.PeakPressure/1e6)
+	}
+	// Output:
+	//  5 N: a  55.23 µm, δ 0.6100 µm, k 12.30 N/µm, p0  783 MPa
+	// 10 N: a  69.58 µm, δ 0.9683 µm, k 15.49 N/µm, p0  986 MPa
+	// 20 N: a  87.67 µm, δ 1.5370 µm, k 19.52 N/µm, p0 1243 MPa
+	// 40 N: a 110.45 µm, δ 2.4399 µm, k 24.59 N/µm, p0 1566 MPa
+}

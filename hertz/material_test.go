@@ -1,6 +1,9 @@
 package hertz
 
-import "testing"
+import (
+	"strings"
+	"testing"
+)
 
 // TestMaterials checks the reference table: every entry named, sourced and
 // usable by Solve; ISO 76:2006's 4200 MPa for the bearing steel; and that
@@ -13,6 +16,11 @@ func TestMaterials(t *testing.T) {
 	for _, m := range ms {
 		if m.Name == "" || m.Source == "" {
 			t.Errorf("%+v: name or source missing", m)
+		}
+		// Every entry says where its allowable comes from, or why it
+		// has none.
+		if !strings.Contains(m.Source, "Allowable:") {
+			t.Errorf("%s: Source %q does not account for Allowable", m.Name, m.Source)
 		}
 		if _, err := Solve(Sphere(0.005, m), Flat(m), 10); err != nil {
 			t.Errorf("%s: %v", m.Name, err)

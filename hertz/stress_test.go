@@ -305,3 +305,35 @@ func TestStressPerBody(t *testing.T) {
 		}
 	}
 }
+
+// TestCircleShear checks the closed-form circular maximum over the whole
+// domain of ν, to its ends: against the maximum of Johnson's eq. 3.45
+// (circleAxis) found by golden-section search (the depth of a flat maximum
+// only to about 1e-8 that way); against the package's general elliptical
+// search run at a/b = 1, which uses Carlson's R_D instead of the closed
+// form (maxima to 1e-12, depths to 1e-9 as documented); and, as ν → −1,
+// against the limit ζ → (1 + ν)π/6 that follows from
+// f′(ζ) ≈ [(1 + ν)(π/2 − 2ζ) − 3ζ]/2 for small ζ.
+func TestCircleShear(t *testing.T) {
+	circle := solveShape(0)
+	for _, nu := range []float64{-1 + 1e-9, -0.9999999, -0.999, -0.99, -0.9, -0.5, -0.1, 0, 0.1, 0.27, 0.3, 0.42, 0.5} {
+		tau, z := circleShear(nu)
+		want, wz := goldenMax(func(z float64) float64 {
+			sr, sz := circleAxis(z, nu)
+			return (sr - sz) / 2
+		}, 0, 3)
+		if relDiff(tau, want) > 1e-14 || math.Abs(z-wz) > 1e-7 {
+			t.Errorf("ν=%g: τmax = %.16g p0 at %.12g a; eq. 3.45 maximum %.16g at %.12g", nu, tau, z, want, wz)
+		}
+		d := newDepthSearch(&circle)
+		et, ez := d.maximize(objShearY, nu, z)
+		if relDiff(tau, et) > 1e-12 || math.Abs(z-ez) > 1e-9 {
+			t.Errorf("ν=%g: closed form %.16g at %.12g; elliptical search at a/b = 1 %.16g at %.12g", nu, tau, z, et, ez)
+		}
+		if s := 1 + nu; s < 1e-5 {
+			if lim := s * math.Pi / 6; relDiff(z, lim) > 2*s {
+				t.Errorf("ν=%g: depth %.12g a, limit (1+ν)π/6 = %.12g", nu, z, lim)
+			}
+		}
+	}
+}

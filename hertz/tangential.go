@@ -33,23 +33,30 @@ import "math"
 // dissimilar materials.
 //
 // A contact with zero load has zero stiffness at q = 0. Errors are
-// *InputError wrapping ErrRange: mu not finite and > 0, q not finite,
-// |q| ≥ μN (gross sliding), or a Contact whose fields are not those of a
-// solution.
+// *InputError wrapping ErrNonFinite (mu or q, or a field of c, NaN or
+// infinite) or ErrRange (mu ≤ 0, μN underflowing, |q| ≥ μN: gross
+// sliding, a stiffness outside the normal float64 range, or a Contact
+// whose fields are not those of a solution).
 func (c Contact) TangentialStiffness(mu, q float64) (float64, error) {
 	if err := c.check(); err != nil {
 		return 0, err
 	}
-	if !finite(mu) || !(mu > 0) {
+	if !finite(mu) {
+		return 0, nonFiniteErr("mu", "coefficient of friction must be finite and > 0, got %g", mu)
+	}
+	if !(mu > 0) {
 		return 0, rangeErr("mu", "coefficient of friction must be finite and > 0, got %g", mu)
 	}
 	if !finite(q) {
-		return 0, rangeErr("q", "tangential load must be finite, got %g", q)
+		return 0, nonFiniteErr("q", "tangential load must be finite, got %g", q)
 	}
 	if c.Load == 0 && q == 0 {
 		return 0, nil
 	}
 	limit := mu * c.Load
+	if limit < minNormal {
+		return 0, rangeErr("mu", "sliding limit μN = %g × %g N underflows float64", mu, c.Load)
+	}
 	if !(math.Abs(q) < limit) {
 		return 0, rangeErr("q", "|q| = %g N reaches the sliding limit μN = %g N (gross sliding)", math.Abs(q), limit)
 	}
@@ -57,41 +64,72 @@ func (c Contact) TangentialStiffness(mu, q float64) (float64, error) {
 	k0 := 8 * c.GStar * a
 	if b < a {
 		kp := b / a
+		if kp < minNormal {
+			return 0, rangeErr("c.SemiMinor", "axis ratio b/a = %g / %g underflows float64", b, a)
+		}
 		K, _ := agm(kp, (1-kp)*(1+kp))
 		k0 = 4 * math.Pi * c.GStar * a / K
 	}
 	k := k0 * math.Cbrt(1-math.Abs(q)/limit)
-	if !finite(k) {
-		return 0, rangeErr("c.GStar", "stiffness outside the floating-point range (G* = %g Pa, a = %g m)", c.GStar, a)
+	if !normal(k) {
+		return 0, rangeErr("c.GStar", "stiffness %g N/m outside the normal floating-point range (G* = %g Pa, a = %g m)", k, c.GStar, a)
 	}
 	return k, nil
 }
 
 // SlidingLimit returns the tangential load μN, in newtons, at which the
 // contact slides as a whole, for the coefficient of friction mu.
-// Errors are *InputError wrapping ErrRange when mu is not finite and ≥ 0.
+// Errors are *InputError wrapping ErrNonFinite when mu or c.Load is NaN or
+// infinite, ErrRange when either is negative or when μN, for positive mu
+// and load, would overflow or underflow the normal float64 range.
 func (c Contact) SlidingLimit(mu float64) (float64, error) {
-	if !finite(mu) || mu < 0 {
+	if !finite(mu) {
+		return 0, nonFiniteErr("mu", "coefficient of friction must be finite and ≥ 0, got %g", mu)
+	}
+	if mu < 0 {
 		return 0, rangeErr("mu", "coefficient of friction must be finite and ≥ 0, got %g", mu)
 	}
-	if !finite(c.Load) || c.Load < 0 {
-		return 0, rangeErr("c.Load", "normal load must be finite and ≥ 0, got %g", c.Load)
+	if err := checkLoad(c.Load); err != nil {
+		return 0, err
 	}
-	return mu * c.Load, nil
+	l := mu * c.Load
+	if mu > 0 && c.Load > 0 && !normal(l) {
+		return 0, rangeErr("mu", "sliding limit μN = %g × %g N outside the normal floating-point range", mu, c.Load)
+	}
+	return l, nil
 }
 
 // check reports, as an error, a Contact whose fields used by the
 // tangential methods are not those of a solution.
 func (c *Contact) check() error {
+	if err := checkLoad(c.Load); err != nil {
+		return err
+	}
 	switch {
-	case !finite(c.Load) || c.Load < 0:
-		return rangeErr("c.Load", "normal load must be finite and ≥ 0, got %g", c.Load)
-	case !finite(c.SemiMajor) || c.SemiMajor < 0 || (c.Load > 0 && c.SemiMajor == 0):
+	case !finite(c.SemiMajor):
+		return nonFiniteErr("c.SemiMajor", "semi-major axis must be finite and > 0 under load, got %g", c.SemiMajor)
+	case c.SemiMajor < 0 || (c.Load > 0 && c.SemiMajor == 0):
 		return rangeErr("c.SemiMajor", "semi-major axis must be finite and > 0 under load, got %g", c.SemiMajor)
-	case !finite(c.SemiMinor) || c.SemiMinor < 0 || c.SemiMinor > c.SemiMajor || (c.Load > 0 && c.SemiMinor == 0):
+	case !finite(c.SemiMinor):
+		return nonFiniteErr("c.SemiMinor", "semi-minor axis must be finite, > 0 under load and ≤ SemiMajor, got %g", c.SemiMinor)
+	case c.SemiMinor < 0 || c.SemiMinor > c.SemiMajor || (c.Load > 0 && c.SemiMinor == 0):
 		return rangeErr("c.SemiMinor", "semi-minor axis must be finite, > 0 under load and ≤ SemiMajor, got %g", c.SemiMinor)
-	case !finite(c.GStar) || !(c.GStar > 0):
+	case !finite(c.GStar):
+		return nonFiniteErr("c.GStar", "effective shear modulus must be finite and > 0, got %g", c.GStar)
+	case !(c.GStar > 0):
 		return rangeErr("c.GStar", "effective shear modulus must be finite and > 0, got %g", c.GStar)
+	}
+	return nil
+}
+
+// checkLoad reports, as an error for the field "c.Load", a Contact's normal
+// load that is not finite and ≥ 0.
+func checkLoad(load float64) error {
+	if !finite(load) {
+		return nonFiniteErr("c.Load", "normal load must be finite and ≥ 0, got %g", load)
+	}
+	if load < 0 {
+		return rangeErr("c.Load", "normal load must be finite and ≥ 0, got %g", load)
 	}
 	return nil
 }

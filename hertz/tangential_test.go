@@ -106,20 +106,29 @@ func TestTangentialErrors(t *testing.T) {
 	for _, x := range []struct {
 		mu, q float64
 		field string
+		kind  error
 	}{
-		{0, 0, "mu"}, {-0.1, 0, "mu"}, {math.NaN(), 0, "mu"}, {math.Inf(1), 0, "mu"},
-		{0.1, math.NaN(), "q"}, {0.1, math.Inf(-1), "q"}, {0.1, 1, "q"}, {0.1, -1.5, "q"},
+		{0, 0, "mu", ErrRange}, {-0.1, 0, "mu", ErrRange}, {math.NaN(), 0, "mu", ErrNonFinite}, {math.Inf(1), 0, "mu", ErrNonFinite},
+		{0.1, math.NaN(), "q", ErrNonFinite}, {0.1, math.Inf(-1), "q", ErrNonFinite}, {0.1, 1, "q", ErrRange}, {0.1, -1.5, "q", ErrRange},
 	} {
 		k, err := c.TangentialStiffness(x.mu, x.q)
 		var ie *InputError
-		if !errors.Is(err, ErrRange) || !errors.As(err, &ie) || ie.Field != x.field || k != 0 {
-			t.Errorf("TangentialStiffness(%v, %v) = %v, %v; want ErrRange on %s", x.mu, x.q, k, err, x.field)
+		if !errors.Is(err, x.kind) || !errors.As(err, &ie) || ie.Field != x.field || k != 0 {
+			t.Errorf("TangentialStiffness(%v, %v) = %v, %v; want %v on %s", x.mu, x.q, k, err, x.kind, x.field)
 		}
 	}
-	for _, mu := range []float64{-1, math.NaN(), math.Inf(1)} {
-		if _, err := c.SlidingLimit(mu); !errors.Is(err, ErrRange) {
-			t.Errorf("SlidingLimit(%v): %v", mu, err)
+	for _, x := range []struct {
+		mu   float64
+		kind error
+	}{{-1, ErrRange}, {math.NaN(), ErrNonFinite}, {math.Inf(1), ErrNonFinite}} {
+		if _, err := c.SlidingLimit(x.mu); !errors.Is(err, x.kind) {
+			t.Errorf("SlidingLimit(%v): %v, want %v", x.mu, err, x.kind)
 		}
+	}
+	nanLoad := c
+	nanLoad.Load = math.NaN()
+	if _, err := nanLoad.TangentialStiffness(0.1, 0); !errors.Is(err, ErrNonFinite) {
+		t.Errorf("NaN c.Load accepted: %v", err)
 	}
 	bad := c
 	bad.SemiMinor = 2 * c.SemiMajor
