@@ -21,32 +21,32 @@ var (
 	// coefficient, an allowable pressure, a load, a pressure, an approach,
 	// a coefficient of friction. Radii (±Inf: straight) and Young's
 	// modulus (+Inf: rigid) accept an infinity.
-	ErrNonFinite = errs.NonFinite
+	ErrNonFinite = errs.ErrNonFinite
 
 	// ErrRange reports a number that is not NaN but outside its domain (a
 	// zero radius, E ≤ 0 or E = −Inf, ν outside (−1, 0.5], a negative load,
 	// pressure or approach, |q| at the sliding limit), or input whose
 	// result would leave the range of normal float64 numbers (overflow,
 	// or underflow below 2.2e-308, where precision is lost).
-	ErrRange = errs.Range
+	ErrRange = errs.ErrRange
 
 	// ErrDegenerate reports input that defines no Hertz solution. It is
 	// wrapped through ErrLineContact or ErrGeometry for a pair of bodies,
 	// and directly for a Pair that was not made by NewPair.
-	ErrDegenerate = errs.Degenerate
+	ErrDegenerate = errs.ErrDegenerate
 
 	// ErrLineContact reports that the relative curvature vanishes in one
 	// direction (parallel cylinders, a cylinder on a flat, a ball in a
 	// groove of its own radius): the bodies touch along a line and Hertz's
 	// point-contact solution does not apply. It refines ErrDegenerate.
-	ErrLineContact error = errs.New("line contact", errs.Degenerate)
+	ErrLineContact error = errs.New("line contact", errs.ErrDegenerate)
 
 	// ErrGeometry reports a pair of bodies without a Hertz point contact:
 	// the surfaces conform or separate in every direction (flat on flat, a
 	// socket of the ball's radius), a concave body is tighter than the
 	// convex one in some direction (a socket smaller than the ball), or
 	// both bodies are rigid. It refines ErrDegenerate.
-	ErrGeometry error = errs.New("no Hertz contact", errs.Degenerate)
+	ErrGeometry error = errs.New("no Hertz contact", errs.ErrDegenerate)
 )
 
 // InputError reports an invalid input: the field that holds it, and why.

@@ -110,7 +110,7 @@ func TestInverseErrors(t *testing.T) {
 // errors.Is both as themselves and as ErrDegenerate, and no sentinel
 // matches an unrelated one.
 func TestSentinels(t *testing.T) {
-	if ErrNonFinite != errs.NonFinite || ErrRange != errs.Range || ErrDegenerate != errs.Degenerate {
+	if ErrNonFinite != errs.ErrNonFinite || ErrRange != errs.ErrRange || ErrDegenerate != errs.ErrDegenerate {
 		t.Fatal("ErrNonFinite, ErrRange, ErrDegenerate are not the module's shared sentinels")
 	}
 	s := Steel52100

@@ -107,10 +107,10 @@ type Model struct {
 
 // surface is the Hertz description of one contact.
 type surface struct {
-	b1, b2 hertz.Body
-	err    error   // why the contact has no Hertz model, in the caller's terms
-	allow  float64 // the allowable peak pressure, Pa; 0 when none is on file
-	k      float64 // F = k δ^(3/2), N/m^(3/2)
+	pair  hertz.Pair // the two bodies, prepared
+	err   error      // why the contact has no Hertz model, in the caller's terms
+	allow float64    // the allowable peak pressure, Pa; 0 when none is on file
+	k     float64    // F = k δ^(3/2), N/m^(3/2)
 }
 
 // preloadLine is one preload element about origin.
@@ -174,7 +174,7 @@ func NewModel(cs []Contact, preloads []Preload, payload Payload) (*Model, error)
 const refDepth = 1e-6
 
 func newSurface(c *Contact, i int) surface {
-	s := surface{b1: c.Moving, b2: c.Base}
+	var s surface
 	moving, base := indexed("cs", i)+".Moving", indexed("cs", i)+".Base"
 	if c.Moving == (hertz.Body{}) || c.Base == (hertz.Body{}) {
 		s.err = &InputError{Field: moving + ", " + base, Err: fmt.Errorf(
@@ -186,7 +186,11 @@ func newSurface(c *Contact, i int) surface {
 		r = 1
 	}
 	d := refDepth * r
-	f, err := hertz.LoadForApproach(c.Moving, c.Base, d)
+	pair, err := hertz.NewPair(c.Moving, c.Base)
+	var f float64
+	if err == nil {
+		f, err = pair.LoadForApproach(d)
+	}
 	if err != nil {
 		s.err = fromHertz(err, moving, base, nil)
 		var ie *InputError
@@ -197,6 +201,7 @@ func newSurface(c *Contact, i int) surface {
 		}
 		return s
 	}
+	s.pair = pair
 	s.k = f / (d * math.Sqrt(d))
 	a1, a2 := c.Moving.Material.Allowable, c.Base.Material.Allowable
 	switch {
@@ -419,7 +424,7 @@ func (m *Model) hertzAt(i int, f float64, cl *ContactLoad) error {
 	if s.err != nil {
 		return s.err
 	}
-	h, err := hertz.Solve(s.b1, s.b2, f)
+	h, err := s.pair.Solve(f)
 	if err != nil {
 		return fromHertz(err, indexed("cs", i)+".Moving", indexed("cs", i)+".Base", map[string]string{"load": indexed("cs", i) + " force"})
 	}

@@ -6,7 +6,6 @@ import (
 
 	"gonum.org/v1/gonum/spatial/r3"
 
-	"github.com/sixfold-dev/sixfold/hertz"
 	"github.com/sixfold-dev/sixfold/internal/linalg"
 	"github.com/sixfold-dev/sixfold/screw"
 )
@@ -224,7 +223,7 @@ func newScorer(c Coupling, s Scenario) (*scorer, error) {
 		}
 		sc.k[i] = sf.k
 		if sf.allow > 0 {
-			f, err := hertz.LoadForPressure(sf.b1, sf.b2, sf.allow)
+			f, err := sf.pair.LoadForPressure(sf.allow)
 			if err != nil {
 				return nil, fromHertz(err, indexed("cs", i)+".Moving", indexed("cs", i)+".Base", nil)
 			}

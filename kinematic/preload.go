@@ -8,7 +8,6 @@ import (
 	"gonum.org/v1/gonum/mat"
 	"gonum.org/v1/gonum/optimize/convex/lp"
 
-	"github.com/sixfold-dev/sixfold/hertz"
 	"github.com/sixfold-dev/sixfold/internal/linalg"
 )
 
@@ -148,7 +147,7 @@ func (m *Model) SizePreload(cases []LoadCase, minForce float64) (PreloadSizing, 
 		if s.err != nil || s.allow == 0 || sum[i] <= 0 {
 			continue
 		}
-		fa, err := hertz.LoadForPressure(s.b1, s.b2, s.allow)
+		fa, err := s.pair.LoadForPressure(s.allow)
 		if err != nil {
 			return PreloadSizing{}, fromHertz(err, indexed("cs", i)+".Moving", indexed("cs", i)+".Base", nil)
 		}

@@ -6,7 +6,6 @@ import (
 
 	"gonum.org/v1/gonum/spatial/r3"
 
-	"github.com/sixfold-dev/sixfold/hertz"
 	"github.com/sixfold-dev/sixfold/internal/linalg"
 	"github.com/sixfold-dev/sixfold/screw"
 )
@@ -110,7 +109,7 @@ func (m *Model) Stiffness(lc LoadCase, opt *StiffnessOptions) (Stiffness, error)
 		g := scaledWrench(screw.Wrench{F: l.n, M: r3.Cross(l.p, l.n)}, L)
 		addOuter(&st.k, st.Normal[i], &g)
 		if o.Tangential {
-			h, err := hertz.Solve(s.b1, s.b2, f)
+			h, err := s.pair.Contact(f)
 			if err != nil {
 				return Stiffness{}, fromHertz(err, indexed("cs", i)+".Moving", indexed("cs", i)+".Base", nil)
 			}
