@@ -15,6 +15,11 @@ func randVec(rng *rand.Rand) r3.Vec {
 	return r3.Vec{X: 2*rng.Float64() - 1, Y: 2*rng.Float64() - 1, Z: 2*rng.Float64() - 1}
 }
 
+// maxAbs returns the largest magnitude of a component of w.
+func maxAbs(w Wrench) float64 {
+	return max(math.Abs(w.F.X), math.Abs(w.F.Y), math.Abs(w.F.Z), math.Abs(w.M.X), math.Abs(w.M.Y), math.Abs(w.M.Z))
+}
+
 func mustLine(t testing.TB, p, n r3.Vec) Wrench {
 	t.Helper()
 	w, err := Line(p, n)
@@ -430,12 +435,12 @@ func TestAnalyzeErrors(t *testing.T) {
 		field string
 		err   error
 	}{
-		{"nil", nil, "ws", ErrEmpty},
-		{"empty", []Wrench{}, "ws", ErrEmpty},
+		{"nil", nil, "ws", ErrDegenerate},
+		{"empty", []Wrench{}, "ws", ErrDegenerate},
 		{"NaN force", []Wrench{ok, {F: r3.Vec{Y: nan}}}, "ws[1].F", ErrNonFinite},
 		{"Inf moment", []Wrench{{M: r3.Vec{Z: math.Inf(-1)}}}, "ws[0].M", ErrNonFinite},
-		{"zero wrench", []Wrench{ok, {}, ok}, "ws[1]", ErrZero},
-		{"all zero", []Wrench{{}, {}}, "ws[0]", ErrZero},
+		{"zero wrench", []Wrench{ok, {}, ok}, "ws[1]", ErrDegenerate},
+		{"all zero", []Wrench{{}, {}}, "ws[0]", ErrDegenerate},
 		{"line too far", []Wrench{{F: r3.Vec{X: 1e-160}, M: r3.Vec{Y: 1}}, {F: r3.Vec{Y: 1}}}, "ws[0]", ErrRange},
 		{"magnitudes too far apart", []Wrench{{F: r3.Vec{X: 1}}, {F: r3.Vec{Y: 1e200}}}, "ws[1]", ErrRange},
 	} {

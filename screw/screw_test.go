@@ -44,7 +44,7 @@ func TestLineErrors(t *testing.T) {
 		field string
 		err   error
 	}{
-		{"zero direction", r3.Vec{X: 1}, r3.Vec{}, "n", ErrZero},
+		{"zero direction", r3.Vec{X: 1}, r3.Vec{}, "n", ErrDegenerate},
 		{"NaN direction", r3.Vec{}, r3.Vec{X: nan}, "n", ErrNonFinite},
 		{"Inf point", r3.Vec{Y: inf}, r3.Vec{X: 1}, "p", ErrNonFinite},
 		{"moment overflows", r3.Vec{X: 1.5e308, Y: -1.5e308}, r3.Vec{X: 1, Y: 1}, "p", ErrRange},

@@ -153,36 +153,6 @@ func TestComplete(t *testing.T) {
 	}
 }
 
-func TestEchelon(t *testing.T) {
-	// Rows spanning {x : x1 + x2 + x3 = 0} in R³ (in scrambled form) have the
-	// reduced echelon form [1 0 -1; 0 1 -1] (by hand: the unique RREF basis
-	// of that plane).
-	s := 1 / math.Sqrt(2)
-	u := 1 / math.Sqrt(6)
-	b := []float64{
-		s, -s, 0,
-		u, u, -2 * u,
-	}
-	piv := make([]int, 2)
-	Echelon(b, 2, 3, piv, 1e-12)
-	want := []float64{1, 0, -1, 0, 1, -1}
-	for i := range want {
-		if math.Abs(b[i]-want[i]) > 1e-15 {
-			t.Fatalf("b = %v, want %v", b, want)
-		}
-	}
-	if piv[0] != 0 || piv[1] != 1 {
-		t.Errorf("pivots %v, want [0 1]", piv)
-	}
-	// A zero leading column is skipped: rows spanning {x : x1 = 0, x2 = x3}
-	// reduce to [0 1 1].
-	b = []float64{0, s, s}
-	Echelon(b, 1, 3, piv[:1], 1e-12)
-	if b[0] != 0 || math.Abs(b[1]-1) > 1e-15 || math.Abs(b[2]-1) > 1e-15 || piv[0] != 1 {
-		t.Errorf("b = %v, piv %d; want [0 1 1], 1", b, piv[0])
-	}
-}
-
 func TestNorm(t *testing.T) {
 	// Values whose squares overflow or underflow: |(3, 4)|·s = 5·s exactly.
 	for _, s := range []float64{1, 1e300, 1e-300} {

@@ -1,4 +1,4 @@
-package screw
+package constraint
 
 import (
 	"math"
@@ -52,7 +52,7 @@ func TestLeastSquaresPoint(t *testing.T) {
 			}
 			b = r3.Add(b, p)
 		}
-		got := leastSquaresPoint(&s, b, float64(n))
+		got := solve3(&s, b, centreTol*float64(n))
 		var w r3.Vec
 		if spread > 1e-4 {
 			var want mat.VecDense
