@@ -90,12 +90,42 @@ func TestRedundantByHand(t *testing.T) {
 	}
 }
 
+// TestRedundantNearlyDependent: four wrenches along one force direction
+// whose moments differ by 2⁻¹² in relative terms, w0 = w2, w1 and w3 close
+// to w0. The redundancies are exact, Σcᵢwᵢ = 0 to rounding, although a
+// column is nearly dependent on another (a regression: passing over it
+// must not drop its small independent part).
+func TestRedundantNearlyDependent(t *testing.T) {
+	f := r3.Vec{X: 1, Y: 1, Z: 1}
+	ws := []Wrench{{F: f, M: f}, {F: f, M: r3.Vec{X: 1, Y: 1, Z: 65536}}, {F: f, M: f}, {F: f, M: r3.Vec{X: 1, Y: 1, Z: 1 + 0x1p-12}}}
+	r := mustAnalyze(t, ws)
+	if r.Rank != 2 || len(r.Redundant) != 2 {
+		t.Fatalf("rank %d, %d redundancies; want 2 and 2", r.Rank, len(r.Redundant))
+	}
+	for k, c := range r.Redundant {
+		// Relative to the sizes added and to the rounding of taking
+		// moments about Centre, ε·|F|·(|Centre| + Length).
+		var sum Wrench
+		var scale float64
+		arm := r3.Norm(r.Centre) + r.Length
+		for i, w := range ws {
+			sum = Wrench{F: r3.Add(sum.F, r3.Scale(c[i], w.F)), M: r3.Add(sum.M, r3.Scale(c[i], w.M))}
+			scale += math.Abs(c[i]) * (maxAbsW(w) + r3.Norm(w.F)*arm)
+		}
+		if m := maxAbsW(sum); m > 1e-14*scale {
+			t.Errorf("combination %d %v sums to %v (scale %g)", k, c, sum, scale)
+		}
+	}
+}
+
 // TestRedundantAgainstGonum checks the redundancies of larger sets: their
 // number and span against the null space of the 6×n matrix of the
 // wrenches from gonum's mat.SVD (the right singular vectors of the zero
 // singular values), and their form: reduced echelon (each combination has
 // a wrench of its own, its pivot, with weight 0 in every other one, pivots
-// in increasing order), largest weight exactly +1.
+// in increasing order; for these sets, without near-dependencies at the
+// level of pivotTol, the pivot is the first non-zero weight), largest
+// weight exactly +1.
 func TestRedundantAgainstGonum(t *testing.T) {
 	rng := rand.New(rand.NewPCG(81, 83))
 	for _, n := range []int{7, 8, 12, 13, 24, 48, 96} {

@@ -26,16 +26,22 @@ const pivotTol = 1e-6
 // The null space comes from a basis of the column space chosen greedily
 // from the last column to the first: column j joins the basis if its part
 // independent of the columns already chosen (all to its right) exceeds
-// δ = min(pivotTol, σᵣ/(2√n)), and is otherwise expressed in them, which
-// gives the combination with weight 1 on column j and the negated
-// coefficients on those columns. By matroid duality the columns passed
-// over are the pivot columns of the reduced echelon form of the null
-// space, taken in order, and each combination has a column of its own. The
-// threshold always completes a basis of rank columns: if fewer were
-// chosen, every column's independent part would be below δ, so the
-// Frobenius norm of the part of a independent of them would be below
-// √n·δ = σᵣ/2, while it is at least σᵣ. The work is O(n·rank²) besides
-// the output.
+// δ = min(pivotTol, σᵣ/(2√n)). Every other column is then expressed in the
+// basis, which gives the combination with weight 1 on it and the negated
+// coefficients on the basis columns; the columns passed over are the pivot
+// columns of the combinations, each combination has one of its own, and
+// the other combinations have weight 0 there. In exact arithmetic and with
+// δ = 0 they are the pivot columns of the reduced echelon form of the null
+// space (by matroid duality: the complement of the lexicographically last
+// basis of the columns is the lexicographically first basis of the dual),
+// and every column passed over depends on basis columns to its right
+// only. A column passed over for a small but real independent part, as
+// Gauss–Jordan elimination passes over a small pivot, depends on basis
+// columns to its left as well and carries their weights. The threshold
+// always completes a basis of rank columns: if fewer were chosen, every
+// column's independent part would be below δ, so the Frobenius norm of the
+// part of a independent of them would be below √n·δ = σᵣ/2, while it is at
+// least σᵣ. The work is O(n·rank²) besides the output.
 func redundancies(a []float64, n int, u *[36]float64, rank int, sigmaR float64, exps []int, gain []float64, tiny float64, ah []float64) [][]float64 {
 	r := rank
 	// Â = U_rᵀA, r×n column-major: the columns in the retained space.
@@ -53,18 +59,13 @@ func redundancies(a []float64, n int, u *[36]float64, rank int, sigmaR float64, 
 	var piv [6]int       // the chosen columns
 	nq := 0
 
-	k := n - r
-	flat := make([]float64, k*n)
-	out := make([][]float64, k)
-	row := k
-	for j := n - 1; j >= 0; j-- {
+	// The basis, from the right.
+	for j := n - 1; j >= 0 && nq < r; j-- {
 		var v, y [6]float64
 		copy(v[:r], ah[j*r:j*r+r])
-		passes := 2 // classical Gram–Schmidt, twice ("twice is enough": Giraud, Langou & Rozložník 2005, Numer. Math. 101)
-		if nq == r {
-			passes = 1 // q spans R^r: only the coefficients are needed
-		}
-		for pass := 0; pass < passes; pass++ {
+		// Classical Gram–Schmidt, twice ("twice is enough": Giraud, Langou
+		// & Rozložník 2005, Numer. Math. 101).
+		for pass := 0; pass < 2; pass++ {
 			for c := 0; c < nq; c++ {
 				d := dot6(&q[c], &v)
 				y[c] += d
@@ -73,40 +74,66 @@ func redundancies(a []float64, n int, u *[36]float64, rank int, sigmaR float64, 
 				}
 			}
 		}
-		if nq < r {
-			if rho := linalg.Norm(v[:r]); rho > delta {
-				s := 1 / rho
-				for l := 0; l < r; l++ {
-					q[nq][l] = v[l] * s
-				}
-				rm[nq] = y
-				rm[nq][nq] = rho
-				piv[nq] = j
-				nq++
-				continue
+		if rho := linalg.Norm(v[:r]); rho > delta {
+			s := 1 / rho
+			for l := 0; l < r; l++ {
+				q[nq][l] = v[l] * s
 			}
+			rm[nq] = y
+			rm[nq][nq] = rho
+			piv[nq] = j
+			nq++
 		}
-		// Column j = Σ x_c·(chosen column c): back-substitution in rm.
+	}
+
+	// Every other column in the whole basis: column j = Σ x_c·(basis
+	// column c), by back-substitution in rm. A column passed over for a
+	// small but real independent part is expressed with the basis
+	// columns to its left too, which then carry weight in its
+	// combination.
+	k := n - r
+	flat := make([]float64, k*n)
+	out := make([][]float64, k)
+	row, next := 0, r-1 // piv[next] is the next basis column from the left
+	for j := 0; j < n; j++ {
+		if next >= 0 && piv[next] == j {
+			next--
+			continue
+		}
+		var v, y [6]float64
+		copy(v[:r], ah[j*r:j*r+r])
+		for c := 0; c < r; c++ {
+			y[c] = dot6(&q[c], &v)
+		}
 		var x [6]float64
-		for c := nq - 1; c >= 0; c-- {
+		for c := r - 1; c >= 0; c-- {
 			s := y[c]
-			for d := c + 1; d < nq; d++ {
+			for d := c + 1; d < r; d++ {
 				s -= rm[d][c] * x[d]
 			}
 			x[c] = s / rm[c][c]
 		}
-		row--
 		w := flat[row*n : row*n+n : row*n+n]
-		idx := [7]int{j} // the non-zero weights, in increasing order (piv decreases)
 		w[j] = 1
 		big := 1.0
-		for c := 0; c < nq; c++ {
+		// The non-zero weights in increasing order of index: the basis
+		// columns (piv decreases), with j in its place.
+		var idx [7]int
+		m, placed := 0, false
+		for c := r - 1; c >= 0; c-- {
+			if !placed && piv[c] > j {
+				idx[m], m, placed = j, m+1, true
+			}
+			idx[m], m = piv[c], m+1
 			w[piv[c]] = -x[c]
-			idx[nq-c] = piv[c]
 			big = math.Max(big, math.Abs(x[c]))
 		}
-		toWeights(w, idx[:nq+1], exps, gain, tiny*big)
+		if !placed {
+			idx[m], m = j, m+1
+		}
+		toWeights(w, idx[:m], exps, gain, tiny*big)
 		out[row] = w
+		row++
 	}
 	return out
 }
