@@ -68,7 +68,8 @@ const centreTol = 1e-9
 // share: every length is in units of unit metres, moments are taken about c
 // and divided by used.
 type frame struct {
-	unit   float64 // metres per length unit, a power of two
+	unit   float64 // metres per length unit, 2^ue
+	ue     int
 	c      r3.Vec  // reference point, in units
 	length float64 // characteristic length in units; 0 when the lines meet at c
 	used   float64 // the length that moments about c are divided by, in units
@@ -117,9 +118,9 @@ func normalise(ws, pre []Wrench, a []float64, exps []int, gain []float64) (frame
 		}
 		// Scale by a power of two (exact) to a largest component in [1, 2):
 		// only the line matters, and this keeps every product in range.
-		_, e := math.Frexp(m)
-		exps[i] = e - 1
-		pre[i] = scale2(*w, 1-e)
+		e := exponent(m)
+		exps[i] = e
+		pre[i] = Wrench{F: scaleVec(w.F, -e), M: scaleVec(w.M, -e)}
 	}
 	if mhi > maxSpread*mlo {
 		return frame{}, &Error{Index: hi, Err: fmt.Errorf(
@@ -146,11 +147,11 @@ func normalise(ws, pre []Wrench, a []float64, exps []int, gain []float64) (frame
 		}
 		far = math.Max(far, linalg.Norm3(pre[i].M)/f)
 	}
-	_, ue := math.Frexp(far)
+	ue := exponent(far) + 1 // unit = 2^ue > far
 	unit := math.Ldexp(1, ue)
 	for i := range pre {
 		if pre[i].F != (r3.Vec{}) {
-			pre[i].M = scale2(Wrench{M: ws[i].M}, -exps[i]-ue).M
+			pre[i].M = scaleVec(ws[i].M, -exps[i]-ue)
 		}
 	}
 
@@ -158,7 +159,7 @@ func normalise(ws, pre []Wrench, a []float64, exps []int, gain []float64) (frame
 	if !ok {
 		return frame{}, &Error{Index: -1, Err: fmt.Errorf("%w: lines too far from the origin", errs.Range)}
 	}
-	fr.unit = unit
+	fr.unit, fr.ue = unit, ue
 	if fr.noise > NearSingularRatio {
 		// Beyond the limit of momentRounding: the coordinates do not
 		// carry the precision to tell a near-singular set from a sound
@@ -191,7 +192,10 @@ func normalise(ws, pre []Wrench, a []float64, exps []int, gain []float64) (frame
 		s := 1 / fr.used
 		col[0], col[1], col[2] = w.F.X, w.F.Y, w.F.Z
 		col[3], col[4], col[5] = w.M.X*s, w.M.Y*s, w.M.Z*s
-		norm := linalg.Norm(col[:])
+		// |F| is in [minForce, 2√3] and each |M − c×F|/used is at most √n
+		// times |F| (used is the RMS of their ratios), so the squares
+		// neither overflow nor underflow.
+		norm := math.Sqrt(dot6(col, col))
 		if math.IsInf(norm, 0) || math.IsNaN(norm) {
 			return frame{}, &Error{Index: i, Err: fmt.Errorf("%w: cannot normalise the wrench", errs.Range)}
 		}
@@ -213,7 +217,7 @@ func normalise(ws, pre []Wrench, a []float64, exps []int, gain []float64) (frame
 func reference(ws []Wrench) (fr frame, ok bool) {
 	// Least-squares point nearest to all lines: Σ(I − dᵢdᵢᵀ) c = Σ pᵢ, with
 	// dᵢ the unit direction and pᵢ the point of line i nearest the origin.
-	var s [9]float64
+	var s00, s01, s02, s11, s12, s22 float64 // Σ(I − dᵢdᵢᵀ), upper triangle
 	var b r3.Vec
 	var far2 float64 // largest squared distance of a line from the origin
 	nf := 0
@@ -225,23 +229,24 @@ func reference(ws []Wrench) (fr frame, ok bool) {
 		}
 		inv := 1 / f2
 		p := r3.Scale(inv, r3.Cross(f, m)) // |p| ≤ 1/minForce
-		dd := [3]float64{f.X, f.Y, f.Z}
-		for r := 0; r < 3; r++ {
-			for k := 0; k < 3; k++ {
-				s[k*3+r] -= dd[r] * dd[k] * inv
-			}
-			s[r*3+r]++
-		}
+		x, y, z := f.X*inv, f.Y*inv, f.Z*inv
+		s00 += 1 - f.X*x
+		s01 -= f.X * y
+		s02 -= f.X * z
+		s11 += 1 - f.Y*y
+		s12 -= f.Y * z
+		s22 += 1 - f.Z*z
 		b = r3.Add(b, p)
 		far2 = math.Max(far2, r3.Norm2(p))
 		nf++
 	}
+	s := [9]float64{s00, s01, s02, s01, s11, s12, s02, s12, s22}
 	if nf == 0 {
 		// Couples only: moments need no reference point and no length.
 		return frame{used: 1}, true
 	}
-	tiny := centreTol * float64(nf)
-	c := solve3(&s, b, tiny)
+	sf := linalg.FactorPSD3(&s, centreTol*float64(nf))
+	c := solve3(&sf, b)
 	// One step of refinement (Wilkinson's iterative refinement, with the
 	// residual taken from the data rather than as b − S·c): the points of
 	// the lines nearest to c, relative to c, are F × (M − c×F)/|F|². They
@@ -262,7 +267,7 @@ func reference(ws []Wrench) (fr frame, ok bool) {
 		m := r3.Sub(ws[i].M, r3.Cross(c, f))
 		b2 = r3.Add(b2, r3.Scale(1/f2, r3.Cross(f, m)))
 	}
-	c = r3.Add(c, solve3(&s, b2, tiny))
+	c = r3.Add(c, solve3(&sf, b2))
 	if !linalg.Finite3(c) {
 		return frame{}, false
 	}
@@ -299,23 +304,38 @@ func reference(ws []Wrench) (fr frame, ok bool) {
 	return fr, true
 }
 
-// solve3 solves S·c = b for the 3×3 symmetric positive semi-definite
-// S = Σ(I − dᵢdᵢᵀ) (column-major), dropping its eigen-directions at or
-// below tiny (the pseudo-inverse solution).
-func solve3(s *[9]float64, b r3.Vec, tiny float64) r3.Vec {
-	x, _ := linalg.SolvePSD3(*s, [3]float64{b.X, b.Y, b.Z}, tiny)
+// solve3 solves S·c = b for the factored 3×3 symmetric positive
+// semi-definite S = Σ(I − dᵢdᵢᵀ), dropping its eigen-directions at or
+// below the cut-off it was factored with (the pseudo-inverse solution).
+func solve3(s *linalg.PSD3, b r3.Vec) r3.Vec {
+	x := s.Solve([3]float64{b.X, b.Y, b.Z})
 	return r3.Vec{X: x[0], Y: x[1], Z: x[2]}
 }
 
-// scale2 returns w·2^k, exactly unless a component becomes subnormal.
-func scale2(w Wrench, k int) Wrench {
+// exponent returns the binary exponent e of the finite x > 0 with
+// x = f·2^e, f in [1, 2).
+func exponent(x float64) int {
+	if b := math.Float64bits(x) >> 52 & 0x7ff; b != 0 {
+		return int(b) - 1023
+	}
+	_, e := math.Frexp(x) // subnormal
+	return e - 1
+}
+
+// scaleVec returns v·2^k, exactly unless a component becomes subnormal.
+func scaleVec(v r3.Vec, k int) r3.Vec {
 	if k >= -1022 && k <= 1023 {
 		f := pow2(k)
-		return Wrench{F: r3.Scale(f, w.F), M: r3.Scale(f, w.M)}
+		return r3.Vec{X: v.X * f, Y: v.Y * f, Z: v.Z * f}
 	}
-	// 2^k is out of the normal range: two steps (|k| ≤ 1075 here).
+	return scaleVecSlow(v, k)
+}
+
+// scaleVecSlow is scaleVec for 2^k outside the normal range, in two
+// exact steps (|k| ≤ 2100 here).
+func scaleVecSlow(v r3.Vec, k int) r3.Vec {
 	h := k / 2
-	return scale2(scale2(w, h), k-h)
+	return scaleVec(scaleVec(v, h), k-h)
 }
 
 // pow2 returns 2^k for k in [−1022, 1023], from its bits.
@@ -323,7 +343,14 @@ func pow2(k int) float64 {
 	return math.Float64frombits(uint64(k+1023) << 52)
 }
 
-// maxAbs returns the largest magnitude of a component of w.
+// maxAbs returns the largest magnitude of a component of w, which must be
+// finite (plain comparisons, without the NaN handling of max).
 func maxAbs(w *Wrench) float64 {
-	return max(math.Abs(w.F.X), math.Abs(w.F.Y), math.Abs(w.F.Z), math.Abs(w.M.X), math.Abs(w.M.Y), math.Abs(w.M.Z))
+	m := math.Abs(w.F.X)
+	for _, x := range [5]float64{w.F.Y, w.F.Z, w.M.X, w.M.Y, w.M.Z} {
+		if a := math.Abs(x); a > m {
+			m = a
+		}
+	}
+	return m
 }

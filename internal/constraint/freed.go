@@ -58,14 +58,16 @@ func Freed(ws *[6]Wrench, ts *[6]Twist) bool {
 
 // freedFromSVD writes the rows of the inverse of the normalised 6×6 a,
 // converted to freed twists, into ts, from its singular value
-// decomposition A·V = U·Σ (u holds U, orthonormal columns): row i of
-// A⁻¹ = V·Σ⁻¹·Uᵀ is Σₖ (aᵢ·uₖ)/σₖ² · uₖᵀ, since vᵢₖ = aᵢ·uₖ/σₖ. Its error is
+// decomposition A·V = U·Σ (u holds U, orthonormal columns): A⁻¹ =
+// V·Σ⁻¹·Uᵀ = Aᵀ·(U·Σ⁻²·Uᵀ), since V = Aᵀ·U·Σ⁻¹, so row i of A⁻¹ is
+// (M·aᵢ)ᵀ with M = U·Σ⁻²·Uᵀ (126 + 216 multiply-adds). Its error is
 // of the order of ε·Condition relative to |A⁻¹|, as for Gauss–Jordan
 // elimination: the computed U·Σ is (A + δA)·V with |δA| ≲ ε|A| (Demmel &
 // Veselić 1992, "Jacobi's method is more accurate than QR", SIAM J.
 // Matrix Anal. Appl. 13(4), §4), and replacing A + δA by A costs
 // |δA|/σ₆², the same order. It reports false if a twist overflows.
 func freedFromSVD(a []float64, u *[36]float64, sigma *[6]float64, fr *frame, exps []int, gain []float64, ts *[6]Twist) bool {
+	// M = U·Σ⁻²·Uᵀ = (A·Aᵀ)⁻¹, symmetric: 21 entries of Σₖ uₖuₖᵀ/σₖ².
 	var w [6][6]float64 // uₖ/σₖ
 	for k := 0; k < 6; k++ {
 		s := 1 / sigma[k]
@@ -73,18 +75,20 @@ func freedFromSVD(a []float64, u *[36]float64, sigma *[6]float64, fr *frame, exp
 			w[k][m] = u[6*k+m] * s
 		}
 	}
+	var mm [6][6]float64
+	for l := 0; l < 6; l++ {
+		for m := l; m < 6; m++ {
+			x := w[0][l]*w[0][m] + w[1][l]*w[1][m] + w[2][l]*w[2][m] +
+				w[3][l]*w[3][m] + w[4][l]*w[4][m] + w[5][l]*w[5][m]
+			mm[l][m], mm[m][l] = x, x
+		}
+	}
+	// Row i of A⁻¹ = Aᵀ·M is (M·aᵢ)ᵀ.
 	for i := 0; i < 6; i++ {
 		ai := (*[6]float64)(a[6*i : 6*i+6])
 		var row [6]float64
-		for k := 0; k < 6; k++ {
-			c := dot6(&w[k], ai)
-			wk := &w[k]
-			row[0] += c * wk[0]
-			row[1] += c * wk[1]
-			row[2] += c * wk[2]
-			row[3] += c * wk[3]
-			row[4] += c * wk[4]
-			row[5] += c * wk[5]
+		for l := 0; l < 6; l++ {
+			row[l] = dot6(&mm[l], ai)
 		}
 		if !freedTwist(&row, fr, exps[i], gain[i], &ts[i]) {
 			return false
@@ -100,9 +104,8 @@ func freedFromSVD(a []float64, u *[36]float64, sigma *[6]float64, fr *frame, exp
 // divided by gᵢ, in metres and radians. It reports false if the twist
 // overflows.
 func freedTwist(row *[6]float64, fr *frame, exp int, gain float64, t *Twist) bool {
-	_, ue := math.Frexp(fr.unit) // unit = 2^(ue−1)
 	fv := ldexp(1/gain, -exp)
-	fw := ldexp(1/(gain*fr.used), 1-ue-exp)
+	fw := ldexp(1/(gain*fr.used), -fr.ue-exp)
 	w := r3.Vec{X: row[3] * fw, Y: row[4] * fw, Z: row[5] * fw}
 	vc := r3.Vec{X: row[0] * fv, Y: row[1] * fv, Z: row[2] * fv}
 	*t = Twist{W: w, V: r3.Sub(vc, r3.Cross(w, r3.Scale(fr.unit, fr.c)))}
