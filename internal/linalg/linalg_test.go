@@ -333,6 +333,27 @@ func TestSolvePSD3(t *testing.T) {
 	if kept != 2 || math.Abs(x[0]-0.5) > 1e-15 || math.Abs(x[1]-3) > 1e-15 || x[2] != 0 {
 		t.Errorf("singular system: x = %v, kept %d; want (0.5, 3, 0), 2", x, kept)
 	}
+	// One factorisation, two right-hand sides, on both paths: by hand,
+	// diag(4, 1, 0) with b = (4, −1, 7) gives (1, −1, 0); diag(4, 2, 0.5)
+	// gives (1, −0.5, 14).
+	for _, tc := range []struct {
+		s    [9]float64
+		b, x [3]float64
+	}{
+		{[9]float64{4, 0, 0, 0, 1, 0, 0, 0, 0}, [3]float64{4, -1, 7}, [3]float64{1, -1, 0}},
+		{[9]float64{4, 0, 0, 0, 2, 0, 0, 0, 0.5}, [3]float64{4, -1, 7}, [3]float64{1, -0.5, 14}},
+	} {
+		f := FactorPSD3(&tc.s, 1e-9)
+		for _, b := range [][3]float64{{2, 3, 5}, tc.b} {
+			want, _ := SolvePSD3(tc.s, b, 1e-9)
+			if got := f.Solve(b); got != want {
+				t.Errorf("%v: Solve(%v) = %v, SolvePSD3 %v", tc.s, b, got, want)
+			}
+		}
+		if got := f.Solve(tc.b); math.Abs(got[0]-tc.x[0]) > 1e-15 || math.Abs(got[1]-tc.x[1]) > 1e-15 || math.Abs(got[2]-tc.x[2]) > 1e-14 {
+			t.Errorf("%v: Solve(%v) = %v, want %v", tc.s, tc.b, got, tc.x)
+		}
+	}
 }
 
 // TestUnit3 checks Unit3 against the defining property |u| = 1, u ∥ v, over
