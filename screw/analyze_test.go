@@ -15,6 +15,11 @@ func randVec(rng *rand.Rand) r3.Vec {
 	return r3.Vec{X: 2*rng.Float64() - 1, Y: 2*rng.Float64() - 1, Z: 2*rng.Float64() - 1}
 }
 
+// maxAbs returns the largest magnitude of a component of w.
+func maxAbs(w Wrench) float64 {
+	return max(math.Abs(w.F.X), math.Abs(w.F.Y), math.Abs(w.F.Z), math.Abs(w.M.X), math.Abs(w.M.Y), math.Abs(w.M.Z))
+}
+
 func mustLine(t testing.TB, p, n r3.Vec) Wrench {
 	t.Helper()
 	w, err := Line(p, n)
@@ -315,6 +320,39 @@ func TestTetrahedronEdges(t *testing.T) {
 	}
 }
 
+// TestFarTetrahedron: the edges of a regular tetrahedron of half-size
+// s = 0.02 m (edges at distance s from the centre, all six singular values
+// 1: see TestTetrahedronEdges) moved 10 km from the origin, and 0.02 mm
+// moved 10 m. Their moments about the origin carry rounding of ε times the
+// distance; the verdict must hold to that precision: rank 6, Length = s,
+// singular values 1 to within 64ε·far/Length (twice the bound of the
+// tolerance policy; 7e-9 here). A hard floor on Length at 1e-5 of the
+// distance from the origin reported Length 0 for both.
+func TestFarTetrahedron(t *testing.T) {
+	for _, tc := range []struct {
+		s   float64
+		off r3.Vec
+	}{
+		{0.02, r3.Vec{X: 6e3, Y: -7e3, Z: 3.6e3}},
+		{2e-5, r3.Vec{X: 6, Y: -7, Z: 3.6}},
+	} {
+		an := mustAnalyze(t, regularTetrahedron(t, tc.s, 0.7, r3.Vec{X: 1, Y: -1}, tc.off))
+		far := r3.Norm(tc.off) + 2*tc.s
+		tol := 64 * 0x1p-52 * far / tc.s
+		if an.Rank != 6 || an.NearSingular || math.Abs(an.Length-tc.s) > tol*tc.s {
+			t.Errorf("s = %g: rank %d, near-singular %v, length %g; want 6, false, %g", tc.s, an.Rank, an.NearSingular, an.Length, tc.s)
+		}
+		for i, sv := range an.Singular {
+			if math.Abs(sv-1) > tol {
+				t.Errorf("s = %g: singular[%d] = %.17g, want 1 to %.2g", tc.s, i, sv, tol)
+			}
+		}
+		if d := r3.Norm(r3.Sub(an.Centre, tc.off)); d > tol*tc.s {
+			t.Errorf("s = %g: centre %v, want %v", tc.s, an.Centre, tc.off)
+		}
+	}
+}
+
 // TestInvariance: moving a set rigidly or scaling it by 1000 leaves the rank
 // and the dimensionless singular values unchanged (they are invariants of the
 // line geometry; see Analyze's tolerance policy), and moves the free twists
@@ -430,12 +468,12 @@ func TestAnalyzeErrors(t *testing.T) {
 		field string
 		err   error
 	}{
-		{"nil", nil, "ws", ErrEmpty},
-		{"empty", []Wrench{}, "ws", ErrEmpty},
+		{"nil", nil, "ws", ErrDegenerate},
+		{"empty", []Wrench{}, "ws", ErrDegenerate},
 		{"NaN force", []Wrench{ok, {F: r3.Vec{Y: nan}}}, "ws[1].F", ErrNonFinite},
 		{"Inf moment", []Wrench{{M: r3.Vec{Z: math.Inf(-1)}}}, "ws[0].M", ErrNonFinite},
-		{"zero wrench", []Wrench{ok, {}, ok}, "ws[1]", ErrZero},
-		{"all zero", []Wrench{{}, {}}, "ws[0]", ErrZero},
+		{"zero wrench", []Wrench{ok, {}, ok}, "ws[1]", ErrDegenerate},
+		{"all zero", []Wrench{{}, {}}, "ws[0]", ErrDegenerate},
 		{"line too far", []Wrench{{F: r3.Vec{X: 1e-160}, M: r3.Vec{Y: 1}}, {F: r3.Vec{Y: 1}}}, "ws[0]", ErrRange},
 		{"magnitudes too far apart", []Wrench{{F: r3.Vec{X: 1}}, {F: r3.Vec{Y: 1e200}}}, "ws[1]", ErrRange},
 	} {

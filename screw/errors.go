@@ -1,18 +1,20 @@
 package screw
 
-import "errors"
+import "github.com/sixfold-dev/sixfold/internal/errs"
 
-// Sentinel errors wrapped by [InputError].
+// Sentinel errors wrapped by [InputError]. They are the values of package
+// internal/errs that every package of the module re-exports, so that
+// errors.Is gives the same answer with screw.ErrRange as with
+// kinematic.ErrRange.
 var (
-	// ErrEmpty reports an empty set of wrenches.
-	ErrEmpty = errors.New("empty")
 	// ErrNonFinite reports a NaN or infinite component.
-	ErrNonFinite = errors.New("not finite")
-	// ErrZero reports a zero direction or a zero wrench, which defines no line.
-	ErrZero = errors.New("zero")
+	ErrNonFinite = errs.NonFinite
 	// ErrRange reports input whose magnitudes are too far apart to be
 	// analysed in float64 arithmetic.
-	ErrRange = errors.New("out of range")
+	ErrRange = errs.Range
+	// ErrDegenerate reports input that defines nothing: an empty set of
+	// wrenches, a zero wrench, a zero direction.
+	ErrDegenerate = errs.Degenerate
 )
 
 // InputError reports an invalid input: the field that holds it, and why.

@@ -27,6 +27,19 @@ func bytesWrenches(b []byte) []Wrench {
 	return ws
 }
 
+// farOf returns the largest distance from the origin of a line of ws or
+// of c, in metres.
+func farOf(ws []Wrench, c r3.Vec) float64 {
+	far := r3.Norm(c)
+	for _, w := range ws {
+		w = w.Scale(1 / maxAbs(w))
+		if f2 := r3.Norm2(w.F); f2 > 0 {
+			far = math.Max(far, r3.Norm(w.M)/math.Sqrt(f2))
+		}
+	}
+	return far
+}
+
 func finiteTwist(t Twist) bool { return linalg.Finite3(t.W) && linalg.Finite3(t.V) }
 
 // FuzzAnalyze checks that Analyze never panics and that every result it
@@ -91,6 +104,12 @@ func FuzzAnalyze(f *testing.F) {
 			// sizes, which sums over up to n wrenches.)
 			if an.Rank < len(an.Singular) {
 				tol += 10 * math.Sqrt(float64(n)) * an.Singular[an.Rank] / an.Singular[0]
+			}
+			// And, far from the origin, what the moments' rounding allows:
+			// 32ε·far/Length relative to the matrix (see the tolerance
+			// policy), times Condition for the twists and weights.
+			if an.Length > 0 {
+				tol += 32 * 0x1p-52 * farOf(ws, an.Centre) / an.Length * an.Condition
 			}
 			checkFree(t, ws, an, tol)
 			checkRedundant(t, ws, an, tol)

@@ -38,10 +38,12 @@ type Axis struct {
 
 // Line returns the wrench of a unit force, in newtons, acting along the line
 // through the point p with direction n: (n̂, p × n̂) with n̂ = n/|n|.
-// n need not be a unit vector; only its direction is used.
+// n need not be a unit vector; only its direction is used, and any
+// non-zero finite n has one, subnormal components included.
 //
 // Line returns an [*InputError] wrapping [ErrNonFinite] if a component of p
-// or n is NaN or infinite, and wrapping [ErrZero] if n is the zero vector.
+// or n is NaN or infinite, [ErrDegenerate] if n is the zero vector, and
+// [ErrRange] if the moment p × n̂ overflows (field "p").
 func Line(p, n r3.Vec) (Wrench, error) {
 	if !linalg.Finite3(p) {
 		return Wrench{}, &InputError{Field: "p", Err: fmt.Errorf("%w: %v", ErrNonFinite, p)}
@@ -49,11 +51,10 @@ func Line(p, n r3.Vec) (Wrench, error) {
 	if !linalg.Finite3(n) {
 		return Wrench{}, &InputError{Field: "n", Err: fmt.Errorf("%w: %v", ErrNonFinite, n)}
 	}
-	l := linalg.Norm3(n)
-	if l == 0 {
-		return Wrench{}, &InputError{Field: "n", Err: fmt.Errorf("%w: a line needs a direction", ErrZero)}
+	u, ok := linalg.Unit3(n) // scales first: safe for subnormal n
+	if !ok {
+		return Wrench{}, &InputError{Field: "n", Err: fmt.Errorf("%w: a line needs a direction", ErrDegenerate)}
 	}
-	u := r3.Scale(1/l, n)
 	m := r3.Cross(p, u)
 	if !linalg.Finite3(m) {
 		return Wrench{}, &InputError{Field: "p", Err: fmt.Errorf("%w: moment of the line overflows: %v", ErrRange, p)}
@@ -93,20 +94,26 @@ func (t Twist) Scale(f float64) Twist {
 }
 
 // Axis returns the screw axis of t. See [Axis] for pure translations and for
-// the zero twist, which has the zero Axis.
+// the zero twist, which has the zero Axis. The direction is found by
+// scaling first, so that it is exact for any non-zero W or V, subnormal
+// included; Point and Pitch are |V|/|W| in size and overflow to infinity
+// only when that ratio exceeds the float64 range.
 func (t Twist) Axis() Axis {
-	w2 := r3.Norm2(t.W)
-	if w2 == 0 {
-		v := linalg.Norm3(t.V)
-		if v == 0 {
+	d, ok := linalg.Unit3(t.W)
+	if !ok {
+		v, ok := linalg.Unit3(t.V)
+		if !ok {
 			return Axis{}
 		}
-		return Axis{Dir: r3.Scale(1/v, t.V), Pitch: math.Inf(1)}
+		return Axis{Dir: v, Pitch: math.Inf(1)}
 	}
+	// |W|·d = W: point W×V/|W|² = d×V/|W|, pitch W·V/|W|² = d·V/|W|.
+	w := linalg.Norm3(t.W)
+	p := r3.Cross(d, t.V)
 	return Axis{
-		Point: r3.Scale(1/w2, r3.Cross(t.W, t.V)),
-		Dir:   r3.Scale(1/math.Sqrt(w2), t.W),
-		Pitch: r3.Dot(t.W, t.V) / w2,
+		Point: r3.Vec{X: p.X / w, Y: p.Y / w, Z: p.Z / w}, // not ·(1/w), which overflows for subnormal w
+		Dir:   d,
+		Pitch: r3.Dot(d, t.V) / w,
 	}
 }
 

@@ -34,6 +34,19 @@ func TestLine(t *testing.T) {
 	if w2 != want {
 		t.Errorf("Line through another point = %v, want %v", w2, want)
 	}
+	// Only the direction of n matters, at any magnitude: the smallest
+	// subnormal along z gives the same wrench, and n = (1, 1, 1)·1e308,
+	// whose squared norm overflows, gives n̂ = (1, 1, 1)/√3.
+	for _, n := range []r3.Vec{{Z: 5e-324}, {Z: 1e308}} {
+		w, err := Line(r3.Vec{X: 1, Y: 2, Z: 3}, n)
+		if err != nil || w != want {
+			t.Errorf("Line with n = %v: %v, %v; want %v", n, w, err, want)
+		}
+	}
+	w, err = Line(r3.Vec{}, r3.Vec{X: 1e308, Y: 1e308, Z: 1e308})
+	if s := 1 / math.Sqrt(3); err != nil || math.Abs(w.F.X-s) > 1e-16 || w.F.X != w.F.Y || w.F.Y != w.F.Z {
+		t.Errorf("Line with n = 1e308·(1, 1, 1): %v, %v; want F = (1, 1, 1)/√3", w, err)
+	}
 }
 
 func TestLineErrors(t *testing.T) {
@@ -44,7 +57,8 @@ func TestLineErrors(t *testing.T) {
 		field string
 		err   error
 	}{
-		{"zero direction", r3.Vec{X: 1}, r3.Vec{}, "n", ErrZero},
+		{"zero direction", r3.Vec{X: 1}, r3.Vec{}, "n", ErrDegenerate},
+		{"moment overflows, subnormal direction", r3.Vec{X: 1.5e308, Y: -1.5e308}, r3.Vec{X: 5e-324, Y: 5e-324}, "p", ErrRange},
 		{"NaN direction", r3.Vec{}, r3.Vec{X: nan}, "n", ErrNonFinite},
 		{"Inf point", r3.Vec{Y: inf}, r3.Vec{X: 1}, "p", ErrNonFinite},
 		{"moment overflows", r3.Vec{X: 1.5e308, Y: -1.5e308}, r3.Vec{X: 1, Y: 1}, "p", ErrRange},
@@ -126,6 +140,20 @@ func TestAxisSpecial(t *testing.T) {
 	// W × V/|W|² = (2, 0, 0) × (0, 1, 0)/4 = (0, 0, 0.5) (by hand).
 	if got := (Twist{W: r3.Vec{X: 2}, V: r3.Vec{Y: 1}}).Axis(); got.Pitch != 0 || got.Point != (r3.Vec{Z: 0.5}) {
 		t.Errorf("rotation: Axis = %v, want pitch 0 through (0, 0, 0.5)", got)
+	}
+	// Subnormal rates, worked by hand with s = 2⁻¹⁰⁷⁴ (the smallest
+	// subnormal): W = (0, 0, s), V = (2⁻¹⁰⁴⁰, 0, 3·2⁻¹⁰⁴⁰) is a screw
+	// along z with pitch W·V/|W|² = 3·2⁻¹⁰⁴⁰/s = 3·2³⁴ m/rad through
+	// W×V/|W|² = (0, 2⁻¹⁰⁴⁰·s, 0)/s² = (0, 2³⁴, 0), where |W|² underflows
+	// to zero; a translation at subnormal speed has a direction.
+	s := 0x1p-1074
+	got = Twist{W: r3.Vec{Z: s}, V: r3.Vec{X: 0x1p-1040, Z: 3 * 0x1p-1040}}.Axis()
+	if got.Dir != (r3.Vec{Z: 1}) || got.Pitch != 3*0x1p34 || got.Point != (r3.Vec{Y: 0x1p34}) {
+		t.Errorf("subnormal W: Axis = %v, want pitch 3·2³⁴ along z through (0, 2³⁴, 0)", got)
+	}
+	got = Twist{V: r3.Vec{X: -s}}.Axis()
+	if got.Dir != (r3.Vec{X: -1}) || !math.IsInf(got.Pitch, 1) {
+		t.Errorf("subnormal translation: Axis = %v, want pitch +Inf along −x", got)
 	}
 }
 

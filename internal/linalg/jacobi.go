@@ -1,9 +1,3 @@
-// Package linalg holds the small fixed-size linear algebra that the public
-// packages share: a one-sided Jacobi singular value decomposition for the
-// thin matrices of constraint analysis, and helpers around it.
-//
-// Matrices are dense and column-major: element (i, j) of an m×k matrix a is
-// a[j*m+i]. Functions never allocate; callers pass the storage.
 package linalg
 
 import (

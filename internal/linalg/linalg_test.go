@@ -153,36 +153,6 @@ func TestComplete(t *testing.T) {
 	}
 }
 
-func TestEchelon(t *testing.T) {
-	// Rows spanning {x : x1 + x2 + x3 = 0} in R³ (in scrambled form) have the
-	// reduced echelon form [1 0 -1; 0 1 -1] (by hand: the unique RREF basis
-	// of that plane).
-	s := 1 / math.Sqrt(2)
-	u := 1 / math.Sqrt(6)
-	b := []float64{
-		s, -s, 0,
-		u, u, -2 * u,
-	}
-	piv := make([]int, 2)
-	Echelon(b, 2, 3, piv, 1e-12)
-	want := []float64{1, 0, -1, 0, 1, -1}
-	for i := range want {
-		if math.Abs(b[i]-want[i]) > 1e-15 {
-			t.Fatalf("b = %v, want %v", b, want)
-		}
-	}
-	if piv[0] != 0 || piv[1] != 1 {
-		t.Errorf("pivots %v, want [0 1]", piv)
-	}
-	// A zero leading column is skipped: rows spanning {x : x1 = 0, x2 = x3}
-	// reduce to [0 1 1].
-	b = []float64{0, s, s}
-	Echelon(b, 1, 3, piv[:1], 1e-12)
-	if b[0] != 0 || math.Abs(b[1]-1) > 1e-15 || math.Abs(b[2]-1) > 1e-15 || piv[0] != 1 {
-		t.Errorf("b = %v, piv %d; want [0 1 1], 1", b, piv[0])
-	}
-}
-
 func TestNorm(t *testing.T) {
 	// Values whose squares overflow or underflow: |(3, 4)|·s = 5·s exactly.
 	for _, s := range []float64{1, 1e300, 1e-300} {
@@ -362,6 +332,27 @@ func TestSolvePSD3(t *testing.T) {
 	x, kept := SolvePSD3([9]float64{4, 0, 0, 0, 1, 0, 0, 0, 0}, [3]float64{2, 3, 5}, 1e-9)
 	if kept != 2 || math.Abs(x[0]-0.5) > 1e-15 || math.Abs(x[1]-3) > 1e-15 || x[2] != 0 {
 		t.Errorf("singular system: x = %v, kept %d; want (0.5, 3, 0), 2", x, kept)
+	}
+	// One factorisation, two right-hand sides, on both paths: by hand,
+	// diag(4, 1, 0) with b = (4, −1, 7) gives (1, −1, 0); diag(4, 2, 0.5)
+	// gives (1, −0.5, 14).
+	for _, tc := range []struct {
+		s    [9]float64
+		b, x [3]float64
+	}{
+		{[9]float64{4, 0, 0, 0, 1, 0, 0, 0, 0}, [3]float64{4, -1, 7}, [3]float64{1, -1, 0}},
+		{[9]float64{4, 0, 0, 0, 2, 0, 0, 0, 0.5}, [3]float64{4, -1, 7}, [3]float64{1, -0.5, 14}},
+	} {
+		f := FactorPSD3(&tc.s, 1e-9)
+		for _, b := range [][3]float64{{2, 3, 5}, tc.b} {
+			want, _ := SolvePSD3(tc.s, b, 1e-9)
+			if got := f.Solve(b); got != want {
+				t.Errorf("%v: Solve(%v) = %v, SolvePSD3 %v", tc.s, b, got, want)
+			}
+		}
+		if got := f.Solve(tc.b); math.Abs(got[0]-tc.x[0]) > 1e-15 || math.Abs(got[1]-tc.x[1]) > 1e-15 || math.Abs(got[2]-tc.x[2]) > 1e-14 {
+			t.Errorf("%v: Solve(%v) = %v, want %v", tc.s, tc.b, got, tc.x)
+		}
 	}
 }
 

@@ -1,4 +1,4 @@
-package screw
+package constraint
 
 import (
 	"math"
@@ -7,6 +7,8 @@ import (
 
 	"gonum.org/v1/gonum/mat"
 	"gonum.org/v1/gonum/spatial/r3"
+
+	"github.com/sixfold-dev/sixfold/internal/linalg"
 )
 
 // TestLeastSquaresPoint checks the point nearest to a set of lines against
@@ -52,7 +54,8 @@ func TestLeastSquaresPoint(t *testing.T) {
 			}
 			b = r3.Add(b, p)
 		}
-		got := leastSquaresPoint(&s, b, float64(n))
+		f := linalg.FactorPSD3(&s, centreTol*float64(n))
+		got := solve3(&f, b)
 		var w r3.Vec
 		if spread > 1e-4 {
 			var want mat.VecDense

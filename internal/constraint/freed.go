@@ -1,0 +1,122 @@
+package constraint
+
+import (
+	"math"
+
+	"gonum.org/v1/gonum/spatial/r3"
+
+	"github.com/sixfold-dev/sixfold/internal/linalg"
+)
+
+// freedTol is the pivot, relative to the largest entry of its column,
+// at or below which [Freed] treats the normalised 6×6 matrix as singular.
+// Its columns have unit norm. Gauss–Jordan elimination with partial
+// pivoting on a 6×6 matrix grows its entries by at most 2⁵ (Wilkinson's
+// bound 2ⁿ⁻¹; Golub & Van Loan, Matrix Computations, 4th ed., 2013,
+// §3.4.6), so the pivot that stands for an exact zero is rounding of at
+// most about 6·2⁵·ε ≈ 4.3e-14; 2⁻⁴⁰ ≈ 9.1e-13 leaves a margin of 20.
+// Far from the origin the bound on the rounding the moments carry
+// (momentRounding·ε·far/length, see [Analyze]) takes its place when it is
+// larger.
+const freedTol = 0x1p-40
+
+// Freed computes the twists freed by removing each of six wrenches: ts[i]
+// has power Power(ts[i], ws[j]) = δᵢⱼ with the wrenches as given, in W and
+// J. They are the rows of the inverse of the 6×6 matrix whose columns are
+// the wrenches, and equal [Result.Freed] of [Analyze] to rounding.
+//
+// Freed normalises as Analyze does (the same reference point and
+// characteristic length) and inverts the normalised matrix by Gauss–Jordan
+// elimination, without the singular value decomposition: it is meant for
+// an optimiser that evaluates many layouts. It reports false, leaving ts
+// unspecified, for input that Analyze rejects, for lines that meet in one
+// point, when a pivot is at most max(freedTol, 32ε·far/length) ≈ 9.1e-13
+// of the largest entry of its column (singular to working precision, a
+// ratio of dimensionless numbers and so independent of units and
+// position), or when a twist overflows. It does not allocate.
+func Freed(ws *[6]Wrench, ts *[6]Twist) bool {
+	var pre [6]Wrench
+	var a [36]float64
+	var exps [6]int
+	var gain [6]float64
+	fr, err := normalise(ws[:], pre[:], a[:], exps[:], gain[:])
+	if err != nil || fr.length == 0 {
+		return false
+	}
+	if !linalg.Inverse6(&a, math.Max(freedTol, fr.noise)) {
+		return false
+	}
+	// Row i of A⁻¹ is a[i], a[6+i], ..., a[30+i].
+	for i := range ts {
+		row := [6]float64{a[i], a[6+i], a[12+i], a[18+i], a[24+i], a[30+i]}
+		if !freedTwist(&row, &fr, exps[i], gain[i], &ts[i]) {
+			return false
+		}
+	}
+	return true
+}
+
+// freedFromSVD writes the rows of the inverse of the normalised 6×6 a,
+// converted to freed twists, into ts, from its singular value
+// decomposition A·V = U·Σ (u holds U, orthonormal columns): A⁻¹ =
+// V·Σ⁻¹·Uᵀ = Aᵀ·(U·Σ⁻²·Uᵀ), since V = Aᵀ·U·Σ⁻¹, so row i of A⁻¹ is
+// (M·aᵢ)ᵀ with M = U·Σ⁻²·Uᵀ (126 + 216 multiply-adds). Its error is
+// of the order of ε·Condition relative to |A⁻¹|, as for Gauss–Jordan
+// elimination: the computed U·Σ is (A + δA)·V with |δA| ≲ ε|A| (Demmel &
+// Veselić 1992, "Jacobi's method is more accurate than QR", SIAM J.
+// Matrix Anal. Appl. 13(4), §4), and replacing A + δA by A costs
+// |δA|/σ₆², the same order. It reports false if a twist overflows.
+func freedFromSVD(a []float64, u *[36]float64, sigma *[6]float64, fr *frame, exps []int, gain []float64, ts *[6]Twist) bool {
+	// M = U·Σ⁻²·Uᵀ = (A·Aᵀ)⁻¹, symmetric: 21 entries of Σₖ uₖuₖᵀ/σₖ².
+	var w [6][6]float64 // uₖ/σₖ
+	for k := 0; k < 6; k++ {
+		s := 1 / sigma[k]
+		for m := 0; m < 6; m++ {
+			w[k][m] = u[6*k+m] * s
+		}
+	}
+	var mm [6][6]float64
+	for l := 0; l < 6; l++ {
+		for m := l; m < 6; m++ {
+			x := w[0][l]*w[0][m] + w[1][l]*w[1][m] + w[2][l]*w[2][m] +
+				w[3][l]*w[3][m] + w[4][l]*w[4][m] + w[5][l]*w[5][m]
+			mm[l][m], mm[m][l] = x, x
+		}
+	}
+	// Row i of A⁻¹ = Aᵀ·M is (M·aᵢ)ᵀ.
+	for i := 0; i < 6; i++ {
+		ai := (*[6]float64)(a[6*i : 6*i+6])
+		var row [6]float64
+		for l := 0; l < 6; l++ {
+			row[l] = dot6(&mm[l], ai)
+		}
+		if !freedTwist(&row, fr, exps[i], gain[i], &ts[i]) {
+			return false
+		}
+	}
+	return true
+}
+
+// freedTwist converts row i of the inverse of the normalised matrix into
+// the twist with power δᵢⱼ with the wrenches as given. The normalised
+// twist pairs with column j of the matrix as t̂·aⱼ = Power(t, wⱼ)/gⱼ, with
+// t̂ = (V at c, W·used) and gⱼ = 2^expsⱼ·gainⱼ, so twist i is row i
+// divided by gᵢ, in metres and radians. It reports false if the twist
+// overflows.
+func freedTwist(row *[6]float64, fr *frame, exp int, gain float64, t *Twist) bool {
+	fv := ldexp(1/gain, -exp)
+	fw := ldexp(1/(gain*fr.used), -fr.ue-exp)
+	w := r3.Vec{X: row[3] * fw, Y: row[4] * fw, Z: row[5] * fw}
+	vc := r3.Vec{X: row[0] * fv, Y: row[1] * fv, Z: row[2] * fv}
+	*t = Twist{W: w, V: r3.Sub(vc, r3.Cross(w, r3.Scale(fr.unit, fr.c)))}
+	return linalg.Finite3(t.W) && linalg.Finite3(t.V)
+}
+
+// ldexp returns x·2^k: by one multiplication when 2^k is a normal
+// number, by math.Ldexp otherwise.
+func ldexp(x float64, k int) float64 {
+	if k >= -1022 && k <= 1023 {
+		return x * pow2(k)
+	}
+	return math.Ldexp(x, k)
+}
