@@ -45,6 +45,13 @@ type SeatingContact struct {
 	Limit float64
 }
 
+// pivotTol is the pivot, relative to the largest entry of its column,
+// below which drive treats its 6×6 matrix as singular: the columns are
+// unit contact lines less μ times unit friction lines, entries of order 1,
+// and a pivot of 1e-12 is within the rounding of elimination (ε times its
+// growth) of a singular matrix.
+const pivotTol = 1e-12
+
 // muMax bounds the search for the friction limit: a coefficient of 10 is
 // far above any dry metallic or ceramic pair (0.1 to 1, common practice).
 const muMax = 10
@@ -132,7 +139,7 @@ func (m *Model) drive(i int, w screw.Wrench, mu float64) (float64, bool) {
 		}
 		copy(a[6*j:6*j+6], g[:])
 	}
-	if !linalg.Inverse6(&a, singularTol) {
+	if !linalg.Inverse6(&a, pivotTol) {
 		return math.Inf(-1), false
 	}
 	// x = −A⁻¹ w; A⁻¹ is row-major in the column-major storage's

@@ -209,8 +209,3 @@ func planes(a r3.Vec, ha float64, b r3.Vec, hb float64, u r3.Vec) r3.Vec {
 	den := r3.Dot(a, r3.Cross(b, u))
 	return r3.Scale(1/den, r3.Add(r3.Scale(ha, r3.Cross(b, u)), r3.Scale(hb, r3.Cross(u, a))))
 }
-
-// errNoVee is returned by analyses of grooves on a coupling without a vee.
-func errNoVee(field string) error {
-	return &InputError{Field: field, Err: fmt.Errorf("%w: no vee seat", ErrDegenerate)}
-}

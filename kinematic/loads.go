@@ -147,10 +147,7 @@ func NewModel(cs []Contact, preloads []Preload, payload Payload) (*Model, error)
 	}
 	m.size = math.Sqrt(s2 / float64(len(m.lines)))
 	if len(cs) == 6 && an.Rank == 6 {
-		ts, ok := freed(m.lines, r3.Sub(an.Centre, an.origin), an.Length)
-		if ok {
-			m.exact, m.freed = true, ts
-		}
+		m.exact = freedOf(m.lines, &m.freed)
 	}
 	m.surf = make([]surface, len(cs))
 	for i := range cs {

@@ -163,11 +163,10 @@ func (c Coupling) Assembly() (*Assembly, error) {
 		return nil, &InputError{Field: "Pairs", Err: fmt.Errorf(
 			"%w: %d contacts of rank %d; an assembly's seated pose needs six independent contacts", ErrNotExact, len(cs), an.Rank)}
 	}
-	ts, ok := freed(an.lines, r3.Sub(an.Centre, an.origin), an.Length)
-	if !ok {
+	a := &Assembly{index: map[string]int{}, origin: an.origin, nom: an}
+	if !freedOf(an.lines, &a.freed) {
 		return nil, &InputError{Field: "Pairs", Err: fmt.Errorf("%w: the six contacts are singular to working precision", ErrNotExact)}
 	}
-	a := &Assembly{index: map[string]int{}, origin: an.origin, nom: an, freed: ts}
 	copy(a.lines[:], an.lines)
 	var s2 float64
 	for _, l := range an.lines {
@@ -661,8 +660,7 @@ func (a *Assembly) seat(g *geom, appr *[6]float64, tol float64, maxIt int) (Pose
 			return Pose{}, a.errUnseated(0, fmt.Sprintf("the seated pose did not converge in %d iterations (largest gap %.3g m)", maxIt, resid))
 		}
 		if resid > prev/100 {
-			var ok bool
-			if ts, ok = freed(ls[:], r3.Vec{}, L); !ok {
+			if !freedOf(ls[:], &ts) {
 				return Pose{}, a.errUnseated(0, "the contacts are singular at this pose")
 			}
 		}

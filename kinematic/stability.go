@@ -6,6 +6,7 @@ import (
 
 	"gonum.org/v1/gonum/spatial/r3"
 
+	"github.com/sixfold-dev/sixfold/internal/constraint"
 	"github.com/sixfold-dev/sixfold/internal/linalg"
 	"github.com/sixfold-dev/sixfold/screw"
 )
@@ -78,8 +79,8 @@ func (a *Analysis) stability(st *Stability) error {
 			"%w: %d contacts of rank %d (%d free motions, %d redundant); Maxwell indices need six independent contacts",
 			ErrNotExact, len(a.lines), a.Rank, len(a.Free), len(a.Redundant))}
 	}
-	ts, ok := freed(a.lines, r3.Sub(a.Centre, a.origin), a.Length)
-	if !ok {
+	var ts [6]screw.Twist
+	if !freedOf(a.lines, &ts) {
 		return &InputError{Field: "cs", Err: fmt.Errorf("%w: the six contacts are singular to working precision", ErrNotExact)}
 	}
 	for i, t := range ts {
@@ -107,56 +108,25 @@ func (a *Analysis) stability(st *Stability) error {
 	return nil
 }
 
-// freed returns the twists freed by removing each of six contacts known
-// to be independent: twist i has power δᵢⱼ with contact j. Moments are
-// taken about pc and divided by L (a reference point and a characteristic
-// length of the lines, such as screw.Analysis's Centre and Length), so that
-// the matrix's conditioning is that of the geometry, not of its units or
-// position. freed reports false if the 6×6 system is singular to working
-// precision.
-func freed(ls []line, pc r3.Vec, L float64) (ts [6]screw.Twist, ok bool) {
-	if !(L > 0) || len(ls) != 6 {
-		return ts, false
-	}
-	var c [36]float64 // column j: (n_j, (p_j − pc) × n_j / L)
-	for j := range ls {
-		l := &ls[j]
-		m := r3.Scale(1/L, r3.Cross(r3.Sub(l.p, pc), l.n))
-		c[6*j], c[6*j+1], c[6*j+2], c[6*j+3], c[6*j+4], c[6*j+5] = l.n.X, l.n.Y, l.n.Z, m.X, m.Y, m.Z
-	}
-	if !linalg.Inverse6(&c, singularTol) {
-		return ts, false
-	}
-	// Row i of C⁻¹ pairs with column j to δᵢⱼ: it is the twist
-	// (V at pc, W·L) in the same normalised coordinates.
-	for i := range ts {
-		vpc := r3.Vec{X: c[0*6+i], Y: c[1*6+i], Z: c[2*6+i]}
-		w := r3.Scale(1/L, r3.Vec{X: c[3*6+i], Y: c[4*6+i], Z: c[5*6+i]})
-		ts[i] = screw.Twist{W: w, V: r3.Sub(vpc, r3.Cross(w, pc))}
-	}
-	return ts, true
-}
-
-// singularTol is the pivot, relative to the largest entry of its column,
-// below which freed treats the normalised 6×6 contact matrix as singular.
-// Its entries are at most 1 in magnitude; a pivot of 1e-12 is within
-// rounding (1e-16 times the growth of elimination) of a singular matrix.
-const singularTol = 1e-12
-
 // freedOf sets ts to the twists freed by removing each of the six
-// contacts ls (power δᵢⱼ), normalised about their centroid and RMS
-// distance, and reports false if the set is singular to working precision.
+// contacts ls: twist i has power δᵢⱼ with contact j (the rows of the
+// inverse of the contact matrix). It uses the normalised contact matrix of
+// the constraint analysis (internal/constraint: moments about the lines'
+// least-squares point over their RMS distance from it), so that every
+// analysis of the package inverts the same matrix, and reports false if it
+// is singular to working precision.
 func freedOf(ls []line, ts *[6]screw.Twist) bool {
-	var pc r3.Vec
-	for _, l := range ls {
-		pc = r3.Add(pc, l.p)
+	var ws [6]constraint.Wrench
+	for i := range ws {
+		l := &ls[i]
+		ws[i] = constraint.Wrench{F: l.n, M: r3.Cross(l.p, l.n)}
 	}
-	pc = r3.Scale(1/float64(len(ls)), pc)
-	var s2 float64
-	for _, l := range ls {
-		s2 += r3.Norm2(r3.Sub(l.p, pc))
+	var ct [6]constraint.Twist
+	if !constraint.Freed(&ws, &ct) {
+		return false
 	}
-	var ok bool
-	*ts, ok = freed(ls, pc, math.Sqrt(s2/float64(len(ls))))
-	return ok
+	for i := range ct {
+		ts[i] = screw.Twist(ct[i])
+	}
+	return true
 }

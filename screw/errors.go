@@ -8,13 +8,13 @@ import "github.com/sixfold-dev/sixfold/internal/errs"
 // kinematic.ErrRange.
 var (
 	// ErrNonFinite reports a NaN or infinite component.
-	ErrNonFinite = errs.NonFinite
+	ErrNonFinite = errs.ErrNonFinite
 	// ErrRange reports input whose magnitudes are too far apart to be
 	// analysed in float64 arithmetic.
-	ErrRange = errs.Range
+	ErrRange = errs.ErrRange
 	// ErrDegenerate reports input that defines nothing: an empty set of
 	// wrenches, a zero wrench, a zero direction.
-	ErrDegenerate = errs.Degenerate
+	ErrDegenerate = errs.ErrDegenerate
 )
 
 // InputError reports an invalid input: the field that holds it, and why.

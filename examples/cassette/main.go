@@ -167,13 +167,6 @@ func degrees(a float64) float64 {
 	return d
 }
 
-// excentre returns the centre of the circle tangent to side BC and to the
-// extensions of AB and AC: the vertices weighted by the opposite sides,
-// with A's weight negative.
-func excentre(a, b, c r3.Vec) r3.Vec {
-	la, lb, lc := r3.Norm(r3.Sub(b, c)), r3.Norm(r3.Sub(c, a)), r3.Norm(r3.Sub(a, b))
-	return r3.Scale(1/(-la+lb+lc), r3.Add(r3.Scale(-la, a), r3.Add(r3.Scale(lb, b), r3.Scale(lc, c))))
-}
 
 func withDirection(d r3.Vec) kinematic.Vee {
 	v := vee

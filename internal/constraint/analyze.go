@@ -133,9 +133,9 @@ type workspace struct {
 // meet at Centre to within 32ε·far are analysed as concurrent, with
 // Length 0.
 //
-// Analyze returns an [*Error] wrapping errs.Degenerate for an empty set or
-// a zero wrench, errs.NonFinite for a NaN or infinite component, and
-// errs.Range for magnitudes that float64 cannot analyse: two wrenches whose
+// Analyze returns an [*Error] wrapping errs.ErrDegenerate for an empty set or
+// a zero wrench, errs.ErrNonFinite for a NaN or infinite component, and
+// errs.ErrRange for magnitudes that float64 cannot analyse: two wrenches whose
 // magnitudes differ by more than 1e150 times, a moment more than 1e100
 // times its force, lines too far apart for their distances to be squared,
 // and lines that do not meet in one point but lie within 7.1e-12 of their

@@ -32,12 +32,12 @@ func TestAnalyzeErrors(t *testing.T) {
 		part  string
 		err   error
 	}{
-		{"empty", nil, -1, "", errs.Degenerate},
-		{"zero wrench", []Wrench{ok, {}}, 1, "", errs.Degenerate},
-		{"NaN force", []Wrench{ok, {F: r3.Vec{Y: math.NaN()}}}, 1, "F", errs.NonFinite},
-		{"Inf moment", []Wrench{{M: r3.Vec{Z: math.Inf(1)}}}, 0, "M", errs.NonFinite},
-		{"magnitudes apart", []Wrench{ok, {F: r3.Vec{Y: 1e151}}}, 1, "", errs.Range},
-		{"line too far", []Wrench{{F: r3.Vec{X: 1e-101}, M: r3.Vec{Y: 1}}}, 0, "", errs.Range},
+		{"empty", nil, -1, "", errs.ErrDegenerate},
+		{"zero wrench", []Wrench{ok, {}}, 1, "", errs.ErrDegenerate},
+		{"NaN force", []Wrench{ok, {F: r3.Vec{Y: math.NaN()}}}, 1, "F", errs.ErrNonFinite},
+		{"Inf moment", []Wrench{{M: r3.Vec{Z: math.Inf(1)}}}, 0, "M", errs.ErrNonFinite},
+		{"magnitudes apart", []Wrench{ok, {F: r3.Vec{Y: 1e151}}}, 1, "", errs.ErrRange},
+		{"line too far", []Wrench{{F: r3.Vec{X: 1e-101}, M: r3.Vec{Y: 1}}}, 0, "", errs.ErrRange},
 	} {
 		var r Result
 		r.Rank = 7 // must be cleared

@@ -39,7 +39,7 @@
 // c to within 32ε·far are analysed as concurrent, with L = 0. Between
 // that and L/far = 7.1e-12 (farLimit: where the rounding bound reaches
 // NearSingularRatio) the coordinates cannot tell a sound set from a
-// near-singular one, and Analyze returns an error wrapping errs.Range.
+// near-singular one, and Analyze returns an error wrapping errs.ErrRange.
 // Above it, a set's rank, singular values, free twists, redundancies and
 // freed twists do not depend on units or on where it sits, to within that
 // rounding (a 100 mm coupling 10 km from the origin: 1.6e-9 of the
@@ -49,8 +49,8 @@
 //
 // Invalid input returns an [*Error] naming the wrench (Index, or −1 for
 // the set) and the part ("F", "M" or "") and wrapping a sentinel of
-// internal/errs: errs.Degenerate for an empty set or a zero wrench,
-// errs.NonFinite for NaN or infinite components, errs.Range for magnitudes
+// internal/errs: errs.ErrDegenerate for an empty set or a zero wrench,
+// errs.ErrNonFinite for NaN or infinite components, errs.ErrRange for magnitudes
 // that float64 cannot analyse. Callers translate it into their own error
 // type and field names. Nothing panics on user numbers, and no result is
 // NaN or infinite without an error.

@@ -117,7 +117,7 @@ func TestFarFromOrigin(t *testing.T) {
 // The test coupling 0.1 mm across placed 1e6 m away (size/distance 5e-11,
 // above the limit of 7.1e-12) keeps its verdict and its real Length; placed
 // 1e8 m away (5e-13) it cannot be judged and Analyze says so with
-// errs.Range, and Freed reports false. Lines that do meet in one point far
+// errs.ErrRange, and Freed reports false. Lines that do meet in one point far
 // away are concurrent, Length 0, rank 3 (three independent lines through a
 // point leave the rotations about it free: Hunt, Kinematic Geometry of
 // Mechanisms, 1978, §12.6), even when their directions lie within 1e-3 rad
@@ -137,8 +137,8 @@ func TestFarLimit(t *testing.T) {
 	ws = placed(cs[:], 5e-5, r3.Scale(1e8, dir))
 	err := Analyze(ws, &r)
 	var ce *Error
-	if !errors.As(err, &ce) || ce.Index != -1 || !errors.Is(err, errs.Range) {
-		t.Errorf("1e8 m away: err = %v, want *Error on the set wrapping errs.Range", err)
+	if !errors.As(err, &ce) || ce.Index != -1 || !errors.Is(err, errs.ErrRange) {
+		t.Errorf("1e8 m away: err = %v, want *Error on the set wrapping errs.ErrRange", err)
 	}
 	var a6 [6]Wrench
 	var ts [6]Twist

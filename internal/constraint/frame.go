@@ -94,21 +94,21 @@ const farLimit = momentRounding * eps / NearSingularRatio
 func normalise(ws, pre []Wrench, a []float64, exps []int, gain []float64) (frame, error) {
 	n := len(ws)
 	if n == 0 {
-		return frame{}, &Error{Index: -1, Err: fmt.Errorf("%w: no wrenches to analyse", errs.Degenerate)}
+		return frame{}, &Error{Index: -1, Err: fmt.Errorf("%w: no wrenches to analyse", errs.ErrDegenerate)}
 	}
 	var lo, hi int
 	var mlo, mhi float64
 	for i := range ws {
 		w := &ws[i]
 		if !linalg.Finite3(w.F) {
-			return frame{}, &Error{Index: i, Part: "F", Err: fmt.Errorf("%w: %v", errs.NonFinite, w.F)}
+			return frame{}, &Error{Index: i, Part: "F", Err: fmt.Errorf("%w: %v", errs.ErrNonFinite, w.F)}
 		}
 		if !linalg.Finite3(w.M) {
-			return frame{}, &Error{Index: i, Part: "M", Err: fmt.Errorf("%w: %v", errs.NonFinite, w.M)}
+			return frame{}, &Error{Index: i, Part: "M", Err: fmt.Errorf("%w: %v", errs.ErrNonFinite, w.M)}
 		}
 		m := maxAbs(w)
 		if m == 0 {
-			return frame{}, &Error{Index: i, Err: fmt.Errorf("%w: a zero wrench constrains nothing", errs.Degenerate)}
+			return frame{}, &Error{Index: i, Err: fmt.Errorf("%w: a zero wrench constrains nothing", errs.ErrDegenerate)}
 		}
 		if i == 0 || m < mlo {
 			lo, mlo = i, m
@@ -125,7 +125,7 @@ func normalise(ws, pre []Wrench, a []float64, exps []int, gain []float64) (frame
 	if mhi > maxSpread*mlo {
 		return frame{}, &Error{Index: hi, Err: fmt.Errorf(
 			"%w: magnitude %g is more than %g times that of wrench %d (%g); only the lines matter, so scale the wrenches",
-			errs.Range, mhi, maxSpread, lo, mlo)}
+			errs.ErrRange, mhi, maxSpread, lo, mlo)}
 	}
 
 	// Lengths in units of a power of two at least the farthest line's
@@ -143,7 +143,7 @@ func normalise(ws, pre []Wrench, a []float64, exps []int, gain []float64) (frame
 		}
 		if f < minForce {
 			return frame{}, &Error{Index: i, Err: fmt.Errorf(
-				"%w: moment more than %g times the force: the line is too far from the origin (a couple has F = 0)", errs.Range, 1/minForce)}
+				"%w: moment more than %g times the force: the line is too far from the origin (a couple has F = 0)", errs.ErrRange, 1/minForce)}
 		}
 		far = math.Max(far, linalg.Norm3(pre[i].M)/f)
 	}
@@ -157,7 +157,7 @@ func normalise(ws, pre []Wrench, a []float64, exps []int, gain []float64) (frame
 
 	fr, ok := reference(pre)
 	if !ok {
-		return frame{}, &Error{Index: -1, Err: fmt.Errorf("%w: lines too far from the origin", errs.Range)}
+		return frame{}, &Error{Index: -1, Err: fmt.Errorf("%w: lines too far from the origin", errs.ErrRange)}
 	}
 	fr.unit, fr.ue = unit, ue
 	if fr.noise > NearSingularRatio {
@@ -169,7 +169,7 @@ func normalise(ws, pre []Wrench, a []float64, exps []int, gain []float64) (frame
 				"and their moments about the origin carry rounding of about ε times that distance: "+
 				"too coarse to judge the constraint (size/distance must be at least %.2g); "+
 				"give the wrenches about a point near the lines",
-			errs.Range, fr.length*unit, fr.far*unit, farLimit)}
+			errs.ErrRange, fr.length*unit, fr.far*unit, farLimit)}
 	}
 
 	// Normalised columns: (F, (M − c×F)/used), the moments about c being
@@ -197,7 +197,7 @@ func normalise(ws, pre []Wrench, a []float64, exps []int, gain []float64) (frame
 		// neither overflow nor underflow.
 		norm := math.Sqrt(dot6(col, col))
 		if math.IsInf(norm, 0) || math.IsNaN(norm) {
-			return frame{}, &Error{Index: i, Err: fmt.Errorf("%w: cannot normalise the wrench", errs.Range)}
+			return frame{}, &Error{Index: i, Err: fmt.Errorf("%w: cannot normalise the wrench", errs.ErrRange)}
 		}
 		r := 1 / norm
 		for j := range col {
