@@ -1,7 +1,6 @@
 package kinematic
 
 import (
-	"fmt"
 	"math"
 
 	"gonum.org/v1/gonum/spatial/r3"

@@ -167,7 +167,6 @@ func degrees(a float64) float64 {
 	return d
 }
 
-
 func withDirection(d r3.Vec) kinematic.Vee {
 	v := vee
 	v.Direction = d
