@@ -106,6 +106,11 @@ func TestHeatMapErrors(t *testing.T) {
 		{"zero NY", func(m *HeatMap) { m.Grid.NY = 0 }, "Grid.NY", ErrRange},
 		{"too many", func(m *HeatMap) { m.Grid.NX, m.Grid.NY = 1000, 1000 }, "Grid.NY", ErrRange},
 		{"-Inf value", func(m *HeatMap) { m.Grid.Values[7] = math.Inf(-1) }, "Grid.Values[7]", ErrNonFinite},
+		{"huge value", func(m *HeatMap) { m.Grid.Values[8] = 1e301 }, "Grid.Values[8]", ErrRange},
+		{"tiny cells", func(m *HeatMap) {
+			m.Grid = Grid{DX: 1e-300, DY: 1e-300, NX: 1, NY: 1, Values: []float64{1}}
+			m.Outline, m.Markers = nil, nil
+		}, "HeatMap", ErrRange},
 		{"NaN marker", func(m *HeatMap) { m.Markers[1].At.X = math.NaN() }, "Markers[1].At.X", ErrNonFinite},
 		{"Inf outline", func(m *HeatMap) { m.Outline[3].Y = math.Inf(1) }, "Outline[3].Y", ErrNonFinite},
 	}

@@ -72,6 +72,9 @@ func (m HeatMap) validate() error {
 		if math.IsInf(v, -1) {
 			return &InputError{Field: fmt.Sprintf("Grid.Values[%d]", k), Err: fmt.Errorf("%w: -Inf", ErrNonFinite)}
 		}
+		if math.Abs(v) > maxValue && !math.IsInf(v, 1) {
+			return &InputError{Field: fmt.Sprintf("Grid.Values[%d]", k), Err: fmt.Errorf("%w: %g beyond ±%g", ErrRange, v, maxValue)}
+		}
 	}
 	for i, q := range m.Outline {
 		if err := finite(fmt.Sprintf("Outline[%d].X", i), q.X); err != nil {
@@ -109,8 +112,8 @@ func (m HeatMap) WriteSVG(w io.Writer) error {
 	for _, mk := range m.Markers {
 		r = r.add(mk.At, 0)
 	}
-	if math.Max(math.Max(-r.x0, r.x1), math.Max(-r.y0, r.y1)) > maxCoord {
-		return &InputError{Field: "HeatMap", Err: fmt.Errorf("%w: coordinates beyond %g m", ErrRange, maxCoord)}
+	if err := r.check("HeatMap"); err != nil {
+		return err
 	}
 	size := math.Max(r.x1-r.x0, r.y1-r.y0)
 	k := mapSize / size

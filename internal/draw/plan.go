@@ -155,7 +155,7 @@ func (p Plan) validate() error {
 		if err := pt(f+".At", v.At); err != nil {
 			return err
 		}
-		if err := finite(f+".Value", v.Value); err != nil {
+		if err := value(f+".Value", v.Value); err != nil {
 			return err
 		}
 	}
@@ -172,6 +172,34 @@ func (r region) add(q Point, pad float64) region {
 }
 
 func (r region) ok() bool { return r.x0 <= r.x1 && r.y0 <= r.y1 }
+
+// Limits of a drawable region, m.
+const (
+	// minExtent keeps the scale, px per metre, finite: 560 px over less
+	// than about 1e-306 m overflows. It is a range guard, not a tolerance.
+	minExtent = 1e-290
+	// minRelExtent is the smallest extent relative to the distance from
+	// the origin: coordinates carry a relative rounding error of 2⁻⁵³, so
+	// at 1e-12 the drawing is still true to 1e-4 of its size.
+	minRelExtent = 1e-12
+)
+
+// check reports a region that cannot be drawn, naming field.
+func (r region) check(field string) error {
+	far := math.Max(math.Max(-r.x0, r.x1), math.Max(-r.y0, r.y1))
+	size := math.Max(r.x1-r.x0, r.y1-r.y0)
+	switch {
+	case far > maxCoord:
+		return &InputError{Field: field, Err: fmt.Errorf("%w: coordinates beyond %g m", ErrRange, maxCoord)}
+	case !(size > 0):
+		return &InputError{Field: field, Err: fmt.Errorf("%w: everything lies at one point", ErrDegenerate)}
+	case size < minExtent:
+		return &InputError{Field: field, Err: fmt.Errorf("%w: extent %g m is too small to draw", ErrRange, size)}
+	case size < minRelExtent*far:
+		return &InputError{Field: field, Err: fmt.Errorf("%w: extent %g m is too small against its distance %g m from the origin", ErrDegenerate, size, far)}
+	}
+	return nil
+}
 
 // WriteSVG writes the plan view as an SVG document to w. It returns an
 // *InputError for invalid input (see the package documentation) and
@@ -215,13 +243,10 @@ func (p Plan) WriteSVG(w io.Writer) error {
 	if !r.ok() {
 		return &InputError{Field: "Plan", Err: fmt.Errorf("%w: nothing to draw (no outline, seat, ball, value or marker)", ErrDegenerate)}
 	}
-	if math.Max(math.Max(-r.x0, r.x1), math.Max(-r.y0, r.y1)) > maxCoord {
-		return &InputError{Field: "Plan", Err: fmt.Errorf("%w: coordinates beyond %g m", ErrRange, maxCoord)}
+	if err := r.check("Plan"); err != nil {
+		return err
 	}
 	size := math.Max(r.x1-r.x0, r.y1-r.y0)
-	if !(size > 0) {
-		return &InputError{Field: "Plan", Err: fmt.Errorf("%w: everything lies at one point", ErrDegenerate)}
-	}
 	// View: the region grown by the lines' reach; px per metre.
 	reach := lineReach * size
 	view := region{r.x0 - reach, r.y0 - reach, r.x1 + reach, r.y1 + reach}

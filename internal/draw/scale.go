@@ -67,12 +67,29 @@ func fraction(v, lo, hi float64) float64 {
 	return math.Min(math.Max((v-lo)/(hi-lo), 0), 1)
 }
 
-// validate checks the scale's ends, naming them under field.
-func (s Scale) validate(field string) error {
-	if err := finite(field+".Min", s.Min); err != nil {
+// maxValue bounds the magnitude of a value on a colour scale, so that
+// the span of the scale (a difference of two values) stays finite; it is a
+// range guard, not a tolerance.
+const maxValue = 1e300
+
+// value returns an *InputError naming field when v is NaN, infinite or
+// beyond ±maxValue.
+func value(field string, v float64) error {
+	if err := finite(field, v); err != nil {
 		return err
 	}
-	if err := finite(field+".Max", s.Max); err != nil {
+	if math.Abs(v) > maxValue {
+		return &InputError{Field: field, Err: fmt.Errorf("%w: %g beyond ±%g", ErrRange, v, maxValue)}
+	}
+	return nil
+}
+
+// validate checks the scale's ends, naming them under field.
+func (s Scale) validate(field string) error {
+	if err := value(field+".Min", s.Min); err != nil {
+		return err
+	}
+	if err := value(field+".Max", s.Max); err != nil {
 		return err
 	}
 	if (s.Min != 0 || s.Max != 0) && !(s.Max > s.Min) {
