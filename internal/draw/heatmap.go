@@ -124,7 +124,7 @@ func (m HeatMap) WriteSVG(w io.Writer) error {
 	if infLabel == "" {
 		infLabel = "never"
 	}
-	s.defs = append(s.defs, `<pattern id="never" width="6" height="6" patternUnits="userSpaceOnUse"><rect x="0" y="0" width="6" height="6" fill="#f1f1f1"/><line x1="0" y1="6" x2="6" y2="0" stroke="#8f8f8f" stroke-width="1.2"/></pattern>`)
+	s.defs = append(s.defs, `<pattern id="never" width="6" height="6" patternUnits="userSpaceOnUse"><rect x="0" y="0" width="6" height="6" fill="#f1f1f1"/><path d="M0 6L6 0M-1 1L1 -1M5 7L7 5" stroke="#8f8f8f" stroke-width="1.2"/></pattern>`)
 	lo, hi := m.Scale.resolve(g.Values)
 	hasInf, hasFinite := false, false
 	for j := range g.NY {

@@ -211,7 +211,11 @@ func (h Histogram) WriteSVG(w io.Writer) error {
 	}
 	ext := s.extent()
 	ny := ext.y1 + 4
-	notes := append([]string{fmt.Sprintf("%d samples in %d bins; percentiles by linear interpolation of the order statistics.", len(xs), nb)}, h.Notes...)
+	bins := "bins"
+	if nb == 1 {
+		bins = "bin"
+	}
+	notes := append([]string{fmt.Sprintf("%d samples in %d %s; percentiles by linear interpolation of the order statistics.", len(xs), nb, bins)}, h.Notes...)
 	for _, n := range notes {
 		ny += noteSize * 1.4
 		s.add(text{ext.x0, ny, noteSize, "start", "note", `fill="` + mutedColour + `"`, n})
