@@ -1,8 +1,11 @@
 package kinematic
 
 import (
+	"errors"
 	"fmt"
 	"math"
+	"sort"
+	"strings"
 
 	"gonum.org/v1/gonum/spatial/r3"
 
@@ -90,7 +93,15 @@ func Analyze(cs []Contact) (Analysis, error) {
 	}
 	sa, err := screw.Analyze(ws)
 	if err != nil {
-		return Analysis{}, fromScrew(err, "cs")
+		err = fromScrew(err, "cs")
+		var ie *InputError
+		if errors.As(err, &ie) && errors.Is(err, ErrRange) && strings.HasSuffix(ie.Field, ".Point") {
+			// Out of range about the centroid: blame the contact farthest
+			// from the others (the componentwise median), not the one the
+			// shifted arithmetic happened to overflow on.
+			ie.Field = indexed("cs", outlier(cs)) + ".Point"
+		}
+		return Analysis{}, err
 	}
 	an := Analysis{Analysis: sa, DOF: 6 - sa.Rank, lines: lines, origin: o}
 	an.Centre = r3.Add(sa.Centre, o)
@@ -114,4 +125,26 @@ func Analyze(cs []Contact) (Analysis, error) {
 // the local origin o, with V at the global origin instead: V − W × o.
 func global(t screw.Twist, o r3.Vec) screw.Twist {
 	return screw.Twist{W: t.W, V: r3.Sub(t.V, r3.Cross(t.W, o))}
+}
+
+// outlier returns the index of the contact point farthest from the
+// componentwise median of all of them.
+func outlier(cs []Contact) int {
+	med := func(get func(r3.Vec) float64) float64 {
+		xs := make([]float64, len(cs))
+		for i := range cs {
+			xs[i] = get(cs[i].Point)
+		}
+		sort.Float64s(xs)
+		return xs[len(xs)/2]
+	}
+	m := r3.Vec{X: med(func(v r3.Vec) float64 { return v.X }), Y: med(func(v r3.Vec) float64 { return v.Y }), Z: med(func(v r3.Vec) float64 { return v.Z })}
+	best, far := 0, -1.0
+	for i := range cs {
+		d := r3.Sub(cs[i].Point, m)
+		if n := max(math.Abs(d.X), math.Abs(d.Y), math.Abs(d.Z)); n > far {
+			best, far = i, n
+		}
+	}
+	return best
 }

@@ -4,7 +4,6 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"strings"
 
 	"gonum.org/v1/gonum/spatial/r3"
 
@@ -131,7 +130,7 @@ const closureTangentTol = 1e-6
 func FormClosure(cs []Contact) (Closure, error) {
 	an, err := Analyze(cs)
 	if err != nil {
-		return Closure{}, closureInputError(err)
+		return Closure{}, err
 	}
 	cl := Closure{Rank: an.Rank}
 	if an.Rank < 6 || !(an.Length > 0) {
@@ -201,7 +200,7 @@ func ForceClosure(cs []Contact, mu float64, opt *ClosureOptions) (Closure, error
 	}
 	an, err := Analyze(cs)
 	if err != nil {
-		return Closure{}, closureInputError(err)
+		return Closure{}, err
 	}
 	t1s := make([]r3.Vec, len(cs))
 	for i, c := range cs {
@@ -736,33 +735,4 @@ func closureLUSolveT(m *[36]float64, perm *[6]int, v *[6]float64) {
 		out[perm[r]] = y[r]
 	}
 	*v = out
-}
-
-// closureInputError returns err from Analyze in this package's vocabulary:
-// an error of package screw about wrench ws[i] becomes an [*InputError]
-// about cs[i].Point (a contact's wrench is (n, p × n) with n of unit length,
-// so only its point can put it out of range), wrapping the matching
-// sentinel of this package.
-func closureInputError(err error) error {
-	var se *screw.InputError
-	if !errors.As(err, &se) {
-		return err
-	}
-	field := "cs"
-	if rest, ok := strings.CutPrefix(se.Field, "ws["); ok {
-		if i := strings.IndexByte(rest, ']'); i >= 0 {
-			field = "cs[" + rest[:i] + "].Point"
-		}
-	}
-	kind, from := ErrRange, screw.ErrRange
-	switch {
-	case errors.Is(se.Err, screw.ErrNonFinite):
-		kind, from = ErrNonFinite, screw.ErrNonFinite
-	case errors.Is(se.Err, screw.ErrZero):
-		kind, from = ErrDegenerate, screw.ErrZero
-	case errors.Is(se.Err, screw.ErrEmpty):
-		kind, from = ErrDegenerate, screw.ErrEmpty
-	}
-	msg := strings.TrimPrefix(se.Err.Error(), from.Error()+": ")
-	return &InputError{Field: field, Err: fmt.Errorf("%w: %s", kind, strings.ReplaceAll(msg, "ws[", "cs["))}
 }

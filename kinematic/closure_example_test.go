@@ -18,7 +18,8 @@ func closureMount(half float64) []kinematic.Contact {
 		a := (90 + 120*float64(i)) * math.Pi / 180
 		balls[i] = kinematic.Ball{Centre: r3.Vec{X: 0.05 * math.Cos(a), Y: 0.05 * math.Sin(a)}, Radius: 5e-3}
 	}
-	c, err := kinematic.BisectorVees(balls, kinematic.Vee{Up: r3.Vec{Z: 1}, HalfAngle: half})
+	vee := kinematic.Vee{Up: r3.Vec{Z: 1}, HalfAngle: half}
+	c, err := kinematic.BisectorVees(balls, [3]kinematic.Vee{vee, vee, vee})
 	if err != nil {
 		log.Fatal(err)
 	}

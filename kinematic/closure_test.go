@@ -35,7 +35,7 @@ func closureBalls() [3]Ball {
 // half-angle half along the bisectors of their triangle.
 func closureThreeVees(t testing.TB, bs [3]Ball, half float64) []Contact {
 	t.Helper()
-	c, err := BisectorVees(bs, Vee{Up: closureUp, HalfAngle: half})
+	c, err := BisectorVees(bs, three(Vee{Up: closureUp, HalfAngle: half}))
 	if err != nil {
 		t.Fatal(err)
 	}
