@@ -79,6 +79,9 @@ func TestMalformed(t *testing.T) {
 			del("seats[0].azimuth"), set("seats[0].direction", []any{1, 0, 0}),
 			del("seats[1].azimuth"), set("seats[1].direction", []any{1, 0, 0}),
 			del("seats[2].azimuth"), set("seats[2].direction", []any{1, 0, 0}))), "seats", ErrNotExact, "6 contacts of rank 5, leaving 1 freedom(s)"},
+		{"radial undefined", edit(t, both(
+			set("balls[0].centre", []any{0, 0, "30 mm"}), set("balls[1].centre", []any{"-50 mm", 0, 0}),
+			set("balls[2].centre", []any{"50 mm", 0, 0}))), "seats[0].reference", ErrDegenerate, "the radial direction is undefined"},
 		{"trihedral without toward", edit(t, set("seats[0]", map[string]any{"type": "trihedral", "half_angle": "35 deg", "material": "steel-440c"})), "seats[0].toward", ErrMissing, "first contact"},
 
 		// Preloads and payload.

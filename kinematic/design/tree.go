@@ -18,7 +18,7 @@ import (
 // Bounds of the tree. MaxSize bounds the input; maxTokens the number of
 // JSON values and keys in it (a design with the most tolerances allowed,
 // 10 000 of about 8 tokens each, needs 80 000); maxDepth the nesting
-// (the format nests 5 deep); maxElements the length of any one array
+// (the format nests 6 deep: cases[i].applied[j].force[k]); maxElements the length of any one array
 // (the longest list the format allows is the tolerances').
 const (
 	MaxSize     = 4 << 20 // bytes

@@ -244,8 +244,8 @@ func (d *Design) check() error {
 		if !finite(b.Centre) {
 			return errorf(join(p, "centre"), ErrNonFinite, "%v", b.Centre)
 		}
-		if !(b.Radius > 0) || math.IsInf(b.Radius, 0) {
-			return errorf(join(p, "radius"), ErrRange, "must be a finite length > 0, got %g m", b.Radius)
+		if err := checkLength(b.Radius, join(p, "radius")); err != nil {
+			return err
 		}
 		if err := checkMaterial(b.Material, join(p, "material")); err != nil {
 			return err
@@ -313,6 +313,17 @@ func defaultName(i int) string {
 		return string(rune('A' + i))
 	}
 	return fmt.Sprintf("P%d", i+1)
+}
+
+// checkLength checks a length that must be finite and > 0.
+func checkLength(v float64, path string) error {
+	if math.IsNaN(v) || math.IsInf(v, 0) {
+		return errorf(path, ErrNonFinite, "%g", v)
+	}
+	if !(v > 0) {
+		return errorf(path, ErrRange, "must be a finite length > 0, got %g m", v)
+	}
+	return nil
 }
 
 func checkText(s, path string, max int) error {
@@ -397,14 +408,19 @@ func (s Seat) check(path string, r float64) error {
 			return errorf(join(path, v.key), ErrNonFinite, "%v", v.v)
 		}
 	}
+	if math.IsNaN(s.HalfAngle) || math.IsInf(s.HalfAngle, 0) {
+		return errorf(join(path, "half_angle"), ErrNonFinite, "%g", s.HalfAngle)
+	}
 	if s.Type != Flat && !(s.HalfAngle > 0 && s.HalfAngle < math.Pi/2) {
 		return errorf(join(path, "half_angle"), ErrRange, "must be in (0, 90) deg, got %.6g deg", s.HalfAngle/radPerDeg)
 	}
 	if s.Type == Vee && s.FlankRadius != 0 && !(s.FlankRadius > r && !math.IsInf(s.FlankRadius, 0)) {
 		return errorf(join(path, "flank_radius"), ErrRange, "must be 0 (flat flanks) or a finite length greater than the ball's radius %g m, got %g m", r, s.FlankRadius)
 	}
-	if s.Type == Rods && !(s.RodRadius > 0 && !math.IsInf(s.RodRadius, 0)) {
-		return errorf(join(path, "rod_radius"), ErrRange, "must be a finite length > 0, got %g m", s.RodRadius)
+	if s.Type == Rods {
+		if err := checkLength(s.RodRadius, join(path, "rod_radius")); err != nil {
+			return err
+		}
 	}
 	if math.IsNaN(s.Azimuth) || math.IsInf(s.Azimuth, 0) {
 		return errorf(join(path, "azimuth"), ErrNonFinite, "%g", s.Azimuth)
