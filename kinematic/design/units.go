@@ -218,6 +218,7 @@ func scanNumber(s string) (mant string, exp int, rest string, ok bool) {
 // surrounding space trimmed, runs of spaces and the product signs "·"
 // (U+00B7), "⋅" (U+22C5) and "*" made one space, and "²" written "^2".
 func normaliseUnit(u string) string {
-	u = strings.NewReplacer("·", " ", "⋅", " ", "*", " ", "²", "^2").Replace(u)
-	return strings.Join(strings.Fields(u), " ")
+	return strings.Join(strings.Fields(unitSigns.Replace(u)), " ")
 }
+
+var unitSigns = strings.NewReplacer("·", " ", "⋅", " ", "*", " ", "²", "^2")
