@@ -15,13 +15,16 @@ import (
 // encoding/json would merge silently) and bounds what a hostile file can
 // make the reader allocate.
 
-// Bounds of the tree. MaxSize bounds the input; maxTokens the number of
-// JSON values and keys in it (a design with the most tolerances allowed,
-// 10 000 of about 8 tokens each, needs 80 000); maxDepth the nesting
-// (the format nests 6 deep: cases[i].applied[j].force[k]); maxElements the length of any one array
+// MaxSize is the size in bytes of the largest design file that Read and
+// Parse accept: 4 MiB, about a thousand times the demo cassette design.
+const MaxSize = 4 << 20
+
+// Bounds of the tree: maxTokens the number of JSON values and keys in it
+// (a design with the most tolerances allowed, 10 000 of about 8 tokens
+// each, needs 80 000); maxDepth the nesting (the format nests 6 deep:
+// cases[i].applied[j].force[k]); maxElements the length of any one array
 // (the longest list the format allows is the tolerances').
 const (
-	MaxSize     = 4 << 20 // bytes
 	maxTokens   = 150_000
 	maxDepth    = 16
 	maxElements = maxTolerances
