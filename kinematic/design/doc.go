@@ -1,0 +1,208 @@
+// Package design reads, writes and evaluates design files: a whole
+// kinematic coupling in a versioned JSON format of this project's own,
+// with the requirements the design must meet, so that a test can assert
+// them in one line.
+//
+//	d, err := design.Read(f)           // or design.Parse(b)
+//	ev, err := d.Evaluate(ctx)         // everything package kinematic can say
+//	if err := ev.Verdicts().Err(); err != nil {
+//		t.Fatal(err)                   // one error naming every failed requirement
+//	}
+//
+// [Read] and [Parse] return a [Design], the Go form of the file with every
+// quantity in SI units; [Design.Write] writes its canonical form;
+// [Design.Coupling], [Design.Model] and [Design.Assembly] build package
+// kinematic's objects; [Design.Evaluate] runs the whole evaluation and
+// [Evaluation.Verdicts] compares it with the requirements.
+//
+// # The file
+//
+// A design file is one JSON object. Its members, with the unit each
+// quantity is in when written as a plain number and its default when left
+// out ("required" when it has none):
+//
+//	format              string, required: "sixfold.design/1"
+//	name, description   strings, optional
+//	balls               array, 1 to 64, required; balls[i] sits in seats[i]
+//	  name              letters, digits and "_", starting with a letter; default "A", "B", ... by position
+//	  centre            [x, y, z] lengths, required
+//	  radius            length > 0, required
+//	  material          material, required
+//	seats               array, one per ball, required
+//	  type              "vee", "rods", "flat", "trihedral" or "cone", required
+//	  up                direction out of the seat towards the ball; default [0, 0, 1]
+//	  material          material, required
+//	  half_angle        angle in (0, 90) deg, the lean of each contact normal from the
+//	                    plane normal to up; required for every type but "flat"
+//	  flank_radius      vee: length, 0 (flat flanks, the default) or greater than the ball's radius
+//	  rod_radius        rods: length > 0, required
+//	  direction         vee, rods: the groove's direction; or instead
+//	  azimuth           vee, rods: angle of the groove about up from the reference direction
+//	  reference         with azimuth: "radial" (towards the centroid of the balls, the default) or "frame_x"
+//	  toward            trihedral (required), cone (optional): direction of the first contact
+//	preloads            array, at most 64, default none
+//	  name              string, optional
+//	  point             [x, y, z] lengths, a point of the line of action; default origin
+//	  direction         direction of the force on the moving body; required with a force or rate
+//	  force             force ≥ 0; default 0
+//	  rate              spring rate, N/m, d(force)/d(displacement along direction); default 0
+//	  couple            [x, y, z] moments; default zero
+//	payload             object, default none (massless)
+//	  mass              mass ≥ 0; default 0
+//	  centre            [x, y, z] lengths, the centre of mass; default origin
+//	  inertia           {"xx", "yy", "zz", "xy", "xz", "yz"} moments of inertia: the entries of
+//	                    the tensor about the centre of mass in the global frame (the off-diagonal
+//	                    entries are minus the products of inertia ∫xy dm); each default 0
+//	cases               array of load cases, at most 256, default none
+//	  name              string, unique, required
+//	  preload           number ≥ 0, the factor on every preload; default 1
+//	  gravity           [x, y, z] accelerations; default zero (write [0, 0, "-1 g"] for z up)
+//	  acceleration      [x, y, z] accelerations of the base; default zero
+//	  applied           array, at most 64, of {"force": [x, y, z] forces, "point": [x, y, z]
+//	                    lengths (default origin), "moment": [x, y, z] moments (default zero)}
+//	tolerances          array, at most 10 000, default none
+//	  dimension         a dimension as kinematic.Assembly names it ("A.Ball.Radius", "B.Seat.Turn"), required
+//	  value             length, or angle for Turn, Tilt, Tilt1, Tilt2 and HalfAngle; ≥ 0, required
+//	  distribution      "uniform" (value the half-width, the default) or "normal" (value the standard deviation)
+//	point_of_interest   [x, y, z] lengths, on the moving body; default origin
+//	axis                direction at the point of interest (an optical axis), optional
+//	thermal             object, optional: a uniform temperature change
+//	  delta_t           temperature difference, required
+//	  moving_alpha      expansion coefficient of the moving body; default 0
+//	  base_alpha        expansion coefficient of the base; default 0
+//	  base_ref          [x, y, z] lengths, where the base is held; default origin
+//	friction            object, optional: {"mu": number ≥ 0, required}
+//	monte_carlo         object, optional
+//	  samples           whole number in [1, 1e7], required
+//	  seed              whole number in [0, 2^64); default 0
+//	  exact             boolean: seat every sample exactly; default false (first order)
+//	requirements        object, optional; every requirement is optional, every limit > 0
+//	  min_maxwell_index   number in (0, 1]: the weakest Maxwell centre index
+//	  max_pressure_ratio  number: peak Hertz pressure / allowable, any contact, any case
+//	  min_contact_force   force: the smallest contact force, any contact, any case
+//	  min_shock           {"level": acceleration, "case": name}: shock in the worst direction
+//	                      that every contact survives closed, added to the case
+//	  min_frequency       {"limit": frequency, "case": name}: the first natural frequency
+//	  max_error           {"worst_case": length, "rss": length, "along_axis": boolean}: the
+//	                      first-order error budget of the point of interest (at least one limit)
+//	  max_study           {"limit": length, "percentile": "p50", "p95", "p99" (default) or
+//	                      "p99.73"}: the Monte Carlo study's radial displacement
+//	  max_thermal_drift   length: the exact drift of the point of interest over delta_t
+//	  seating             {"case": name}: the body must seat against friction mu
+//
+// A requirement's "case" names a load case; left out, it is the first.
+// The prerequisites of a requirement (a payload with mass for a shock,
+// with inertia too for a frequency, tolerances for an error, monte_carlo
+// for a study, thermal for a drift, friction for seating, an allowable
+// pressure on every pair for a pressure ratio) are checked when the file
+// is read.
+//
+// A material is one of the keys of the reference table of package hertz
+// (hertz.Materials), or an object given inline:
+//
+//	"steel-52100"        hertz.Steel52100, AISI 52100 bearing steel
+//	"steel-440c"         hertz.Steel440C, AISI 440C stainless steel
+//	"silicon-nitride"    hertz.SiliconNitride
+//	"tungsten-carbide"   hertz.TungstenCarbide
+//	"sapphire"           hertz.Sapphire
+//	"fused-silica"       hertz.FusedSilica
+//	"aluminium-6061-t6"  hertz.Aluminium6061T6
+//	"invar-36"           hertz.Invar36
+//	"ti-6al-4v"          hertz.Ti6Al4V
+//	{"name": string, "e": pressure > 0 (required), "nu": number in (-1, 0.5] (required),
+//	 "alpha": expansion coefficient (default 0), "allowable": pressure ≥ 0 (default 0: none
+//	 on file), "source": string}
+//
+// # Units
+//
+// A quantity is a plain JSON number in its SI unit, or a string of a
+// number (written as a JSON number) and a unit, with or without a space:
+// "12.7 mm", "0.5 µm", "45 deg", "1.5 kN", "5 g". The product signs "·",
+// "⋅" and "*" may stand for the space in a compound unit, and "²" for
+// "^2". Directions (up, direction, toward, axis, a preload's direction)
+// and pure numbers (nu, mu, preload factors, ratios, indices) are plain
+// numbers only; a direction need not be of unit length. The units each
+// kind of quantity accepts:
+//
+//	length                    m (SI), cm, mm, um, µm, μm, nm
+//	angle                     rad (SI), mrad, urad, µrad, μrad, deg, °, arcmin, arcsec
+//	force                     N (SI), mN, kN
+//	spring rate               N/m (SI), kN/m, N/mm, kN/mm, N/um, N/µm, N/μm
+//	moment                    N m (SI), N mm, kN m
+//	pressure, modulus         Pa (SI), kPa, MPa, GPa
+//	mass                      kg (SI), g, mg
+//	moment of inertia         kg m^2 (SI), kg cm^2, kg mm^2, g cm^2, g mm^2
+//	acceleration              m/s^2 (SI), mm/s^2, g (standard gravity, 9.80665 m/s^2)
+//	temperature difference    K (SI), mK
+//	expansion coefficient     1/K (SI), /K, ppm/K (10⁻⁶/K)
+//	frequency                 Hz (SI), kHz
+//
+// The prefixes are those of the SI Brochure (9th ed., 2019, Table 7); the
+// degree, minute and second of arc are π/180, π/10 800 and π/648 000 rad
+// (Table 8); standard gravity is 9.80665 m/s² by the 3rd CGPM (1901). A
+// decimal multiple is read exactly: "12.7 mm" gives the float64 nearest to
+// 0.0127 m, the same as the plain number 0.0127. Conversion happens on
+// reading only; a Design holds SI values and package kinematic sees no
+// units.
+//
+// # Versions
+//
+// The "format" member names the format's version, "sixfold.design/1"
+// ([Format]). A reader rejects a file of any other version with an error
+// wrapping [ErrVersion] before it looks at anything else. Within version 1
+// the format only grows by optional members whose absence means what it
+// meant before, so an old file reads the same in a newer reader; a change
+// that would alter the meaning of an existing file, or add a required
+// member, makes a new version. An older reader rejects a newer file's new
+// members as unknown rather than ignoring them. Version 1 describes
+// exactly constrained couplings (six independent contacts), the case every
+// analysis here needs.
+//
+// # Reading
+//
+// Unknown members, members given twice, values of the wrong JSON type,
+// unknown units and out-of-range values are errors. Every error is an
+// [*Error] holding the JSON path of the entry ("seats[2].half_angle",
+// "cases[0].applied[1].force[2]"; "" for the file as a whole) and a reason
+// wrapping one of the sentinels, for example
+//
+//	design: seats[2].half_angle: out of range: must be in (0, 90) deg, got 95 deg
+//
+// Errors that package kinematic finds (coincident balls, a groove along its
+// own up, a tolerance naming no dimension) are translated to the file's
+// paths; errors.Is finds kinematic's sentinels (ErrRange, ErrDegenerate,
+// ErrNotExact are the same values here). The reader reads at most
+// [MaxSize] bytes, at most 150 000 JSON values nested at most 16 deep, and
+// the counts given above, so a hostile file cannot make it allocate
+// without limit; the Monte Carlo study's cost grows with samples (at most
+// 1e7) and stops when the context of Evaluate is cancelled.
+//
+// # Writing
+//
+// [Design.Write] writes the canonical form: SI numbers, the members in the
+// order above, defaults written out where the reader needs them and
+// optional zero members left out. It differs textually from a file written
+// by hand, but reading it back gives an equal Design.
+//
+// # Evaluation
+//
+// [Design.Evaluate] checks the design and runs, where the design gives the
+// data: constraint and Maxwell stability, error amplification at the point
+// of interest, rigid statics of every load case with Hertz stresses
+// against the allowables, the worst shock, seating against friction, the
+// stiffness, compliance at the point of interest and natural modes, the
+// first-order error budget, the Monte Carlo study and the thermal drift.
+// It returns an [Evaluation]; [Evaluation.Verdicts] holds one [Verdict]
+// per requirement set, and [Verdicts.Err] one error naming every failure.
+//
+// # Cautions
+//
+// The results are engineering estimates from the idealised models of
+// package kinematic and package hertz: rigid bodies, frictionless Hertz
+// point contacts, small displacements, quasi-static loads. A design that
+// passes its requirements here is a candidate, not a proof. Where a result
+// bears on safety or on hardware that can be damaged, verify it by test,
+// and defer to the applicable codes and to a qualified engineer.
+// Reference materials carry typical values, some recalled from handbooks
+// (see hertz.Material's Source); use certified data for a final design.
+package design

@@ -1,0 +1,423 @@
+package design
+
+import (
+	"context"
+	"errors"
+	"fmt"
+	"math"
+
+	"gonum.org/v1/gonum/spatial/r3"
+
+	"github.com/sixfold-dev/sixfold/kinematic"
+)
+
+// Evaluation is the whole evaluation of a design: what package kinematic
+// says of its constraint, loads, stiffness and errors. A part the design
+// gives no data for (no payload mass for a shock, no thermal change) is
+// nil. Its Verdicts compare it with the design's requirements.
+type Evaluation struct {
+	// Analysis is the constraint analysis of the contacts and Stability
+	// their Maxwell indices; Weakest indexes Stability.Contacts at the
+	// smallest CentreIndex (the first of equals).
+	Analysis  kinematic.Analysis
+	Stability kinematic.Stability
+	Weakest   int
+
+	// PointError is the error amplification at the point of interest:
+	// its displacement per unit gap error at each contact.
+	PointError kinematic.PointError
+
+	// Cases holds the rigid statics of every load case, in the design's
+	// order, with each contact's Hertz stresses against the allowable.
+	// MaxPressureRatio is the largest PressureRatio over all of them and
+	// MaxPressureAt where it occurs; MinForce the smallest contact force,
+	// N (negative when a contact would have to pull), and MinForceAt
+	// where. Both are zero without load cases.
+	Cases            []kinematic.Statics
+	MaxPressureRatio float64
+	MaxPressureAt    kinematic.Bound
+	MinForce         float64
+	MinForceAt       kinematic.Bound
+
+	// Shock is the worst shock added to the case ShockCase (the
+	// requirement's case, else the first): its Unload is the level in
+	// m/s² at which the first contact unloads. Nil without payload mass
+	// or load cases.
+	Shock     *kinematic.Shock
+	ShockCase string
+
+	// Seating is whether the body seats against the design's friction
+	// under case SeatingCase. Nil without friction or load cases.
+	Seating     *kinematic.Seating
+	SeatingCase string
+
+	// Stiffness is the coupling's stiffness under case StiffnessCase (the
+	// frequency requirement's case, else the first); Compliance is its
+	// compliance at the point of interest and Modes the payload's natural
+	// modes on it (nil without the payload's mass and inertia). Nil when
+	// the design has no load case or the case leaves a contact in
+	// tension (Notes says so).
+	Stiffness     *kinematic.Stiffness
+	Compliance    *kinematic.Compliance
+	Modes         *[6]kinematic.Mode
+	StiffnessCase string
+
+	// Budget is the first-order error budget of the point of interest
+	// for the tolerances, and AxisWorstCase and AxisRSS its worst case
+	// and RSS along the design's axis, m (zero without an axis). Nil
+	// without tolerances.
+	Budget        *kinematic.Budget
+	AxisWorstCase float64
+	AxisRSS       float64
+
+	// Study is the Monte Carlo study of the point of interest. Nil
+	// without monte_carlo or tolerances.
+	Study *kinematic.StudyResult
+
+	// Drift is the thermal drift of the point of interest. Nil without
+	// thermal.
+	Drift *kinematic.Drift
+
+	// Notes lists analyses that could not be made and why.
+	Notes []string
+
+	req           Requirements
+	mu            float64
+	stiffnessNote string
+}
+
+// Evaluate returns the whole evaluation of the design: constraint and
+// Maxwell stability, the error amplification at the point of interest,
+// rigid statics of every load case with Hertz stresses, the worst shock,
+// seating against friction, stiffness, compliance and natural modes, the
+// error budget, the Monte Carlo study and the thermal drift, each where
+// the design gives its data. The design is checked first as by
+// [Design.Validate]. Errors are *Error values with the file's paths, or
+// ctx's error when ctx is cancelled (the Monte Carlo study stops early).
+func (d *Design) Evaluate(ctx context.Context) (Evaluation, error) {
+	b, err := d.build()
+	if err != nil {
+		return Evaluation{}, err
+	}
+	e := Evaluation{Analysis: b.analysis, req: d.Requirements}
+	if d.Friction != nil {
+		e.mu = d.Friction.Mu
+	}
+	t := translator{b: b}
+	if e.Stability, err = b.analysis.Stability(); err != nil {
+		return Evaluation{}, t.translate(err)
+	}
+	for i, m := range e.Stability.Contacts {
+		if m.CentreIndex < e.Stability.Contacts[e.Weakest].CentreIndex {
+			e.Weakest = i
+		}
+	}
+	if e.PointError, err = e.Stability.ErrorAt(d.Point); err != nil {
+		return Evaluation{}, t.translate(err)
+	}
+	if err := e.statics(b); err != nil {
+		return Evaluation{}, err
+	}
+	if err := ctx.Err(); err != nil {
+		return Evaluation{}, err
+	}
+	if err := e.loads(b); err != nil {
+		return Evaluation{}, err
+	}
+	if b.budget != nil {
+		e.Budget = b.budget
+		if d.Axis != zeroVec {
+			e.AxisWorstCase, e.AxisRSS = b.budget.Along(d.Axis)
+		}
+		if mc := d.MonteCarlo; mc != nil {
+			res, err := b.assembly.Study(ctx, d.Point, d.Tolerances, &kinematic.StudyOptions{
+				Samples: mc.Samples, Seed: mc.Seed, Exact: mc.Exact,
+			})
+			if err != nil {
+				if ctx.Err() != nil {
+					return Evaluation{}, ctx.Err()
+				}
+				return Evaluation{}, translator{b: b, fallback: "monte_carlo"}.translate(err)
+			}
+			e.Study = &res
+		}
+	}
+	if th := d.Thermal; th != nil {
+		dr, err := b.assembly.Drift(*th, d.Point)
+		if err != nil {
+			return Evaluation{}, translator{b: b, fallback: "thermal"}.translate(err)
+		}
+		e.Drift = &dr
+	}
+	return e, ctx.Err()
+}
+
+// statics solves every load case.
+func (e *Evaluation) statics(b *built) error {
+	d := b.d
+	e.Cases = make([]kinematic.Statics, len(d.Cases))
+	first := true
+	for k, lc := range d.Cases {
+		st, err := b.model.Statics(lc)
+		if err != nil {
+			p := index("cases", k)
+			return translator{b: b, lc: p, fallback: p}.translate(err)
+		}
+		e.Cases[k] = st
+		for _, c := range st.Contacts {
+			at := kinematic.Bound{Case: lc.Name, Contact: c.Label}
+			if first || c.Force < e.MinForce {
+				e.MinForce, e.MinForceAt = c.Force, at
+			}
+			if first || c.PressureRatio > e.MaxPressureRatio {
+				e.MaxPressureRatio, e.MaxPressureAt = c.PressureRatio, at
+			}
+			first = false
+		}
+	}
+	return nil
+}
+
+// loads makes the shock, seating and stiffness analyses.
+func (e *Evaluation) loads(b *built) error {
+	d, r, m := b.d, b.d.Requirements, b.model
+	if len(d.Cases) == 0 {
+		return nil
+	}
+	caseOf := func(name string) (kinematic.LoadCase, translator) {
+		k := d.caseIndex(name)
+		p := index("cases", k)
+		return d.Cases[k], translator{b: b, lc: p, fallback: p}
+	}
+	if d.Payload.Mass > 0 {
+		lc, t := caseOf(r.ShockCase)
+		s, err := m.Shock(lc, r.MinShock)
+		if err != nil {
+			return t.translate(err)
+		}
+		e.Shock, e.ShockCase = &s, lc.Name
+	}
+	if d.Friction != nil {
+		lc, t := caseOf(r.SeatingCase)
+		s, err := m.Seating(lc, d.Friction.Mu)
+		if err != nil {
+			return t.translate(err)
+		}
+		e.Seating, e.SeatingCase = &s, lc.Name
+	}
+	lc, t := caseOf(r.FrequencyCase)
+	e.StiffnessCase = lc.Name
+	st, err := m.Stiffness(lc, nil)
+	if err != nil {
+		if errors.Is(err, ErrRange) {
+			e.note(fmt.Sprintf("no stiffness under case %q: %v", lc.Name, unwrapKinematic(err)))
+			return nil
+		}
+		return t.translate(err)
+	}
+	e.Stiffness = &st
+	if c, err := st.Compliance(d.Point); err == nil {
+		e.Compliance = &c
+	} else {
+		e.note(fmt.Sprintf("no compliance at the point of interest under case %q: %v", lc.Name, unwrapKinematic(err)))
+	}
+	if d.Payload.Mass > 0 && d.Payload.Inertia != ([3][3]float64{}) {
+		modes, err := st.Modes()
+		if err != nil {
+			e.note(fmt.Sprintf("no natural modes under case %q: %v", lc.Name, unwrapKinematic(err)))
+			return nil
+		}
+		e.Modes = &modes
+	}
+	return nil
+}
+
+// note records why an analysis could not be made; the first note about
+// stiffness explains a frequency requirement that cannot pass.
+func (e *Evaluation) note(s string) {
+	e.Notes = append(e.Notes, s)
+	if e.stiffnessNote == "" {
+		e.stiffnessNote = s
+	}
+}
+
+// unwrapKinematic returns the reason of a kinematic input error, without
+// kinematic's field path.
+func unwrapKinematic(err error) error {
+	var ke *kinematic.InputError
+	if errors.As(err, &ke) {
+		return ke.Err
+	}
+	return err
+}
+
+// Verdicts returns, for every requirement the design sets, what the
+// design achieves against its limit, in the order of the requirements'
+// documentation (see [Requirements]).
+func (e Evaluation) Verdicts() Verdicts {
+	r := e.req
+	var vs Verdicts
+	add := func(name string, value, limit float64, unit string, min bool, note string) {
+		v := Verdict{Requirement: "requirements." + name, Value: value, Limit: limit, Unit: unit, Min: min, Note: note}
+		if min {
+			v.Pass = value >= limit
+		} else {
+			v.Pass = value <= limit
+		}
+		vs = append(vs, v)
+	}
+	if r.MinMaxwellIndex > 0 {
+		c := e.Stability.Contacts[e.Weakest]
+		add("min_maxwell_index", c.CentreIndex, r.MinMaxwellIndex, "", true, "weakest at contact "+c.Label)
+	}
+	if r.MaxPressureRatio > 0 {
+		add("max_pressure_ratio", e.MaxPressureRatio, r.MaxPressureRatio, "", false, where(e.MaxPressureAt))
+	}
+	if r.MinContactForce > 0 {
+		add("min_contact_force", e.MinForce, r.MinContactForce, "N", true, where(e.MinForceAt))
+	}
+	if r.MinShock > 0 && e.Shock != nil {
+		note := fmt.Sprintf("added to case %q", e.ShockCase)
+		if len(e.Shock.First) > 0 {
+			note = fmt.Sprintf("contact %s unloads first, added to case %q", e.Shock.First[0], e.ShockCase)
+		}
+		add("min_shock", e.Shock.Unload, r.MinShock, "m/s^2", true, note)
+	}
+	if r.MinFrequency > 0 {
+		f, note := 0.0, e.stiffnessNote
+		if e.Modes != nil {
+			f, note = e.Modes[0].Frequency, fmt.Sprintf("under case %q", e.StiffnessCase)
+		}
+		add("min_frequency", f, r.MinFrequency, "Hz", true, note)
+	}
+	if e.Budget != nil {
+		worst, rss, note := e.Budget.WorstCase, e.Budget.RSS, "at the point of interest"
+		if r.AlongAxis {
+			worst, rss, note = e.AxisWorstCase, e.AxisRSS, "along the axis at the point of interest"
+		}
+		if r.MaxWorstCase > 0 {
+			add("max_error.worst_case", worst, r.MaxWorstCase, "m", false, note)
+		}
+		if r.MaxRSS > 0 {
+			add("max_error.rss", rss, r.MaxRSS, "m", false, note)
+		}
+	}
+	if r.MaxStudy > 0 && e.Study != nil {
+		note := fmt.Sprintf("radial %v of %d samples", r.StudyPercentile, e.Study.Samples)
+		if e.Study.Failed > 0 {
+			note += fmt.Sprintf(", %d of which could not seat", e.Study.Failed)
+		}
+		add("max_study", r.StudyPercentile.of(e.Study.Radial), r.MaxStudy, "m", false, note)
+	}
+	if r.MaxThermalDrift > 0 && e.Drift != nil {
+		add("max_thermal_drift", r3.Norm(e.Drift.Exact), r.MaxThermalDrift, "m", false, "exact seat of the expanded geometry")
+	}
+	if r.Seating && e.Seating != nil {
+		v := Verdict{Requirement: "requirements.seating", Value: e.Seating.MaxMu, Limit: e.mu, Min: true,
+			Pass: e.Seating.Seats, Note: fmt.Sprintf("under case %q", e.SeatingCase)}
+		vs = append(vs, v)
+	}
+	return vs
+}
+
+// where returns a note naming a case and contact.
+func where(b kinematic.Bound) string {
+	if b.Case == "" && b.Contact == "" {
+		return ""
+	}
+	return fmt.Sprintf("at contact %s in case %q", b.Contact, b.Case)
+}
+
+// Verdict is one requirement checked: what the design achieves (Value)
+// against the requirement's limit, both in the SI unit Unit ("" for a
+// pure number). A minimum (Min) passes when Value ≥ Limit, a maximum when
+// Value ≤ Limit. For requirements.seating, Value is the largest
+// coefficient of friction at which the body seats (kinematic.Seating
+// MaxMu), Limit the design's, and Pass whether it seats at that friction.
+type Verdict struct {
+	Requirement string // the requirement's JSON path, e.g. "requirements.min_shock"
+	Value       float64
+	Limit       float64
+	Unit        string
+	Min         bool
+	Pass        bool
+	Note        string // where the value occurs, or why it could not be found
+}
+
+// String returns the verdict in words, for example
+// "requirements.min_shock: 31.18 m/s^2 (3.18 g), needs at least 49.03 m/s^2 (5 g): fails".
+func (v Verdict) String() string {
+	verdict := "passes"
+	if !v.Pass {
+		verdict = "fails"
+	}
+	note := ""
+	if v.Note != "" {
+		note = " (" + v.Note + ")"
+	}
+	if v.Requirement == "requirements.seating" {
+		return fmt.Sprintf("%s: seats up to mu = %.4g, needs mu = %.4g%s: %s", v.Requirement, v.Value, v.Limit, note, verdict)
+	}
+	bound := "at most"
+	if v.Min {
+		bound = "at least"
+	}
+	return fmt.Sprintf("%s: %s, needs %s %s%s: %s", v.Requirement, quantityString(v.Value, v.Unit), bound, quantityString(v.Limit, v.Unit), note, verdict)
+}
+
+// quantityString formats a value in its unit; accelerations also in g.
+func quantityString(v float64, unit string) string {
+	s := fmt.Sprintf("%.4g", v)
+	if math.IsInf(v, 1) {
+		s = "+Inf"
+	}
+	if unit != "" {
+		s += " " + unit
+	}
+	if unit == "m/s^2" && !math.IsInf(v, 0) {
+		s += fmt.Sprintf(" (%.3g g)", v/kinematic.StandardGravity)
+	}
+	return s
+}
+
+// Verdicts are the verdicts of a design's requirements.
+type Verdicts []Verdict
+
+// Err returns nil when every verdict passes, and otherwise one error that
+// names every requirement that fails, with its value and limit, and wraps
+// [ErrRequirement]:
+//
+//	if err := ev.Verdicts().Err(); err != nil {
+//		t.Fatal(err)
+//	}
+func (v Verdicts) Err() error {
+	var failed Verdicts
+	for _, x := range v {
+		if !x.Pass {
+			failed = append(failed, x)
+		}
+	}
+	if len(failed) == 0 {
+		return nil
+	}
+	return &verdictError{failed: failed, total: len(v)}
+}
+
+type verdictError struct {
+	failed Verdicts
+	total  int
+}
+
+func (e *verdictError) Error() string {
+	s := fmt.Sprintf("design: %d of %d requirements not met", len(e.failed), e.total)
+	for i, v := range e.failed {
+		sep := "; "
+		if i == 0 {
+			sep = ": "
+		}
+		s += sep + v.String()
+	}
+	return s
+}
+
+func (e *verdictError) Unwrap() error { return ErrRequirement }

@@ -1,0 +1,57 @@
+package design_test
+
+import (
+	"context"
+	_ "embed"
+	"fmt"
+	"log"
+
+	"github.com/sixfold-dev/sixfold/kinematic"
+	"github.com/sixfold-dev/sixfold/kinematic/design"
+)
+
+//go:embed testdata/equilateral.json
+var fixture []byte
+
+// A bench fixture holds a 2 kg part on three half-inch balls in 90° vees,
+// pressed down by a 300 N spring. Its design file carries the requirements
+// (a shock of 5 g, a first frequency of 700 Hz, a micrometre of error at
+// the centre, ...), and a test asserts all of them in one line. The
+// numbers printed are the closed forms worked in the package's tests:
+// each contact carries (P + mg)/(6 sin 45°) = 75.33 N, and the first
+// contact unloads at 71.47 m/s² (7.29 g) in the worst direction.
+func Example() {
+	d, err := design.Parse(fixture)
+	if err != nil {
+		log.Fatal(err)
+	}
+	ev, err := d.Evaluate(context.Background())
+	if err != nil {
+		log.Fatal(err)
+	}
+	st := ev.Cases[0]
+	fmt.Printf("contact force in case %q: %.2f N\n", st.Case, st.Contacts[0].Force)
+	fmt.Printf("shock level: %.2f g\n", ev.Shock.Unload/kinematic.StandardGravity)
+	fmt.Printf("first natural frequency: %.0f Hz\n", ev.Modes[0].Frequency)
+	fmt.Printf("error budget at the centre: worst case %.3f µm, RSS %.3f µm\n", ev.Budget.WorstCase*1e6, ev.Budget.RSS*1e6)
+	if err := ev.Verdicts().Err(); err != nil {
+		fmt.Println(err)
+	} else {
+		fmt.Printf("all %d requirements met\n", len(ev.Verdicts()))
+	}
+
+	// A stricter shock requirement fails, and the error says which and by
+	// how much.
+	d.Requirements.MinShock = 10 * kinematic.StandardGravity
+	if ev, err = d.Evaluate(context.Background()); err != nil {
+		log.Fatal(err)
+	}
+	fmt.Println(ev.Verdicts().Err())
+	// Output:
+	// contact force in case "seated": 75.33 N
+	// shock level: 7.29 g
+	// first natural frequency: 797 Hz
+	// error budget at the centre: worst case 1.414 µm, RSS 0.816 µm
+	// all 10 requirements met
+	// design: 1 of 10 requirements not met: requirements.min_shock: 71.47 m/s^2 (7.29 g), needs at least 98.07 m/s^2 (10 g) (contact A+ unloads first, added to case "seated"): fails
+}

@@ -1,0 +1,890 @@
+package design
+
+import (
+	"errors"
+	"fmt"
+	"io"
+	"math"
+	"strconv"
+	"strings"
+
+	"gonum.org/v1/gonum/spatial/r3"
+
+	"github.com/sixfold-dev/sixfold/hertz"
+	"github.com/sixfold-dev/sixfold/kinematic"
+	"github.com/sixfold-dev/sixfold/screw"
+)
+
+// Bounds on the counts of a design, so that a hostile file cannot make
+// the reader or an evaluation allocate without limit.
+const (
+	maxBalls      = 64
+	maxPreloads   = 64
+	maxCases      = 256
+	maxApplied    = 64
+	maxTolerances = 10_000
+	maxSamples    = 10_000_000 // kinematic.StudyOptions.Samples' own bound
+	maxName       = 64         // bytes of a name
+	maxText       = 4096       // bytes of a description or a material's source
+)
+
+// Read returns the design in the file read from r, checked as by
+// [Design.Validate]. It reads at most [MaxSize] bytes; a longer input is
+// an error wrapping [ErrTooLarge]. Every error is an [*Error] naming the
+// JSON path of the entry at fault.
+func Read(r io.Reader) (*Design, error) {
+	b, err := io.ReadAll(io.LimitReader(r, MaxSize+1))
+	if err != nil {
+		return nil, &Error{Err: err}
+	}
+	if len(b) > MaxSize {
+		return nil, errorf("", ErrTooLarge, "the file is longer than %d bytes (%d MiB), the most that is read", MaxSize, MaxSize>>20)
+	}
+	return Parse(b)
+}
+
+// Parse returns the design in the file b, checked as by
+// [Design.Validate]. b must hold at most [MaxSize] bytes. Every error is
+// an [*Error] naming the JSON path of the entry at fault.
+func Parse(b []byte) (*Design, error) {
+	root, err := parseTree(b)
+	if err != nil {
+		return nil, err
+	}
+	d, err := walk(root)
+	if err != nil {
+		return nil, err
+	}
+	if err := d.Validate(); err != nil {
+		return nil, err
+	}
+	return d, nil
+}
+
+// fields checks that n is an object whose members are all among allowed;
+// what names the object in messages ("a ball").
+func fields(n *node, path, what string, allowed ...string) error {
+	if n.kind != objectNode {
+		return errorf(path, ErrType, "%s is an object, got %s", what, n.kind)
+	}
+next:
+	for _, k := range n.keys {
+		for _, a := range allowed {
+			if k == a {
+				continue next
+			}
+		}
+		return errorf(join(path, k), ErrUnknownField, "%s has the fields %s", what, strings.Join(allowed, ", "))
+	}
+	return nil
+}
+
+// number returns the value of a plain JSON number.
+func number(n *node, path string) (float64, error) {
+	if n.kind != numberNode {
+		return 0, errorf(path, ErrType, "must be a plain number, got %s", n.kind)
+	}
+	return literal(n.text, path)
+}
+
+// literal returns the value of a JSON number literal.
+func literal(s, path string) (float64, error) {
+	v, err := strconv.ParseFloat(s, 64)
+	if err != nil || math.IsInf(v, 0) {
+		return 0, errorf(path, ErrNonFinite, "%s is beyond float64", s)
+	}
+	return v, nil
+}
+
+// quantity returns the SI value of a quantity: a plain number in k's SI
+// unit, or a string with a unit.
+func quantity(n *node, path string, k *quantityKind) (float64, error) {
+	switch n.kind {
+	case numberNode:
+		return literal(n.text, path)
+	case stringNode:
+		v, err := parseQuantity(n.text, k)
+		if err != nil {
+			return 0, &Error{Path: path, Err: err}
+		}
+		return v, nil
+	}
+	return 0, errorf(path, ErrType, "must be %s: a number in %s or a string such as \"12.7 %s\", got %s", k.what, k.si, exampleUnit(k), n.kind)
+}
+
+// vector returns a vector of three quantities of kind k, or of three
+// plain numbers when k is nil (a direction).
+func vector(n *node, path string, k *quantityKind) (r3.Vec, error) {
+	if n.kind != arrayNode || len(n.vals) != 3 {
+		what := "three numbers"
+		if k != nil {
+			what = "three quantities (" + k.what + " each)"
+		}
+		got := n.kind.String()
+		if n.kind == arrayNode {
+			got = fmt.Sprintf("%d entries", len(n.vals))
+		}
+		return r3.Vec{}, errorf(path, ErrType, "must be an array of %s [x, y, z], got %s", what, got)
+	}
+	var c [3]float64
+	for i, e := range n.vals {
+		var err error
+		if k == nil {
+			c[i], err = number(e, index(path, i))
+		} else {
+			c[i], err = quantity(e, index(path, i), k)
+		}
+		if err != nil {
+			return r3.Vec{}, err
+		}
+	}
+	return r3.Vec{X: c[0], Y: c[1], Z: c[2]}, nil
+}
+
+// text returns a string of at most max bytes.
+func text(n *node, path string, max int) (string, error) {
+	if n.kind != stringNode {
+		return "", errorf(path, ErrType, "must be a string, got %s", n.kind)
+	}
+	if len(n.text) > max {
+		return "", errorf(path, ErrTooLarge, "%d bytes; at most %d", len(n.text), max)
+	}
+	return n.text, nil
+}
+
+// boolean returns a JSON boolean.
+func boolean(n *node, path string) (bool, error) {
+	if n.kind != boolNode {
+		return false, errorf(path, ErrType, "must be true or false, got %s", n.kind)
+	}
+	return n.b, nil
+}
+
+// list returns the elements of an array of at most max entries.
+func list(n *node, path string, max int) ([]*node, error) {
+	if n.kind != arrayNode {
+		return nil, errorf(path, ErrType, "must be an array, got %s", n.kind)
+	}
+	if len(n.vals) > max {
+		return nil, errorf(path, ErrTooLarge, "%d entries; at most %d", len(n.vals), max)
+	}
+	return n.vals, nil
+}
+
+// The optional-member helpers leave *dst alone when the member is absent.
+
+func optQuantity(o *node, path, key string, k *quantityKind, dst *float64) error {
+	if n := o.get(key); n != nil {
+		v, err := quantity(n, join(path, key), k)
+		*dst = v
+		return err
+	}
+	return nil
+}
+
+func reqQuantity(o *node, path, key string, k *quantityKind, dst *float64) error {
+	if o.get(key) == nil {
+		return errorf(join(path, key), ErrMissing, "%s in %s", k.what, k.si)
+	}
+	return optQuantity(o, path, key, k, dst)
+}
+
+func optVector(o *node, path, key string, k *quantityKind, dst *r3.Vec) error {
+	if n := o.get(key); n != nil {
+		v, err := vector(n, join(path, key), k)
+		*dst = v
+		return err
+	}
+	return nil
+}
+
+func optNumber(o *node, path, key string, dst *float64) error {
+	if n := o.get(key); n != nil {
+		v, err := number(n, join(path, key))
+		*dst = v
+		return err
+	}
+	return nil
+}
+
+func optText(o *node, path, key string, max int, dst *string) error {
+	if n := o.get(key); n != nil {
+		v, err := text(n, join(path, key), max)
+		*dst = v
+		return err
+	}
+	return nil
+}
+
+// positive returns an error unless v, a requirement's limit as given in
+// the file, is > 0 (a zero limit would mean "not set" in a Design).
+func positive(v float64, path string) error {
+	if !(v > 0) {
+		return errorf(path, ErrRange, "a limit must be > 0, got %g; leave the requirement out to not check it", v)
+	}
+	return nil
+}
+
+// walk returns the design in the tree.
+func walk(root *node) (*Design, error) {
+	if root.kind != objectNode {
+		return nil, errorf("", ErrType, "a design file is a JSON object, got %s", root.kind)
+	}
+	f := root.get("format")
+	if f == nil {
+		return nil, errorf("format", ErrMissing, "a design file names its format: \"format\": %q", Format)
+	}
+	if f.kind != stringNode {
+		return nil, errorf("format", ErrType, "must be a string such as %q, got %s", Format, f.kind)
+	}
+	if f.text != Format {
+		return nil, errorf("format", ErrVersion, "%q; this package reads %q", f.text, Format)
+	}
+	if err := fields(root, "", "a design", "format", "name", "description", "balls", "seats",
+		"preloads", "payload", "cases", "tolerances", "point_of_interest", "axis",
+		"thermal", "friction", "monte_carlo", "requirements"); err != nil {
+		return nil, err
+	}
+	d := &Design{}
+	if err := optText(root, "", "name", maxText, &d.Name); err != nil {
+		return nil, err
+	}
+	if err := optText(root, "", "description", maxText, &d.Description); err != nil {
+		return nil, err
+	}
+	bs := root.get("balls")
+	if bs == nil {
+		return nil, errorf("balls", ErrMissing, "a design needs its balls")
+	}
+	elems, err := list(bs, "balls", maxBalls)
+	if err != nil {
+		return nil, err
+	}
+	for i, n := range elems {
+		b, err := readBall(n, index("balls", i))
+		if err != nil {
+			return nil, err
+		}
+		d.Balls = append(d.Balls, b)
+	}
+	ss := root.get("seats")
+	if ss == nil {
+		return nil, errorf("seats", ErrMissing, "a design needs a seat for every ball")
+	}
+	if elems, err = list(ss, "seats", maxBalls); err != nil {
+		return nil, err
+	}
+	for i, n := range elems {
+		s, err := readSeat(n, index("seats", i))
+		if err != nil {
+			return nil, err
+		}
+		d.Seats = append(d.Seats, s)
+	}
+	if n := root.get("preloads"); n != nil {
+		if elems, err = list(n, "preloads", maxPreloads); err != nil {
+			return nil, err
+		}
+		for i, n := range elems {
+			p, err := readPreload(n, index("preloads", i))
+			if err != nil {
+				return nil, err
+			}
+			d.Preloads = append(d.Preloads, p)
+		}
+	}
+	if n := root.get("payload"); n != nil {
+		if d.Payload, err = readPayload(n, "payload"); err != nil {
+			return nil, err
+		}
+	}
+	if n := root.get("cases"); n != nil {
+		if elems, err = list(n, "cases", maxCases); err != nil {
+			return nil, err
+		}
+		for i, n := range elems {
+			c, err := readCase(n, index("cases", i))
+			if err != nil {
+				return nil, err
+			}
+			d.Cases = append(d.Cases, c)
+		}
+	}
+	if n := root.get("tolerances"); n != nil {
+		if elems, err = list(n, "tolerances", maxTolerances); err != nil {
+			return nil, err
+		}
+		if len(elems) > 0 {
+			d.Tolerances = make([]kinematic.Tolerance, 0, len(elems))
+		}
+		for i, n := range elems {
+			t, err := readTolerance(n, index("tolerances", i))
+			if err != nil {
+				return nil, err
+			}
+			d.Tolerances = append(d.Tolerances, t)
+		}
+	}
+	if err := optVector(root, "", "point_of_interest", length, &d.Point); err != nil {
+		return nil, err
+	}
+	if err := optVector(root, "", "axis", nil, &d.Axis); err != nil {
+		return nil, err
+	}
+	if n := root.get("thermal"); n != nil {
+		if d.Thermal, err = readThermal(n, "thermal"); err != nil {
+			return nil, err
+		}
+	}
+	if n := root.get("friction"); n != nil {
+		if err := fields(n, "friction", "friction", "mu"); err != nil {
+			return nil, err
+		}
+		d.Friction = &Friction{}
+		m := n.get("mu")
+		if m == nil {
+			return nil, errorf("friction.mu", ErrMissing, "the coefficient of friction, a plain number")
+		}
+		if d.Friction.Mu, err = number(m, "friction.mu"); err != nil {
+			return nil, err
+		}
+	}
+	if n := root.get("monte_carlo"); n != nil {
+		if d.MonteCarlo, err = readMonteCarlo(n, "monte_carlo"); err != nil {
+			return nil, err
+		}
+	}
+	if n := root.get("requirements"); n != nil {
+		if d.Requirements, err = readRequirements(n, "requirements"); err != nil {
+			return nil, err
+		}
+	}
+	return d, nil
+}
+
+func readBall(n *node, path string) (Ball, error) {
+	var b Ball
+	if err := fields(n, path, "a ball", "name", "centre", "radius", "material"); err != nil {
+		return b, err
+	}
+	if err := optText(n, path, "name", maxName, &b.Name); err != nil {
+		return b, err
+	}
+	if n.get("centre") == nil {
+		return b, errorf(join(path, "centre"), ErrMissing, "the ball's centre [x, y, z], lengths")
+	}
+	if err := optVector(n, path, "centre", length, &b.Centre); err != nil {
+		return b, err
+	}
+	if err := reqQuantity(n, path, "radius", length, &b.Radius); err != nil {
+		return b, err
+	}
+	var err error
+	b.Material, err = readMaterialOf(n, path)
+	return b, err
+}
+
+// readMaterialOf reads the required member "material" of n.
+func readMaterialOf(n *node, path string) (hertz.Material, error) {
+	m := n.get("material")
+	path = join(path, "material")
+	if m == nil {
+		return hertz.Material{}, errorf(path, ErrMissing, "a material key (%s) or an object {\"e\", \"nu\", ...}", keyList())
+	}
+	switch m.kind {
+	case stringNode:
+		mat, ok := lookupMaterial(m.text)
+		if !ok {
+			return hertz.Material{}, errorf(path, ErrRange, "no material %q in the table (%s); give other materials inline", m.text, keyList())
+		}
+		return mat, nil
+	case objectNode:
+		var mat hertz.Material
+		if err := fields(m, path, "a material", "name", "e", "nu", "alpha", "allowable", "source"); err != nil {
+			return mat, err
+		}
+		if err := optText(m, path, "name", maxText, &mat.Name); err != nil {
+			return mat, err
+		}
+		if err := reqQuantity(m, path, "e", pressure, &mat.E); err != nil {
+			return mat, err
+		}
+		if m.get("nu") == nil {
+			return mat, errorf(join(path, "nu"), ErrMissing, "Poisson's ratio, a plain number")
+		}
+		if err := optNumber(m, path, "nu", &mat.Nu); err != nil {
+			return mat, err
+		}
+		if err := optQuantity(m, path, "alpha", expansion, &mat.Alpha); err != nil {
+			return mat, err
+		}
+		if err := optQuantity(m, path, "allowable", pressure, &mat.Allowable); err != nil {
+			return mat, err
+		}
+		if err := optText(m, path, "source", maxText, &mat.Source); err != nil {
+			return mat, err
+		}
+		return mat, nil
+	}
+	return hertz.Material{}, errorf(path, ErrType, "must be a material key (a string) or an object, got %s", m.kind)
+}
+
+// seatFields lists the members of each seat type.
+var seatFields = map[SeatType][]string{
+	Vee:       {"type", "up", "material", "half_angle", "flank_radius", "direction", "azimuth", "reference"},
+	Rods:      {"type", "up", "material", "half_angle", "rod_radius", "direction", "azimuth", "reference"},
+	Flat:      {"type", "up", "material"},
+	Trihedral: {"type", "up", "material", "half_angle", "toward"},
+	Cone:      {"type", "up", "material", "half_angle", "toward"},
+}
+
+func readSeat(n *node, path string) (Seat, error) {
+	s := Seat{Up: r3.Vec{Z: 1}}
+	if n.kind != objectNode {
+		return s, errorf(path, ErrType, "a seat is an object, got %s", n.kind)
+	}
+	tn := n.get("type")
+	if tn == nil {
+		return s, errorf(join(path, "type"), ErrMissing, "one of \"vee\", \"rods\", \"flat\", \"trihedral\", \"cone\"")
+	}
+	tv, err := text(tn, join(path, "type"), maxName)
+	if err != nil {
+		return s, err
+	}
+	for t, name := range seatTypeNames {
+		if name != "" && name == tv {
+			s.Type = SeatType(t)
+		}
+	}
+	if s.Type == 0 {
+		return s, errorf(join(path, "type"), ErrRange, "%q; must be one of \"vee\", \"rods\", \"flat\", \"trihedral\", \"cone\"", tv)
+	}
+	if err := fields(n, path, "a "+tv+" seat", seatFields[s.Type]...); err != nil {
+		return s, err
+	}
+	if err := optVector(n, path, "up", nil, &s.Up); err != nil {
+		return s, err
+	}
+	if s.Type != Flat {
+		if err := reqQuantity(n, path, "half_angle", angle, &s.HalfAngle); err != nil {
+			return s, err
+		}
+	}
+	switch s.Type {
+	case Vee:
+		if err := optQuantity(n, path, "flank_radius", length, &s.FlankRadius); err != nil {
+			return s, err
+		}
+	case Rods:
+		if err := reqQuantity(n, path, "rod_radius", length, &s.RodRadius); err != nil {
+			return s, err
+		}
+	case Trihedral:
+		if n.get("toward") == nil {
+			return s, errorf(join(path, "toward"), ErrMissing, "the direction [x, y, z] of the socket's first contact")
+		}
+		fallthrough
+	case Cone:
+		if err := optVector(n, path, "toward", nil, &s.Toward); err != nil {
+			return s, err
+		}
+	}
+	if s.Type == Vee || s.Type == Rods {
+		dir, az, ref := n.get("direction"), n.get("azimuth"), n.get("reference")
+		switch {
+		case dir != nil && az != nil:
+			return s, errorf(join(path, "azimuth"), ErrRange, "give the groove's direction or its azimuth, not both")
+		case dir == nil && az == nil:
+			return s, errorf(join(path, "direction"), ErrMissing, "a groove needs its direction [x, y, z] or an azimuth (with its reference)")
+		case dir != nil && ref != nil:
+			return s, errorf(join(path, "reference"), ErrRange, "a reference goes with an azimuth, not with a direction")
+		case dir != nil:
+			if err := optVector(n, path, "direction", nil, &s.Direction); err != nil {
+				return s, err
+			}
+		default:
+			if err := optQuantity(n, path, "azimuth", angle, &s.Azimuth); err != nil {
+				return s, err
+			}
+			if ref != nil {
+				rv, err := text(ref, join(path, "reference"), maxName)
+				if err != nil {
+					return s, err
+				}
+				switch rv {
+				case "radial":
+					s.Reference = kinematic.Radial
+				case "frame_x":
+					s.Reference = kinematic.FrameX
+				default:
+					return s, errorf(join(path, "reference"), ErrRange, "%q; must be \"radial\" or \"frame_x\"", rv)
+				}
+			}
+		}
+	}
+	s.Material, err = readMaterialOf(n, path)
+	return s, err
+}
+
+func readPreload(n *node, path string) (kinematic.Preload, error) {
+	var p kinematic.Preload
+	if err := fields(n, path, "a preload", "name", "point", "direction", "force", "rate", "couple"); err != nil {
+		return p, err
+	}
+	if err := optText(n, path, "name", maxName, &p.Name); err != nil {
+		return p, err
+	}
+	if err := optVector(n, path, "point", length, &p.Point); err != nil {
+		return p, err
+	}
+	if err := optVector(n, path, "direction", nil, &p.Direction); err != nil {
+		return p, err
+	}
+	if err := optQuantity(n, path, "force", force, &p.Force); err != nil {
+		return p, err
+	}
+	if err := optQuantity(n, path, "rate", rate, &p.Rate); err != nil {
+		return p, err
+	}
+	return p, optVector(n, path, "couple", moment, &p.Couple)
+}
+
+var inertiaKeys = [6]string{"xx", "yy", "zz", "xy", "xz", "yz"}
+
+func readPayload(n *node, path string) (kinematic.Payload, error) {
+	var p kinematic.Payload
+	if err := fields(n, path, "a payload", "mass", "centre", "inertia"); err != nil {
+		return p, err
+	}
+	if err := optQuantity(n, path, "mass", mass, &p.Mass); err != nil {
+		return p, err
+	}
+	if err := optVector(n, path, "centre", length, &p.Centre); err != nil {
+		return p, err
+	}
+	in := n.get("inertia")
+	if in == nil {
+		return p, nil
+	}
+	ip := join(path, "inertia")
+	if err := fields(in, ip, "an inertia tensor", inertiaKeys[:]...); err != nil {
+		return p, err
+	}
+	for _, k := range inertiaKeys {
+		var v float64
+		if err := optQuantity(in, ip, k, inertia, &v); err != nil {
+			return p, err
+		}
+		r, c := strings.IndexByte("xyz", k[0]), strings.IndexByte("xyz", k[1])
+		p.Inertia[r][c], p.Inertia[c][r] = v, v
+	}
+	return p, nil
+}
+
+func readCase(n *node, path string) (kinematic.LoadCase, error) {
+	lc := kinematic.LoadCase{Preload: 1}
+	if err := fields(n, path, "a load case", "name", "preload", "gravity", "acceleration", "applied"); err != nil {
+		return lc, err
+	}
+	if n.get("name") == nil {
+		return lc, errorf(join(path, "name"), ErrMissing, "a load case needs a name")
+	}
+	if err := optText(n, path, "name", maxName, &lc.Name); err != nil {
+		return lc, err
+	}
+	if err := optNumber(n, path, "preload", &lc.Preload); err != nil {
+		return lc, err
+	}
+	if err := optVector(n, path, "gravity", acceleration, &lc.Gravity); err != nil {
+		return lc, err
+	}
+	if err := optVector(n, path, "acceleration", acceleration, &lc.Acceleration); err != nil {
+		return lc, err
+	}
+	an := n.get("applied")
+	if an == nil {
+		return lc, nil
+	}
+	ap := join(path, "applied")
+	elems, err := list(an, ap, maxApplied)
+	if err != nil {
+		return lc, err
+	}
+	for i, e := range elems {
+		p := index(ap, i)
+		if err := fields(e, p, "an applied load", "force", "point", "moment"); err != nil {
+			return lc, err
+		}
+		var f, at, m r3.Vec
+		if err := optVector(e, p, "force", force, &f); err != nil {
+			return lc, err
+		}
+		if err := optVector(e, p, "point", length, &at); err != nil {
+			return lc, err
+		}
+		if err := optVector(e, p, "moment", moment, &m); err != nil {
+			return lc, err
+		}
+		// A force f through the point at and a couple m: the wrench
+		// (f, at × f + m) about the origin.
+		w := screw.Wrench{F: f, M: r3.Add(r3.Cross(at, f), m)}
+		if !finite(w.M) {
+			return lc, errorf(p, ErrNonFinite, "the moment of the force about the origin overflows")
+		}
+		lc.Applied = append(lc.Applied, w)
+	}
+	return lc, nil
+}
+
+// angleParts are the dimensions of kinematic.Assembly that are angles;
+// every other dimension is a length.
+var angleParts = []string{"Turn", "Tilt", "Tilt1", "Tilt2", "HalfAngle"}
+
+// dimensionKind returns the kind of quantity of the named dimension.
+func dimensionKind(dim string) *quantityKind {
+	part := dim[strings.LastIndexByte(dim, '.')+1:]
+	for _, a := range angleParts {
+		if part == a {
+			return angle
+		}
+	}
+	return length
+}
+
+func readTolerance(n *node, path string) (kinematic.Tolerance, error) {
+	var t kinematic.Tolerance
+	if err := fields(n, path, "a tolerance", "dimension", "value", "distribution"); err != nil {
+		return t, err
+	}
+	dn := n.get("dimension")
+	if dn == nil {
+		return t, errorf(join(path, "dimension"), ErrMissing, "a dimension name such as \"A.Ball.Radius\"")
+	}
+	var err error
+	if t.Dimension, err = text(dn, join(path, "dimension"), maxName); err != nil {
+		return t, err
+	}
+	k := dimensionKind(t.Dimension)
+	if n.get("value") == nil {
+		return t, errorf(join(path, "value"), ErrMissing, "%s of %s in %s", t.Dimension, k.what, k.si)
+	}
+	if err := optQuantity(n, path, "value", k, &t.Value); err != nil {
+		var e *Error
+		if errors.As(err, &e) && errors.Is(err, ErrUnit) {
+			e.Err = fmt.Errorf("%w (%s is %s)", e.Err, t.Dimension, k.what)
+		}
+		return t, err
+	}
+	if dist := n.get("distribution"); dist != nil {
+		v, err := text(dist, join(path, "distribution"), maxName)
+		if err != nil {
+			return t, err
+		}
+		switch v {
+		case "uniform":
+			t.Distribution = kinematic.Uniform
+		case "normal":
+			t.Distribution = kinematic.Normal
+		default:
+			return t, errorf(join(path, "distribution"), ErrRange, "%q; must be \"uniform\" or \"normal\"", v)
+		}
+	}
+	return t, nil
+}
+
+func readThermal(n *node, path string) (*kinematic.Thermal, error) {
+	th := &kinematic.Thermal{}
+	if err := fields(n, path, "a thermal change", "delta_t", "moving_alpha", "base_alpha", "base_ref"); err != nil {
+		return nil, err
+	}
+	if err := reqQuantity(n, path, "delta_t", temperature, &th.DeltaT); err != nil {
+		return nil, err
+	}
+	if err := optQuantity(n, path, "moving_alpha", expansion, &th.Moving); err != nil {
+		return nil, err
+	}
+	if err := optQuantity(n, path, "base_alpha", expansion, &th.Base); err != nil {
+		return nil, err
+	}
+	if err := optVector(n, path, "base_ref", length, &th.BaseRef); err != nil {
+		return nil, err
+	}
+	return th, nil
+}
+
+func readMonteCarlo(n *node, path string) (*MonteCarlo, error) {
+	mc := &MonteCarlo{}
+	if err := fields(n, path, "a Monte Carlo study", "samples", "seed", "exact"); err != nil {
+		return nil, err
+	}
+	sn := n.get("samples")
+	if sn == nil {
+		return nil, errorf(join(path, "samples"), ErrMissing, "the number of parts drawn, 1 to %d", maxSamples)
+	}
+	sp := join(path, "samples")
+	v, err := number(sn, sp)
+	if err != nil {
+		return nil, err
+	}
+	if v != math.Trunc(v) || v < 1 || v > maxSamples {
+		return nil, errorf(sp, ErrRange, "must be a whole number in [1, %d], got %s", maxSamples, sn.text)
+	}
+	mc.Samples = int(v)
+	if s := n.get("seed"); s != nil {
+		p := join(path, "seed")
+		if s.kind != numberNode {
+			return nil, errorf(p, ErrType, "must be a whole number in [0, 2^64), got %s", s.kind)
+		}
+		if mc.Seed, err = strconv.ParseUint(s.text, 10, 64); err != nil {
+			return nil, errorf(p, ErrRange, "must be a whole number in [0, 2^64) written without a fraction or exponent, got %s", s.text)
+		}
+	}
+	if e := n.get("exact"); e != nil {
+		if mc.Exact, err = boolean(e, join(path, "exact")); err != nil {
+			return nil, err
+		}
+	}
+	return mc, nil
+}
+
+// caseRef reads the optional member "case" of a requirement object.
+func caseRef(n *node, path string, dst *string) error {
+	return optText(n, path, "case", maxName, dst)
+}
+
+func readRequirements(n *node, path string) (Requirements, error) {
+	var r Requirements
+	if err := fields(n, path, "a requirements object", "min_maxwell_index", "max_pressure_ratio", "min_contact_force",
+		"min_shock", "min_frequency", "max_error", "max_study", "max_thermal_drift", "seating"); err != nil {
+		return r, err
+	}
+	type limit struct {
+		key  string
+		kind *quantityKind // nil: a plain number
+		dst  *float64
+	}
+	for _, l := range []limit{
+		{"min_maxwell_index", nil, &r.MinMaxwellIndex},
+		{"max_pressure_ratio", nil, &r.MaxPressureRatio},
+		{"min_contact_force", force, &r.MinContactForce},
+		{"max_thermal_drift", length, &r.MaxThermalDrift},
+	} {
+		m := n.get(l.key)
+		if m == nil {
+			continue
+		}
+		p := join(path, l.key)
+		var err error
+		if l.kind == nil {
+			*l.dst, err = number(m, p)
+		} else {
+			*l.dst, err = quantity(m, p, l.kind)
+		}
+		if err != nil {
+			return r, err
+		}
+		if err := positive(*l.dst, p); err != nil {
+			return r, err
+		}
+	}
+	if m := n.get("min_shock"); m != nil {
+		p := join(path, "min_shock")
+		if err := fields(m, p, "a shock requirement", "level", "case"); err != nil {
+			return r, err
+		}
+		if err := reqQuantity(m, p, "level", acceleration, &r.MinShock); err != nil {
+			return r, err
+		}
+		if err := positive(r.MinShock, join(p, "level")); err != nil {
+			return r, err
+		}
+		if err := caseRef(m, p, &r.ShockCase); err != nil {
+			return r, err
+		}
+	}
+	if m := n.get("min_frequency"); m != nil {
+		p := join(path, "min_frequency")
+		if err := fields(m, p, "a frequency requirement", "limit", "case"); err != nil {
+			return r, err
+		}
+		if err := reqQuantity(m, p, "limit", frequency, &r.MinFrequency); err != nil {
+			return r, err
+		}
+		if err := positive(r.MinFrequency, join(p, "limit")); err != nil {
+			return r, err
+		}
+		if err := caseRef(m, p, &r.FrequencyCase); err != nil {
+			return r, err
+		}
+	}
+	if m := n.get("max_error"); m != nil {
+		p := join(path, "max_error")
+		if err := fields(m, p, "an error requirement", "worst_case", "rss", "along_axis"); err != nil {
+			return r, err
+		}
+		if m.get("worst_case") == nil && m.get("rss") == nil {
+			return r, errorf(join(p, "worst_case"), ErrMissing, "an error requirement needs worst_case, rss or both (lengths)")
+		}
+		for _, l := range []limit{{"worst_case", length, &r.MaxWorstCase}, {"rss", length, &r.MaxRSS}} {
+			if m.get(l.key) == nil {
+				continue
+			}
+			if err := optQuantity(m, p, l.key, length, l.dst); err != nil {
+				return r, err
+			}
+			if err := positive(*l.dst, join(p, l.key)); err != nil {
+				return r, err
+			}
+		}
+		if a := m.get("along_axis"); a != nil {
+			var err error
+			if r.AlongAxis, err = boolean(a, join(p, "along_axis")); err != nil {
+				return r, err
+			}
+		}
+	}
+	if m := n.get("max_study"); m != nil {
+		p := join(path, "max_study")
+		if err := fields(m, p, "a Monte Carlo requirement", "limit", "percentile"); err != nil {
+			return r, err
+		}
+		if err := reqQuantity(m, p, "limit", length, &r.MaxStudy); err != nil {
+			return r, err
+		}
+		if err := positive(r.MaxStudy, join(p, "limit")); err != nil {
+			return r, err
+		}
+		if pn := m.get("percentile"); pn != nil {
+			v, err := text(pn, join(p, "percentile"), maxName)
+			if err != nil {
+				return r, err
+			}
+			found := false
+			for i, name := range percentileNames {
+				if name == v {
+					r.StudyPercentile, found = Percentile(i), true
+				}
+			}
+			if !found {
+				return r, errorf(join(p, "percentile"), ErrRange, "%q; must be one of \"p50\", \"p95\", \"p99\", \"p99.73\"", v)
+			}
+		}
+	}
+	if m := n.get("seating"); m != nil {
+		p := join(path, "seating")
+		if err := fields(m, p, "a seating requirement", "case"); err != nil {
+			return r, err
+		}
+		r.Seating = true
+		if err := caseRef(m, p, &r.SeatingCase); err != nil {
+			return r, err
+		}
+	}
+	return r, nil
+}
+
+// finite reports whether every component of v is finite.
+func finite(v r3.Vec) bool {
+	return !math.IsNaN(v.X) && !math.IsInf(v.X, 0) && !math.IsNaN(v.Y) && !math.IsInf(v.Y, 0) &&
+		!math.IsNaN(v.Z) && !math.IsInf(v.Z, 0)
+}

@@ -1,0 +1,616 @@
+package design
+
+import (
+	"fmt"
+	"math"
+	"strings"
+
+	"gonum.org/v1/gonum/spatial/r3"
+
+	"github.com/sixfold-dev/sixfold/hertz"
+	"github.com/sixfold-dev/sixfold/kinematic"
+)
+
+// Validate reports whether the design is complete and in range: every
+// count within the format's bounds, every number finite and in its
+// domain, every name well formed and every reference resolved, the
+// coupling buildable and exactly constrained (six independent contacts),
+// the payload's inertia symmetric and positive definite or zero, and
+// every tolerance naming a dimension of the coupling once. It returns nil
+// or an [*Error] naming the JSON path of the first entry at fault, with
+// the errors of package kinematic translated to that path.
+func (d *Design) Validate() error {
+	_, err := d.build()
+	return err
+}
+
+// built is a validated design with its kinematic objects.
+type built struct {
+	d        *Design
+	coupling kinematic.Coupling
+	contacts []kinematic.Contact
+	pairOf   []int // the pair of each contact
+	analysis kinematic.Analysis
+	model    *kinematic.Model
+	assembly *kinematic.Assembly
+	budget   *kinematic.Budget // when the design has tolerances
+}
+
+// build checks the design and builds its coupling, model and assembly.
+func (d *Design) build() (*built, error) {
+	if err := d.check(); err != nil {
+		return nil, err
+	}
+	b := &built{d: d}
+	t := translator{b: b}
+	if err := b.buildCoupling(); err != nil {
+		return nil, err
+	}
+	an, err := kinematic.Analyze(b.contacts)
+	if err != nil {
+		return nil, t.translate(err)
+	}
+	b.analysis = an
+	if len(b.contacts) != 6 || an.Rank != 6 {
+		return nil, notExact(b)
+	}
+	if b.model, _, err = b.newModel(); err != nil {
+		return nil, err
+	}
+	if b.assembly, err = b.coupling.Assembly(); err != nil {
+		return nil, t.translate(err)
+	}
+	if len(d.Tolerances) > 0 {
+		bu, err := b.assembly.Budget(d.Point, d.Tolerances)
+		if err != nil {
+			return nil, t.translate(err)
+		}
+		b.budget = &bu
+	}
+	return b, nil
+}
+
+// notExact returns the error for a coupling that is not exactly
+// constrained.
+func notExact(b *built) error {
+	an := b.analysis
+	why := fmt.Sprintf("%d contacts of rank %d", len(b.contacts), an.Rank)
+	if an.DOF > 0 {
+		why += fmt.Sprintf(", leaving %d freedom(s)", an.DOF)
+	}
+	if len(an.Participants) > 0 {
+		var sets []string
+		for _, p := range an.Participants {
+			sets = append(sets, "{"+strings.Join(p, ", ")+"}")
+		}
+		why += ", redundant among " + strings.Join(sets, " ")
+	}
+	return errorf("seats", ErrNotExact, "%s; a design needs six independent contacts", why)
+}
+
+// buildCoupling makes the coupling and its contacts.
+func (b *built) buildCoupling() error {
+	d := b.d
+	t := translator{b: b}
+	c := kinematic.Coupling{Pairs: make([]kinematic.Pair, len(d.Balls))}
+	for i, ball := range d.Balls {
+		c.Pairs[i] = kinematic.Pair{
+			Name: ball.Name,
+			Ball: kinematic.Ball{Centre: ball.Centre, Radius: ball.Radius, Material: ball.Material},
+			Seat: d.Seats[i].kinematic(),
+		}
+	}
+	if _, err := c.Contacts(); err != nil {
+		return t.translate(err)
+	}
+	for i, s := range d.Seats {
+		if (s.Type != Vee && s.Type != Rods) || s.Direction != zeroVec {
+			continue
+		}
+		turned, err := c.WithGroove(i, s.Azimuth, s.Reference)
+		if err != nil {
+			return grooveError(err, i, t)
+		}
+		c = turned
+	}
+	cs, err := c.Contacts()
+	if err != nil {
+		return t.translate(err)
+	}
+	b.coupling, b.contacts = c, cs
+	b.pairOf = make([]int, 0, len(cs))
+	for i, s := range d.Seats {
+		for range s.Type.contacts() {
+			b.pairOf = append(b.pairOf, i)
+		}
+	}
+	seen := map[string]int{}
+	for k, cn := range cs {
+		if j, dup := seen[cn.Label]; dup && b.pairOf[j] != b.pairOf[k] {
+			p := b.pairOf[k]
+			return errorf(join(index("balls", p), "name"), ErrRange, "contact label %q is also one of balls[%d]'s; choose names that do not end like another's contacts", cn.Label, b.pairOf[j])
+		}
+		seen[cn.Label] = k
+	}
+	return nil
+}
+
+// grooveError translates an error of Coupling.WithGroove for seat i.
+func grooveError(err error, i int, t translator) error {
+	e := t.translate(err)
+	if de, ok := e.(*Error); ok {
+		switch de.Path {
+		case "i", "angle":
+			de.Path = join(index("seats", i), "azimuth")
+		case "ref", join(index("balls", i), "centre"):
+			de.Path = join(index("seats", i), "reference")
+		}
+	}
+	return e
+}
+
+// newModel makes the model of the coupling's contacts with the design's
+// preloads and payload.
+func (b *built) newModel() (*kinematic.Model, []kinematic.Contact, error) {
+	m, err := kinematic.NewModel(b.contacts, b.d.Preloads, b.d.Payload)
+	if err != nil {
+		return nil, nil, translator{b: b}.translate(err)
+	}
+	return m, b.contacts, nil
+}
+
+// contacts returns the number of contacts of a seat of type t.
+func (t SeatType) contacts() int {
+	switch t {
+	case Vee, Rods:
+		return 2
+	case Flat:
+		return 1
+	}
+	return 3
+}
+
+// kinematic returns the seat as kinematic's type. A groove given by
+// azimuth gets a provisional direction normal to Up, turned to its
+// azimuth by Coupling.WithGroove.
+func (s Seat) kinematic() kinematic.Seat {
+	dir := s.Direction
+	if dir == zeroVec {
+		dir = normalTo(s.Up)
+	}
+	switch s.Type {
+	case Vee:
+		return kinematic.Vee{Direction: dir, Up: s.Up, HalfAngle: s.HalfAngle, FlankRadius: s.FlankRadius, Material: s.Material}
+	case Rods:
+		return kinematic.Rods{Direction: dir, Up: s.Up, HalfAngle: s.HalfAngle, RodRadius: s.RodRadius, Material: s.Material}
+	case Flat:
+		return kinematic.Flat{Up: s.Up, Material: s.Material}
+	case Trihedral:
+		return kinematic.Trihedral{Up: s.Up, Azimuth: s.Toward, HalfAngle: s.HalfAngle, Material: s.Material}
+	case Cone:
+		return kinematic.Cone{Up: s.Up, Azimuth: s.Toward, HalfAngle: s.HalfAngle, Material: s.Material}
+	}
+	return nil
+}
+
+// normalTo returns a vector normal to v (zero for a zero or non-finite
+// v): v crossed with the coordinate axis least aligned with it.
+func normalTo(v r3.Vec) r3.Vec {
+	if !finite(v) {
+		return r3.Vec{}
+	}
+	a := r3.Vec{X: 1}
+	ax, ay, az := math.Abs(v.X), math.Abs(v.Y), math.Abs(v.Z)
+	switch {
+	case ay <= ax && ay <= az:
+		a = r3.Vec{Y: 1}
+	case az <= ax && az <= ay:
+		a = r3.Vec{Z: 1}
+	}
+	return r3.Cross(v, a)
+}
+
+// check validates everything that needs no kinematic object.
+func (d *Design) check() error {
+	if err := checkText(d.Name, "name", maxText); err != nil {
+		return err
+	}
+	if err := checkText(d.Description, "description", maxText); err != nil {
+		return err
+	}
+	if len(d.Balls) == 0 {
+		return errorf("balls", ErrMissing, "a design needs its balls")
+	}
+	if len(d.Balls) > maxBalls {
+		return errorf("balls", ErrTooLarge, "%d balls; at most %d", len(d.Balls), maxBalls)
+	}
+	if len(d.Seats) != len(d.Balls) {
+		return errorf("seats", ErrRange, "%d seats for %d balls; seats[i] is the seat of balls[i]", len(d.Seats), len(d.Balls))
+	}
+	names := map[string]int{}
+	for i, b := range d.Balls {
+		p := index("balls", i)
+		if err := checkBallName(b.Name, join(p, "name")); err != nil {
+			return err
+		}
+		n := b.Name
+		if n == "" {
+			n = defaultName(i)
+		}
+		if j, dup := names[n]; dup {
+			return errorf(join(p, "name"), ErrRange, "%q is also the name of balls[%d]", n, j)
+		}
+		names[n] = i
+		if !finite(b.Centre) {
+			return errorf(join(p, "centre"), ErrNonFinite, "%v", b.Centre)
+		}
+		if err := checkLength(b.Radius, join(p, "radius")); err != nil {
+			return err
+		}
+		if err := checkMaterial(b.Material, join(p, "material")); err != nil {
+			return err
+		}
+	}
+	for i, s := range d.Seats {
+		if err := s.check(index("seats", i), d.Balls[i].Radius); err != nil {
+			return err
+		}
+	}
+	if len(d.Preloads) > maxPreloads {
+		return errorf("preloads", ErrTooLarge, "%d preloads; at most %d", len(d.Preloads), maxPreloads)
+	}
+	for i, p := range d.Preloads {
+		if err := checkText(p.Name, join(index("preloads", i), "name"), maxName); err != nil {
+			return err
+		}
+	}
+	if err := checkPayload(d.Payload); err != nil {
+		return err
+	}
+	if err := d.checkCases(); err != nil {
+		return err
+	}
+	if len(d.Tolerances) > maxTolerances {
+		return errorf("tolerances", ErrTooLarge, "%d tolerances; at most %d", len(d.Tolerances), maxTolerances)
+	}
+	for i, t := range d.Tolerances {
+		if len(t.Dimension) > maxName {
+			return errorf(join(index("tolerances", i), "dimension"), ErrTooLarge, "%d bytes; at most %d", len(t.Dimension), maxName)
+		}
+	}
+	if !finite(d.Point) {
+		return errorf("point_of_interest", ErrNonFinite, "%v", d.Point)
+	}
+	if !finite(d.Axis) {
+		return errorf("axis", ErrNonFinite, "%v", d.Axis)
+	}
+	if th := d.Thermal; th != nil {
+		for _, f := range []struct {
+			path string
+			v    float64
+		}{{"thermal.delta_t", th.DeltaT}, {"thermal.moving_alpha", th.Moving}, {"thermal.base_alpha", th.Base}} {
+			if math.IsNaN(f.v) || math.IsInf(f.v, 0) {
+				return errorf(f.path, ErrNonFinite, "%g", f.v)
+			}
+		}
+		if !finite(th.BaseRef) {
+			return errorf("thermal.base_ref", ErrNonFinite, "%v", th.BaseRef)
+		}
+	}
+	if f := d.Friction; f != nil && (!(f.Mu >= 0) || math.IsInf(f.Mu, 0)) {
+		return errorf("friction.mu", ErrRange, "must be a finite number ≥ 0, got %g", f.Mu)
+	}
+	if mc := d.MonteCarlo; mc != nil && (mc.Samples < 1 || mc.Samples > maxSamples) {
+		return errorf("monte_carlo.samples", ErrRange, "must be in [1, %d], got %d", maxSamples, mc.Samples)
+	}
+	return d.checkRequirements()
+}
+
+// defaultName returns the name of the ball at position i when it has
+// none, as kinematic names pairs.
+func defaultName(i int) string {
+	if i < 26 {
+		return string(rune('A' + i))
+	}
+	return fmt.Sprintf("P%d", i+1)
+}
+
+// checkLength checks a length that must be finite and > 0.
+func checkLength(v float64, path string) error {
+	if math.IsNaN(v) || math.IsInf(v, 0) {
+		return errorf(path, ErrNonFinite, "%g", v)
+	}
+	if !(v > 0) {
+		return errorf(path, ErrRange, "must be a finite length > 0, got %g m", v)
+	}
+	return nil
+}
+
+func checkText(s, path string, max int) error {
+	if len(s) > max {
+		return errorf(path, ErrTooLarge, "%d bytes; at most %d", len(s), max)
+	}
+	return nil
+}
+
+// checkBallName checks a ball's name: it labels contacts and names
+// dimensions ("A.Ball.Radius"), so it holds letters, digits and "_" and
+// starts with a letter.
+func checkBallName(n, path string) error {
+	if n == "" {
+		return nil
+	}
+	if len(n) > maxName {
+		return errorf(path, ErrTooLarge, "%d bytes; at most %d", len(n), maxName)
+	}
+	for i, r := range n {
+		letter := r >= 'A' && r <= 'Z' || r >= 'a' && r <= 'z'
+		if !(letter || i > 0 && (r >= '0' && r <= '9' || r == '_')) {
+			return errorf(path, ErrRange, "%q: a ball's name is letters, digits and \"_\", starting with a letter", n)
+		}
+	}
+	return nil
+}
+
+func checkMaterial(m hertz.Material, path string) error {
+	switch {
+	case m == hertz.Material{}:
+		return errorf(path, ErrMissing, "no material")
+	case !(m.E > 0) || math.IsInf(m.E, 0):
+		return errorf(join(path, "e"), ErrRange, "Young's modulus must be a finite pressure > 0, got %g Pa", m.E)
+	case !(m.Nu > -1 && m.Nu <= 0.5):
+		return errorf(join(path, "nu"), ErrRange, "Poisson's ratio must be in (-1, 0.5], got %g", m.Nu)
+	case math.IsNaN(m.Alpha) || math.IsInf(m.Alpha, 0):
+		return errorf(join(path, "alpha"), ErrNonFinite, "%g", m.Alpha)
+	case !(m.Allowable >= 0) || math.IsInf(m.Allowable, 0):
+		return errorf(join(path, "allowable"), ErrRange, "must be a finite pressure ≥ 0 (0: none on file), got %g Pa", m.Allowable)
+	}
+	if err := checkText(m.Name, join(path, "name"), maxText); err != nil {
+		return err
+	}
+	return checkText(m.Source, join(path, "source"), maxText)
+}
+
+// check validates a seat whose ball has radius r.
+func (s Seat) check(path string, r float64) error {
+	if s.Type < Vee || s.Type > Cone {
+		return errorf(join(path, "type"), ErrRange, "unknown seat type %d", int(s.Type))
+	}
+	groove := s.Type == Vee || s.Type == Rods
+	socket := s.Type == Trihedral || s.Type == Cone
+	// Fields that do not belong to the type must be zero: the file has no
+	// place for them.
+	for _, f := range []struct {
+		key string
+		set bool
+		ok  bool
+	}{
+		{"half_angle", s.HalfAngle != 0, s.Type != Flat},
+		{"flank_radius", s.FlankRadius != 0, s.Type == Vee},
+		{"rod_radius", s.RodRadius != 0, s.Type == Rods},
+		{"direction", s.Direction != zeroVec, groove},
+		{"azimuth", s.Azimuth != 0, groove},
+		{"reference", s.Reference != kinematic.Radial, groove},
+		{"toward", s.Toward != zeroVec, socket},
+	} {
+		if f.set && !f.ok {
+			return errorf(join(path, f.key), ErrRange, "not a field of a %v seat", s.Type)
+		}
+	}
+	if groove && s.Direction != zeroVec && (s.Azimuth != 0 || s.Reference != kinematic.Radial) {
+		return errorf(join(path, "azimuth"), ErrRange, "a groove given by its direction has no azimuth or reference")
+	}
+	for _, v := range []struct {
+		key string
+		v   r3.Vec
+	}{{"up", s.Up}, {"direction", s.Direction}, {"toward", s.Toward}} {
+		if !finite(v.v) {
+			return errorf(join(path, v.key), ErrNonFinite, "%v", v.v)
+		}
+	}
+	if math.IsNaN(s.HalfAngle) || math.IsInf(s.HalfAngle, 0) {
+		return errorf(join(path, "half_angle"), ErrNonFinite, "%g", s.HalfAngle)
+	}
+	if s.Type != Flat && !(s.HalfAngle > 0 && s.HalfAngle < math.Pi/2) {
+		return errorf(join(path, "half_angle"), ErrRange, "must be in (0, 90) deg, got %.6g deg", s.HalfAngle/radPerDeg)
+	}
+	if s.Type == Vee && s.FlankRadius != 0 && !(s.FlankRadius > r && !math.IsInf(s.FlankRadius, 0)) {
+		return errorf(join(path, "flank_radius"), ErrRange, "must be 0 (flat flanks) or a finite length greater than the ball's radius %g m, got %g m", r, s.FlankRadius)
+	}
+	if s.Type == Rods {
+		if err := checkLength(s.RodRadius, join(path, "rod_radius")); err != nil {
+			return err
+		}
+	}
+	if math.IsNaN(s.Azimuth) || math.IsInf(s.Azimuth, 0) {
+		return errorf(join(path, "azimuth"), ErrNonFinite, "%g", s.Azimuth)
+	}
+	if s.Reference != kinematic.Radial && s.Reference != kinematic.FrameX {
+		return errorf(join(path, "reference"), ErrRange, "unknown reference %d", int(s.Reference))
+	}
+	if s.Type == Trihedral && s.Toward == zeroVec {
+		return errorf(join(path, "toward"), ErrMissing, "the direction of the socket's first contact")
+	}
+	return checkMaterial(s.Material, join(path, "material"))
+}
+
+// checkPayload checks what the file cannot express: an inertia tensor
+// that is not exactly symmetric (the file holds six entries). The rest is
+// kinematic.NewModel's to check.
+func checkPayload(p kinematic.Payload) error {
+	for r := range 3 {
+		for c := r + 1; c < 3; c++ {
+			if p.Inertia[r][c] != p.Inertia[c][r] && !(math.IsNaN(p.Inertia[r][c]) && math.IsNaN(p.Inertia[c][r])) {
+				return errorf(join("payload.inertia", inertiaKey(r, c)), ErrRange, "the tensor must be symmetric: [%d][%d] = %g, [%d][%d] = %g", r, c, p.Inertia[r][c], c, r, p.Inertia[c][r])
+			}
+		}
+	}
+	return nil
+}
+
+func (d *Design) checkCases() error {
+	if len(d.Cases) > maxCases {
+		return errorf("cases", ErrTooLarge, "%d load cases; at most %d", len(d.Cases), maxCases)
+	}
+	names := map[string]int{}
+	for i, lc := range d.Cases {
+		p := index("cases", i)
+		switch {
+		case lc.Name == "":
+			return errorf(join(p, "name"), ErrMissing, "a load case needs a name")
+		case len(lc.Name) > maxName:
+			return errorf(join(p, "name"), ErrTooLarge, "%d bytes; at most %d", len(lc.Name), maxName)
+		}
+		if j, dup := names[lc.Name]; dup {
+			return errorf(join(p, "name"), ErrRange, "%q is also the name of cases[%d]", lc.Name, j)
+		}
+		names[lc.Name] = i
+		if !(lc.Preload >= 0) || math.IsInf(lc.Preload, 0) {
+			return errorf(join(p, "preload"), ErrRange, "the factor on the preloads must be a finite number ≥ 0, got %g", lc.Preload)
+		}
+		if !finite(lc.Gravity) {
+			return errorf(join(p, "gravity"), ErrNonFinite, "%v", lc.Gravity)
+		}
+		if !finite(lc.Acceleration) {
+			return errorf(join(p, "acceleration"), ErrNonFinite, "%v", lc.Acceleration)
+		}
+		if len(lc.Applied) > maxApplied {
+			return errorf(join(p, "applied"), ErrTooLarge, "%d loads; at most %d", len(lc.Applied), maxApplied)
+		}
+		for j, w := range lc.Applied {
+			if !finite(w.F) || !finite(w.M) {
+				return errorf(index(join(p, "applied"), j), ErrNonFinite, "%+v", w)
+			}
+		}
+	}
+	return nil
+}
+
+// caseIndex returns the index of the load case named name ("" the first
+// case), or -1.
+func (d *Design) caseIndex(name string) int {
+	if len(d.Cases) == 0 {
+		return -1
+	}
+	if name == "" {
+		return 0
+	}
+	for i, lc := range d.Cases {
+		if lc.Name == name {
+			return i
+		}
+	}
+	return -1
+}
+
+func (d *Design) checkRequirements() error {
+	r := d.Requirements
+	const p = "requirements"
+	for _, l := range []struct {
+		path string
+		v    float64
+	}{
+		{"min_maxwell_index", r.MinMaxwellIndex},
+		{"max_pressure_ratio", r.MaxPressureRatio},
+		{"min_contact_force", r.MinContactForce},
+		{"min_shock.level", r.MinShock},
+		{"min_frequency.limit", r.MinFrequency},
+		{"max_error.worst_case", r.MaxWorstCase},
+		{"max_error.rss", r.MaxRSS},
+		{"max_study.limit", r.MaxStudy},
+		{"max_thermal_drift", r.MaxThermalDrift},
+	} {
+		if !(l.v >= 0) || math.IsInf(l.v, 0) {
+			return errorf(join(p, l.path), ErrRange, "a limit must be finite and > 0 (0: not set), got %g", l.v)
+		}
+	}
+	if r.MinMaxwellIndex > 1 {
+		return errorf(join(p, "min_maxwell_index"), ErrRange, "a Maxwell index lies in [0, 1], got %g", r.MinMaxwellIndex)
+	}
+	// A case named without its requirement, or a percentile without its
+	// limit, has no place in the file.
+	for _, o := range []struct {
+		path   string
+		set    bool
+		parent bool
+	}{
+		{"min_shock.case", r.ShockCase != "", r.MinShock > 0},
+		{"min_frequency.case", r.FrequencyCase != "", r.MinFrequency > 0},
+		{"seating.case", r.SeatingCase != "", r.Seating},
+		{"max_study.percentile", r.StudyPercentile != P99, r.MaxStudy > 0},
+		{"max_error.along_axis", r.AlongAxis, r.MaxWorstCase > 0 || r.MaxRSS > 0},
+	} {
+		if o.set && !o.parent {
+			return errorf(join(p, o.path), ErrRange, "set without the requirement's limit")
+		}
+	}
+	if r.StudyPercentile < P99 || r.StudyPercentile > P9973 {
+		return errorf(join(p, "max_study.percentile"), ErrRange, "unknown percentile %d", int(r.StudyPercentile))
+	}
+	needCase := func(path, name string) error {
+		if len(d.Cases) == 0 {
+			return errorf(join(p, path), ErrMissing, "the requirement needs a load case; the design has none")
+		}
+		if d.caseIndex(name) < 0 {
+			return errorf(join(p, path), ErrRange, "no load case named %q", name)
+		}
+		return nil
+	}
+	if r.MaxPressureRatio > 0 {
+		if err := needCase("max_pressure_ratio", ""); err != nil {
+			return err
+		}
+		for i, b := range d.Balls {
+			if b.Material.Allowable == 0 && d.Seats[i].Material.Allowable == 0 {
+				return errorf(join(p, "max_pressure_ratio"), ErrMissing, "neither balls[%d].material nor seats[%d].material has an allowable pressure", i, i)
+			}
+		}
+	}
+	if r.MinContactForce > 0 {
+		if err := needCase("min_contact_force", ""); err != nil {
+			return err
+		}
+	}
+	if r.MinShock > 0 {
+		if err := needCase("min_shock.case", r.ShockCase); err != nil {
+			return err
+		}
+		if !(d.Payload.Mass > 0) {
+			return errorf(join(p, "min_shock"), ErrMissing, "a shock level needs the payload's mass")
+		}
+	}
+	if r.MinFrequency > 0 {
+		if err := needCase("min_frequency.case", r.FrequencyCase); err != nil {
+			return err
+		}
+		if !(d.Payload.Mass > 0) || d.Payload.Inertia == ([3][3]float64{}) {
+			return errorf(join(p, "min_frequency"), ErrMissing, "natural frequencies need the payload's mass and inertia")
+		}
+	}
+	if (r.MaxWorstCase > 0 || r.MaxRSS > 0) && len(d.Tolerances) == 0 {
+		return errorf(join(p, "max_error"), ErrMissing, "an error budget needs tolerances")
+	}
+	if r.AlongAxis && d.Axis == zeroVec {
+		return errorf(join(p, "max_error.along_axis"), ErrMissing, "the design has no axis")
+	}
+	if r.MaxStudy > 0 {
+		if len(d.Tolerances) == 0 {
+			return errorf(join(p, "max_study"), ErrMissing, "a Monte Carlo study needs tolerances")
+		}
+		if d.MonteCarlo == nil {
+			return errorf(join(p, "max_study"), ErrMissing, "a Monte Carlo study needs monte_carlo (samples)")
+		}
+	}
+	if r.MaxThermalDrift > 0 && d.Thermal == nil {
+		return errorf(join(p, "max_thermal_drift"), ErrMissing, "a thermal drift needs thermal (delta_t)")
+	}
+	if r.Seating {
+		if err := needCase("seating.case", r.SeatingCase); err != nil {
+			return err
+		}
+		if d.Friction == nil {
+			return errorf(join(p, "seating"), ErrMissing, "seating needs friction (mu)")
+		}
+	}
+	return nil
+}
