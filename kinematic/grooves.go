@@ -837,9 +837,12 @@ func (p *optProblem) binding(x []float64, card *Scorecard) []string {
 	for i := range p.pairs {
 		op := &p.pairs[i]
 		if op.azVar >= 0 && !op.periodic {
-			if s := math.Sin(x[op.azVar]); s <= -1+1e-8 {
+			// Within 1e-5 rad (2 arcsec) of an edge: the sine map
+			// approaches it quadratically, so the search stops just short.
+			az, _ := p.decode(i, x)
+			if az-op.lo <= 1e-5 {
 				out = append(out, indexed("Windows", i)+".Min")
-			} else if s >= 1-1e-8 {
+			} else if op.hi-az <= 1e-5 {
 				out = append(out, indexed("Windows", i)+".Max")
 			}
 		}
