@@ -1,0 +1,187 @@
+// Command tolerance runs the Monte Carlo tolerance study of a design file:
+// it draws parts made to the drawing (every toleranced dimension from its
+// distribution), seats each one, and reports where the point of interest
+// goes: the interchangeability of the parts. It writes the histogram of
+// the error as an SVG drawing and shows a progress bar on the terminal
+// for long runs.
+//
+// Usage:
+//
+//	go run ./examples/tolerance [flags] design.json
+//
+// Use "-" for a design on standard input.
+package main
+
+import (
+	"context"
+	"errors"
+	"flag"
+	"fmt"
+	"io"
+	"os"
+	"os/signal"
+	"strings"
+
+	"gonum.org/v1/gonum/spatial/r3"
+
+	"github.com/sixfold-dev/sixfold/internal/draw"
+	"github.com/sixfold-dev/sixfold/kinematic"
+	"github.com/sixfold-dev/sixfold/kinematic/design"
+)
+
+func main() {
+	ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt)
+	defer stop()
+	if err := run(ctx, os.Args[1:], os.Stdin, os.Stdout, os.Stderr); err != nil {
+		if errors.Is(err, flag.ErrHelp) {
+			os.Exit(0)
+		}
+		fmt.Fprintln(os.Stderr, "tolerance:", err)
+		os.Exit(1)
+	}
+}
+
+// run parses the arguments and runs the study; the progress bar goes to
+// progress (nil: none).
+func run(ctx context.Context, args []string, stdin io.Reader, stdout, progress io.Writer) error {
+	fs := flag.NewFlagSet("tolerance", flag.ContinueOnError)
+	fs.SetOutput(stdout)
+	samples := fs.Int("samples", 0, "number of parts to draw; 0: the design file's monte_carlo.samples, else 100000")
+	seed := fs.Uint64("seed", 0, "random seed; 0: the design file's, else 1 (the same seed gives the same result on any number of cores)")
+	exact := fs.Bool("exact", false, "seat every sample exactly instead of by the first-order model (slower)")
+	workers := fs.Int("workers", 0, "goroutines; 0: one per core")
+	svg := fs.String("svg", "histogram.svg", "write the histogram of the error at the point of interest to this SVG file; empty: none")
+	fs.Usage = func() {
+		fmt.Fprintln(stdout, "usage: tolerance [flags] design.json")
+		fmt.Fprintln(stdout, "Monte Carlo tolerance study of a design file (lengths in the report in µm, tilts in µrad).")
+		fs.PrintDefaults()
+	}
+	if err := fs.Parse(args); err != nil {
+		return err
+	}
+	if fs.NArg() != 1 {
+		fs.Usage()
+		return fmt.Errorf("need one design file (or - for standard input), got %d arguments", fs.NArg())
+	}
+	var src []byte
+	var err error
+	if fs.Arg(0) == "-" {
+		src, err = io.ReadAll(io.LimitReader(stdin, design.MaxSize+1))
+	} else {
+		src, err = os.ReadFile(fs.Arg(0))
+	}
+	if err != nil {
+		return err
+	}
+	d, err := design.Parse(src)
+	if err != nil {
+		return err
+	}
+	if len(d.Tolerances) == 0 {
+		return fmt.Errorf("%s: the design has no tolerances to study", fs.Arg(0))
+	}
+	a, err := d.Assembly()
+	if err != nil {
+		return err
+	}
+	n, sd := *samples, *seed
+	if d.MonteCarlo != nil {
+		if n == 0 {
+			n = d.MonteCarlo.Samples
+		}
+		if sd == 0 {
+			sd = d.MonteCarlo.Seed
+		}
+	}
+	if n == 0 {
+		n = 100000
+	}
+	if sd == 0 {
+		sd = 1
+	}
+	if n < 0 {
+		return fmt.Errorf("-samples: must be positive, got %d", n)
+	}
+	opt := &kinematic.StudyOptions{Samples: n, Seed: sd, Workers: *workers, Exact: *exact, KeepSamples: *svg != ""}
+	bar := &progressBar{w: progress}
+	if progress != nil {
+		opt.Progress = bar.update
+	}
+	res, err := a.Study(ctx, d.Point, d.Tolerances, opt)
+	bar.finish()
+	if err != nil {
+		return err
+	}
+	model := "first-order"
+	if *exact {
+		model = "exact"
+	}
+	fmt.Fprintf(stdout, "%s\n", d.Name)
+	fmt.Fprintf(stdout, "Monte Carlo tolerance study (interchangeability): %d parts, %s model, seed %d, %d toleranced dimensions\n",
+		res.Samples, model, sd, len(d.Tolerances))
+	fmt.Fprintf(stdout, "point of interest (%.1f, %.1f, %.1f) mm\n", d.Point.X*1e3, d.Point.Y*1e3, d.Point.Z*1e3)
+	if res.Failed > 0 {
+		fmt.Fprintf(stdout, "%d parts could not seat and are left out\n", res.Failed)
+	}
+	fmt.Fprintf(stdout, "%-10s %10s %10s %10s %10s %10s %10s\n", "", "mean", "std dev", "|P50|", "|P95|", "|P99|", "|P99.73|")
+	row := func(name string, s kinematic.Stats, scale float64, unit string) {
+		fmt.Fprintf(stdout, "%-10s %10.3f %10.3f %10.3f %10.3f %10.3f %10.3f  %s\n", name,
+			s.Mean*scale, s.StdDev*scale, s.P50*scale, s.P95*scale, s.P99*scale, s.P9973*scale, unit)
+	}
+	row("x", res.X, 1e6, "µm")
+	row("y", res.Y, 1e6, "µm")
+	row("z", res.Z, 1e6, "µm")
+	row("radial", res.Radial, 1e6, "µm")
+	row("tilt", res.Tilt, 1e6, "µrad")
+	if *svg != "" && len(res.Points) > 0 {
+		vals := make([]float64, len(res.Points))
+		for i, p := range res.Points {
+			vals[i] = r3.Norm(p) * 1e6
+		}
+		h := draw.Histogram{Title: "Error at the point of interest: parts made to the drawing", Quantity: "displacement of the point of interest",
+			Unit: "µm", Samples: vals, Percentiles: draw.DefaultPercentiles,
+			Notes: []string{fmt.Sprintf("%d samples, %s model, seed %d", len(vals), model, sd)}}
+		f, err := os.Create(*svg)
+		if err != nil {
+			return err
+		}
+		err = h.WriteSVG(f)
+		if cerr := f.Close(); err == nil {
+			err = cerr
+		}
+		if err != nil {
+			return err
+		}
+		fmt.Fprintf(stdout, "histogram written to %s\n", *svg)
+	}
+	fmt.Fprintln(stdout, "These are engineering estimates from idealised models; verify by test, and let the")
+	fmt.Fprintln(stdout, "applicable codes and a qualified engineer decide where hardware or safety depends on them.")
+	return nil
+}
+
+// progressBar draws a bar of the study's progress on one terminal line.
+type progressBar struct {
+	w     io.Writer
+	shown int // percent drawn so far
+	drawn bool
+}
+
+func (b *progressBar) update(done, total int) {
+	if b.w == nil || total <= 0 {
+		return
+	}
+	pct := 100 * done / total
+	if pct == b.shown && b.drawn {
+		return
+	}
+	b.shown, b.drawn = pct, true
+	const width = 40
+	fill := width * done / total
+	fmt.Fprintf(b.w, "\r[%s%s] %3d %% (%d of %d parts)", strings.Repeat("#", fill), strings.Repeat(".", width-fill), pct, done, total)
+}
+
+func (b *progressBar) finish() {
+	if b.w != nil && b.drawn {
+		fmt.Fprintln(b.w)
+	}
+}

@@ -1,0 +1,98 @@
+package main
+
+import (
+	"bytes"
+	"context"
+	"math"
+	"os"
+	"path/filepath"
+	"regexp"
+	"strconv"
+	"strings"
+	"testing"
+)
+
+// oneBall is a design whose only tolerance is a uniform ±2 µm on ball A's
+// radius, in an equilateral three-vee coupling of 90° vees with the point
+// of interest at ball A's centre. A larger ball rises in its vee by
+// Δr/sin 45° (its centre lies r + Δr from both flanks, which meet at the
+// root), and the body turns about the line through the other two ball
+// centres, which carries A's centre straight up: the point moves by
+// √2·Δr along z, uniform over ±2√2 µm, with standard deviation
+// 2√2/√3 = 1.633 µm and |P50| = √2 µm (half the range of a uniform
+// distribution; worked by hand).
+const oneBall = `{
+  "format": "sixfold.design/1",
+  "name": "one toleranced ball (test)",
+  "balls": [
+    {"name": "A", "centre": ["0 mm", "50 mm", "0 mm"], "radius": "5 mm", "material": "steel-52100"},
+    {"name": "B", "centre": ["-43.30127 mm", "-25 mm", "0 mm"], "radius": "5 mm", "material": "steel-52100"},
+    {"name": "C", "centre": ["43.30127 mm", "-25 mm", "0 mm"], "radius": "5 mm", "material": "steel-52100"}
+  ],
+  "seats": [
+    {"type": "vee", "up": [0, 0, 1], "half_angle": "45 deg", "direction": [0, -1, 0], "material": "steel-440c"},
+    {"type": "vee", "up": [0, 0, 1], "half_angle": "45 deg", "direction": [0.8660254, 0.5, 0], "material": "steel-440c"},
+    {"type": "vee", "up": [0, 0, 1], "half_angle": "45 deg", "direction": [-0.8660254, 0.5, 0], "material": "steel-440c"}
+  ],
+  "tolerances": [{"dimension": "A.Ball.Radius", "value": "2 um"}],
+  "point_of_interest": ["0 mm", "50 mm", "0 mm"],
+  "monte_carlo": {"samples": 50000, "seed": 9}
+}`
+
+func TestRun(t *testing.T) {
+	dir := t.TempDir()
+	path := filepath.Join(dir, "d.json")
+	if err := os.WriteFile(path, []byte(oneBall), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	svg := filepath.Join(dir, "h.svg")
+	var out, prog bytes.Buffer
+	if err := run(context.Background(), []string{"-svg", svg, path}, nil, &out, &prog); err != nil {
+		t.Fatal(err)
+	}
+	rep := out.String()
+	m := regexp.MustCompile(`(?m)^z\s+(\S+)\s+(\S+)\s+(\S+)`).FindStringSubmatch(rep)
+	if m == nil {
+		t.Fatalf("no z row in\n%s", rep)
+	}
+	mean, _ := strconv.ParseFloat(m[1], 64)
+	sd, _ := strconv.ParseFloat(m[2], 64)
+	p50, _ := strconv.ParseFloat(m[3], 64)
+	// Sampling error of 5e4 samples: the mean within 4.5 standard
+	// errors (1.633/√5e4 = 0.0073 µm), the others within 1 %.
+	if math.Abs(mean) > 4.5*0.0073+0.001 || math.Abs(sd-1.633) > 0.0163 || math.Abs(p50-math.Sqrt2) > 0.0142 {
+		t.Errorf("z: mean %g, sd %g, |P50| %g µm; want 0, 1.633, 1.414", mean, sd, p50)
+	}
+	if !strings.Contains(prog.String(), "100 %") {
+		t.Errorf("progress bar did not reach 100 %%: %q", prog.String())
+	}
+	if b, err := os.ReadFile(svg); err != nil || !bytes.Contains(b, []byte("<svg")) {
+		t.Errorf("histogram: %v", err)
+	}
+	if regexp.MustCompile(`\bNaN\b|Inf\b`).MatchString(rep) {
+		t.Errorf("report prints NaN or Inf:\n%s", rep)
+	}
+	// The exact model agrees: the rise is exactly √2·Δr (geometry).
+	out.Reset()
+	if err := run(context.Background(), []string{"-svg", "", "-exact", "-samples", "2000", path}, nil, &out, nil); err != nil {
+		t.Fatal(err)
+	}
+	if !strings.Contains(out.String(), "exact model") {
+		t.Errorf("exact run:\n%s", out.String())
+	}
+}
+
+func TestRunErrors(t *testing.T) {
+	var out bytes.Buffer
+	if err := run(context.Background(), nil, nil, &out, nil); err == nil {
+		t.Error("no design file accepted")
+	}
+	if err := run(context.Background(), []string{"-"}, strings.NewReader(`{"format": "other/2"}`), &out, nil); err == nil || !strings.Contains(err.Error(), "format") {
+		t.Errorf("unknown format: %v", err)
+	}
+	ctx, cancel := context.WithCancel(context.Background())
+	cancel()
+	if err := run(ctx, []string{"-svg", "", "-"}, strings.NewReader(oneBall), &out, nil); err == nil {
+		t.Error("cancelled study succeeded")
+	}
+}
