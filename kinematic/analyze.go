@@ -5,10 +5,10 @@ import (
 	"fmt"
 	"math"
 	"sort"
-	"strings"
 
 	"gonum.org/v1/gonum/spatial/r3"
 
+	"github.com/sixfold-dev/sixfold/internal/constraint"
 	"github.com/sixfold-dev/sixfold/internal/linalg"
 	"github.com/sixfold-dev/sixfold/screw"
 )
@@ -34,6 +34,9 @@ type Analysis struct {
 
 	lines  []line // the contacts, in local coordinates, kept for Stability
 	origin r3.Vec // the local origin: lines[i].p + origin is contact i's point
+
+	freed    [6]screw.Twist // about origin, when hasFreed: power δᵢⱼ with contact j
+	hasFreed bool
 }
 
 // Analyze returns the constraint analysis of the contacts cs: how many
@@ -80,33 +83,39 @@ func Analyze(cs []Contact) (Analysis, error) {
 	}
 	// Local coordinates: subtracting o costs each point a rounding error
 	// of ε|p|, the precision the point carries anyway.
-	var stack [12]screw.Wrench
+	var stack [12]constraint.Wrench
 	ws := stack[:0]
 	if len(cs) > len(stack) {
-		ws = make([]screw.Wrench, 0, len(cs))
+		ws = make([]constraint.Wrench, 0, len(cs))
 	}
 	for i := range lines {
 		l := &lines[i]
 		l.p = r3.Sub(l.p, o)
 		l.centre = r3.Sub(l.centre, o)
-		ws = append(ws, screw.Wrench{F: l.n, M: r3.Cross(l.p, l.n)})
+		ws = append(ws, constraint.Wrench{F: l.n, M: r3.Cross(l.p, l.n)})
 	}
-	sa, err := screw.Analyze(ws)
-	if err != nil {
-		err = fromScrew(err, "cs")
-		var ie *InputError
-		if errors.As(err, &ie) && errors.Is(err, ErrRange) && strings.HasSuffix(ie.Field, ".Point") {
-			// Out of range about the centroid: blame the contact farthest
-			// from the others (the componentwise median), not the one the
-			// shifted arithmetic happened to overflow on.
-			ie.Field = indexed("cs", outlier(cs)) + ".Point"
+	// One factorisation of the normalised contact matrix serves the report
+	// and, for six independent contacts, the freed twists of Stability.
+	var r constraint.Result
+	if err := constraint.Analyze(ws, &r); err != nil {
+		return Analysis{}, fromConstraint(err, cs)
+	}
+	sa := screw.Analysis{
+		Rank: r.Rank, Singular: append([]float64(nil), r.Singular[:r.K]...), Condition: r.Condition,
+		NearSingular: r.NearSingular, Redundant: r.Redundant, Centre: r3.Add(r.Centre, o), Length: r.Length,
+	}
+	if r.Rank < 6 {
+		sa.Free = make([]screw.Twist, 6-r.Rank)
+		for k := range sa.Free {
+			sa.Free[k] = global(screw.Twist(r.Free[k]), o)
 		}
-		return Analysis{}, err
 	}
 	an := Analysis{Analysis: sa, DOF: 6 - sa.Rank, lines: lines, origin: o}
-	an.Centre = r3.Add(sa.Centre, o)
-	for k, t := range an.Free {
-		an.Free[k] = global(t, o)
+	if r.HasFreed {
+		an.hasFreed = true
+		for k := range an.freed {
+			an.freed[k] = screw.Twist(r.Freed[k])
+		}
 	}
 	if len(sa.Redundant) > 0 {
 		an.Participants = make([][]string, len(sa.Redundant))
@@ -147,4 +156,27 @@ func outlier(cs []Contact) int {
 		}
 	}
 	return best
+}
+
+// fromConstraint translates an error of the constraint analysis into this
+// package's vocabulary: wrench i's force is contact i's normal, its moment
+// (and the wrench as a whole) its point; a set out of range about the
+// centroid blames the contact farthest from the others (the componentwise
+// median), not the one the shifted arithmetic happened to overflow on.
+func fromConstraint(err error, cs []Contact) error {
+	var ce *constraint.Error
+	if !errors.As(err, &ce) {
+		return err
+	}
+	field := "cs"
+	switch {
+	case ce.Index >= 0 && ce.Part == "F":
+		field = indexed("cs", ce.Index) + ".Normal"
+	case ce.Index >= 0:
+		field = indexed("cs", ce.Index) + ".Point"
+	}
+	if errors.Is(ce.Err, ErrRange) && (ce.Index >= 0 && ce.Part != "F" || ce.Index < 0) {
+		field = indexed("cs", outlier(cs)) + ".Point"
+	}
+	return &InputError{Field: field, Err: ce.Err}
 }

@@ -6,7 +6,6 @@ import (
 
 	"github.com/sixfold-dev/sixfold/hertz"
 	"github.com/sixfold-dev/sixfold/internal/errs"
-	"github.com/sixfold-dev/sixfold/screw"
 )
 
 // Sentinel errors wrapped by [InputError]. ErrNonFinite, ErrRange and
@@ -81,27 +80,4 @@ func joinField(head, rest string) string {
 		return head
 	}
 	return head + "." + rest
-}
-
-// fromScrew translates an error of package screw about the wrenches of the
-// contacts into this package's vocabulary: "ws[i].F" is the normal of
-// contact i, "ws[i].M" and "ws[i]" its point (the moment of a unit force is
-// p × n), "ws" the contact set.
-func fromScrew(err error, set string) error {
-	var se *screw.InputError
-	if !errors.As(err, &se) {
-		return err
-	}
-	f := se.Field
-	switch {
-	case f == "ws":
-		f = set
-	case strings.HasPrefix(f, "ws["):
-		idx, part, _ := strings.Cut(f[2:], ".")
-		f = set + idx + ".Point"
-		if part == "F" {
-			f = set + idx + ".Normal"
-		}
-	}
-	return &InputError{Field: f, Err: se.Err}
 }

@@ -6,6 +6,7 @@ import (
 
 	"gonum.org/v1/gonum/spatial/r3"
 
+	"github.com/sixfold-dev/sixfold/internal/constraint"
 	"github.com/sixfold-dev/sixfold/internal/linalg"
 	"github.com/sixfold-dev/sixfold/screw"
 )
@@ -306,16 +307,16 @@ func (sc *scorer) score(card *Scorecard, need figures) error {
 		}
 	}
 	if need&figSingular != 0 {
-		var ws [6]screw.Wrench
+		var ws [6]constraint.Wrench
 		for i, l := range sc.lines {
-			ws[i] = screw.Wrench{F: l.n, M: r3.Cross(l.p, l.n)}
+			ws[i] = constraint.Wrench{F: l.n, M: r3.Cross(l.p, l.n)}
 		}
-		an, err := screw.Analyze(ws[:])
-		if err != nil {
-			return fromScrew(err, "cs")
+		var r constraint.Result
+		if err := constraint.Analyze(ws[:], &r); err != nil {
+			return &InputError{Field: "Pairs", Err: err}
 		}
-		card.MinSingular, card.Condition = an.Singular[len(an.Singular)-1], an.Condition
-		card.Poor = an.Condition > DesignCondition
+		card.MinSingular, card.Condition = r.Singular[r.K-1], r.Condition
+		card.Poor = r.Condition > DesignCondition
 	}
 	p := r3.Sub(sc.s.Point, sc.origin)
 	if need&figError != 0 {

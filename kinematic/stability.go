@@ -79,8 +79,8 @@ func (a *Analysis) stability(st *Stability) error {
 			"%w: %d contacts of rank %d (%d free motions, %d redundant); Maxwell indices need six independent contacts",
 			ErrNotExact, len(a.lines), a.Rank, len(a.Free), len(a.Redundant))}
 	}
-	var ts [6]screw.Twist
-	if !freedOf(a.lines, &ts) {
+	ts := a.freed
+	if !a.hasFreed && !freedOf(a.lines, &ts) {
 		return &InputError{Field: "cs", Err: fmt.Errorf("%w: the six contacts are singular to working precision", ErrNotExact)}
 	}
 	for i, t := range ts {
