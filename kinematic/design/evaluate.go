@@ -367,15 +367,18 @@ func (v Verdict) String() string {
 
 // quantityString formats a value in its unit; accelerations also in g.
 func quantityString(v float64, unit string) string {
-	s := fmt.Sprintf("%.4g", v)
 	if math.IsInf(v, 1) {
-		s = "+Inf"
+		return "unbounded"
 	}
+	s := fmt.Sprintf("%.4g", v)
 	if unit != "" {
 		s += " " + unit
 	}
-	if unit == "m/s^2" && !math.IsInf(v, 0) {
+	switch {
+	case unit == "m/s^2":
 		s += fmt.Sprintf(" (%.3g g)", v/kinematic.StandardGravity)
+	case unit == "m" && v != 0 && math.Abs(v) < 1e-3:
+		s += fmt.Sprintf(" (%.4g µm)", v*1e6)
 	}
 	return s
 }

@@ -75,7 +75,7 @@ func TestVerdictsPassFail(t *testing.T) {
 			t.Errorf("message names %s: %v, want %v:\n%s", req, named, fails, msg)
 		}
 	}
-	for _, want := range []string{"71.47 m/s^2 (7.29 g), needs at least 98.07 m/s^2 (10 g)", "797.4 Hz, needs at least 900 Hz", "8.165e-07 m, needs at most 5e-07 m"} {
+	for _, want := range []string{"71.47 m/s^2 (7.29 g), needs at least 98.07 m/s^2 (10 g)", "797.4 Hz, needs at least 900 Hz", "8.165e-07 m (0.8165 µm), needs at most 5e-07 m (0.5 µm)"} {
 		if !strings.Contains(msg, want) {
 			t.Errorf("message lacks %q:\n%s", want, msg)
 		}
@@ -139,7 +139,7 @@ func TestVerdictsErr(t *testing.T) {
 	}
 	err := vs.Err()
 	want := "design: 2 of 3 requirements not met: " +
-		"requirements.max_thermal_drift: 3e-06 m, needs at most 2e-06 m (exact): fails; " +
+		"requirements.max_thermal_drift: 3e-06 m (3 µm), needs at most 2e-06 m (2 µm) (exact): fails; " +
 		"requirements.seating: seats up to mu = 0.05, needs mu = 0.1: fails"
 	if err == nil || err.Error() != want {
 		t.Errorf("Err() = %v\nwant %s", err, want)
