@@ -326,3 +326,45 @@ func FuzzSeat(f *testing.F) {
 		}
 	})
 }
+
+// FuzzSizePreload sizes three fuzzed preload elements on a three-vee
+// coupling over two fuzzed load cases and checks that the sizing never
+// panics and, without an error, returns non-negative factors that keep
+// every contact at the minimum force in every case.
+func FuzzSizePreload(f *testing.F) {
+	f.Add(fuzzdata.Append(nil, 0, 0, -1, 10, 0.3, 0.1, -1, 5, 0, 0, -1, 5, 0, 0, -9.8, 2, 0, -9.8, 1))
+	f.Add(fuzzdata.Append(nil, 0, 0, 1, 10, 0, 0, -1, 5, 0, 0, -1, 0, 0, 0, 9.8, 0, 0, 0, 0))
+	c, err := BisectorVees(isosceles(), three(vee45))
+	if err != nil {
+		f.Fatal(err)
+	}
+	cs, err := c.Contacts()
+	if err != nil {
+		f.Fatal(err)
+	}
+	f.Fuzz(func(t *testing.T, b []byte) {
+		xs := fuzzdata.Floats(b, 19)
+		if len(xs) != 1 {
+			return
+		}
+		x := xs[0]
+		var pre []Preload
+		for k := 0; k < 3; k++ {
+			pre = append(pre, Preload{Point: cs[2*k].Centre, Direction: r3.Vec{X: x[4*k], Y: x[4*k+1], Z: x[4*k+2]}, Force: x[4*k+3]})
+		}
+		m, err := NewModel(cs, pre, Payload{Mass: 1, Centre: r3.Vec{Z: 0.02}})
+		if err != nil {
+			return
+		}
+		cases := []LoadCase{{Gravity: r3.Vec{X: x[12], Y: x[13], Z: x[14]}}, {Gravity: r3.Vec{X: x[15], Y: x[16], Z: x[17]}}}
+		sz, err := m.SizePreload(cases, math.Abs(x[18]))
+		if err != nil {
+			return
+		}
+		for _, s := range sz.Factors {
+			if !(s >= 0) || math.IsInf(s, 0) {
+				t.Fatalf("factor %g", s)
+			}
+		}
+	})
+}

@@ -193,7 +193,15 @@ func (m *Model) SizePreload(cases []LoadCase, minForce float64) (PreloadSizing, 
 // the standard form of lp.Simplex with a slack zᵢₖ ≥ 0 per constraint:
 // Σⱼ sⱼ aᵢⱼ − zᵢₖ = minForce − eᵢₖ. Each row is divided by its largest
 // coefficient, so that the simplex's tolerances act on numbers near 1.
-func (m *Model) sizeLP(a [][6]float64, e [][6]float64, minForce float64) ([]float64, error) {
+func (m *Model) sizeLP(a [][6]float64, e [][6]float64, minForce float64) (factors []float64, err error) {
+	// gonum's simplex panics on some degenerate programs (a singular
+	// initial basis); a caller's numbers must not panic, so that becomes
+	// an error.
+	defer func() {
+		if r := recover(); r != nil {
+			factors, err = nil, &InputError{Field: "cases", Err: fmt.Errorf("%w: the preload linear program is degenerate (%v); size the elements one at a time", ErrRange, r)}
+		}
+	}()
 	// An element that pushes no contact has an all-zero column, which the
 	// simplex rejects: it is left out (its factor is 0).
 	var used []int
