@@ -102,10 +102,12 @@ func (m *Model) Stiffness(lc LoadCase, opt *StiffnessOptions) (Stiffness, error)
 		if s.err != nil {
 			return Stiffness{}, s.err
 		}
-		// δ = (F/k)^(2/3), dF/dδ = 3F/(2δ).
-		d := math.Cbrt(f / s.k)
-		d *= d
-		st.Normal[i] = 1.5 * f / d
+		// δ = (F/k)^(2/3), so dF/dδ = 3F/(2δ) = (3/2) k^(2/3) F^(1/3),
+		// written without the quotient, which underflows for tiny forces.
+		st.Normal[i] = 1.5 * math.Cbrt(s.k*s.k*f)
+		if math.IsInf(st.Normal[i], 0) || math.IsNaN(st.Normal[i]) {
+			return Stiffness{}, &InputError{Field: "lc", Err: fmt.Errorf("%w: the stiffness of contact %s at %g N is outside the floating-point range", ErrRange, labelOf(l.label, i), f)}
+		}
 		g := scaledWrench(screw.Wrench{F: l.n, M: r3.Cross(l.p, l.n)}, L)
 		addOuter(&st.k, st.Normal[i], &g)
 		if o.Tangential {
