@@ -100,7 +100,10 @@ var (
 // lines too far apart for their distances to be squared, or lines that do
 // not meet in one point but lie closer together than 7.1e-12 times their
 // distance from the origin, where the rounding of their moments hides the
-// rank (field "ws" for these two).
+// rank (field "ws" for these two), or a redundant set whose weights would
+// span more than 2¹⁰⁰⁰ ≈ 1e301 (a couple whose moment over the
+// characteristic length is that much larger than a force; field "ws[i]"
+// names the couple).
 func Analyze(ws []Wrench) (Analysis, error) {
 	var stack [12]constraint.Wrench
 	var cw []constraint.Wrench

@@ -124,10 +124,18 @@ func checkFree(t *testing.T, ws []Wrench, an Analysis, tol float64) {
 			w = w.Scale(1 / maxAbs(w)) // only the line matters; avoid subnormals
 			// Power relative to the sizes of the terms it sums, and to the
 			// rounding of moving a twist from Centre to the origin,
-			// ε·|W|·|Centre| (large when the lines lie far from the origin).
+			// ε·|W|·|Centre| (large when the lines lie far from the origin);
+			// a floor for subnormal products, which carry absolute rounding
+			// of the smallest subnormal, 4.9e-324, per operation. A twist
+			// is computed as a unit vector (V at Centre, W·Length), so W
+			// carries rounding relative to |V at Centre|/Length as well,
+			// which matters for a screw of large pitch or far axis.
 			scale := r3.Norm(tw.W)*r3.Norm(w.M) + r3.Norm(tw.V)*r3.Norm(w.F) +
 				r3.Norm(tw.W)*r3.Norm(w.F)*(r3.Norm(an.Centre)+an.Length)
-			if p := Power(tw, w); math.Abs(p) > tol*scale {
+			if an.Length > 0 {
+				scale += r3.Norm(tw.At(an.Centre)) / an.Length * r3.Norm(w.M)
+			}
+			if p := Power(tw, w); math.Abs(p) > tol*scale+1e-290 {
 				t.Fatalf("free twist %d and wrench %d: power %g (scale %g)", k, i, p, scale)
 			}
 		}

@@ -100,16 +100,22 @@ func FuzzAnalyze(f *testing.F) {
 			// RankTol of the largest count as zero, and the wrenches are
 			// reciprocal to the free twists only to that level.
 			tol := 1e-11 * an.Condition
-			// (The factor covers the change from normalised to physical
-			// sizes, which sums over up to n wrenches.)
-			if an.Rank < len(an.Singular) {
-				tol += 10 * math.Sqrt(float64(n)) * an.Singular[an.Rank] / an.Singular[0]
-			}
 			// And, far from the origin, what the moments' rounding allows:
 			// 32ε·far/Length relative to the matrix (see the tolerance
-			// policy), times Condition for the twists and weights.
+			// policy), times Condition for the twists and weights, with
+			// the same factor 10 over the cut-off as for rounding
+			// (translationTol = 1e-12).
 			if an.Length > 0 {
-				tol += 32 * 0x1p-52 * farOf(ws, an.Centre) / an.Length * an.Condition
+				tol += 10 * 32 * 0x1p-52 * farOf(ws, an.Centre) / an.Length * an.Condition
+			}
+			// (The factor covers the change from normalised to physical
+			// sizes, which sums over up to n wrenches.) The free twists
+			// and the redundancies are those of the matrix without the
+			// dropped values, accurate to their size over the gap
+			// (Condition; Wedin 1972): a rotation or a weight at that
+			// level is set to zero.
+			if an.Rank < len(an.Singular) {
+				tol += 10 * math.Sqrt(float64(n)) * an.Singular[an.Rank] / an.Singular[0] * an.Condition
 			}
 			checkFree(t, ws, an, tol)
 			checkRedundant(t, ws, an, tol)

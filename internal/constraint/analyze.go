@@ -43,7 +43,9 @@ const NearSingularRatio = 1e-3
 // removes rounding and nothing that the geometry holds: a rotation larger
 // than that is kept, however small, and the twist is reported as a screw of
 // large pitch. Far from the origin the rounding bound of the moments
-// (momentRounding·ε·far/length) takes its place when it is larger.
+// (momentRounding·ε·far/length), and when the rank decision dropped a
+// singular value above rounding, droppedMargin times that value relative
+// to the largest, take its place when they are larger.
 const translationTol = 1e-12
 
 // weightTol sets to zero the weights of a redundant combination (of the
@@ -52,8 +54,32 @@ const translationTol = 1e-12
 // a small multiple of ε·Condition, as the free twists are), and the
 // wrenches that take part in a redundancy can then be read off exactly.
 // Far from the origin the rounding bound of the moments takes its place
-// when it is larger, as for translationTol.
+// when it is larger, as for translationTol, and so does droppedMargin
+// times the largest singular value the rank decision dropped.
 const weightTol = 1e-12
+
+// droppedMargin multiplies the largest singular value that the rank
+// decision dropped (relative to the largest kept) in the cut-offs of
+// translationTol and weightTol. The free space and the redundancies are
+// those of the matrix without the dropped singular values, and a twist's
+// rotation part at that level over the gap, or a weight at that level, is
+// an artefact of dropping them: a translation that the dropped value tilts
+// by 1e-11 rad would otherwise be reported as a screw whose axis lies 1e11
+// times the set's size away, and a weight of 1e-10 on a force among
+// couples 1e120 times larger would dominate its combination once
+// converted to the wrenches as given. The level is droppedMargin·√n times
+// the dropped value: a perturbation σ of the matrix moves the n unit
+// columns' coordinates by up to √n·σ in all; 2 is a margin over that
+// first-order bound.
+const droppedMargin = 2
+
+// maxCut bounds the cut-offs of translationTol and weightTol once
+// multiplied by Condition: 1e-2, the largest that translationTol·Condition
+// reaches when only rounding enters (Condition is at most 1/RankTol =
+// 1e10). Beyond it the free space is not determined by the data, and the
+// set is flagged near-singular; the cut-offs then remove no more than
+// that.
+const maxCut = 1e-2
 
 // stackWrenches is the largest set analysed without allocating workspace.
 const stackWrenches = 12
@@ -140,7 +166,10 @@ type workspace struct {
 // times its force, lines too far apart for their distances to be squared,
 // and lines that do not meet in one point but lie within 7.1e-12 of their
 // distance from the origin of one another (see farLimit), where the
-// moments' rounding hides the rank. On error *r is the zero Result.
+// moments' rounding hides the rank, and redundant sets whose weights would
+// span more than 2¹⁰⁰⁰ (couples whose moment over the characteristic
+// length is that much larger than a force: Index names the couple). On
+// error *r is the zero Result.
 func Analyze(ws []Wrench, r *Result) error { return analyze(ws, r, true) }
 
 // analyze is Analyze, with the freed twists only if withFreed (for the
@@ -211,15 +240,30 @@ func analyze(ws []Wrench, r *Result, withFreed bool) error {
 	r.NearSingular = sigma[rank-1] < NearSingularRatio*sigma[0]
 	r.Centre = r3.Scale(fr.unit, fr.c)
 	r.Length = fr.length * fr.unit
-	level := fr.noise // rounding of the normalised matrix beyond ε's
+	// What the free twists and the redundancies are accurate to, beyond
+	// ε's rounding: the moments' rounding bound, and the singular values
+	// that the rank decision dropped (the free space and the redundancies
+	// are those of the matrix without them).
+	var dropped float64
+	if rank < k {
+		dropped = droppedMargin * math.Sqrt(float64(n)) * sigma[rank] / sigma[0]
+	}
+	// Both are as accurate as the perturbation over the gap σ_rank/σ₁
+	// (Wedin 1972), hence the factor Condition.
+	cut := min(max(translationTol, fr.noise, dropped)*r.Condition, maxCut)
 	if rank < 6 {
 		// The free twists span the complement of the retained left
 		// singular vectors.
 		linalg.Complete(u[:], 6, rank)
-		freeTwists(&u, rank, &fr, math.Max(translationTol, level)*r.Condition, &r.Free)
+		freeTwists(&u, rank, &fr, cut, &r.Free)
 	}
 	if rank < n {
-		r.Redundant = redundancies(a, n, &u, rank, sigma[rank-1], exps, gain, math.Max(weightTol, level)*r.Condition, work)
+		if err := weightRange(ws, exps, gain, fr.unit*fr.used); err != nil {
+			*r = Result{}
+			return err
+		}
+		wcut := min(max(weightTol, fr.noise, dropped)*r.Condition, maxCut)
+		r.Redundant = redundancies(a, n, &u, rank, sigma[rank-1], exps, gain, wcut, work)
 	}
 	if n == 6 && rank == 6 && withFreed {
 		r.HasFreed = freedFromSVD(a, &u, &sigma, &fr, exps, gain, &r.Freed)

@@ -38,6 +38,11 @@ func TestAnalyzeErrors(t *testing.T) {
 		{"Inf moment", []Wrench{{M: r3.Vec{Z: math.Inf(1)}}}, 0, "M", errs.ErrNonFinite},
 		{"magnitudes apart", []Wrench{ok, {F: r3.Vec{Y: 1e151}}}, 1, "", errs.ErrRange},
 		{"line too far", []Wrench{{F: r3.Vec{X: 1e-101}, M: r3.Vec{Y: 1}}}, 0, "", errs.ErrRange},
+		// Two couples of 1e100 and 2e100 N·m about x (redundant) and two
+		// forces along z 2e-250 m apart: the couples' weights relative to
+		// the forces' scale as moment over length, 1e350, out of range.
+		{"couples and forces apart", []Wrench{{M: r3.Vec{X: 1e100}}, {M: r3.Vec{X: 2e100}},
+			line(r3.Vec{X: 1e-250}, r3.Vec{Z: 1}), line(r3.Vec{X: -1e-250}, r3.Vec{Z: 1})}, 1, "", errs.ErrRange},
 	} {
 		var r Result
 		r.Rank = 7 // must be cleared

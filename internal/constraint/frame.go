@@ -120,7 +120,14 @@ func normalise(ws, pre []Wrench, a []float64, exps []int, gain []float64) (frame
 		// only the line matters, and this keeps every product in range.
 		e := exponent(m)
 		exps[i] = e
-		pre[i] = Wrench{F: scaleVec(w.F, -e), M: scaleVec(w.M, -e)}
+		p := &pre[i]
+		if e >= -1022 && e <= 1022 {
+			f := pow2(-e)
+			p.F.X, p.F.Y, p.F.Z = w.F.X*f, w.F.Y*f, w.F.Z*f
+			p.M.X, p.M.Y, p.M.Z = w.M.X*f, w.M.Y*f, w.M.Z*f
+		} else {
+			p.F, p.M = scaleVec(w.F, -e), scaleVec(w.M, -e)
+		}
 	}
 	if mhi > maxSpread*mlo {
 		return frame{}, &Error{Index: hi, Err: fmt.Errorf(
@@ -135,17 +142,29 @@ func normalise(ws, pre []Wrench, a []float64, exps []int, gain []float64) (frame
 	// applied to the moment as given in one exact step, so that no
 	// intermediate is subnormal; a couple keeps its scaled moment, since
 	// only its direction enters the matrix.
+	var far2 float64 // largest squared distance, of lines with a normal |M|²
 	far := minUnit
 	for i := range pre {
-		f := linalg.Norm3(pre[i].F)
-		if f == 0 {
-			continue
+		if pre[i].F == (r3.Vec{}) {
+			continue // a couple
 		}
-		if f < minForce {
+		f2 := r3.Norm2(pre[i].F) // |F| ≤ 2√3: no overflow; an underflow is caught below
+		if f2 < minForce*minForce {
 			return frame{}, &Error{Index: i, Err: fmt.Errorf(
 				"%w: moment more than %g times the force: the line is too far from the origin (a couple has F = 0)", errs.ErrRange, 1/minForce)}
 		}
-		far = math.Max(far, linalg.Norm3(pre[i].M)/f)
+		// Squared distances where |M|² is safely normal (the common
+		// case), the norms otherwise.
+		if m2 := r3.Norm2(pre[i].M); m2 > 0x1p-1000 {
+			if d2 := m2 / f2; d2 > far2 {
+				far2 = d2
+			}
+		} else if d := linalg.Norm3(pre[i].M) / math.Sqrt(f2); d > far {
+			far = d
+		}
+	}
+	if d := math.Sqrt(far2); d > far {
+		far = d
 	}
 	ue := exponent(far) + 1 // unit = 2^ue > far
 	unit := math.Ldexp(1, ue)
@@ -155,7 +174,7 @@ func normalise(ws, pre []Wrench, a []float64, exps []int, gain []float64) (frame
 		}
 	}
 
-	fr, ok := reference(pre)
+	fr, ok := reference(pre, gain) // gain is free until the columns
 	if !ok {
 		return frame{}, &Error{Index: -1, Err: fmt.Errorf("%w: lines too far from the origin", errs.ErrRange)}
 	}
@@ -213,8 +232,8 @@ func normalise(ws, pre []Wrench, a []float64, exps []int, gain []float64) (frame
 // scaled to a largest component in [1, 2) and lengths in units. It
 // replaces each line's moment by its moment about the reference point
 // (zero when the lines meet there). It reports false if the point is out
-// of range.
-func reference(ws []Wrench) (fr frame, ok bool) {
+// of range. inv is workspace of len(ws) values.
+func reference(ws []Wrench, inv []float64) (fr frame, ok bool) {
 	// Least-squares point nearest to all lines: Σ(I − dᵢdᵢᵀ) c = Σ pᵢ, with
 	// dᵢ the unit direction and pᵢ the point of line i nearest the origin.
 	var s00, s01, s02, s11, s12, s22 float64 // Σ(I − dᵢdᵢᵀ), upper triangle
@@ -225,11 +244,13 @@ func reference(ws []Wrench) (fr frame, ok bool) {
 		f, m := ws[i].F, ws[i].M
 		f2 := r3.Norm2(f)
 		if f2 == 0 {
+			inv[i] = 0
 			continue
 		}
-		inv := 1 / f2
-		p := r3.Scale(inv, r3.Cross(f, m)) // |p| ≤ 1/minForce
-		x, y, z := f.X*inv, f.Y*inv, f.Z*inv
+		r := 1 / f2
+		inv[i] = r
+		p := r3.Scale(r, r3.Cross(f, m)) // |p| ≤ 1/minForce
+		x, y, z := f.X*r, f.Y*r, f.Z*r
 		s00 += 1 - f.X*x
 		s01 -= f.X * y
 		s02 -= f.X * z
@@ -237,7 +258,9 @@ func reference(ws []Wrench) (fr frame, ok bool) {
 		s12 -= f.Y * z
 		s22 += 1 - f.Z*z
 		b = r3.Add(b, p)
-		far2 = math.Max(far2, r3.Norm2(p))
+		if d2 := r3.Norm2(p); d2 > far2 {
+			far2 = d2
+		}
 		nf++
 	}
 	s := [9]float64{s00, s01, s02, s01, s11, s12, s02, s12, s22}
@@ -259,28 +282,27 @@ func reference(ws []Wrench) (fr frame, ok bool) {
 	// takes their moments about c from ε·far/θ down to ε·far.
 	var b2 r3.Vec
 	for i := range ws {
-		f := ws[i].F
-		f2 := r3.Norm2(f)
-		if f2 == 0 {
+		if inv[i] == 0 {
 			continue
 		}
+		f := ws[i].F
 		m := r3.Sub(ws[i].M, r3.Cross(c, f))
-		b2 = r3.Add(b2, r3.Scale(1/f2, r3.Cross(f, m)))
+		ws[i].M = m // the moment about c, corrected below
+		b2 = r3.Add(b2, r3.Scale(inv[i], r3.Cross(f, m)))
 	}
-	c = r3.Add(c, solve3(&sf, b2))
+	dc := solve3(&sf, b2)
+	c = r3.Add(c, dc)
 	if !linalg.Finite3(c) {
 		return frame{}, false
 	}
 	var sum float64
 	for i := range ws {
-		f := ws[i].F
-		f2 := r3.Norm2(f)
-		if f2 == 0 {
+		if inv[i] == 0 {
 			continue
 		}
-		m := r3.Sub(ws[i].M, r3.Cross(c, f))
+		m := r3.Sub(ws[i].M, r3.Cross(dc, ws[i].F)) // M − c×F
 		ws[i].M = m
-		sum += r3.Norm2(m) / f2
+		sum += r3.Norm2(m) * inv[i]
 	}
 	length := math.Sqrt(sum / float64(nf))
 	if math.IsInf(length, 0) {

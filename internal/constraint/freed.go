@@ -47,9 +47,10 @@ func Freed(ws *[6]Wrench, ts *[6]Twist) bool {
 		return false
 	}
 	// Row i of A⁻¹ is a[i], a[6+i], ..., a[30+i].
+	cm := r3.Scale(fr.unit, fr.c)
 	for i := range ts {
 		row := [6]float64{a[i], a[6+i], a[12+i], a[18+i], a[24+i], a[30+i]}
-		if !freedTwist(&row, &fr, exps[i], gain[i], &ts[i]) {
+		if !freedTwist(&row, &fr, cm, exps[i], gain[i], &ts[i]) {
 			return false
 		}
 	}
@@ -84,13 +85,14 @@ func freedFromSVD(a []float64, u *[36]float64, sigma *[6]float64, fr *frame, exp
 		}
 	}
 	// Row i of A⁻¹ = Aᵀ·M is (M·aᵢ)ᵀ.
+	cm := r3.Scale(fr.unit, fr.c)
 	for i := 0; i < 6; i++ {
 		ai := (*[6]float64)(a[6*i : 6*i+6])
 		var row [6]float64
 		for l := 0; l < 6; l++ {
 			row[l] = dot6(&mm[l], ai)
 		}
-		if !freedTwist(&row, fr, exps[i], gain[i], &ts[i]) {
+		if !freedTwist(&row, fr, cm, exps[i], gain[i], &ts[i]) {
 			return false
 		}
 	}
@@ -101,14 +103,17 @@ func freedFromSVD(a []float64, u *[36]float64, sigma *[6]float64, fr *frame, exp
 // the twist with power δᵢⱼ with the wrenches as given. The normalised
 // twist pairs with column j of the matrix as t̂·aⱼ = Power(t, wⱼ)/gⱼ, with
 // t̂ = (V at c, W·used) and gⱼ = 2^expsⱼ·gainⱼ, so twist i is row i
-// divided by gᵢ, in metres and radians. It reports false if the twist
-// overflows.
-func freedTwist(row *[6]float64, fr *frame, exp int, gain float64, t *Twist) bool {
-	fv := ldexp(1/gain, -exp)
-	fw := ldexp(1/(gain*fr.used), -fr.ue-exp)
-	w := r3.Vec{X: row[3] * fw, Y: row[4] * fw, Z: row[5] * fw}
-	vc := r3.Vec{X: row[0] * fv, Y: row[1] * fv, Z: row[2] * fv}
-	*t = Twist{W: w, V: r3.Sub(vc, r3.Cross(w, r3.Scale(fr.unit, fr.c)))}
+// divided by gᵢ, in metres and radians; cm is the reference point in
+// metres. It reports false if the twist overflows.
+func freedTwist(row *[6]float64, fr *frame, cm r3.Vec, exp int, gain float64, t *Twist) bool {
+	g := 1 / gain
+	fv := ldexp(g, -exp)
+	fw := ldexp(g/fr.used, -fr.ue-exp)
+	wx, wy, wz := row[3]*fw, row[4]*fw, row[5]*fw
+	t.W.X, t.W.Y, t.W.Z = wx, wy, wz
+	t.V.X = row[0]*fv - (wy*cm.Z - wz*cm.Y)
+	t.V.Y = row[1]*fv - (wz*cm.X - wx*cm.Z)
+	t.V.Z = row[2]*fv - (wx*cm.Y - wy*cm.X)
 	return linalg.Finite3(t.W) && linalg.Finite3(t.V)
 }
 

@@ -1,8 +1,12 @@
 package constraint
 
 import (
+	"fmt"
 	"math"
 
+	"gonum.org/v1/gonum/spatial/r3"
+
+	"github.com/sixfold-dev/sixfold/internal/errs"
 	"github.com/sixfold-dev/sixfold/internal/linalg"
 )
 
@@ -131,7 +135,7 @@ func redundancies(a []float64, n int, u *[36]float64, rank int, sigmaR float64, 
 		if !placed {
 			idx[m], m = j, m+1
 		}
-		toWeights(w, idx[:m], exps, gain, tiny*big)
+		toWeights(w, idx[:m], j, exps, gain, tiny*big)
 		out[row] = w
 		row++
 	}
@@ -140,14 +144,15 @@ func redundancies(a []float64, n int, u *[36]float64, rank int, sigmaR float64, 
 
 // toWeights converts the normalised weights of w at the indices idx (the
 // only non-zero ones) into weights of the wrenches as given, wᵢ/(2^expsᵢ·gainᵢ),
-// after setting to zero those below cut in magnitude, and scales them to a
+// after setting to zero those below cut in magnitude (never the pivot's,
+// which keeps the combination a wrench of its own), and scales them to a
 // largest weight of +1 (the first of equals in the order of idx).
-func toWeights(w []float64, idx []int, exps []int, gain []float64, cut float64) {
+func toWeights(w []float64, idx []int, pivot int, exps []int, gain []float64, cut float64) {
 	// The binary exponents of the divisors are taken out and the smallest
 	// one restored, so that no quotient overflows.
 	emin := math.MaxInt
 	for _, i := range idx {
-		if math.Abs(w[i]) < cut {
+		if i != pivot && math.Abs(w[i]) < cut {
 			w[i] = 0
 			continue
 		}
@@ -173,3 +178,44 @@ func toWeights(w []float64, idx []int, exps []int, gain []float64, cut float64) 
 func dot6(x, y *[6]float64) float64 {
 	return (x[0]*y[0] + x[1]*y[1]) + (x[2]*y[2] + x[3]*y[3]) + (x[4]*y[4] + x[5]*y[5])
 }
+
+// weightRange reports an error if the weights of a redundant combination
+// could leave the float64 range: the weight of wrench i scales as
+// 1/(2^exps[i]·gain[i]), its column's divisor, and scaled to a largest
+// weight of 1, a weight below 2⁻¹⁰⁰⁰ of it (maxWeightExp) would be
+// subnormal or zero. For lines the divisor is the magnitude to within a
+// factor of the column norm, and the magnitudes are within maxSpread; a
+// couple's is its moment over the characteristic length, so a set that
+// mixes couples and forces can exceed the bound. length is the
+// characteristic length in metres, for the message.
+func weightRange(ws []Wrench, exps []int, gain []float64, length float64) error {
+	lo, hi := 0, 0
+	elo, ehi := math.MaxInt, math.MinInt
+	for i := range exps {
+		e := exps[i] + exponent(gain[i])
+		if e < elo {
+			lo, elo = i, e
+		}
+		if e > ehi {
+			hi, ehi = i, e
+		}
+	}
+	if ehi-elo <= maxWeightExp {
+		return nil
+	}
+	what := func(i int) string {
+		if ws[i].F == (r3.Vec{}) {
+			return fmt.Sprintf("a couple of %.3g N·m", linalg.Norm3(ws[i].M))
+		}
+		return fmt.Sprintf("a force of %.3g N", linalg.Norm3(ws[i].F))
+	}
+	return &Error{Index: hi, Err: fmt.Errorf(
+		"%w: %s is more than 2^%d times %s (wrench %d) over the characteristic length %.3g m; "+
+			"the weights of their redundant combination leave the float64 range",
+		errs.ErrRange, what(hi), maxWeightExp, what(lo), lo, length)}
+}
+
+// maxWeightExp bounds the binary exponent of the ratio of two weights of
+// a redundant combination: 2¹⁰⁰⁰ ≈ 1e301, short of the 2¹⁰²² below which
+// float64 numbers are subnormal.
+const maxWeightExp = 1000
