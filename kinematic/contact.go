@@ -8,6 +8,7 @@ import (
 
 	"github.com/sixfold-dev/sixfold/hertz"
 	"github.com/sixfold-dev/sixfold/internal/linalg"
+	"github.com/sixfold-dev/sixfold/screw"
 )
 
 // Contact is a point contact between the moving body and the base.
@@ -118,4 +119,12 @@ func anyNormal(n r3.Vec) r3.Vec {
 	}
 	u, _ := linalg.Unit3(r3.Cross(n, a))
 	return u
+}
+
+func scaledWrench(w screw.Wrench, L float64) [6]float64 {
+	return [6]float64{w.F.X, w.F.Y, w.F.Z, w.M.X / L, w.M.Y / L, w.M.Z / L}
+}
+
+func dot6(a, b *[6]float64) float64 {
+	return a[0]*b[0] + a[1]*b[1] + a[2]*b[2] + a[3]*b[3] + a[4]*b[4] + a[5]*b[5]
 }

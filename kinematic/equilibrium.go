@@ -201,14 +201,6 @@ func newSolver(m *Model, e []float64, w screw.Wrench, preload bool) *solver {
 	return s
 }
 
-func scaledWrench(w screw.Wrench, L float64) [6]float64 {
-	return [6]float64{w.F.X, w.F.Y, w.F.Z, w.M.X / L, w.M.Y / L, w.M.Z / L}
-}
-
-func dot6(a, b *[6]float64) float64 {
-	return a[0]*b[0] + a[1]*b[1] + a[2]*b[2] + a[3]*b[3] + a[4]*b[4] + a[5]*b[5]
-}
-
 // ranked reports whether the contact lines span all six directions.
 func (s *solver) ranked() bool {
 	var h [36]float64
