@@ -7,6 +7,7 @@ import (
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"github.com/sixfold-dev/sixfold/internal/linalg"
+	"github.com/sixfold-dev/sixfold/screw"
 )
 
 // PointError is the first-order error of a point of interest of the moving
@@ -51,16 +52,43 @@ func (s Stability) ErrorAt(p r3.Vec) (PointError, error) {
 		return PointError{}, &InputError{Field: "p", Err: fmt.Errorf("%w: %v", ErrNonFinite, p)}
 	}
 	pe := PointError{Point: p}
-	var d, w [6]r3.Vec
+	var ts [6]screw.Twist
 	for i, m := range s.Contacts {
-		d[i], w[i] = m.Freed.At(p), m.Freed.W
-		pe.Contacts[i] = ContactError{Label: m.Label, Displacement: d[i], Tilt: w[i]}
-		pe.RSS += r3.Norm2(d[i])
-		pe.RSSTilt += r3.Norm2(w[i])
+		ts[i] = m.Freed
 	}
-	pe.RSS, pe.RSSTilt = math.Sqrt(pe.RSS), math.Sqrt(pe.RSSTilt)
-	pe.Worst, pe.WorstTilt = zonotopeNorm(&d), zonotopeNorm(&w)
+	var d, w [6]r3.Vec
+	pe.Worst, pe.RSS, pe.WorstTilt, pe.RSSTilt = pointError(&ts, p, &d, &w)
+	for i, m := range s.Contacts {
+		pe.Contacts[i] = ContactError{Label: m.Label, Displacement: d[i], Tilt: w[i]}
+	}
 	return pe, nil
+}
+
+// pointError sets d[i] and w[i] to the displacement of the point p and the
+// tilt of the body per unit gap error at contact i, Tᵢ(p) and Wᵢ (ts the
+// freed twists, scaled to open their contact at unit speed, and p in their
+// frame), and returns the worst and RSS displacement and tilt of
+// [PointError]. It is the one definition of the error at a point:
+// [Stability.ErrorAt] and the scorecard call it.
+func pointError(ts *[6]screw.Twist, p r3.Vec, d, w *[6]r3.Vec) (worst, rss, worstTilt, rssTilt float64) {
+	for i := range ts {
+		d[i], w[i] = ts[i].At(p), ts[i].W
+		rss += r3.Norm2(d[i])
+		rssTilt += r3.Norm2(w[i])
+	}
+	return zonotopeNorm(d), math.Sqrt(rss), zonotopeNorm(w), math.Sqrt(rssTilt)
+}
+
+// alongAxis returns the worst and RSS error amplification along the unit
+// direction u of the displacements d per unit gap error: Σ|u·dᵢ| and
+// √Σ(u·dᵢ)².
+func alongAxis(d *[6]r3.Vec, u r3.Vec) (worst, rss float64) {
+	for i := range d {
+		a := r3.Dot(u, d[i])
+		worst += math.Abs(a)
+		rss += a * a
+	}
+	return worst, math.Sqrt(rss)
 }
 
 // zonotopeNorm returns max |Σ sᵢ vᵢ| over the signs sᵢ = ±1: the largest
@@ -92,13 +120,12 @@ func (pe PointError) Along(u r3.Vec) (worst, rss, worstAcross, rssAcross float64
 	if !ok {
 		return 0, 0, 0, 0
 	}
-	var across [6]r3.Vec
+	var disp, across [6]r3.Vec
 	for i, c := range pe.Contacts {
-		a := r3.Dot(d, c.Displacement)
-		worst += math.Abs(a)
-		rss += a * a
-		across[i] = r3.Sub(c.Displacement, r3.Scale(a, d))
+		disp[i] = c.Displacement
+		across[i] = r3.Sub(c.Displacement, r3.Scale(r3.Dot(d, c.Displacement), d))
 		rssAcross += r3.Norm2(across[i])
 	}
-	return worst, math.Sqrt(rss), zonotopeNorm(&across), math.Sqrt(rssAcross)
+	worst, rss = alongAxis(&disp, d)
+	return worst, rss, zonotopeNorm(&across), math.Sqrt(rssAcross)
 }

@@ -39,3 +39,5 @@ func (c Cone) surfaces(b Ball, cs []Contact) ([]seatSurface, []dimension, r3.Vec
 	s, d, apex := socketSurfaces(c.Up, c.HalfAngle, b, cs)
 	return s, d, apex, c.Material.Alpha
 }
+
+func (c Cone) ideals(cs []Contact, out []float64) { socketIdeals(cs, out) }

@@ -4,6 +4,7 @@ import (
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"github.com/sixfold-dev/sixfold/hertz"
+	"github.com/sixfold-dev/sixfold/internal/linalg"
 )
 
 // Flat is a plane pad that holds a ball at one point, under its centre
@@ -22,7 +23,7 @@ func (f Flat) appendContacts(dst []Contact, b Ball, name, field string) ([]Conta
 	if err != nil {
 		return nil, err
 	}
-	return append(dst, ballContact(b, name, up, anyNormal(up), hertz.Flat(f.Material))), nil
+	return append(dst, ballContact(b, name, up, linalg.AnyNormal(up), hertz.Flat(f.Material))), nil
 }
 
 func (f Flat) surfaces(b Ball, cs []Contact) ([]seatSurface, []dimension, r3.Vec, float64) {
@@ -35,4 +36,10 @@ func (f Flat) surfaces(b Ball, cs []Contact) ([]seatSurface, []dimension, r3.Vec
 		{name: "Tilt1", kind: seatMotion, motions: []motion{{surf: 0, rot: true, axis: t1, point: p}}},
 		{name: "Tilt2", kind: seatMotion, motions: []motion{{surf: 0, rot: true, axis: t2, point: p}}},
 	}, p, f.Material.Alpha
+}
+
+func (f Flat) ideals(cs []Contact, out []float64) {
+	for i := range out {
+		out[i] = 1
+	}
 }

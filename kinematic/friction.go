@@ -274,7 +274,7 @@ func (m *Model) Repeatability(lc LoadCase, mu float64, p r3.Vec) (Repeatability,
 			continue
 		}
 		arm := r3.Sub(r3.Add(l.p, m.origin), p)
-		t1 := anyNormal(l.n)
+		t1 := linalg.AnyNormal(l.n)
 		t2 := r3.Cross(l.n, t1)
 		var dv, dw [2]r3.Vec
 		for k, t := range [2]r3.Vec{t1, t2} {

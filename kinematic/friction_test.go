@@ -7,6 +7,8 @@ import (
 
 	"gonum.org/v1/gonum/mat"
 	"gonum.org/v1/gonum/spatial/r3"
+
+	"github.com/sixfold-dev/sixfold/internal/linalg"
 )
 
 // inclineBlock returns a block on an incline of slope β: three contacts
@@ -146,7 +148,7 @@ func TestRepeatability(t *testing.T) {
 	lu.Factorize(km)
 	for i, c := range cs {
 		q := 0.15 * st.Forces[i]
-		t1 := anyNormal(c.Normal)
+		t1 := linalg.AnyNormal(c.Normal)
 		t2 := r3.Cross(c.Normal, t1)
 		var best float64
 		for k := 0; k < 3600; k++ {

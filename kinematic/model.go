@@ -170,6 +170,17 @@ func NewModel(cs []Contact, preloads []Preload, payload Payload) (*Model, error)
 // load in the range the package is valid for.
 const refDepth = 1e-6
 
+// normalStiffness returns a contact's normal stiffness dF/dδ in N/m at the
+// force f ≥ 0 for the Hertz law F = k δ^(3/2): δ = (F/k)^(2/3), so
+// dF/dδ = (3/2) k δ^(1/2) = 3F/(2δ) = (3/2) k^(2/3) F^(1/3) (the law is
+// Hertz's: Johnson, Contact Mechanics, 1985, §4.2, eqs. 4.22–4.23,
+// a³ = 3FR/(4E*) and δ = a²/R), written without the quotient F/δ, which
+// underflows for tiny forces. [Model.Stiffness] and the scorecard both
+// call it.
+func normalStiffness(k, f float64) float64 {
+	return 1.5 * math.Cbrt(k*k*f)
+}
+
 func newSurface(c *Contact, i int) surface {
 	var s surface
 	moving, base := indexed("cs", i)+".Moving", indexed("cs", i)+".Base"
@@ -341,6 +352,14 @@ func (m *Model) errNotExact() error {
 // matrix).
 func (m *Model) forces(w screw.Wrench, f *[6]float64) {
 	for i := range f {
-		f[i] = -screw.Power(m.freed[i], w)
+		f[i] = contactForce(m.freed[i], w)
 	}
+}
+
+// contactForce returns the rigid-statics force, N, at the contact whose
+// freed twist (power δᵢⱼ with contact j) is t, under the load w on the
+// moving body about the twist's origin: −Power(t, w), from Σ fᵢ lᵢ + w = 0.
+// Model's statics and the scorecard both call it.
+func contactForce(t screw.Twist, w screw.Wrench) float64 {
+	return -screw.Power(t, w)
 }

@@ -677,9 +677,9 @@ func (p *optProblem) setLayout(az []float64, offs []r3.Vec, x []float64, k int) 
 			s, co := math.Sincos(h)
 			fl := flankNormals(op.up, turn(op.rad, op.up, az[i]), s, co)
 			ns[0], ns[1] = fl[0], fl[1]
-			ideal := math.Abs(math.Sin(2 * h))
+			ideal := grooveIdeal(h)
 			sc.ideal[op.first], sc.ideal[op.first+1] = ideal, ideal
-			root = r3.Sub(c, r3.Scale(op.radius/s, op.up))
+			root = rootBelow(c, op.up, op.radius, s)
 		}
 		for j := 0; j < op.count; j++ {
 			l := &sc.lines[op.first+j]

@@ -68,7 +68,7 @@ func (r Rods) appendContacts(dst []Contact, b Ball, name, field string) ([]Conta
 func (r Rods) surfaces(b Ball, cs []Contact) ([]seatSurface, []dimension, r3.Vec, float64) {
 	up, g, _ := r.groove("")
 	s := math.Sin(r.HalfAngle)
-	root := r3.Sub(b.Centre, r3.Scale(b.Radius/s, up))
+	root := rootBelow(b.Centre, up, b.Radius, s)
 	surfs := make([]seatSurface, 2)
 	for k := range surfs {
 		// The rod's axis lies RodRadius beyond the contact point, away
@@ -81,4 +81,10 @@ func (r Rods) surfaces(b Ball, cs []Contact) ([]seatSurface, []dimension, r3.Vec
 		dimension{name: "RodRadius+", kind: surfaceRadius, surf: 0},
 		dimension{name: "RodRadius-", kind: surfaceRadius, surf: 1})
 	return surfs, ds, root, r.Material.Alpha
+}
+
+func (r Rods) ideals(cs []Contact, out []float64) {
+	for i := range out {
+		out[i] = grooveIdeal(r.HalfAngle)
+	}
 }

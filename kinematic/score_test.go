@@ -126,3 +126,92 @@ func TestScorePoorLayout(t *testing.T) {
 			bad.Condition, bad.Poor, bad.Amplification, good.Condition, good.Poor, good.Amplification)
 	}
 }
+
+// TestScoreStiffnessWithPreloadRate: the stiffness figures of the
+// scorecard include the preload spring's rate, as [Model.Stiffness] does.
+// The equilateral three-vee coupling (90° vees, θ = 45°, 10 mm 52100 balls
+// on 440C) is clamped by a spring of 60 N and rate −6 N/mm acting down the
+// axis, and carries 0.8 kg centred on the axis under gravity.
+//
+// By hand: vertical balance with every flank loaded alike (symmetry) gives
+// 6 f sin θ = P + m g₀, so f = (60 + 0.8·9.80665)/(6 sin 45°) N. Each flank
+// is a ball on a flat, whose Hertz stiffness at f is dF/dδ = 2E*a with
+// a³ = 3fR/(4E*) and δ = a²/R (Johnson, Contact Mechanics, 1985, §4.2,
+// eqs. 4.22–4.23; hertzBallFlatStiffness). Springs in parallel along the
+// unit lines lᵢ give K = Σ kᵢ lᵢlᵢᵀ, whose vertical entry is
+// Σ kᵢ n_iz² = 6 k sin²θ (each normal leans θ from the horizontal); the
+// clamp's line is the axis (unit force −z through (0, 0, 20 mm), no
+// moment about the origin), and a spring force that falls by |rate| per
+// metre as the body moves down restores it with |rate|: K_zz = 6 k sin²θ
+// − rate = 6 k sin²θ + 6e3 N/m. The coupling's threefold symmetry with its
+// mirror planes decouples the vertical translation of a point on the axis
+// from every other motion, so the compliance along z at a point on the
+// axis is 1/K_zz, and the vertical mode of the payload is at
+// √(K_zz/m)/2π. The rate is 1e-4 of K_zz: a scorecard that left it out
+// would miss these by that much.
+func TestScoreStiffnessWithPreloadRate(t *testing.T) {
+	const P, rate, mass = 60.0, -6e3, 0.8
+	th := math.Pi / 4
+	c, err := BisectorVees(equilateral(), three(vee45))
+	if err != nil {
+		t.Fatal(err)
+	}
+	s := Scenario{
+		Point:    r3.Vec{Z: 0.05},
+		Axis:     r3.Vec{Z: 1},
+		Preloads: []Preload{{Point: r3.Vec{Z: 0.02}, Direction: r3.Vec{Z: -1}, Force: P, Rate: rate}},
+		Payload:  Payload{Mass: mass, Centre: r3.Vec{Z: 0.03}, Inertia: [3][3]float64{{2e-3, 0, 0}, {0, 2e-3, 0}, {0, 0, 3e-3}}},
+		Gravity:  r3.Vec{Z: -StandardGravity},
+	}
+	card, err := c.Score(s)
+	if err != nil {
+		t.Fatal(err)
+	}
+	f := (P + mass*StandardGravity) / (6 * math.Sin(th))
+	k := hertzBallFlatStiffness(5e-3, f, hertz.Steel52100, hertz.Steel440C)
+	kzz := 6*k*math.Sin(th)*math.Sin(th) - rate
+	if got, want := card.AxisCompliance, 1/kzz; math.Abs(got-want) > 1e-9*want {
+		t.Errorf("axis compliance %.12g m/N, want 1/(6 k sin²θ − rate) = %.12g (by hand)", got, want)
+	}
+
+	// The same figures by the public API.
+	m, err := NewModel(mustContacts(t, c), s.Preloads, s.Payload)
+	if err != nil {
+		t.Fatal(err)
+	}
+	st, err := m.Stiffness(LoadCase{Preload: 1, Gravity: s.Gravity}, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if K := st.Matrix(r3.Vec{}); math.Abs(K[2][2]-kzz) > 1e-9*kzz {
+		t.Errorf("Model.Stiffness: K_zz %.12g N/m, want 6 k sin²θ − rate = %.12g (by hand)", K[2][2], kzz)
+	}
+	comp, err := st.Compliance(s.Point)
+	if err != nil {
+		t.Fatal(err)
+	}
+	modes, err := st.Modes()
+	if err != nil {
+		t.Fatal(err)
+	}
+	vertical := math.Sqrt(kzz/mass) / (2 * math.Pi)
+	found := false
+	for _, md := range modes {
+		found = found || math.Abs(md.Frequency-vertical) < 1e-9*vertical
+	}
+	if !found {
+		t.Errorf("Model modes %v Hz; none at √(K_zz/m)/2π = %g Hz (by hand)", frequencies(modes), vertical)
+	}
+	for _, tc := range []struct {
+		name      string
+		got, want float64
+	}{
+		{"axis compliance", card.AxisCompliance, comp.Along(s.Axis)},
+		{"stiffness", card.Stiffness, 1 / largestEigen3(&comp.Matrix)},
+		{"first frequency", card.FirstFrequency, modes[0].Frequency},
+	} {
+		if math.Abs(tc.got-tc.want) > 1e-12*math.Abs(tc.want) {
+			t.Errorf("%s: scorecard %.15g, Model.Stiffness %.15g", tc.name, tc.got, tc.want)
+		}
+	}
+}

@@ -45,6 +45,11 @@ type Seat interface {
 	// (root) and its material's expansion coefficient, for the seated
 	// ball b and its nominal contacts cs.
 	surfaces(b Ball, cs []Contact) ([]seatSurface, []dimension, r3.Vec, float64)
+
+	// ideals sets out[i] to the best centre index (see [Maxwell]) that a
+	// layout can give contact i of the seat, for its nominal contacts cs:
+	// what [Scorecard.MaxwellRatio] compares the layout's with.
+	ideals(cs []Contact, out []float64)
 }
 
 // grooveSeat is a seat with a groove axis that can turn about its Up: a
@@ -207,4 +212,20 @@ func grooveDimensions(up, g, c, root r3.Vec) []dimension {
 		tilt.motions = append(tilt.motions, motion{surf: s, rot: true, axis: side, point: root})
 	}
 	return append(ds, turn, tilt)
+}
+
+// grooveIdeal returns the best centre index a layout can give a contact
+// of a groove of half-angle h: |sin 2h|. The best freed motion of the
+// ball's centre lies in the plane normal to the groove, normal to the
+// other flank's normal, and the two normals make the angle π − 2h.
+func grooveIdeal(h float64) float64 {
+	return math.Abs(math.Sin(2 * h))
+}
+
+// rootBelow returns the root of a seat whose contact normals lean the
+// half-angle with sine s from the plane normal to the unit vector up, for
+// a ball of centre c and radius r: the point r/s below the centre along
+// up, where a vee's flanks or a socket's faces meet.
+func rootBelow(c, up r3.Vec, r, s float64) r3.Vec {
+	return r3.Sub(c, r3.Scale(r/s, up))
 }

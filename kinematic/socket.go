@@ -45,7 +45,7 @@ func socket(dst []Contact, b Ball, name, field string, upv, az r3.Vec, half floa
 	}
 	var h0 r3.Vec
 	if anyAzimuth && az == (r3.Vec{}) {
-		h0 = anyNormal(up)
+		h0 = linalg.AnyNormal(up)
 	} else if h0, err = horizontal(az, up, field+".Azimuth"); err != nil {
 		return nil, err
 	}
@@ -65,7 +65,7 @@ func socket(dst []Contact, b Ball, name, field string, upv, az r3.Vec, half floa
 // three planes tangent to a cone at its contacts.
 func socketSurfaces(upv r3.Vec, half float64, b Ball, cs []Contact) ([]seatSurface, []dimension, r3.Vec) {
 	up, _ := linalg.Unit3(upv)
-	apex := r3.Sub(b.Centre, r3.Scale(b.Radius/math.Sin(half), up))
+	apex := rootBelow(b.Centre, up, b.Radius, math.Sin(half))
 	surfs := make([]seatSurface, 3)
 	ha := dimension{name: "HalfAngle", kind: seatMotion}
 	var faces []dimension
@@ -80,4 +80,16 @@ func socketSurfaces(upv r3.Vec, half float64, b Ball, cs []Contact) ([]seatSurfa
 	}
 	ds := append(translations(3), ha)
 	return surfs, append(ds, faces...), apex
+}
+
+func (t Trihedral) ideals(cs []Contact, out []float64) { socketIdeals(cs, out) }
+
+// socketIdeals sets out[i] to the best centre index of contact i of a
+// trihedral or conical socket: the index of the one motion its other two
+// contacts leave the ball's centre, along their normals' cross product.
+func socketIdeals(cs []Contact, out []float64) {
+	for i := range out {
+		d := r3.Cross(cs[(i+1)%3].Normal, cs[(i+2)%3].Normal)
+		out[i] = math.Abs(r3.Dot(cs[i].Normal, d)) / linalg.Norm3(d)
+	}
 }

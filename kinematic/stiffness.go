@@ -65,10 +65,7 @@ func (m *Model) Stiffness(lc LoadCase, opt *StiffnessOptions) (Stiffness, error)
 		o = *opt
 	}
 	n := len(m.lines)
-	st := Stiffness{Case: lc.Name, Forces: make([]float64, n), Normal: make([]float64, n), origin: m.origin, L: m.size, payload: m.payload}
-	if !(st.L > 0) {
-		st.L = 1
-	}
+	forces := make([]float64, n)
 	if m.exact {
 		w, err := m.wrench(&lc)
 		if err != nil {
@@ -82,19 +79,19 @@ func (m *Model) Stiffness(lc LoadCase, opt *StiffnessOptions) (Stiffness, error)
 					"%w: contact %s is in tension (%.4g N) under case %q: add preload, or use Equilibrium", ErrRange, labelOf(m.lines[i].label, i), f[i], lc.Name)}
 			}
 		}
-		copy(st.Forces, f[:])
+		copy(forces, f[:])
 	} else {
 		eq, err := m.Equilibrium(lc, o.Equilibrium)
 		if err != nil {
 			return Stiffness{}, err
 		}
 		for i, c := range eq.Contacts {
-			st.Forces[i] = c.Force
+			forces[i] = c.Force
 		}
 	}
-	L := st.L
+	normal := make([]float64, n)
 	for i, l := range m.lines {
-		f := st.Forces[i]
+		f := forces[i]
 		if f <= 0 {
 			continue
 		}
@@ -102,40 +99,73 @@ func (m *Model) Stiffness(lc LoadCase, opt *StiffnessOptions) (Stiffness, error)
 		if s.err != nil {
 			return Stiffness{}, s.err
 		}
-		// δ = (F/k)^(2/3), so dF/dδ = 3F/(2δ) = (3/2) k^(2/3) F^(1/3),
-		// written without the quotient, which underflows for tiny forces.
-		st.Normal[i] = 1.5 * math.Cbrt(s.k*s.k*f)
-		if math.IsInf(st.Normal[i], 0) || math.IsNaN(st.Normal[i]) {
+		normal[i] = normalStiffness(s.k, f)
+		if math.IsInf(normal[i], 0) || math.IsNaN(normal[i]) {
 			return Stiffness{}, &InputError{Field: "lc", Err: fmt.Errorf("%w: the stiffness of contact %s at %g N is outside the floating-point range", ErrRange, labelOf(l.label, i), f)}
 		}
-		g := scaledWrench(screw.Wrench{F: l.n, M: r3.Cross(l.p, l.n)}, L)
-		addOuter(&st.k, st.Normal[i], &g)
-		if o.Tangential {
-			h, err := s.pair.Contact(f)
-			if err != nil {
-				return Stiffness{}, fromHertz(err, indexed("cs", i)+".Moving", indexed("cs", i)+".Base", nil)
-			}
-			kt, err := h.TangentialStiffness(1, 0) // at zero tangential load the result does not depend on μ
-			if err != nil {
-				return Stiffness{}, fromHertz(err, indexed("cs", i)+".Moving", indexed("cs", i)+".Base", nil)
-			}
-			t1 := anyNormal(l.n)
-			t2 := r3.Cross(l.n, t1)
-			for _, t := range [2]r3.Vec{t1, t2} {
-				g := scaledWrench(screw.Wrench{F: t, M: r3.Cross(l.p, t)}, L)
-				addOuter(&st.k, kt, &g)
-			}
-		}
 	}
+	var rates []preloadLine
 	if lc.Preload != 0 {
-		for _, p := range m.preloads {
-			if p.rate != 0 {
-				g := scaledWrench(screw.Wrench{F: p.dir, M: r3.Cross(p.p, p.dir)}, L)
-				addOuter(&st.k, -p.rate, &g)
-			}
+		rates = m.preloads
+	}
+	st := stiffnessOf(m.lines, normal, rates, m.origin, m.size, m.payload)
+	st.Case, st.Forces, st.Normal = lc.Name, forces, normal
+	if !o.Tangential {
+		return st, nil
+	}
+	for i, l := range m.lines {
+		f := forces[i]
+		if f <= 0 {
+			continue
+		}
+		s := &m.surf[i]
+		h, err := s.pair.Contact(f)
+		if err != nil {
+			return Stiffness{}, fromHertz(err, indexed("cs", i)+".Moving", indexed("cs", i)+".Base", nil)
+		}
+		kt, err := h.TangentialStiffness(1, 0) // at zero tangential load the result does not depend on μ
+		if err != nil {
+			return Stiffness{}, fromHertz(err, indexed("cs", i)+".Moving", indexed("cs", i)+".Base", nil)
+		}
+		t1 := linalg.AnyNormal(l.n)
+		t2 := r3.Cross(l.n, t1)
+		for _, t := range [2]r3.Vec{t1, t2} {
+			g := scaledWrench(screw.Wrench{F: t, M: r3.Cross(l.p, t)}, st.L)
+			addOuter(&st.k, kt, &g)
 		}
 	}
 	return st, nil
+}
+
+// stiffnessOf returns the stiffness of contacts acting as springs in
+// parallel with preload elements: K = Σ kᵢ lᵢ lᵢᵀ − Σ rateⱼ pⱼ pⱼᵀ, with
+// kn[i] the normal stiffness of the contact line ls[i] (N/m; 0 adds
+// nothing) and pⱼ the unit line of preload element j, whose force grows by
+// rateⱼ per metre along it (a force that grows as the body moves along it
+// destabilises). Lines and the origin of the result are about origin, L is
+// the length that scales moments (1 when not positive), payload the
+// payload with its centre about origin. It is the one assembly of the
+// stiffness: [Model.Stiffness] and the scorecard call it.
+func stiffnessOf(ls []line, kn []float64, ps []preloadLine, origin r3.Vec, L float64, payload Payload) Stiffness {
+	if !(L > 0) {
+		L = 1
+	}
+	st := Stiffness{origin: origin, L: L, payload: payload}
+	for i := range ls {
+		if kn[i] == 0 {
+			continue
+		}
+		l := &ls[i]
+		g := scaledWrench(screw.Wrench{F: l.n, M: r3.Cross(l.p, l.n)}, L)
+		addOuter(&st.k, kn[i], &g)
+	}
+	for _, p := range ps {
+		if p.rate != 0 {
+			g := scaledWrench(screw.Wrench{F: p.dir, M: r3.Cross(p.p, p.dir)}, L)
+			addOuter(&st.k, -p.rate, &g)
+		}
+	}
+	return st
 }
 
 // addOuter adds k·g·gᵀ to the row-major 6×6 matrix a.

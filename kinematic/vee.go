@@ -81,7 +81,7 @@ func (v Vee) appendContacts(dst []Contact, b Ball, name, field string) ([]Contac
 func (v Vee) surfaces(b Ball, cs []Contact) ([]seatSurface, []dimension, r3.Vec, float64) {
 	up, g, _ := v.groove("")
 	s := math.Sin(v.HalfAngle)
-	root := r3.Sub(b.Centre, r3.Scale(b.Radius/s, up))
+	root := rootBelow(b.Centre, up, b.Radius, s)
 	surfs := make([]seatSurface, 2)
 	for k := range surfs {
 		n := cs[k].Normal
@@ -109,4 +109,10 @@ func (v Vee) surfaces(b Ball, cs []Contact) ([]seatSurface, []dimension, r3.Vec,
 			dimension{name: "FlankRadius-", kind: surfaceRadius, surf: 1})
 	}
 	return surfs, ds, root, v.Material.Alpha
+}
+
+func (v Vee) ideals(cs []Contact, out []float64) {
+	for i := range out {
+		out[i] = grooveIdeal(v.HalfAngle)
+	}
 }
