@@ -154,7 +154,7 @@ func (a *Assembly) checkTolerances(tols []Tolerance) ([]int, error) {
 			return nil, &InputError{Field: indexed("tols", i) + ".Dimension", Err: fmt.Errorf("%w: %q is already toleranced by tols[%d]", ErrRange, t.Dimension, j)}
 		}
 		seen[k] = i
-		if math.IsNaN(t.Value) || math.IsInf(t.Value, 0) {
+		if !linalg.Finite(t.Value) {
 			return nil, &InputError{Field: indexed("tols", i) + ".Value", Err: fmt.Errorf("%w: %g", ErrNonFinite, t.Value)}
 		}
 		if t.Value < 0 {

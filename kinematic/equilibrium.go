@@ -123,7 +123,7 @@ func (m *Model) Equilibrium(lc LoadCase, opt *EquilibriumOptions) (Equilibrium, 
 			if !ok {
 				return Equilibrium{}, &InputError{Field: field, Err: fmt.Errorf("%w: no contact has this label", ErrRange)}
 			}
-			if math.IsNaN(g) || math.IsInf(g, 0) {
+			if !linalg.Finite(g) {
 				return Equilibrium{}, &InputError{Field: field, Err: fmt.Errorf("%w: %g", ErrNonFinite, g)}
 			}
 			e[i] = -g
@@ -327,7 +327,7 @@ func (s *solver) newton(tol float64, maxIt int) (int, error) {
 		}
 		pi := s.state(&s.y, &grad, &hess)
 		scale := s.scaleOfLoads()
-		if math.IsNaN(pi) || math.IsInf(pi, 0) || math.IsInf(scale, 0) || math.IsNaN(scale) {
+		if !linalg.Finite(pi) || !linalg.Finite(scale) {
 			return it, tooLarge
 		}
 		if r := math.Sqrt(dot6(&grad, &grad)); r <= tol*scale || scale == 0 {

@@ -85,7 +85,7 @@ func (m *Model) Seating(lc LoadCase, mu float64) (Seating, error) {
 	if !m.exact {
 		return Seating{}, m.errNotExact()
 	}
-	if math.IsNaN(mu) || math.IsInf(mu, 0) {
+	if !linalg.Finite(mu) {
 		return Seating{}, &InputError{Field: "mu", Err: fmt.Errorf("%w: %g", ErrNonFinite, mu)}
 	}
 	if mu < 0 {
@@ -247,7 +247,7 @@ type SlipContact struct {
 // [*InputError] naming "mu" when it is not finite and positive or "p" when
 // it is not finite.
 func (m *Model) Repeatability(lc LoadCase, mu float64, p r3.Vec) (Repeatability, error) {
-	if math.IsNaN(mu) || math.IsInf(mu, 0) {
+	if !linalg.Finite(mu) {
 		return Repeatability{}, &InputError{Field: "mu", Err: fmt.Errorf("%w: %g", ErrNonFinite, mu)}
 	}
 	if !(mu > 0) {

@@ -233,13 +233,13 @@ func (m *Model) setPreloads(ps []Preload) error {
 		if !linalg.Finite3(p.Couple) {
 			return &InputError{Field: f + ".Couple", Err: fmt.Errorf("%w: %v", ErrNonFinite, p.Couple)}
 		}
-		if math.IsNaN(p.Force) || math.IsInf(p.Force, 0) {
+		if !linalg.Finite(p.Force) {
 			return &InputError{Field: f + ".Force", Err: fmt.Errorf("%w: %g", ErrNonFinite, p.Force)}
 		}
 		if p.Force < 0 {
 			return &InputError{Field: f + ".Force", Err: fmt.Errorf("%w: must be ≥ 0 (Direction gives the sense), got %g", ErrRange, p.Force)}
 		}
-		if math.IsNaN(p.Rate) || math.IsInf(p.Rate, 0) {
+		if !linalg.Finite(p.Rate) {
 			return &InputError{Field: f + ".Rate", Err: fmt.Errorf("%w: %g", ErrNonFinite, p.Rate)}
 		}
 		pl := preloadLine{name: p.Name, p: r3.Sub(p.Point, m.origin), rate: p.Rate}
@@ -264,7 +264,7 @@ func (m *Model) setPreloads(ps []Preload) error {
 const symTol = 1e-9
 
 func checkPayload(p Payload) error {
-	if math.IsNaN(p.Mass) || math.IsInf(p.Mass, 0) {
+	if !linalg.Finite(p.Mass) {
 		return &InputError{Field: "payload.Mass", Err: fmt.Errorf("%w: %g", ErrNonFinite, p.Mass)}
 	}
 	if p.Mass < 0 {
@@ -277,7 +277,7 @@ func checkPayload(p Payload) error {
 	var big float64
 	for r := range 3 {
 		for c := range 3 {
-			if math.IsNaN(j[r][c]) || math.IsInf(j[r][c], 0) {
+			if !linalg.Finite(j[r][c]) {
 				return &InputError{Field: fmt.Sprintf("payload.Inertia[%d][%d]", r, c), Err: fmt.Errorf("%w: %g", ErrNonFinite, j[r][c])}
 			}
 			big = math.Max(big, math.Abs(j[r][c]))
@@ -313,7 +313,7 @@ func spd3(j [3][3]float64) bool {
 // wrench returns the total load of the case on the moving body, about
 // the model's origin.
 func (m *Model) wrench(lc *LoadCase) (screw.Wrench, error) {
-	if math.IsNaN(lc.Preload) || math.IsInf(lc.Preload, 0) {
+	if !linalg.Finite(lc.Preload) {
 		return screw.Wrench{}, &InputError{Field: "lc.Preload", Err: fmt.Errorf("%w: %g", ErrNonFinite, lc.Preload)}
 	}
 	if !linalg.Finite3(lc.Gravity) {

@@ -373,7 +373,7 @@ func newOptProblem(c Coupling, s Scenario, o *OptimizeOptions) (*optProblem, err
 	if math.IsNaN(o.MinMaxwell) || !(o.MinMaxwell >= 0 && o.MinMaxwell < 1) {
 		return nil, &InputError{Field: "opt.MinMaxwell", Err: fmt.Errorf("%w: must be in [0, 1), got %g", ErrRange, o.MinMaxwell)}
 	}
-	if math.IsNaN(o.MaxPressureRatio) || math.IsInf(o.MaxPressureRatio, 0) || o.MaxPressureRatio < 0 {
+	if !linalg.Finite(o.MaxPressureRatio) || o.MaxPressureRatio < 0 {
 		return nil, &InputError{Field: "opt.MaxPressureRatio", Err: fmt.Errorf("%w: must be finite and ≥ 0, got %g", ErrRange, o.MaxPressureRatio)}
 	}
 	p := &optProblem{c: c, o: *o, sc: sc}
@@ -403,7 +403,7 @@ func newOptProblem(c Coupling, s Scenario, o *OptimizeOptions) (*optProblem, err
 			if o.Windows != nil {
 				w := o.Windows[i]
 				field := indexed("opt.Windows", i)
-				if math.IsNaN(w.Min) || math.IsNaN(w.Max) || math.IsInf(w.Min, 0) || math.IsInf(w.Max, 0) {
+				if !linalg.Finite(w.Min) || !linalg.Finite(w.Max) {
 					return nil, &InputError{Field: field, Err: fmt.Errorf("%w: %+v", ErrNonFinite, w)}
 				}
 				if w.Min > w.Max {
@@ -431,7 +431,7 @@ func newOptProblem(c Coupling, s Scenario, o *OptimizeOptions) (*optProblem, err
 			rg := o.Regions[i]
 			field := indexed("opt.Regions", i)
 			for _, v := range []float64{rg.HalfWidth[0], rg.HalfWidth[1], rg.Radius} {
-				if math.IsNaN(v) || math.IsInf(v, 0) || v < 0 {
+				if !linalg.Finite(v) || v < 0 {
 					return nil, &InputError{Field: field, Err: fmt.Errorf("%w: sizes must be finite and ≥ 0, got %+v", ErrRange, rg)}
 				}
 			}
@@ -528,7 +528,7 @@ func (p *optProblem) evaluate(obj Objective, extra *bound, x []float64, k int) (
 			v += (e - extra.limit) / math.Max(math.Abs(extra.limit), 1e-300)
 		}
 	}
-	if math.IsNaN(cst) || math.IsInf(cst, 0) {
+	if !linalg.Finite(cst) {
 		return math.Inf(1), math.Inf(1), false
 	}
 	// An exact penalty: a unit of relative violation costs a thousand

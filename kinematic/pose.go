@@ -132,7 +132,7 @@ func (a *Assembly) Seat(devs []Deviation, opt *SeatOptions) (Pose, error) {
 			_, err := a.lookup(d.Dimension, indexed("devs", i)+".Dimension")
 			return Pose{}, err
 		}
-		if math.IsNaN(d.Value) || math.IsInf(d.Value, 0) {
+		if !linalg.Finite(d.Value) {
 			return Pose{}, &InputError{Field: indexed("devs", i) + ".Value", Err: fmt.Errorf("%w: %g", ErrNonFinite, d.Value)}
 		}
 		a.apply(&g, k, d.Value)
@@ -147,7 +147,7 @@ func (a *Assembly) Seat(devs []Deviation, opt *SeatOptions) (Pose, error) {
 			return Pose{}, &InputError{Field: "opt.Approach", Err: fmt.Errorf("%w: %d values for 6 contacts", ErrRange, len(o.Approach))}
 		}
 		for i, v := range o.Approach {
-			if math.IsNaN(v) || math.IsInf(v, 0) || v < 0 {
+			if !linalg.Finite(v) || v < 0 {
 				return Pose{}, &InputError{Field: indexed("opt.Approach", i), Err: fmt.Errorf("%w: must be finite and ≥ 0, got %g", ErrRange, v)}
 			}
 			appr[i] = v

@@ -7,6 +7,7 @@ import (
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"github.com/sixfold-dev/sixfold/hertz"
+	"github.com/sixfold-dev/sixfold/internal/linalg"
 )
 
 // Rods is a vee made of two parallel cylindrical rods (or dowel pins) that
@@ -49,7 +50,7 @@ func (r Rods) appendContacts(dst []Contact, b Ball, name, field string) ([]Conta
 	if err := checkHalfAngle(r.HalfAngle, field+".HalfAngle"); err != nil {
 		return nil, err
 	}
-	if math.IsNaN(r.RodRadius) || math.IsInf(r.RodRadius, 0) {
+	if !linalg.Finite(r.RodRadius) {
 		return nil, &InputError{Field: field + ".RodRadius", Err: fmt.Errorf("%w: %g", ErrNonFinite, r.RodRadius)}
 	}
 	if !(r.RodRadius > 0) {

@@ -154,7 +154,7 @@ func checkBall(b Ball, field string) error {
 	if !linalg.Finite3(b.Centre) {
 		return &InputError{Field: field + ".Centre", Err: fmt.Errorf("%w: %v", ErrNonFinite, b.Centre)}
 	}
-	if math.IsNaN(b.Radius) || math.IsInf(b.Radius, 0) {
+	if !linalg.Finite(b.Radius) {
 		return &InputError{Field: field + ".Radius", Err: fmt.Errorf("%w: %g", ErrNonFinite, b.Radius)}
 	}
 	if !(b.Radius > 0) {
@@ -190,7 +190,7 @@ func ballContact(b Ball, label string, n, tangent r3.Vec, base hertz.Body) Conta
 }
 
 func checkHalfAngle(a float64, field string) error {
-	if math.IsNaN(a) || math.IsInf(a, 0) {
+	if !linalg.Finite(a) {
 		return &InputError{Field: field, Err: fmt.Errorf("%w: %g", ErrNonFinite, a)}
 	}
 	if !(a > 0 && a < math.Pi/2) {

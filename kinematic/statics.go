@@ -154,7 +154,7 @@ func (m *Model) Shock(base LoadCase, magnitude float64) (Shock, error) {
 	if !m.exact {
 		return Shock{}, m.errNotExact()
 	}
-	if math.IsNaN(magnitude) || math.IsInf(magnitude, 0) {
+	if !linalg.Finite(magnitude) {
 		return Shock{}, &InputError{Field: "magnitude", Err: fmt.Errorf("%w: %g", ErrNonFinite, magnitude)}
 	}
 	if magnitude < 0 {

@@ -2,7 +2,6 @@ package kinematic
 
 import (
 	"fmt"
-	"math"
 
 	"gonum.org/v1/gonum/spatial/r3"
 
@@ -100,7 +99,7 @@ func (m *Model) Stiffness(lc LoadCase, opt *StiffnessOptions) (Stiffness, error)
 			return Stiffness{}, s.err
 		}
 		normal[i] = normalStiffness(s.k, f)
-		if math.IsInf(normal[i], 0) || math.IsNaN(normal[i]) {
+		if !linalg.Finite(normal[i]) {
 			return Stiffness{}, &InputError{Field: "lc", Err: fmt.Errorf("%w: the stiffness of contact %s at %g N is outside the floating-point range", ErrRange, labelOf(l.label, i), f)}
 		}
 	}

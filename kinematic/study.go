@@ -120,7 +120,7 @@ func (a *Assembly) Study(ctx context.Context, p r3.Vec, tols []Tolerance, opt *S
 		if err != nil {
 			return StudyResult{}, err
 		}
-		if math.IsNaN(d.Value) || math.IsInf(d.Value, 0) {
+		if !linalg.Finite(d.Value) {
 			return StudyResult{}, &InputError{Field: indexed("opt.Calibration", i) + ".Value", Err: fmt.Errorf("%w: %g", ErrNonFinite, d.Value)}
 		}
 		a.apply(&s.base, k, d.Value)

@@ -66,7 +66,7 @@ func (a *Assembly) Drift(th Thermal, p r3.Vec) (Drift, error) {
 		name string
 		v    float64
 	}{{"th.DeltaT", th.DeltaT}, {"th.Moving", th.Moving}, {"th.Base", th.Base}} {
-		if math.IsNaN(f.v) || math.IsInf(f.v, 0) {
+		if !linalg.Finite(f.v) {
 			return Drift{}, &InputError{Field: f.name, Err: fmt.Errorf("%w: %g", ErrNonFinite, f.v)}
 		}
 	}
