@@ -182,7 +182,7 @@ func FormClosure(cs []Contact) (Closure, error) {
 // non-finite Tangent ([ErrNonFinite]) or one along the Normal
 // ([ErrDegenerate]), and the errors of [FormClosure].
 func ForceClosure(cs []Contact, mu float64, opt *ClosureOptions) (Closure, error) {
-	if math.IsNaN(mu) || math.IsInf(mu, 0) {
+	if !linalg.Finite(mu) {
 		return Closure{}, &InputError{Field: "mu", Err: fmt.Errorf("%w: %g", ErrNonFinite, mu)}
 	}
 	if mu < 0 {

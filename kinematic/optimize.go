@@ -390,95 +390,122 @@ func newOptProblem(c Coupling, s Scenario, o *OptimizeOptions) (*optProblem, err
 		}
 		op.root0 = sc.root[first]
 		if g, ok := pr.Seat.(grooveSeat); ok {
-			_, dir, _ := g.groove("")
-			rad, err := c.reference(i, up, Radial)
-			if err != nil {
-				return nil, err
-			}
-			op.groove, op.rad, op.grooveIdx = true, rad, ng
-			op.az0 = azimuthFrom(dir, up, rad)
-			op.lo, op.hi = -math.Pi/2, math.Pi/2
 			own = append(own, g.halfAngle())
+			op.grooveIdx = ng
 			ng++
-			if o.Windows != nil {
-				w := o.Windows[i]
-				field := indexed("opt.Windows", i)
-				if !linalg.Finite(w.Min) || !linalg.Finite(w.Max) {
-					return nil, &InputError{Field: field, Err: fmt.Errorf("%w: %+v", ErrNonFinite, w)}
-				}
-				if w.Min > w.Max {
-					return nil, &InputError{Field: field, Err: fmt.Errorf("%w: Min %g > Max %g", ErrRange, w.Min, w.Max)}
-				}
-				x, err := c.reference(i, up, w.From)
-				if err != nil {
-					if ie, ok := err.(*InputError); ok && ie.Field == "ref" {
-						ie.Field = field + ".From"
-					}
-					return nil, err
-				}
-				if w.Max-w.Min < math.Pi {
-					off := math.Atan2(r3.Dot(up, r3.Cross(rad, x)), r3.Dot(rad, x))
-					op.lo, op.hi = w.Min+off, w.Max+off
-				}
-			}
-			op.periodic = op.hi-op.lo >= math.Pi
-			if op.hi > op.lo {
-				op.azVar = p.nvar
-				p.nvar++
+			if err := p.addGroove(&op, i, g); err != nil {
+				return nil, err
 			}
 		}
 		if o.Regions != nil {
-			rg := o.Regions[i]
-			field := indexed("opt.Regions", i)
-			for _, v := range []float64{rg.HalfWidth[0], rg.HalfWidth[1], rg.Radius} {
-				if !linalg.Finite(v) || v < 0 {
-					return nil, &InputError{Field: field, Err: fmt.Errorf("%w: sizes must be finite and ≥ 0, got %+v", ErrRange, rg)}
-				}
-			}
-			if rg.Radius > 0 {
-				op.disc = rg.Radius
-				op.box = [2]float64{rg.Radius, rg.Radius}
-			} else {
-				op.box = rg.HalfWidth
-			}
-			if op.box[0] > 0 || op.box[1] > 0 {
-				op.posVar = p.nvar
-				p.nvar += 2
+			if err := p.addRegion(&op, o.Regions[i], indexed("opt.Regions", i)); err != nil {
+				return nil, err
 			}
 		}
 		p.pairs = append(p.pairs, op)
 		first += op.count
 	}
-	// Half-angle combinations: every choice for every groove, or the
-	// drawn ones.
-	p.combos = [][]float64{own}
-	p.ownCombo = 0
-	if len(o.HalfAngles) > 0 && ng > 0 {
-		p.combos = nil
-		p.ownCombo = -1
-		total := 1
-		for range ng {
-			total *= len(o.HalfAngles)
-			if total > 4096 {
-				return nil, &InputError{Field: "opt.HalfAngles", Err: fmt.Errorf("%w: %d choices for %d grooves is more than 4096 combinations", ErrRange, len(o.HalfAngles), ng)}
-			}
-		}
-		for k := 0; k < total; k++ {
-			combo := make([]float64, ng)
-			r := k
-			same := true
-			for j := range combo {
-				combo[j] = o.HalfAngles[r%len(o.HalfAngles)]
-				r /= len(o.HalfAngles)
-				same = same && combo[j] == own[j]
-			}
-			if same {
-				p.ownCombo = len(p.combos)
-			}
-			p.combos = append(p.combos, combo)
-		}
+	if err := p.setCombos(own, ng); err != nil {
+		return nil, err
 	}
 	return p, nil
+}
+
+// addGroove makes the azimuth of the groove seat g of pair i a variable
+// of op, within its window if the options give one.
+func (p *optProblem) addGroove(op *optPair, i int, g grooveSeat) error {
+	c, o, up := p.c, &p.o, op.up
+	_, dir, _ := g.groove("")
+	rad, err := c.reference(i, up, Radial)
+	if err != nil {
+		return err
+	}
+	op.groove, op.rad = true, rad
+	op.az0 = azimuthFrom(dir, up, rad)
+	op.lo, op.hi = -math.Pi/2, math.Pi/2
+	if o.Windows != nil {
+		w := o.Windows[i]
+		field := indexed("opt.Windows", i)
+		if !linalg.Finite(w.Min) || !linalg.Finite(w.Max) {
+			return &InputError{Field: field, Err: fmt.Errorf("%w: %+v", ErrNonFinite, w)}
+		}
+		if w.Min > w.Max {
+			return &InputError{Field: field, Err: fmt.Errorf("%w: Min %g > Max %g", ErrRange, w.Min, w.Max)}
+		}
+		x, err := c.reference(i, up, w.From)
+		if err != nil {
+			if ie, ok := err.(*InputError); ok && ie.Field == "ref" {
+				ie.Field = field + ".From"
+			}
+			return err
+		}
+		if w.Max-w.Min < math.Pi {
+			off := math.Atan2(r3.Dot(up, r3.Cross(rad, x)), r3.Dot(rad, x))
+			op.lo, op.hi = w.Min+off, w.Max+off
+		}
+	}
+	op.periodic = op.hi-op.lo >= math.Pi
+	if op.hi > op.lo {
+		op.azVar = p.nvar
+		p.nvar++
+	}
+	return nil
+}
+
+// addRegion makes the position of op's ball in its seat plane two
+// variables when the region rg (named field) allows it to move.
+func (p *optProblem) addRegion(op *optPair, rg Region, field string) error {
+	for _, v := range []float64{rg.HalfWidth[0], rg.HalfWidth[1], rg.Radius} {
+		if !linalg.Finite(v) || v < 0 {
+			return &InputError{Field: field, Err: fmt.Errorf("%w: sizes must be finite and ≥ 0, got %+v", ErrRange, rg)}
+		}
+	}
+	if rg.Radius > 0 {
+		op.disc = rg.Radius
+		op.box = [2]float64{rg.Radius, rg.Radius}
+	} else {
+		op.box = rg.HalfWidth
+	}
+	if op.box[0] > 0 || op.box[1] > 0 {
+		op.posVar = p.nvar
+		p.nvar += 2
+	}
+	return nil
+}
+
+// setCombos sets the half-angle combinations: every choice of
+// HalfAngles for each of the ng grooves, or the drawn half-angles own.
+func (p *optProblem) setCombos(own []float64, ng int) error {
+	o := &p.o
+	p.combos = [][]float64{own}
+	p.ownCombo = 0
+	if len(o.HalfAngles) == 0 || ng == 0 {
+		return nil
+	}
+	p.combos = nil
+	p.ownCombo = -1
+	total := 1
+	for range ng {
+		total *= len(o.HalfAngles)
+		if total > 4096 {
+			return &InputError{Field: "opt.HalfAngles", Err: fmt.Errorf("%w: %d choices for %d grooves is more than 4096 combinations", ErrRange, len(o.HalfAngles), ng)}
+		}
+	}
+	for k := 0; k < total; k++ {
+		combo := make([]float64, ng)
+		r := k
+		same := true
+		for j := range combo {
+			combo[j] = o.HalfAngles[r%len(o.HalfAngles)]
+			r /= len(o.HalfAngles)
+			same = same && combo[j] == own[j]
+		}
+		if same {
+			p.ownCombo = len(p.combos)
+		}
+		p.combos = append(p.combos, combo)
+	}
+	return nil
 }
 
 // violation returns the constraints' total violation, dimensionless.
