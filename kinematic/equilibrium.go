@@ -157,7 +157,7 @@ func (m *Model) Equilibrium(lc LoadCase, opt *EquilibriumOptions) (Equilibrium, 
 			eq.Open = append(eq.Open, cl.Label)
 			continue
 		}
-		cl.Force = m.surf[i].k * d * math.Sqrt(d)
+		cl.Force = hertzForce(m.surf[i].k, d)
 		if err := m.hertzAt(i, cl.Force, cl); err != nil {
 			return Equilibrium{}, err
 		}
@@ -236,8 +236,7 @@ func (s *solver) rigidStart() {
 		if f[i] < 0 {
 			return
 		}
-		d := math.Cbrt(f[i] / m.surf[i].k)
-		d *= d
+		d := hertzApproach(m.surf[i].k, f[i])
 		x = x.Add(m.freed[i].Scale(s.e[i] - d))
 	}
 	s.y = [6]float64{x.V.X, x.V.Y, x.V.Z, x.W.X * s.L, x.W.Y * s.L, x.W.Z * s.L}
@@ -258,6 +257,9 @@ func (s *solver) state(y *[6]float64, grad *[6]float64, hess *[36]float64) float
 		if d <= 0 {
 			continue
 		}
+		// Π's term (2/5) k δ^(5/2), its force k δ^(3/2) (hertzForce) and
+		// stiffness (3/2) k δ^(1/2) (normalStiffness, in terms of δ),
+		// sharing √δ.
 		k := s.m.surf[i].k
 		sd := math.Sqrt(d)
 		pi += 0.4 * k * d * d * sd
@@ -298,7 +300,7 @@ func (s *solver) scaleOfLoads() float64 {
 	sum := math.Sqrt(dot6(&s.w, &s.w))
 	for i := range s.g {
 		if d := s.approach(i); d > 0 {
-			sum += s.m.surf[i].k * d * math.Sqrt(d)
+			sum += hertzForce(s.m.surf[i].k, d)
 		}
 	}
 	return sum

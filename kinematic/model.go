@@ -170,6 +170,19 @@ func NewModel(cs []Contact, preloads []Preload, payload Payload) (*Model, error)
 // load in the range the package is valid for.
 const refDepth = 1e-6
 
+// hertzForce returns the force, N, of a contact of Hertz constant k at
+// the approach d ≥ 0: F = k d^(3/2).
+func hertzForce(k, d float64) float64 {
+	return k * d * math.Sqrt(d)
+}
+
+// hertzApproach returns the approach, m, of a contact of Hertz constant k
+// under the force f ≥ 0: δ = (f/k)^(2/3).
+func hertzApproach(k, f float64) float64 {
+	d := math.Cbrt(f / k)
+	return d * d
+}
+
 // normalStiffness returns a contact's normal stiffness dF/dδ in N/m at the
 // force f ≥ 0 for the Hertz law F = k δ^(3/2): δ = (F/k)^(2/3), so
 // dF/dδ = (3/2) k δ^(1/2) = 3F/(2δ) = (3/2) k^(2/3) F^(1/3) (the law is
