@@ -215,3 +215,41 @@ func TestScoreStiffnessWithPreloadRate(t *testing.T) {
 		}
 	}
 }
+
+// TestScoreThermalCentreSocketVeeFlat: Drift takes the thermal centre in
+// the plane through the centroid of the ball centres; the scorecard must
+// take it in the same plane. A socket, a vee and a flat make three, two and
+// one contacts, so a centroid of the contacts' ball centres would weight
+// the balls 3:2:1 and, with the balls at different heights and a tilting
+// drift, give another plane and another distance.
+func TestScoreThermalCentreSocketVeeFlat(t *testing.T) {
+	c, err := SocketVeeFlat([3]Ball{ball(-40, -30, 0), ball(45, -25, 12), ball(5, 50, -9)}, cube, vee45, flatUp)
+	if err != nil {
+		t.Fatal(err)
+	}
+	s := scenario()
+	s.Thermal.Base = 3 * s.Thermal.Moving
+	card, err := c.Score(s)
+	if err != nil {
+		t.Fatal(err)
+	}
+	a, err := c.Assembly()
+	if err != nil {
+		t.Fatal(err)
+	}
+	th := s.Thermal
+	th.DeltaT = 1
+	dr, err := a.Drift(th, s.Point)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !dr.HasCentre {
+		t.Fatal("no thermal centre")
+	}
+	if got, want := card.ThermalCentreDistance, dr.Distance; math.Abs(got-want) > 1e-9*want {
+		t.Errorf("thermal centre distance: scorecard %.12g m, Drift %.12g m", got, want)
+	}
+	if got, want := card.Drift, r3.Norm(dr.Linear); math.Abs(got-want) > 1e-9*want {
+		t.Errorf("drift: scorecard %.12g m/K, Drift %.12g m/K", got, want)
+	}
+}
