@@ -41,3 +41,5 @@ func (c Cone) surfaces(b Ball, cs []Contact) ([]seatSurface, []dimension, r3.Vec
 }
 
 func (c Cone) ideals(cs []Contact, out []float64) { socketIdeals(cs, out) }
+
+func (Cone) isSocket() {}

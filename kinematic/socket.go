@@ -82,6 +82,15 @@ func socketSurfaces(upv r3.Vec, half float64, b Ball, cs []Contact) ([]seatSurfa
 	return surfs, append(ds, faces...), apex
 }
 
+// socketSeat is a seat that holds its ball at three points about its Up,
+// as a trihedral or a cone does: the coupling's socket in [Geometry].
+type socketSeat interface {
+	Seat
+	isSocket()
+}
+
+func (Trihedral) isSocket() {}
+
 func (t Trihedral) ideals(cs []Contact, out []float64) { socketIdeals(cs, out) }
 
 // socketIdeals sets out[i] to the best centre index of contact i of a
