@@ -97,7 +97,7 @@ type Model struct {
 	freed  [6]screw.Twist // when exact: power δᵢⱼ with contact j, about origin
 	size   float64        // RMS distance of the contacts from origin, m
 
-	surf []surface
+	surf []contactLaw
 
 	preloads []preloadLine
 	preload  screw.Wrench // the preload elements at factor 1, about origin
@@ -105,8 +105,9 @@ type Model struct {
 	payload Payload // Centre about origin
 }
 
-// surface is the Hertz description of one contact.
-type surface struct {
+// contactLaw is the Hertz description of one contact: its force–approach
+// law, its allowable and its prepared pair of bodies.
+type contactLaw struct {
 	pair  hertz.Pair // the two bodies, prepared
 	err   error      // why the contact has no Hertz model, in the caller's terms
 	allow float64    // the allowable peak pressure, Pa; 0 when none is on file
@@ -149,9 +150,9 @@ func NewModel(cs []Contact, preloads []Preload, payload Payload) (*Model, error)
 	if len(cs) == 6 && an.Rank == 6 {
 		m.exact = freedOf(m.lines, &m.freed)
 	}
-	m.surf = make([]surface, len(cs))
+	m.surf = make([]contactLaw, len(cs))
 	for i := range cs {
-		m.surf[i] = newSurface(&cs[i], i)
+		m.surf[i] = newContactLaw(&cs[i], i)
 	}
 	if err := m.setPreloads(preloads); err != nil {
 		return nil, err
@@ -194,8 +195,10 @@ func normalStiffness(k, f float64) float64 {
 	return 1.5 * math.Cbrt(k*k*f)
 }
 
-func newSurface(c *Contact, i int) surface {
-	var s surface
+// newContactLaw returns the Hertz law of contact c (index i), or one
+// whose err says, in the caller's field paths, why it has none.
+func newContactLaw(c *Contact, i int) contactLaw {
+	var s contactLaw
 	moving, base := indexed("cs", i)+".Moving", indexed("cs", i)+".Base"
 	if c.Moving == (hertz.Body{}) || c.Base == (hertz.Body{}) {
 		s.err = &InputError{Field: moving + ", " + base, Err: fmt.Errorf(
