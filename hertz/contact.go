@@ -1,7 +1,5 @@
 package hertz
 
-import "math"
-
 // Contact is the solution of a Hertz point contact between two bodies under
 // a normal load. Its zero value is not a solution; a Contact comes from
 // Solve, Pair.Solve or Pair.Contact (which leaves Stress zero).
@@ -34,9 +32,6 @@ type Subsurface struct {
 // |radius| of the two bodies, for which Contact.Valid is true. Hertz's
 // half-space assumption needs a ≪ R; 0.1 is common practice.
 const validRatio = 0.1
-
-// finite reports whether x is neither NaN nor an infinity.
-func finite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
 
 // Solve returns the Hertz contact of bodies b1 and b2 pressed together by
 // the normal load, in newtons.

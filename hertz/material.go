@@ -1,6 +1,10 @@
 package hertz
 
-import "math"
+import (
+	"math"
+
+	"github.com/sixfold-dev/sixfold/internal/linalg"
+)
 
 // Material is an isotropic linear-elastic solid.
 type Material struct {
@@ -107,13 +111,13 @@ func checkMaterial(m *Material, name string) error {
 		return nonFiniteErr(name+".Material.E", "Young's modulus is NaN")
 	case !(m.E > 0):
 		return rangeErr(name+".Material.E", "Young's modulus must be positive (or +Inf for a rigid body), got %g", m.E)
-	case !finite(m.Nu):
+	case !linalg.Finite(m.Nu):
 		return nonFiniteErr(name+".Material.Nu", "Poisson's ratio must be finite, in (-1, 0.5], got %g", m.Nu)
 	case !(m.Nu > -1 && m.Nu <= 0.5):
 		return rangeErr(name+".Material.Nu", "Poisson's ratio must be in (-1, 0.5], got %g", m.Nu)
-	case !finite(m.Alpha):
+	case !linalg.Finite(m.Alpha):
 		return nonFiniteErr(name+".Material.Alpha", "expansion coefficient must be finite, got %g", m.Alpha)
-	case !finite(m.Allowable):
+	case !linalg.Finite(m.Allowable):
 		return nonFiniteErr(name+".Material.Allowable", "allowable pressure must be finite and ≥ 0, got %g", m.Allowable)
 	case m.Allowable < 0:
 		return rangeErr(name+".Material.Allowable", "allowable pressure must be finite and ≥ 0, got %g", m.Allowable)

@@ -3,6 +3,8 @@ package hertz
 import (
 	"fmt"
 	"math"
+
+	"github.com/sixfold-dev/sixfold/internal/linalg"
 )
 
 // curvTol is the relative size, against the sum of the magnitudes of the
@@ -154,7 +156,7 @@ func (p *Pair) check() error {
 
 // checkLoadArg validates the load argument of the Pair methods.
 func checkLoadArg(load float64) error {
-	if !finite(load) {
+	if !linalg.Finite(load) {
 		return nonFiniteErr("load", "normal load must be finite and ≥ 0, got %g", load)
 	}
 	if load < 0 {
@@ -222,7 +224,7 @@ func (p Pair) LoadForPressure(p0 float64) (float64, error) {
 	if err := p.check(); err != nil {
 		return 0, err
 	}
-	if !finite(p0) {
+	if !linalg.Finite(p0) {
 		return 0, nonFiniteErr("p0", "peak pressure must be finite and ≥ 0, got %g", p0)
 	}
 	if p0 < 0 {
@@ -252,7 +254,7 @@ func (p Pair) LoadForApproach(delta float64) (float64, error) {
 	if err := p.check(); err != nil {
 		return 0, err
 	}
-	if !finite(delta) {
+	if !linalg.Finite(delta) {
 		return 0, nonFiniteErr("delta", "approach must be finite and ≥ 0, got %g", delta)
 	}
 	if delta < 0 {

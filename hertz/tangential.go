@@ -1,6 +1,10 @@
 package hertz
 
-import "math"
+import (
+	"math"
+
+	"github.com/sixfold-dev/sixfold/internal/linalg"
+)
 
 // TangentialStiffness returns the tangential stiffness dQ/dx of the contact,
 // in newtons per metre, under a tangential load q, in newtons, applied
@@ -41,13 +45,13 @@ func (c Contact) TangentialStiffness(mu, q float64) (float64, error) {
 	if err := c.check(); err != nil {
 		return 0, err
 	}
-	if !finite(mu) {
+	if !linalg.Finite(mu) {
 		return 0, nonFiniteErr("mu", "coefficient of friction must be finite and > 0, got %g", mu)
 	}
 	if !(mu > 0) {
 		return 0, rangeErr("mu", "coefficient of friction must be finite and > 0, got %g", mu)
 	}
-	if !finite(q) {
+	if !linalg.Finite(q) {
 		return 0, nonFiniteErr("q", "tangential load must be finite, got %g", q)
 	}
 	if c.Load == 0 && q == 0 {
@@ -83,7 +87,7 @@ func (c Contact) TangentialStiffness(mu, q float64) (float64, error) {
 // infinite, ErrRange when either is negative or when μN, for positive mu
 // and load, would overflow or underflow the normal float64 range.
 func (c Contact) SlidingLimit(mu float64) (float64, error) {
-	if !finite(mu) {
+	if !linalg.Finite(mu) {
 		return 0, nonFiniteErr("mu", "coefficient of friction must be finite and ≥ 0, got %g", mu)
 	}
 	if mu < 0 {
@@ -106,15 +110,15 @@ func (c *Contact) check() error {
 		return err
 	}
 	switch {
-	case !finite(c.SemiMajor):
+	case !linalg.Finite(c.SemiMajor):
 		return nonFiniteErr("c.SemiMajor", "semi-major axis must be finite and > 0 under load, got %g", c.SemiMajor)
 	case c.SemiMajor < 0 || (c.Load > 0 && c.SemiMajor == 0):
 		return rangeErr("c.SemiMajor", "semi-major axis must be finite and > 0 under load, got %g", c.SemiMajor)
-	case !finite(c.SemiMinor):
+	case !linalg.Finite(c.SemiMinor):
 		return nonFiniteErr("c.SemiMinor", "semi-minor axis must be finite, > 0 under load and ≤ SemiMajor, got %g", c.SemiMinor)
 	case c.SemiMinor < 0 || c.SemiMinor > c.SemiMajor || (c.Load > 0 && c.SemiMinor == 0):
 		return rangeErr("c.SemiMinor", "semi-minor axis must be finite, > 0 under load and ≤ SemiMajor, got %g", c.SemiMinor)
-	case !finite(c.GStar):
+	case !linalg.Finite(c.GStar):
 		return nonFiniteErr("c.GStar", "effective shear modulus must be finite and > 0, got %g", c.GStar)
 	case !(c.GStar > 0):
 		return rangeErr("c.GStar", "effective shear modulus must be finite and > 0, got %g", c.GStar)
@@ -125,7 +129,7 @@ func (c *Contact) check() error {
 // checkLoad reports, as an error for the field "c.Load", a Contact's normal
 // load that is not finite and ≥ 0.
 func checkLoad(load float64) error {
-	if !finite(load) {
+	if !linalg.Finite(load) {
 		return nonFiniteErr("c.Load", "normal load must be finite and ≥ 0, got %g", load)
 	}
 	if load < 0 {

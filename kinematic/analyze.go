@@ -72,7 +72,7 @@ func Analyze(cs []Contact) (Analysis, error) {
 			return Analysis{}, err
 		}
 		ball := c.Radius != 0
-		if ball && (!linalg.Finite3(c.Centre) || math.IsNaN(c.Radius) || math.IsInf(c.Radius, 0)) {
+		if ball && (!linalg.Finite3(c.Centre) || !linalg.Finite(c.Radius)) {
 			return Analysis{}, &InputError{Field: indexed("cs", i) + ".Centre", Err: fmt.Errorf("%w: centre %v, radius %g", ErrNonFinite, c.Centre, c.Radius)}
 		}
 		lines[i] = line{label: c.Label, p: c.Point, n: n, centre: c.Centre, ball: ball}

@@ -182,7 +182,7 @@ func FormClosure(cs []Contact) (Closure, error) {
 // non-finite Tangent ([ErrNonFinite]) or one along the Normal
 // ([ErrDegenerate]), and the errors of [FormClosure].
 func ForceClosure(cs []Contact, mu float64, opt *ClosureOptions) (Closure, error) {
-	if math.IsNaN(mu) || math.IsInf(mu, 0) {
+	if !linalg.Finite(mu) {
 		return Closure{}, &InputError{Field: "mu", Err: fmt.Errorf("%w: %g", ErrNonFinite, mu)}
 	}
 	if mu < 0 {
@@ -273,7 +273,7 @@ func closureColumn(col []float64, p, f, pc r3.Vec, length float64) {
 func closureTangent(c Contact, field string) (r3.Vec, error) {
 	n, _ := linalg.Unit3(c.Normal)
 	if c.Tangent == (r3.Vec{}) {
-		return closureAnyNormal(n), nil
+		return linalg.AnyNormal(n), nil
 	}
 	t, ok := linalg.Unit3(c.Tangent)
 	if !ok {
@@ -285,19 +285,6 @@ func closureTangent(c Contact, field string) (r3.Vec, error) {
 		return r3.Vec{}, &InputError{Field: field, Err: fmt.Errorf("%w: along the Normal; a tangent must have a part normal to it", ErrDegenerate)}
 	}
 	return r3.Scale(1/l, h), nil
-}
-
-// closureAnyNormal returns a unit vector normal to the unit vector n: n
-// crossed with the coordinate axis least aligned with it.
-func closureAnyNormal(n r3.Vec) r3.Vec {
-	e := r3.Vec{X: 1}
-	if ax, ay, az := math.Abs(n.X), math.Abs(n.Y), math.Abs(n.Z); ay < ax && ay <= az {
-		e = r3.Vec{Y: 1}
-	} else if az < ax && az < ay {
-		e = r3.Vec{Z: 1}
-	}
-	t, _ := linalg.Unit3(r3.Cross(n, e))
-	return t
 }
 
 // closureRank returns the rank and the condition number of the 6×N

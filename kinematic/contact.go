@@ -2,12 +2,12 @@ package kinematic
 
 import (
 	"fmt"
-	"math"
 
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"github.com/sixfold-dev/sixfold/hertz"
 	"github.com/sixfold-dev/sixfold/internal/linalg"
+	"github.com/sixfold-dev/sixfold/screw"
 )
 
 // Contact is a point contact between the moving body and the base.
@@ -105,17 +105,15 @@ func flatten(u, up r3.Vec) (r3.Vec, bool) {
 	return linalg.Unit3(h)
 }
 
-// anyNormal returns a unit vector normal to the unit vector n, chosen
-// deterministically: n crossed with the coordinate axis least aligned
-// with it, so the cross product has a norm of at least √(2/3).
-func anyNormal(n r3.Vec) r3.Vec {
-	a := r3.Vec{X: 1}
-	if math.Abs(n.X) > math.Abs(n.Y) || math.Abs(n.X) > math.Abs(n.Z) {
-		a = r3.Vec{Y: 1}
-		if math.Abs(n.Y) > math.Abs(n.Z) {
-			a = r3.Vec{Z: 1}
-		}
-	}
-	u, _ := linalg.Unit3(r3.Cross(n, a))
-	return u
+// scaledWrench returns the wrench w in the scaled coordinates of the
+// stiffness and equilibrium analyses, g = (F, M/L) with L the contact
+// set's size, so that g·y is the power on the scaled twist y = (V, W·L)
+// and every entry is of one unit.
+func scaledWrench(w screw.Wrench, L float64) [6]float64 {
+	return [6]float64{w.F.X, w.F.Y, w.F.Z, w.M.X / L, w.M.Y / L, w.M.Z / L}
+}
+
+// dot6 returns the dot product of two 6-vectors.
+func dot6(a, b *[6]float64) float64 {
+	return a[0]*b[0] + a[1]*b[1] + a[2]*b[2] + a[3]*b[3] + a[4]*b[4] + a[5]*b[5]
 }

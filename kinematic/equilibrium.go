@@ -123,7 +123,7 @@ func (m *Model) Equilibrium(lc LoadCase, opt *EquilibriumOptions) (Equilibrium, 
 			if !ok {
 				return Equilibrium{}, &InputError{Field: field, Err: fmt.Errorf("%w: no contact has this label", ErrRange)}
 			}
-			if math.IsNaN(g) || math.IsInf(g, 0) {
+			if !linalg.Finite(g) {
 				return Equilibrium{}, &InputError{Field: field, Err: fmt.Errorf("%w: %g", ErrNonFinite, g)}
 			}
 			e[i] = -g
@@ -157,7 +157,7 @@ func (m *Model) Equilibrium(lc LoadCase, opt *EquilibriumOptions) (Equilibrium, 
 			eq.Open = append(eq.Open, cl.Label)
 			continue
 		}
-		cl.Force = m.surf[i].k * d * math.Sqrt(d)
+		cl.Force = hertzForce(m.surf[i].k, d)
 		if err := m.hertzAt(i, cl.Force, cl); err != nil {
 			return Equilibrium{}, err
 		}
@@ -201,14 +201,6 @@ func newSolver(m *Model, e []float64, w screw.Wrench, preload bool) *solver {
 	return s
 }
 
-func scaledWrench(w screw.Wrench, L float64) [6]float64 {
-	return [6]float64{w.F.X, w.F.Y, w.F.Z, w.M.X / L, w.M.Y / L, w.M.Z / L}
-}
-
-func dot6(a, b *[6]float64) float64 {
-	return a[0]*b[0] + a[1]*b[1] + a[2]*b[2] + a[3]*b[3] + a[4]*b[4] + a[5]*b[5]
-}
-
 // ranked reports whether the contact lines span all six directions.
 func (s *solver) ranked() bool {
 	var h [36]float64
@@ -244,8 +236,7 @@ func (s *solver) rigidStart() {
 		if f[i] < 0 {
 			return
 		}
-		d := math.Cbrt(f[i] / m.surf[i].k)
-		d *= d
+		d := hertzApproach(m.surf[i].k, f[i])
 		x = x.Add(m.freed[i].Scale(s.e[i] - d))
 	}
 	s.y = [6]float64{x.V.X, x.V.Y, x.V.Z, x.W.X * s.L, x.W.Y * s.L, x.W.Z * s.L}
@@ -266,6 +257,9 @@ func (s *solver) state(y *[6]float64, grad *[6]float64, hess *[36]float64) float
 		if d <= 0 {
 			continue
 		}
+		// Π's term (2/5) k δ^(5/2), its force k δ^(3/2) (hertzForce) and
+		// stiffness (3/2) k δ^(1/2) (normalStiffness, in terms of δ),
+		// sharing √δ.
 		k := s.m.surf[i].k
 		sd := math.Sqrt(d)
 		pi += 0.4 * k * d * d * sd
@@ -306,7 +300,7 @@ func (s *solver) scaleOfLoads() float64 {
 	sum := math.Sqrt(dot6(&s.w, &s.w))
 	for i := range s.g {
 		if d := s.approach(i); d > 0 {
-			sum += s.m.surf[i].k * d * math.Sqrt(d)
+			sum += hertzForce(s.m.surf[i].k, d)
 		}
 	}
 	return sum
@@ -335,7 +329,7 @@ func (s *solver) newton(tol float64, maxIt int) (int, error) {
 		}
 		pi := s.state(&s.y, &grad, &hess)
 		scale := s.scaleOfLoads()
-		if math.IsNaN(pi) || math.IsInf(pi, 0) || math.IsInf(scale, 0) || math.IsNaN(scale) {
+		if !linalg.Finite(pi) || !linalg.Finite(scale) {
 			return it, tooLarge
 		}
 		if r := math.Sqrt(dot6(&grad, &grad)); r <= tol*scale || scale == 0 {

@@ -101,8 +101,7 @@ func (c Coupling) Geometry() (Geometry, error) {
 	}
 	g := Geometry{Socket: -1, Centroid: ballCentroid(c)}
 	for i, p := range c.Pairs {
-		switch p.Seat.(type) {
-		case Trihedral, Cone:
+		if _, ok := p.Seat.(socketSeat); ok {
 			if g.Socket == -1 {
 				g.Socket = i
 			} else {

@@ -181,7 +181,7 @@ func (c Coupling) WithGroove(i int, angle float64, ref Reference) (Coupling, err
 	if !ok {
 		return Coupling{}, &InputError{Field: "i", Err: fmt.Errorf("%w: Pairs[%d].Seat is %T, not a groove (Vee or Rods)", ErrDegenerate, i, c.Pairs[i].Seat)}
 	}
-	if math.IsNaN(angle) || math.IsInf(angle, 0) {
+	if !linalg.Finite(angle) {
 		return Coupling{}, &InputError{Field: "angle", Err: fmt.Errorf("%w: %g", ErrNonFinite, angle)}
 	}
 	if _, err := c.Contacts(); err != nil {

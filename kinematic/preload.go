@@ -80,21 +80,51 @@ func (m *Model) SizePreload(cases []LoadCase, minForce float64) (PreloadSizing, 
 	if len(cases) == 0 {
 		return PreloadSizing{}, &InputError{Field: "cases", Err: fmt.Errorf("%w: no load cases", ErrDegenerate)}
 	}
-	if math.IsNaN(minForce) || math.IsInf(minForce, 0) {
+	if !linalg.Finite(minForce) {
 		return PreloadSizing{}, &InputError{Field: "minForce", Err: fmt.Errorf("%w: %g", ErrNonFinite, minForce)}
 	}
 	if minForce < 0 {
 		return PreloadSizing{}, &InputError{Field: "minForce", Err: fmt.Errorf("%w: must be ≥ 0, got %g", ErrRange, minForce)}
 	}
-	nj, nk := len(m.preloads), len(cases)
-	// a[i][j]: force at contact i from element j at factor 1; e[k][i]:
-	// from the rest of case k.
-	a := make([][6]float64, nj)
+	nj := len(m.preloads)
+	a, e, names, err := m.sizingForces(cases)
+	if err != nil {
+		return PreloadSizing{}, err
+	}
+	bound := func(k, i int) Bound { return Bound{Case: names[k], Contact: labelOf(m.lines[i].label, i)} }
+
+	var sz PreloadSizing
+	if err := m.scaleWindow(&sz, a, e, minForce, names, bound); err != nil {
+		return PreloadSizing{}, err
+	}
+
+	// The smallest total preload, element by element.
+	if nj == 1 {
+		sz.Factors = []float64{sz.MinScale}
+	} else {
+		f, err := m.sizeLP(a, e, minForce)
+		if err != nil {
+			return PreloadSizing{}, err
+		}
+		sz.Factors = f
+	}
+	for j, s := range sz.Factors {
+		sz.Total += s * linalg.Norm3(m.preloads[j].w.F)
+	}
+	sz.Binding = bindings(sz.Factors, a, e, minForce, bound)
+	return sz, nil
+}
+
+// sizingForces returns the contact forces of the sizing: a[j][i], the
+// force at contact i from preload element j at factor 1, and e[k][i], from
+// the rest of case k; and the cases' names.
+func (m *Model) sizingForces(cases []LoadCase) (a, e [][6]float64, names []string, err error) {
+	a = make([][6]float64, len(m.preloads))
 	for j, p := range m.preloads {
 		m.forces(p.w, &a[j])
 	}
-	e := make([][6]float64, nk)
-	names := make([]string, nk)
+	e = make([][6]float64, len(cases))
+	names = make([]string, len(cases))
 	for k := range cases {
 		lc := cases[k]
 		lc.Preload = 0
@@ -103,7 +133,7 @@ func (m *Model) SizePreload(cases []LoadCase, minForce float64) (PreloadSizing, 
 			if ie, ok := err.(*InputError); ok {
 				ie.Field = indexed("cases", k) + ie.Field[len("lc"):]
 			}
-			return PreloadSizing{}, err
+			return nil, nil, nil, err
 		}
 		m.forces(w, &e[k])
 		names[k] = cases[k].Name
@@ -111,9 +141,12 @@ func (m *Model) SizePreload(cases []LoadCase, minForce float64) (PreloadSizing, 
 			names[k] = indexed("cases", k)
 		}
 	}
-	bound := func(k, i int) Bound { return Bound{Case: names[k], Contact: labelOf(m.lines[i].label, i)} }
+	return a, e, names, nil
+}
 
-	var sz PreloadSizing
+// scaleWindow sets sz's common scale window, MinScale and MaxScale with
+// their binding pairs, for the forces a and e of sizingForces.
+func (m *Model) scaleWindow(sz *PreloadSizing, a, e [][6]float64, minForce float64, names []string, bound func(k, i int) Bound) error {
 	// The common scale: every element at the same factor s.
 	var sum [6]float64
 	for j := range a {
@@ -131,7 +164,7 @@ func (m *Model) SizePreload(cases []LoadCase, minForce float64) (PreloadSizing, 
 					sz.MinScale, sz.MinBinding = s, bound(k, i)
 				}
 			case need > 0:
-				return PreloadSizing{}, &InputError{Field: "cases", Err: fmt.Errorf(
+				return &InputError{Field: "cases", Err: fmt.Errorf(
 					"%w: case %q leaves contact %s at %.6g N, below minForce %g N, and the preload does not push it closed",
 					ErrRange, names[k], labelOf(m.lines[i].label, i), e[k][i], minForce)}
 			}
@@ -149,7 +182,7 @@ func (m *Model) SizePreload(cases []LoadCase, minForce float64) (PreloadSizing, 
 		}
 		fa, err := s.pair.LoadForPressure(s.allow)
 		if err != nil {
-			return PreloadSizing{}, fromHertz(err, indexed("cs", i)+".Moving", indexed("cs", i)+".Base", nil)
+			return fromHertz(err, indexed("cs", i)+".Moving", indexed("cs", i)+".Base", nil)
 		}
 		for k := range e {
 			if v := (fa - e[k][i]) / sum[i]; v < sz.MaxScale {
@@ -157,36 +190,28 @@ func (m *Model) SizePreload(cases []LoadCase, minForce float64) (PreloadSizing, 
 			}
 		}
 	}
+	return nil
+}
 
-	// The smallest total preload, element by element.
-	if nj == 1 {
-		sz.Factors = []float64{sz.MinScale}
-	} else {
-		f, err := m.sizeLP(a, e, minForce)
-		if err != nil {
-			return PreloadSizing{}, err
-		}
-		sz.Factors = f
-	}
-	for j, s := range sz.Factors {
-		sz.Total += s * linalg.Norm3(m.preloads[j].w.F)
-	}
-	// Binding pairs at the optimum.
+// bindings returns the case and contact pairs at minForce, within bindTol,
+// under the preload factors.
+func bindings(factors []float64, a, e [][6]float64, minForce float64, bound func(k, i int) Bound) []Bound {
+	var out []Bound
 	scale := math.Max(minForce, 1e-300)
 	for k := range e {
 		for i := 0; i < 6; i++ {
 			f := e[k][i]
 			var mag float64
-			for j, s := range sz.Factors {
+			for j, s := range factors {
 				f += s * a[j][i]
 				mag = math.Max(mag, math.Abs(s*a[j][i]))
 			}
 			if math.Abs(f-minForce) <= bindTol*math.Max(scale, math.Max(mag, math.Abs(e[k][i]))) {
-				sz.Binding = append(sz.Binding, bound(k, i))
+				out = append(out, bound(k, i))
 			}
 		}
 	}
-	return sz, nil
+	return out
 }
 
 // sizeLP solves min Σ sⱼ Fⱼ subject to Σⱼ sⱼ aᵢⱼ + eᵢₖ ≥ minForce, s ≥ 0, in

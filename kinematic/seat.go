@@ -45,77 +45,11 @@ type Seat interface {
 	// (root) and its material's expansion coefficient, for the seated
 	// ball b and its nominal contacts cs.
 	surfaces(b Ball, cs []Contact) ([]seatSurface, []dimension, r3.Vec, float64)
-}
 
-// Vee is a groove of two flanks that holds a ball at two points, one on
-// each flank. The ball is seated: its centre lies on the groove axis, the
-// line along Direction through the centre.
-//
-// The flanks are symmetric about the plane that holds Direction and Up. Each
-// flank makes the angle HalfAngle with that plane, so each contact normal
-// leans HalfAngle from the horizontal (the plane normal to Up): a 90° vee
-// has HalfAngle π/4. With FlankRadius zero or +Inf the flanks are flat; a
-// finite FlankRadius makes them concave cylinders of that radius with axes
-// along the groove (a gothic arch), touching the ball at the same points.
-type Vee struct {
-	Direction   r3.Vec  // along the groove, either sense; only its part normal to Up is used
-	Up          r3.Vec  // out of the groove towards the ball
-	HalfAngle   float64 // rad, in (0, π/2)
-	FlankRadius float64 // m: 0 or +Inf for flat flanks, else greater than the ball radius
-	Material    hertz.Material
-}
-
-// Flat is a plane pad that holds a ball at one point, under its centre
-// along −Up.
-type Flat struct {
-	Up       r3.Vec // normal of the pad, towards the ball
-	Material hertz.Material
-}
-
-// Trihedral is a socket of three plane faces, equally spaced about Up, that
-// holds a ball at three points. Each face makes the angle HalfAngle with
-// the socket axis (Up), so each contact normal leans HalfAngle from the
-// horizontal; a cube-corner socket has HalfAngle = atan(1/√2) ≈ 35.26°.
-// The first contact lies on the side of the ball that Azimuth points to
-// (its part normal to Up), the others at 120° and 240° about Up.
-type Trihedral struct {
-	Up        r3.Vec
-	Azimuth   r3.Vec
-	HalfAngle float64 // rad, in (0, π/2)
-	Material  hertz.Material
-}
-
-// Cone is a conical seat of half-angle HalfAngle between its surface and
-// its axis (Up). A ball in a cone bears on a ring, not at points; for
-// constraint analysis the ring stands as three contacts laid out as those
-// of a [Trihedral] with the same fields; the zero Azimuth chooses a
-// direction normal to Up (the cone is axisymmetric, so the verdicts do not
-// depend on it). The seat surface at those contacts conforms to the ball
-// around the ring, so a Hertz analysis of them reports line contact
-// ([hertz.ErrLineContact]): a cone's contact stresses need a ring-contact
-// model, which this package does not provide.
-type Cone struct {
-	Up        r3.Vec
-	Azimuth   r3.Vec  // zero: any direction normal to Up
-	HalfAngle float64 // rad, in (0, π/2)
-	Material  hertz.Material
-}
-
-// Rods is a vee made of two parallel cylindrical rods (or dowel pins) that
-// hold a ball at two points, one on each rod: a seat that is easy to make
-// precisely. The ball is seated with its centre on the groove axis, the
-// line along Direction through the centre; each contact normal runs from a
-// rod's axis through the ball centre and leans HalfAngle from the
-// horizontal, as a [Vee]'s flank normal does (the rods' spacing follows
-// from HalfAngle and the radii: the rod axes lie (r + RodRadius)·cos
-// HalfAngle either side of the groove axis). The rods are convex, so each
-// contact is a ball on a cylinder: an elliptical Hertz contact.
-type Rods struct {
-	Direction r3.Vec  // along the rods, either sense; only its part normal to Up is used
-	Up        r3.Vec  // out of the groove towards the ball
-	HalfAngle float64 // rad, in (0, π/2)
-	RodRadius float64 // m, > 0
-	Material  hertz.Material
+	// ideals sets out[i] to the best centre index (see [Maxwell]) that a
+	// layout can give contact i of the seat, for its nominal contacts cs:
+	// what [Scorecard.MaxwellRatio] compares the layout's with.
+	ideals(cs []Contact, out []float64)
 }
 
 // grooveSeat is a seat with a groove axis that can turn about its Up: a
@@ -220,74 +154,13 @@ func checkBall(b Ball, field string) error {
 	if !linalg.Finite3(b.Centre) {
 		return &InputError{Field: field + ".Centre", Err: fmt.Errorf("%w: %v", ErrNonFinite, b.Centre)}
 	}
-	if math.IsNaN(b.Radius) || math.IsInf(b.Radius, 0) {
+	if !linalg.Finite(b.Radius) {
 		return &InputError{Field: field + ".Radius", Err: fmt.Errorf("%w: %g", ErrNonFinite, b.Radius)}
 	}
 	if !(b.Radius > 0) {
 		return &InputError{Field: field + ".Radius", Err: fmt.Errorf("%w: must be positive, got %g", ErrRange, b.Radius)}
 	}
 	return nil
-}
-
-func (v Vee) count() int                    { return 2 }
-func (v Vee) up() r3.Vec                    { return v.Up }
-func (v Vee) halfAngle() float64            { return v.HalfAngle }
-func (v Vee) withDirection(d r3.Vec) Seat   { v.Direction = d; return v }
-func (v Vee) withHalfAngle(h float64) Seat  { v.HalfAngle = h; return v }
-func (r Rods) withHalfAngle(h float64) Seat { r.HalfAngle = h; return r }
-func (r Rods) count() int                   { return 2 }
-func (r Rods) up() r3.Vec                   { return r.Up }
-func (r Rods) halfAngle() float64           { return r.HalfAngle }
-func (r Rods) withDirection(d r3.Vec) Seat  { r.Direction = d; return r }
-func (f Flat) count() int                   { return 1 }
-func (f Flat) up() r3.Vec                   { return f.Up }
-
-func (t Trihedral) count() int { return 3 }
-func (t Trihedral) up() r3.Vec { return t.Up }
-func (c Cone) count() int      { return 3 }
-func (c Cone) up() r3.Vec      { return c.Up }
-
-// groove returns the vee's unit Up and unit groove direction (the part of
-// Direction normal to Up), validated.
-func (v Vee) groove(field string) (up, g r3.Vec, err error) {
-	up, err = unitOf(v.Up, field+".Up")
-	if err != nil {
-		return r3.Vec{}, r3.Vec{}, err
-	}
-	g, err = horizontal(v.Direction, up, field+".Direction")
-	if err != nil {
-		return r3.Vec{}, r3.Vec{}, err
-	}
-	return up, g, nil
-}
-
-// groove returns the seat's unit Up and unit groove direction, validated.
-func (r Rods) groove(field string) (up, g r3.Vec, err error) {
-	return Vee{Up: r.Up, Direction: r.Direction}.groove(field)
-}
-
-func (r Rods) appendContacts(dst []Contact, b Ball, name, field string) ([]Contact, error) {
-	up, g, err := r.groove(field)
-	if err != nil {
-		return nil, err
-	}
-	if err := checkHalfAngle(r.HalfAngle, field+".HalfAngle"); err != nil {
-		return nil, err
-	}
-	if math.IsNaN(r.RodRadius) || math.IsInf(r.RodRadius, 0) {
-		return nil, &InputError{Field: field + ".RodRadius", Err: fmt.Errorf("%w: %g", ErrNonFinite, r.RodRadius)}
-	}
-	if !(r.RodRadius > 0) {
-		return nil, &InputError{Field: field + ".RodRadius", Err: fmt.Errorf("%w: must be positive, got %g", ErrRange, r.RodRadius)}
-	}
-	// A convex cylinder with its axis along the groove: Tangent is the
-	// groove direction, so the axis angle is 0.
-	base := hertz.Cylinder(r.RodRadius, 0, r.Material)
-	s, c := math.Sincos(r.HalfAngle)
-	ns := flankNormals(up, g, s, c)
-	return append(dst,
-		ballContact(b, name+"+", ns[0], g, base),
-		ballContact(b, name+"-", ns[1], g, base)), nil
 }
 
 // flankNormals returns the contact normals of a vee of half-angle with
@@ -300,77 +173,6 @@ func flankNormals(up, g r3.Vec, s, c float64) [2]r3.Vec {
 		r3.Add(r3.Scale(s, up), r3.Scale(-c, side)),
 		r3.Add(r3.Scale(s, up), r3.Scale(c, side)),
 	}
-}
-
-func (v Vee) appendContacts(dst []Contact, b Ball, name, field string) ([]Contact, error) {
-	up, g, err := v.groove(field)
-	if err != nil {
-		return nil, err
-	}
-	if err := checkHalfAngle(v.HalfAngle, field+".HalfAngle"); err != nil {
-		return nil, err
-	}
-	base := hertz.Flat(v.Material)
-	switch rf := v.FlankRadius; {
-	case rf == 0 || math.IsInf(rf, 1):
-	case math.IsNaN(rf) || rf <= b.Radius:
-		return nil, &InputError{Field: field + ".FlankRadius", Err: fmt.Errorf(
-			"%w: must be 0 or +Inf (flat flanks) or greater than the ball radius %g, got %g", ErrRange, b.Radius, rf)}
-	default:
-		// Concave cylinder with its axis along the groove: Tangent is the
-		// groove direction, so the axis angle is 0.
-		base = hertz.Groove(rf, 0, v.Material)
-	}
-	s, c := math.Sincos(v.HalfAngle)
-	ns := flankNormals(up, g, s, c)
-	dst = append(dst,
-		ballContact(b, name+"+", ns[0], g, base),
-		ballContact(b, name+"-", ns[1], g, base))
-	return dst, nil
-}
-
-func (f Flat) appendContacts(dst []Contact, b Ball, name, field string) ([]Contact, error) {
-	up, err := unitOf(f.Up, field+".Up")
-	if err != nil {
-		return nil, err
-	}
-	return append(dst, ballContact(b, name, up, anyNormal(up), hertz.Flat(f.Material))), nil
-}
-
-func (t Trihedral) appendContacts(dst []Contact, b Ball, name, field string) ([]Contact, error) {
-	return socket(dst, b, name, field, t.Up, t.Azimuth, t.HalfAngle, hertz.Flat(t.Material), false)
-}
-
-func (c Cone) appendContacts(dst []Contact, b Ball, name, field string) ([]Contact, error) {
-	// Around the ring (Tangent) the cone conforms to the ball: radius −r.
-	// Along the generator it is straight.
-	surface := hertz.Toroid(-b.Radius, math.Inf(1), 0, c.Material)
-	return socket(dst, b, name, field, c.Up, c.Azimuth, c.HalfAngle, surface, true)
-}
-
-// socket appends the three contacts of a trihedral or conical seat. With
-// anyAzimuth a zero azimuth picks a direction normal to Up.
-func socket(dst []Contact, b Ball, name, field string, upv, az r3.Vec, half float64, surface hertz.Body, anyAzimuth bool) ([]Contact, error) {
-	up, err := unitOf(upv, field+".Up")
-	if err != nil {
-		return nil, err
-	}
-	var h0 r3.Vec
-	if anyAzimuth && az == (r3.Vec{}) {
-		h0 = anyNormal(up)
-	} else if h0, err = horizontal(az, up, field+".Azimuth"); err != nil {
-		return nil, err
-	}
-	if err := checkHalfAngle(half, field+".HalfAngle"); err != nil {
-		return nil, err
-	}
-	s, c := math.Sincos(half)
-	for k := 0; k < 3; k++ {
-		h := r3.Rotate(h0, 2*math.Pi*float64(k)/3, up)
-		n := r3.Add(r3.Scale(s, up), r3.Scale(-c, h))
-		dst = append(dst, ballContact(b, fmt.Sprintf("%s%d", name, k+1), n, r3.Cross(up, h), surface))
-	}
-	return dst, nil
 }
 
 // ballContact returns the contact of ball b along the unit normal n.
@@ -388,11 +190,42 @@ func ballContact(b Ball, label string, n, tangent r3.Vec, base hertz.Body) Conta
 }
 
 func checkHalfAngle(a float64, field string) error {
-	if math.IsNaN(a) || math.IsInf(a, 0) {
+	if !linalg.Finite(a) {
 		return &InputError{Field: field, Err: fmt.Errorf("%w: %g", ErrNonFinite, a)}
 	}
 	if !(a > 0 && a < math.Pi/2) {
 		return &InputError{Field: field, Err: fmt.Errorf("%w: must be in (0, π/2) rad, got %g", ErrRange, a)}
 	}
 	return nil
+}
+
+// grooveDimensions returns the dimensions shared by a vee and rods: the
+// translations, Turn about Up through the ball centre c and Tilt about
+// up × g through the root point.
+func grooveDimensions(up, g, c, root r3.Vec) []dimension {
+	ds := translations(2)
+	turn := dimension{name: "Turn", kind: seatMotion}
+	tilt := dimension{name: "Tilt", kind: seatMotion}
+	side := r3.Cross(up, g)
+	for s := 0; s < 2; s++ {
+		turn.motions = append(turn.motions, motion{surf: s, rot: true, axis: up, point: c})
+		tilt.motions = append(tilt.motions, motion{surf: s, rot: true, axis: side, point: root})
+	}
+	return append(ds, turn, tilt)
+}
+
+// grooveIdeal returns the best centre index a layout can give a contact
+// of a groove of half-angle h: |sin 2h|. The best freed motion of the
+// ball's centre lies in the plane normal to the groove, normal to the
+// other flank's normal, and the two normals make the angle π − 2h.
+func grooveIdeal(h float64) float64 {
+	return math.Abs(math.Sin(2 * h))
+}
+
+// rootBelow returns the root of a seat whose contact normals lean the
+// half-angle with sine s from the plane normal to the unit vector up, for
+// a ball of centre c and radius r: the point r/s below the centre along
+// up, where a vee's flanks or a socket's faces meet.
+func rootBelow(c, up r3.Vec, r, s float64) r3.Vec {
+	return r3.Sub(c, r3.Scale(r/s, up))
 }

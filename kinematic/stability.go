@@ -85,15 +85,9 @@ func (a *Analysis) stability(st *Stability) error {
 	}
 	for i, t := range ts {
 		l := &a.lines[i]
-		// Scale so that n·v = 1 exactly (it is 1 to rounding already).
-		t = t.Scale(1 / r3.Dot(l.n, t.At(l.p)))
 		m := &st.Contacts[i]
+		t, m.Index, m.CentreIndex = maxwell(t, l)
 		m.Label, m.Freed = l.label, global(t, a.origin)
-		m.Index = 1 / linalg.Norm3(t.At(l.p))
-		m.CentreIndex = m.Index
-		if l.ball {
-			m.CentreIndex = 1 / linalg.Norm3(t.At(l.centre))
-		}
 	}
 	low := st.Contacts[0].Index
 	for _, m := range st.Contacts {
@@ -106,6 +100,22 @@ func (a *Analysis) stability(st *Stability) error {
 		}
 	}
 	return nil
+}
+
+// maxwell returns the twist t freed by removing the contact l, scaled so
+// that the contact point separates at unit speed (n·v = 1 exactly; it is 1
+// to rounding already when t has power 1 with l), and the Maxwell indices
+// of [Maxwell]: 1/|v| at the contact point and 1/|v_c| at the ball's
+// centre (the same as the index for a contact not made by a ball). It is
+// the one definition of the index: Stability and the scorecard call it.
+func maxwell(t screw.Twist, l *line) (freed screw.Twist, index, centreIndex float64) {
+	freed = t.Scale(1 / r3.Dot(l.n, t.At(l.p)))
+	index = 1 / linalg.Norm3(freed.At(l.p))
+	centreIndex = index
+	if l.ball {
+		centreIndex = 1 / linalg.Norm3(freed.At(l.centre))
+	}
+	return freed, index, centreIndex
 }
 
 // freedOf sets ts to the twists freed by removing each of the six

@@ -2,7 +2,6 @@ package kinematic
 
 import (
 	"fmt"
-	"math"
 
 	"gonum.org/v1/gonum/spatial/r3"
 
@@ -65,10 +64,7 @@ func (m *Model) Stiffness(lc LoadCase, opt *StiffnessOptions) (Stiffness, error)
 		o = *opt
 	}
 	n := len(m.lines)
-	st := Stiffness{Case: lc.Name, Forces: make([]float64, n), Normal: make([]float64, n), origin: m.origin, L: m.size, payload: m.payload}
-	if !(st.L > 0) {
-		st.L = 1
-	}
+	forces := make([]float64, n)
 	if m.exact {
 		w, err := m.wrench(&lc)
 		if err != nil {
@@ -82,19 +78,19 @@ func (m *Model) Stiffness(lc LoadCase, opt *StiffnessOptions) (Stiffness, error)
 					"%w: contact %s is in tension (%.4g N) under case %q: add preload, or use Equilibrium", ErrRange, labelOf(m.lines[i].label, i), f[i], lc.Name)}
 			}
 		}
-		copy(st.Forces, f[:])
+		copy(forces, f[:])
 	} else {
 		eq, err := m.Equilibrium(lc, o.Equilibrium)
 		if err != nil {
 			return Stiffness{}, err
 		}
 		for i, c := range eq.Contacts {
-			st.Forces[i] = c.Force
+			forces[i] = c.Force
 		}
 	}
-	L := st.L
+	normal := make([]float64, n)
 	for i, l := range m.lines {
-		f := st.Forces[i]
+		f := forces[i]
 		if f <= 0 {
 			continue
 		}
@@ -102,40 +98,73 @@ func (m *Model) Stiffness(lc LoadCase, opt *StiffnessOptions) (Stiffness, error)
 		if s.err != nil {
 			return Stiffness{}, s.err
 		}
-		// δ = (F/k)^(2/3), so dF/dδ = 3F/(2δ) = (3/2) k^(2/3) F^(1/3),
-		// written without the quotient, which underflows for tiny forces.
-		st.Normal[i] = 1.5 * math.Cbrt(s.k*s.k*f)
-		if math.IsInf(st.Normal[i], 0) || math.IsNaN(st.Normal[i]) {
+		normal[i] = normalStiffness(s.k, f)
+		if !linalg.Finite(normal[i]) {
 			return Stiffness{}, &InputError{Field: "lc", Err: fmt.Errorf("%w: the stiffness of contact %s at %g N is outside the floating-point range", ErrRange, labelOf(l.label, i), f)}
 		}
-		g := scaledWrench(screw.Wrench{F: l.n, M: r3.Cross(l.p, l.n)}, L)
-		addOuter(&st.k, st.Normal[i], &g)
-		if o.Tangential {
-			h, err := s.pair.Contact(f)
-			if err != nil {
-				return Stiffness{}, fromHertz(err, indexed("cs", i)+".Moving", indexed("cs", i)+".Base", nil)
-			}
-			kt, err := h.TangentialStiffness(1, 0) // at zero tangential load the result does not depend on μ
-			if err != nil {
-				return Stiffness{}, fromHertz(err, indexed("cs", i)+".Moving", indexed("cs", i)+".Base", nil)
-			}
-			t1 := anyNormal(l.n)
-			t2 := r3.Cross(l.n, t1)
-			for _, t := range [2]r3.Vec{t1, t2} {
-				g := scaledWrench(screw.Wrench{F: t, M: r3.Cross(l.p, t)}, L)
-				addOuter(&st.k, kt, &g)
-			}
-		}
 	}
+	var rates []preloadLine
 	if lc.Preload != 0 {
-		for _, p := range m.preloads {
-			if p.rate != 0 {
-				g := scaledWrench(screw.Wrench{F: p.dir, M: r3.Cross(p.p, p.dir)}, L)
-				addOuter(&st.k, -p.rate, &g)
-			}
+		rates = m.preloads
+	}
+	st := stiffnessOf(m.lines, normal, rates, m.origin, m.size, m.payload)
+	st.Case, st.Forces, st.Normal = lc.Name, forces, normal
+	if !o.Tangential {
+		return st, nil
+	}
+	for i, l := range m.lines {
+		f := forces[i]
+		if f <= 0 {
+			continue
+		}
+		s := &m.surf[i]
+		h, err := s.pair.Contact(f)
+		if err != nil {
+			return Stiffness{}, fromHertz(err, indexed("cs", i)+".Moving", indexed("cs", i)+".Base", nil)
+		}
+		kt, err := h.TangentialStiffness(1, 0) // at zero tangential load the result does not depend on μ
+		if err != nil {
+			return Stiffness{}, fromHertz(err, indexed("cs", i)+".Moving", indexed("cs", i)+".Base", nil)
+		}
+		t1 := linalg.AnyNormal(l.n)
+		t2 := r3.Cross(l.n, t1)
+		for _, t := range [2]r3.Vec{t1, t2} {
+			g := scaledWrench(screw.Wrench{F: t, M: r3.Cross(l.p, t)}, st.L)
+			addOuter(&st.k, kt, &g)
 		}
 	}
 	return st, nil
+}
+
+// stiffnessOf returns the stiffness of contacts acting as springs in
+// parallel with preload elements: K = Σ kᵢ lᵢ lᵢᵀ − Σ rateⱼ pⱼ pⱼᵀ, with
+// kn[i] the normal stiffness of the contact line ls[i] (N/m; 0 adds
+// nothing) and pⱼ the unit line of preload element j, whose force grows by
+// rateⱼ per metre along it (a force that grows as the body moves along it
+// destabilises). Lines and the origin of the result are about origin, L is
+// the length that scales moments (1 when not positive), payload the
+// payload with its centre about origin. It is the one assembly of the
+// stiffness: [Model.Stiffness] and the scorecard call it.
+func stiffnessOf(ls []line, kn []float64, ps []preloadLine, origin r3.Vec, L float64, payload Payload) Stiffness {
+	if !(L > 0) {
+		L = 1
+	}
+	st := Stiffness{origin: origin, L: L, payload: payload}
+	for i := range ls {
+		if kn[i] == 0 {
+			continue
+		}
+		l := &ls[i]
+		g := scaledWrench(screw.Wrench{F: l.n, M: r3.Cross(l.p, l.n)}, L)
+		addOuter(&st.k, kn[i], &g)
+	}
+	for _, p := range ps {
+		if p.rate != 0 {
+			g := scaledWrench(screw.Wrench{F: p.dir, M: r3.Cross(p.p, p.dir)}, L)
+			addOuter(&st.k, -p.rate, &g)
+		}
+	}
+	return st
 }
 
 // addOuter adds k·g·gᵀ to the row-major 6×6 matrix a.
@@ -307,128 +336,4 @@ func (s Stiffness) Compliance(at r3.Vec) (Compliance, error) {
 		}
 	}
 	return c, nil
-}
-
-// Mode is one natural mode of the payload on the coupling.
-type Mode struct {
-	// Frequency is the natural frequency in Hz.
-	Frequency float64
-
-	// Shape is the mode shape as a small-displacement twist (W in rad, V
-	// in m at the origin), scaled so that the larger of the centre of
-	// mass's translation and the rotation times the contact set's size
-	// is 1, with its largest component positive.
-	Shape screw.Twist
-}
-
-// Modes returns the six natural modes of the model's payload on the
-// coupling, lowest first: the generalised symmetric eigenproblem
-// K φ = ω² M φ with M the payload's rigid-body mass matrix, solved by a
-// Cholesky factorisation M = LLᵀ and the symmetric eigenproblem of
-// L⁻¹KL⁻ᵀ (Golub & Van Loan, 4th ed., §8.7.2), on a fixed-size Jacobi
-// kernel checked against gonum's mat.EigenSym. Frequencies are
-// f = ω/(2π).
-//
-// Modes returns an [*InputError] naming "payload.Mass" or
-// "payload.Inertia" when the payload has no mass or no positive-definite
-// inertia, and one wrapping [ErrDegenerate] when the stiffness is not
-// positive definite (an unresisted or unstable motion).
-func (s Stiffness) Modes() ([6]Mode, error) {
-	var modes [6]Mode
-	p := s.payload
-	if !(p.Mass > 0) {
-		return modes, &InputError{Field: "payload.Mass", Err: fmt.Errorf("%w: natural frequencies need a payload with mass", ErrDegenerate)}
-	}
-	if p.Inertia == ([3][3]float64{}) {
-		return modes, &InputError{Field: "payload.Inertia", Err: fmt.Errorf("%w: natural frequencies need the payload's inertia tensor", ErrDegenerate)}
-	}
-	L := s.L
-	// Scaled mass matrix for y = (V, W·L), V at the origin o, centre
-	// c = com − o: the kinetic energy ½m|V + W × c|² + ½WᵀJW gives
-	// M_VV = mI, M_VW = −m[c]×, M_WW = J − m[c]×², then D M D.
-	c := p.Centre
-	cx := [3][3]float64{{0, -c.Z, c.Y}, {c.Z, 0, -c.X}, {-c.Y, c.X, 0}}
-	var mm [36]float64
-	for a := range 3 {
-		mm[6*a+a] = p.Mass
-		for b := range 3 {
-			mm[6*a+3+b] = -p.Mass * cx[a][b] / L
-			mm[6*(3+b)+a] = mm[6*a+3+b]
-			var c2 float64
-			for k := range 3 {
-				c2 += cx[a][k] * cx[k][b]
-			}
-			mm[6*(3+a)+3+b] = (p.Inertia[a][b] - p.Mass*c2) / (L * L)
-		}
-	}
-	l := mm
-	if !linalg.Cholesky6(&l, 1e-14) {
-		return modes, &InputError{Field: "payload.Inertia", Err: fmt.Errorf("%w: the mass matrix is not positive definite", ErrDegenerate)}
-	}
-	// B = L⁻¹ K L⁻ᵀ: solve column by column.
-	var x [36]float64 // L⁻¹ K
-	for j := range 6 {
-		for i := range 6 {
-			v := s.k[6*i+j]
-			for k := range i {
-				v -= l[6*i+k] * x[6*k+j]
-			}
-			x[6*i+j] = v / l[7*i]
-		}
-	}
-	var b [36]float64 // (L⁻¹ (L⁻¹ K)ᵀ) = L⁻¹ K L⁻ᵀ, K symmetric
-	for j := range 6 {
-		for i := range 6 {
-			v := x[6*j+i]
-			for k := range i {
-				v -= l[6*i+k] * b[6*k+j]
-			}
-			b[6*i+j] = v / l[7*i]
-		}
-	}
-	for i := range 6 {
-		for j := range i {
-			b[6*i+j] = (b[6*i+j] + b[6*j+i]) / 2
-			b[6*j+i] = b[6*i+j]
-		}
-	}
-	var v [36]float64
-	var w [6]float64
-	linalg.EigenSym6(&b, &v, &w)
-	var big float64
-	for i := range 6 {
-		big = math.Max(big, math.Abs(w[i]))
-	}
-	for j := range 6 {
-		if !(w[j] > singularStiffness*big) {
-			return modes, &InputError{Field: "cs", Err: fmt.Errorf("%w: the stiffness is singular or not positive definite: some motion is not resisted", ErrDegenerate)}
-		}
-		// φ = L⁻ᵀ ψ.
-		var phi [6]float64
-		for i := 5; i >= 0; i-- {
-			s := v[6*i+j]
-			for k := i + 1; k < 6; k++ {
-				s -= l[6*k+i] * phi[k]
-			}
-			phi[i] = s / l[7*i]
-		}
-		t := screw.Twist{V: r3.Vec{X: phi[0], Y: phi[1], Z: phi[2]}, W: r3.Vec{X: phi[3] / L, Y: phi[4] / L, Z: phi[5] / L}}
-		size := math.Max(linalg.Norm3(t.At(c)), linalg.Norm3(t.W)*L)
-		t = t.Scale(signOfTwist(t, L) / size)
-		modes[j] = Mode{Frequency: math.Sqrt(w[j]) / (2 * math.Pi), Shape: global(t, s.origin)}
-	}
-	return modes, nil
-}
-
-// signOfTwist returns the sign that makes the largest component of the
-// twist, in the scaled coordinates (V, W·L), positive.
-func signOfTwist(t screw.Twist, L float64) float64 {
-	best, sgn := 0.0, 1.0
-	for _, x := range [6]float64{t.V.X, t.V.Y, t.V.Z, t.W.X * L, t.W.Y * L, t.W.Z * L} {
-		if math.Abs(x) > best {
-			best = math.Abs(x)
-			sgn = math.Copysign(1, x)
-		}
-	}
-	return sgn
 }

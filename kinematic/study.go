@@ -102,9 +102,23 @@ func (a *Assembly) Study(ctx context.Context, p r3.Vec, tols []Tolerance, opt *S
 	if !linalg.Finite3(p) {
 		return StudyResult{}, &InputError{Field: "p", Err: fmt.Errorf("%w: %v", ErrNonFinite, p)}
 	}
-	idx, err := a.checkTolerances(tols)
+	s, err := a.newSampler(p, tols, opt)
 	if err != nil {
 		return StudyResult{}, err
+	}
+	disp, tilt, ok := s.run(ctx, len(tols), opt)
+	if err := ctx.Err(); err != nil {
+		return StudyResult{}, err
+	}
+	return summarise(disp, tilt, ok, opt.KeepSamples), nil
+}
+
+// newSampler prepares the sampler of a study: the tolerances' limits and
+// sensitivities, and the calibrated part.
+func (a *Assembly) newSampler(p r3.Vec, tols []Tolerance, opt *StudyOptions) (*sampler, error) {
+	idx, err := a.checkTolerances(tols)
+	if err != nil {
+		return nil, err
 	}
 	s := &sampler{a: a, p: p, pl: r3.Sub(p, a.origin), idx: idx, exact: opt.Exact}
 	s.lim = make([]float64, len(tols))
@@ -118,10 +132,10 @@ func (a *Assembly) Study(ctx context.Context, p r3.Vec, tols []Tolerance, opt *S
 	for i, d := range opt.Calibration {
 		k, err := a.lookup(d.Dimension, indexed("opt.Calibration", i)+".Dimension")
 		if err != nil {
-			return StudyResult{}, err
+			return nil, err
 		}
-		if math.IsNaN(d.Value) || math.IsInf(d.Value, 0) {
-			return StudyResult{}, &InputError{Field: indexed("opt.Calibration", i) + ".Value", Err: fmt.Errorf("%w: %g", ErrNonFinite, d.Value)}
+		if !linalg.Finite(d.Value) {
+			return nil, &InputError{Field: indexed("opt.Calibration", i) + ".Value", Err: fmt.Errorf("%w: %g", ErrNonFinite, d.Value)}
 		}
 		a.apply(&s.base, k, d.Value)
 		x := a.sensitivity(k)
@@ -139,14 +153,22 @@ func (a *Assembly) Study(ctx context.Context, p r3.Vec, tols []Tolerance, opt *S
 		var zero [6]float64
 		base := s.base
 		if _, err := a.seat(&base, &zero, 1e-13, 50); err != nil {
-			return StudyResult{}, err
+			return nil, err
 		}
 	}
+	return s, nil
+}
 
+// run draws opt.Samples parts of nt toleranced dimensions in blocks of
+// studyBlock, each block from its own stream of opt.Seed, on opt.Workers
+// goroutines, and returns each part's displacement, tilt and whether it
+// seated. It stops early, with the results partly filled, when ctx is
+// done.
+func (s *sampler) run(ctx context.Context, nt int, opt *StudyOptions) (disp []r3.Vec, tilt []float64, ok []bool) {
 	n := opt.Samples
-	disp := make([]r3.Vec, n)
-	tilt := make([]float64, n)
-	ok := make([]bool, n)
+	disp = make([]r3.Vec, n)
+	tilt = make([]float64, n)
+	ok = make([]bool, n)
 	workers := opt.Workers
 	if workers == 0 {
 		workers = runtime.GOMAXPROCS(0)
@@ -162,7 +184,7 @@ func (a *Assembly) Study(ctx context.Context, p r3.Vec, tols []Tolerance, opt *S
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
-			dev := make([]float64, len(tols))
+			dev := make([]float64, nt)
 			for {
 				k := int(next.Add(1) - 1)
 				if k >= blocks || stopped.Load() {
@@ -188,10 +210,7 @@ func (a *Assembly) Study(ctx context.Context, p r3.Vec, tols []Tolerance, opt *S
 		}()
 	}
 	wg.Wait()
-	if err := ctx.Err(); err != nil {
-		return StudyResult{}, err
-	}
-	return summarise(disp, tilt, ok, opt.KeepSamples), nil
+	return disp, tilt, ok
 }
 
 // sampler draws and seats samples; it is shared, read-only, by the

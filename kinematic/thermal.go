@@ -66,7 +66,7 @@ func (a *Assembly) Drift(th Thermal, p r3.Vec) (Drift, error) {
 		name string
 		v    float64
 	}{{"th.DeltaT", th.DeltaT}, {"th.Moving", th.Moving}, {"th.Base", th.Base}} {
-		if math.IsNaN(f.v) || math.IsInf(f.v, 0) {
+		if !linalg.Finite(f.v) {
 			return Drift{}, &InputError{Field: f.name, Err: fmt.Errorf("%w: %g", ErrNonFinite, f.v)}
 		}
 	}
@@ -84,10 +84,7 @@ func (a *Assembly) Drift(th Thermal, p r3.Vec) (Drift, error) {
 	for i, c := range a.conts {
 		pr := &a.pairs[c.pair]
 		l := &a.lines[i]
-		cg := r3.Add(l.centre, a.origin)
-		pg := r3.Add(l.p, a.origin)
-		e := -pr.ball.Material.Alpha*pr.ball.Radius + th.Moving*r3.Dot(l.n, cg) -
-			th.Base*r3.Dot(l.n, r3.Sub(pr.root, th.BaseRef)) - pr.alpha*r3.Dot(l.n, r3.Sub(pg, pr.root))
+		e := thermalGap(&th, pr.ball.Material.Alpha, pr.ball.Radius, pr.alpha, r3.Add(l.centre, a.origin), r3.Add(l.p, a.origin), l.n, pr.root)
 		x = x.Add(a.freed[i].Scale(-e * dt))
 	}
 	pl := r3.Sub(p, a.origin)
@@ -128,6 +125,22 @@ func (a *Assembly) Drift(th Thermal, p r3.Vec) (Drift, error) {
 	return d, nil
 }
 
+// thermalGap returns ∂g/∂ΔT, m/K: how fast the gap of a contact opens
+// per kelvin of uniform temperature change,
+// −α_ball r + α_moving n·c − α_base n·(root − BaseRef) − α_seat n·(p − root),
+// for the ball of expansion coefficient ballAlpha, radius r and centre c,
+// the contact point p and normal n, and the seat of expansion coefficient
+// seatAlpha and reference point root (all in the global frame): the ball
+// grows into the seat, the moving body carries the ball centre with it,
+// the base carries the seat's root about BaseRef, and the seat's own
+// material carries the contact point about its root. It is the one
+// definition of the thermal gap: [Assembly.Drift] and the scorecard call
+// it.
+func thermalGap(th *Thermal, ballAlpha, r, seatAlpha float64, c, p, n, root r3.Vec) float64 {
+	return -ballAlpha*r + th.Moving*r3.Dot(n, c) -
+		th.Base*r3.Dot(n, r3.Sub(root, th.BaseRef)) - seatAlpha*r3.Dot(n, r3.Sub(p, root))
+}
+
 // thermalCentre returns the point q, in the plane through cen normal to
 // up, at which the lateral part of the displacement field
 // v(q) = x(q) + am·q vanishes (x the body's small displacement twist, V at
@@ -139,7 +152,7 @@ func thermalCentre(x screw.Twist, am float64, cen, up, p r3.Vec) (centre r3.Vec,
 	if !ok {
 		return r3.Vec{}, false, 0
 	}
-	e1 := anyNormal(upv)
+	e1 := linalg.AnyNormal(upv)
 	e2 := r3.Cross(upv, e1)
 	vel := func(q r3.Vec) r3.Vec { return r3.Add(x.At(q), r3.Scale(am, q)) }
 	v0 := vel(cen)

@@ -215,7 +215,7 @@ func normalise(ws, pre []Wrench, a []float64, exps []int, gain []float64) (frame
 		// times |F| (used is the RMS of their ratios), so the squares
 		// neither overflow nor underflow.
 		norm := math.Sqrt(dot6(col, col))
-		if math.IsInf(norm, 0) || math.IsNaN(norm) {
+		if !linalg.Finite(norm) {
 			return frame{}, &Error{Index: i, Err: fmt.Errorf("%w: cannot normalise the wrench", errs.ErrRange)}
 		}
 		r := 1 / norm

@@ -206,9 +206,3 @@ func Norm3(v r3.Vec) float64 {
 	}
 	return math.Hypot(v.X, math.Hypot(v.Y, v.Z))
 }
-
-// Finite3 reports whether every component of v is finite (not NaN or ±Inf).
-func Finite3(v r3.Vec) bool {
-	// x − x is 0 for finite x and NaN for NaN or ±Inf.
-	return v.X-v.X == 0 && v.Y-v.Y == 0 && v.Z-v.Z == 0
-}

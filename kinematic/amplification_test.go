@@ -4,7 +4,6 @@ import (
 	"math"
 	"testing"
 
-	"gonum.org/v1/gonum/mat"
 	"gonum.org/v1/gonum/spatial/r3"
 )
 
@@ -101,65 +100,5 @@ func TestErrorAtEquilateral(t *testing.T) {
 		if math.Abs(a-b) > 1e-12*a {
 			t.Errorf("contacts %d and %d: |Tᵢ(p)| %g and %g; want equal by symmetry", i, i+2, a, b)
 		}
-	}
-}
-
-// TestRepeatability checks the friction estimate against a brute-force
-// search: for each contact, the friction force μN in 3600 directions of
-// its tangent plane, applied at the contact, solved against the stiffness
-// matrix with gonum's LU (an independent route from Compliance and the
-// closed-form largest singular value), gives the largest displacement of
-// the point; and the estimate is linear in μ.
-func TestRepeatability(t *testing.T) {
-	m, cs := equilateralModel(t, math.Pi/4, 60, 0, 0)
-	lc := LoadCase{Preload: 1}
-	p := r3.Vec{X: 0.01, Z: 0.04}
-	r, err := m.Repeatability(lc, 0.15, p)
-	if err != nil {
-		t.Fatal(err)
-	}
-	st, err := m.Stiffness(lc, &StiffnessOptions{Tangential: true})
-	if err != nil {
-		t.Fatal(err)
-	}
-	K := st.Matrix(p)
-	km := mat.NewDense(6, 6, nil)
-	for i := range 6 {
-		for j := range 6 {
-			km.Set(i, j, K[i][j])
-		}
-	}
-	var lu mat.LU
-	lu.Factorize(km)
-	for i, c := range cs {
-		q := 0.15 * st.Forces[i]
-		t1 := anyNormal(c.Normal)
-		t2 := r3.Cross(c.Normal, t1)
-		var best float64
-		for k := 0; k < 3600; k++ {
-			s, co := math.Sincos(2 * math.Pi * float64(k) / 3600)
-			f := r3.Scale(q, r3.Add(r3.Scale(co, t1), r3.Scale(s, t2)))
-			mo := r3.Cross(r3.Sub(c.Point, p), f)
-			b := mat.NewVecDense(6, []float64{f.X, f.Y, f.Z, mo.X, mo.Y, mo.Z})
-			var x mat.VecDense
-			if err := lu.SolveVecTo(&x, false, b); err != nil {
-				t.Fatal(err)
-			}
-			best = math.Max(best, math.Sqrt(x.AtVec(0)*x.AtVec(0)+x.AtVec(1)*x.AtVec(1)+x.AtVec(2)*x.AtVec(2)))
-		}
-		// The grid misses the optimum by at most a relative (π/3600)²/2.
-		if got := r.Contacts[i].Displacement; got < best*(1-1e-9) || got > best*(1+1e-6) {
-			t.Errorf("%s: %g m, brute force %g m", c.Label, got, best)
-		}
-	}
-	r2, err := m.Repeatability(lc, 0.3, p)
-	if err != nil {
-		t.Fatal(err)
-	}
-	if math.Abs(r2.RSS-2*r.RSS) > 1e-12*r.RSS || math.Abs(r2.Worst-2*r.Worst) > 1e-12*r.Worst {
-		t.Errorf("μ ×2: RSS %g → %g, worst %g → %g", r.RSS, r2.RSS, r.Worst, r2.Worst)
-	}
-	if _, err := m.Repeatability(lc, 0, p); err == nil {
-		t.Error("μ = 0 accepted")
 	}
 }

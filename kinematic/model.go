@@ -97,7 +97,7 @@ type Model struct {
 	freed  [6]screw.Twist // when exact: power δᵢⱼ with contact j, about origin
 	size   float64        // RMS distance of the contacts from origin, m
 
-	surf []surface
+	surf []contactLaw
 
 	preloads []preloadLine
 	preload  screw.Wrench // the preload elements at factor 1, about origin
@@ -105,8 +105,9 @@ type Model struct {
 	payload Payload // Centre about origin
 }
 
-// surface is the Hertz description of one contact.
-type surface struct {
+// contactLaw is the Hertz description of one contact: its force–approach
+// law, its allowable and its prepared pair of bodies.
+type contactLaw struct {
 	pair  hertz.Pair // the two bodies, prepared
 	err   error      // why the contact has no Hertz model, in the caller's terms
 	allow float64    // the allowable peak pressure, Pa; 0 when none is on file
@@ -149,9 +150,9 @@ func NewModel(cs []Contact, preloads []Preload, payload Payload) (*Model, error)
 	if len(cs) == 6 && an.Rank == 6 {
 		m.exact = freedOf(m.lines, &m.freed)
 	}
-	m.surf = make([]surface, len(cs))
+	m.surf = make([]contactLaw, len(cs))
 	for i := range cs {
-		m.surf[i] = newSurface(&cs[i], i)
+		m.surf[i] = newContactLaw(&cs[i], i)
 	}
 	if err := m.setPreloads(preloads); err != nil {
 		return nil, err
@@ -170,8 +171,34 @@ func NewModel(cs []Contact, preloads []Preload, payload Payload) (*Model, error)
 // load in the range the package is valid for.
 const refDepth = 1e-6
 
-func newSurface(c *Contact, i int) surface {
-	var s surface
+// hertzForce returns the force, N, of a contact of Hertz constant k at
+// the approach d ≥ 0: F = k d^(3/2).
+func hertzForce(k, d float64) float64 {
+	return k * d * math.Sqrt(d)
+}
+
+// hertzApproach returns the approach, m, of a contact of Hertz constant k
+// under the force f ≥ 0: δ = (f/k)^(2/3).
+func hertzApproach(k, f float64) float64 {
+	d := math.Cbrt(f / k)
+	return d * d
+}
+
+// normalStiffness returns a contact's normal stiffness dF/dδ in N/m at the
+// force f ≥ 0 for the Hertz law F = k δ^(3/2): δ = (F/k)^(2/3), so
+// dF/dδ = (3/2) k δ^(1/2) = 3F/(2δ) = (3/2) k^(2/3) F^(1/3) (the law is
+// Hertz's: Johnson, Contact Mechanics, 1985, §4.2, eqs. 4.22–4.23,
+// a³ = 3FR/(4E*) and δ = a²/R), written without the quotient F/δ, which
+// underflows for tiny forces. [Model.Stiffness] and the scorecard both
+// call it.
+func normalStiffness(k, f float64) float64 {
+	return 1.5 * math.Cbrt(k*k*f)
+}
+
+// newContactLaw returns the Hertz law of contact c (index i), or one
+// whose err says, in the caller's field paths, why it has none.
+func newContactLaw(c *Contact, i int) contactLaw {
+	var s contactLaw
 	moving, base := indexed("cs", i)+".Moving", indexed("cs", i)+".Base"
 	if c.Moving == (hertz.Body{}) || c.Base == (hertz.Body{}) {
 		s.err = &InputError{Field: moving + ", " + base, Err: fmt.Errorf(
@@ -222,13 +249,13 @@ func (m *Model) setPreloads(ps []Preload) error {
 		if !linalg.Finite3(p.Couple) {
 			return &InputError{Field: f + ".Couple", Err: fmt.Errorf("%w: %v", ErrNonFinite, p.Couple)}
 		}
-		if math.IsNaN(p.Force) || math.IsInf(p.Force, 0) {
+		if !linalg.Finite(p.Force) {
 			return &InputError{Field: f + ".Force", Err: fmt.Errorf("%w: %g", ErrNonFinite, p.Force)}
 		}
 		if p.Force < 0 {
 			return &InputError{Field: f + ".Force", Err: fmt.Errorf("%w: must be ≥ 0 (Direction gives the sense), got %g", ErrRange, p.Force)}
 		}
-		if math.IsNaN(p.Rate) || math.IsInf(p.Rate, 0) {
+		if !linalg.Finite(p.Rate) {
 			return &InputError{Field: f + ".Rate", Err: fmt.Errorf("%w: %g", ErrNonFinite, p.Rate)}
 		}
 		pl := preloadLine{name: p.Name, p: r3.Sub(p.Point, m.origin), rate: p.Rate}
@@ -253,7 +280,7 @@ func (m *Model) setPreloads(ps []Preload) error {
 const symTol = 1e-9
 
 func checkPayload(p Payload) error {
-	if math.IsNaN(p.Mass) || math.IsInf(p.Mass, 0) {
+	if !linalg.Finite(p.Mass) {
 		return &InputError{Field: "payload.Mass", Err: fmt.Errorf("%w: %g", ErrNonFinite, p.Mass)}
 	}
 	if p.Mass < 0 {
@@ -266,7 +293,7 @@ func checkPayload(p Payload) error {
 	var big float64
 	for r := range 3 {
 		for c := range 3 {
-			if math.IsNaN(j[r][c]) || math.IsInf(j[r][c], 0) {
+			if !linalg.Finite(j[r][c]) {
 				return &InputError{Field: fmt.Sprintf("payload.Inertia[%d][%d]", r, c), Err: fmt.Errorf("%w: %g", ErrNonFinite, j[r][c])}
 			}
 			big = math.Max(big, math.Abs(j[r][c]))
@@ -302,7 +329,7 @@ func spd3(j [3][3]float64) bool {
 // wrench returns the total load of the case on the moving body, about
 // the model's origin.
 func (m *Model) wrench(lc *LoadCase) (screw.Wrench, error) {
-	if math.IsNaN(lc.Preload) || math.IsInf(lc.Preload, 0) {
+	if !linalg.Finite(lc.Preload) {
 		return screw.Wrench{}, &InputError{Field: "lc.Preload", Err: fmt.Errorf("%w: %g", ErrNonFinite, lc.Preload)}
 	}
 	if !linalg.Finite3(lc.Gravity) {
@@ -341,307 +368,14 @@ func (m *Model) errNotExact() error {
 // matrix).
 func (m *Model) forces(w screw.Wrench, f *[6]float64) {
 	for i := range f {
-		f[i] = -screw.Power(m.freed[i], w)
+		f[i] = contactForce(m.freed[i], w)
 	}
 }
 
-// ContactLoad is the load at one contact.
-type ContactLoad struct {
-	Label string
-
-	// Force is the normal force in N, compression positive. Under rigid
-	// statics a negative force means the contact would have to pull: it
-	// opens, and the rigid solution does not apply.
-	Force float64
-
-	// Hertz is the Hertz contact at Force, with subsurface stresses; its
-	// zero value when Force ≤ 0.
-	Hertz hertz.Contact
-
-	// Allowable is the allowable peak contact pressure in Pa, the smaller
-	// of the two bodies' Material.Allowable values that are set; 0 means
-	// no allowable on file, and PressureRatio is then 0 too.
-	// PressureRatio is Hertz.PeakPressure / Allowable: above 1 the
-	// contact is overloaded.
-	Allowable     float64
-	PressureRatio float64
-}
-
-// Statics is the rigid-statics solution of one load case.
-type Statics struct {
-	Case     string
-	Contacts [6]ContactLoad
-
-	// Tensile lists the labels of contacts whose force would be tensile:
-	// those contacts open, and the rigid solution does not hold (see
-	// [Model.Equilibrium]). Nil when every contact is in compression.
-	Tensile []string
-
-	// Load is the total load of the case on the moving body, about the
-	// origin.
-	Load screw.Wrench
-}
-
-// Statics returns the contact forces that balance the load case on an
-// exactly constrained set, and at every compressed contact its Hertz
-// contact with stresses against the allowable.
-//
-// Statics returns an [*InputError] wrapping [ErrNotExact] if the model is
-// not exactly constrained, one naming the load case's field ("lc.Gravity")
-// for bad numbers, and, for a compressed contact without a Hertz model
-// (see [NewModel]), the error that names it.
-func (m *Model) Statics(lc LoadCase) (Statics, error) {
-	if !m.exact {
-		return Statics{}, m.errNotExact()
-	}
-	w, err := m.wrench(&lc)
-	if err != nil {
-		return Statics{}, err
-	}
-	var f [6]float64
-	m.forces(w, &f)
-	s := Statics{Case: lc.Name, Load: w.About(r3.Scale(-1, m.origin))}
-	for i := range s.Contacts {
-		cl := &s.Contacts[i]
-		cl.Label, cl.Force = labelOf(m.lines[i].label, i), f[i]
-		if f[i] < 0 {
-			s.Tensile = append(s.Tensile, labelOf(m.lines[i].label, i))
-			continue
-		}
-		if err := m.hertzAt(i, f[i], cl); err != nil {
-			return Statics{}, err
-		}
-	}
-	return s, nil
-}
-
-// hertzAt fills cl's Hertz contact and pressure ratio at the force f ≥ 0.
-func (m *Model) hertzAt(i int, f float64, cl *ContactLoad) error {
-	s := &m.surf[i]
-	if s.err != nil {
-		return s.err
-	}
-	h, err := s.pair.Solve(f)
-	if err != nil {
-		return fromHertz(err, indexed("cs", i)+".Moving", indexed("cs", i)+".Base", map[string]string{"load": indexed("cs", i) + " force"})
-	}
-	cl.Hertz, cl.Allowable = h, s.allow
-	if s.allow > 0 {
-		cl.PressureRatio = h.PeakPressure / s.allow
-	}
-	return nil
-}
-
-// unloadTol is the relative margin within which contacts tie as the first
-// to unload: forces and gains are good to about 1e-14 relative, and
-// symmetric designs have exact ties that rounding would order at random.
-const unloadTol = 1e-9
-
-// Shock is the worst case of an acceleration of given magnitude in any
-// direction, added to a base load case.
-type Shock struct {
-	Magnitude float64 // the acceleration magnitude studied, m/s²
-	Contacts  [6]ShockContact
-
-	// Unload is the smallest acceleration magnitude, in m/s², in the
-	// worst direction, at which a contact unloads: the shock level the
-	// coupling survives with every contact closed. +Inf if none can
-	// unload (a massless payload), 0 if a contact is already open in
-	// the base case.
-	Unload float64
-
-	// First lists the contacts that unload first (several when they tie
-	// within 1e-9), and Direction the acceleration of the base that
-	// unloads First[0] soonest (unit).
-	First     []string
-	Direction r3.Vec
-}
-
-// ShockContact is one contact under the worst shock.
-type ShockContact struct {
-	Label string
-	Base  float64 // N, the force in the base case
-	Gain  float64 // N per m/s²: the largest change of force per unit acceleration, in any direction
-	Worst r3.Vec  // unit direction of the base's acceleration that unloads this contact soonest
-	Least float64 // N, the smallest force at Magnitude in any direction: Base − Magnitude·Gain
-	// Unload is the acceleration magnitude in m/s² along Worst at which
-	// the contact unloads, Base/Gain (+Inf when Gain is 0; 0 when Base ≤ 0).
-	Unload float64
-}
-
-// Shock returns, for an acceleration of the base of the given magnitude in
-// m/s² in any direction added to the load case base (usually preload and
-// gravity), the smallest force at every contact, the direction that
-// produces it, and the acceleration at which the first contact unloads.
-//
-// The contact forces are linear in the acceleration: with the payload's
-// inertial load −m·a at its centre c, contact i carries
-// fᵢ = f₀ᵢ + m a (Tᵢ(c)·u) for a unit direction u, where Tᵢ(c) is the
-// velocity of c under the twist of power δᵢⱼ with contact j; so the worst
-// direction is u = −Tᵢ(c)/|Tᵢ(c)| and the least force f₀ᵢ − m a |Tᵢ(c)|, in
-// closed form. Rotational accelerations are not modelled.
-//
-// Shock returns the errors of [Model.Statics] (without the Hertz ones),
-// and an [*InputError] naming "magnitude" when it is negative or not
-// finite, "payload.Mass" when the payload is massless.
-func (m *Model) Shock(base LoadCase, magnitude float64) (Shock, error) {
-	if !m.exact {
-		return Shock{}, m.errNotExact()
-	}
-	if math.IsNaN(magnitude) || math.IsInf(magnitude, 0) {
-		return Shock{}, &InputError{Field: "magnitude", Err: fmt.Errorf("%w: %g", ErrNonFinite, magnitude)}
-	}
-	if magnitude < 0 {
-		return Shock{}, &InputError{Field: "magnitude", Err: fmt.Errorf("%w: must be ≥ 0, got %g", ErrRange, magnitude)}
-	}
-	if !(m.payload.Mass > 0) {
-		return Shock{}, &InputError{Field: "payload.Mass", Err: fmt.Errorf("%w: a shock needs a payload with mass", ErrDegenerate)}
-	}
-	w, err := m.wrench(&base)
-	if err != nil {
-		return Shock{}, err
-	}
-	var f [6]float64
-	m.forces(w, &f)
-	s := Shock{Magnitude: magnitude, Unload: math.Inf(1)}
-	for i := range s.Contacts {
-		g := r3.Scale(m.payload.Mass, m.freed[i].At(m.payload.Centre))
-		sc := &s.Contacts[i]
-		sc.Label, sc.Base, sc.Gain = labelOf(m.lines[i].label, i), f[i], linalg.Norm3(g)
-		if sc.Gain > 0 {
-			sc.Worst = r3.Scale(-1/sc.Gain, g)
-		}
-		sc.Least = f[i] - magnitude*sc.Gain
-		switch {
-		case f[i] <= 0:
-			sc.Unload = 0
-		case sc.Gain == 0:
-			sc.Unload = math.Inf(1)
-		default:
-			sc.Unload = f[i] / sc.Gain
-		}
-		s.Unload = math.Min(s.Unload, sc.Unload)
-	}
-	for _, sc := range s.Contacts {
-		if sc.Unload <= s.Unload*(1+unloadTol) && !math.IsInf(sc.Unload, 1) {
-			if s.First == nil {
-				s.Direction = sc.Worst
-			}
-			s.First = append(s.First, sc.Label)
-		}
-	}
-	return s, nil
-}
-
-// Limit is how far one load can grow before a contact unloads.
-type Limit struct {
-	// Scale is the largest factor on the load for which every contact
-	// stays closed: +Inf if no contact ever unloads, 0 if one is already
-	// open in the base case.
-	Scale float64
-
-	// First lists the contacts that unload at Scale (several when they
-	// tie within 1e-9).
-	First []string
-}
-
-// WrenchLimit returns how large a multiple of the wrench w (N and N·m
-// about the origin, on the moving body) can be added to the load case base
-// before a contact unloads. The contact forces are fᵢ = f₀ᵢ − s·Power(Tᵢ, w)
-// for the scale s, so contact i unloads at s = f₀ᵢ/Power(Tᵢ, w) when that
-// power is positive. Errors are those of [Model.Shock] and an
-// [*InputError] naming "w" when it is not finite.
-func (m *Model) WrenchLimit(base LoadCase, w screw.Wrench) (Limit, error) {
-	if !m.exact {
-		return Limit{}, m.errNotExact()
-	}
-	if !linalg.Finite3(w.F) || !linalg.Finite3(w.M) {
-		return Limit{}, &InputError{Field: "w", Err: fmt.Errorf("%w: %+v", ErrNonFinite, w)}
-	}
-	b, err := m.wrench(&base)
-	if err != nil {
-		return Limit{}, err
-	}
-	var f [6]float64
-	m.forces(b, &f)
-	wl := w.About(m.origin)
-	var rate [6]float64
-	for i := range rate {
-		rate[i] = screw.Power(m.freed[i], wl)
-	}
-	return m.limit(&f, &rate), nil
-}
-
-// limit returns the scale s at which the first force f[i] − s·rate[i]
-// reaches zero, and which contacts do.
-func (m *Model) limit(f, rate *[6]float64) Limit {
-	var at [6]float64
-	l := Limit{Scale: math.Inf(1)}
-	for i := range f {
-		switch {
-		case f[i] <= 0:
-			at[i] = 0
-		case rate[i] > 0:
-			at[i] = f[i] / rate[i]
-		default:
-			at[i] = math.Inf(1)
-		}
-		l.Scale = math.Min(l.Scale, at[i])
-	}
-	if !math.IsInf(l.Scale, 1) {
-		for i, a := range at {
-			if a <= l.Scale*(1+unloadTol) {
-				l.First = append(l.First, labelOf(m.lines[i].label, i))
-			}
-		}
-	}
-	return l
-}
-
-// LiftOff is the largest force that can be applied at one point before a
-// contact unloads.
-type LiftOff struct {
-	Point   r3.Vec  // m, where the force is applied
-	Force   float64 // N; +Inf if no contact ever unloads, 0 if one is open in the base case
-	Contact string  // the label of the contact that unloads first ("" when Force is +Inf)
-}
-
-// LiftOff returns, for a force of the given direction applied in turn at
-// each of the points (on the moving body: where a probe, a tool or a hand
-// presses), the largest force before the first contact unloads, added to
-// the load case base; a map a drawing can colour. Errors are those of
-// [Model.WrenchLimit], and an [*InputError] naming "dir" for a zero or
-// non-finite direction and "points[i]" for a point that is not finite.
-func (m *Model) LiftOff(base LoadCase, dir r3.Vec, points []r3.Vec) ([]LiftOff, error) {
-	if !m.exact {
-		return nil, m.errNotExact()
-	}
-	d, err := unitOf(dir, "dir")
-	if err != nil {
-		return nil, err
-	}
-	b, err := m.wrench(&base)
-	if err != nil {
-		return nil, err
-	}
-	var f [6]float64
-	m.forces(b, &f)
-	out := make([]LiftOff, len(points))
-	for k, q := range points {
-		if !linalg.Finite3(q) {
-			return nil, &InputError{Field: indexed("points", k), Err: fmt.Errorf("%w: %v", ErrNonFinite, q)}
-		}
-		ql := r3.Sub(q, m.origin)
-		var rate [6]float64
-		for i := range rate {
-			// Power of the unit force (d, q × d) on twist i: Tᵢ(q)·d.
-			rate[i] = r3.Dot(m.freed[i].At(ql), d)
-		}
-		l := m.limit(&f, &rate)
-		out[k] = LiftOff{Point: q, Force: l.Scale}
-		if len(l.First) > 0 {
-			out[k].Contact = l.First[0]
-		}
-	}
-	return out, nil
+// contactForce returns the rigid-statics force, N, at the contact whose
+// freed twist (power δᵢⱼ with contact j) is t, under the load w on the
+// moving body about the twist's origin: −Power(t, w), from Σ fᵢ lᵢ + w = 0.
+// Model's statics and the scorecard both call it.
+func contactForce(t screw.Twist, w screw.Wrench) float64 {
+	return -screw.Power(t, w)
 }

@@ -161,21 +161,28 @@ const (
 // scorer evaluates the figures of a layout quickly: what does not change
 // as the grooves turn and the balls move (Hertz constants, allowables,
 // seat ideals, expansion data) is held, and the contact lines are set by
-// the caller (the optimiser) or by newScorer.
+// the caller (the optimiser) or by newScorer. Every figure comes from the
+// kernel the public API uses: maxwell (Stability), pointError and
+// alongAxis (Stability.ErrorAt), contactForce (Model's statics),
+// normalStiffness and stiffnessOf (Model.Stiffness), thermalGap and
+// thermalCentre (Assembly.Drift).
 type scorer struct {
-	s      Scenario
-	lines  [6]line // about origin
-	ideal  [6]float64
-	k      [6]float64 // Hertz F = k δ^(3/2); 0 when the contact has no model
-	kerr   error      // why a contact has no Hertz model
-	fall   [6]float64 // force at the allowable peak pressure, N; 0 when none on file
-	root   [6]r3.Vec  // each contact's seat root, about origin
-	alpha  [6]float64 // the seat's α, per contact
-	balpha [6]float64 // the ball's α, per contact
-	origin r3.Vec
-	pre    screw.Wrench // the preload elements at factor 1, about origin
-	pay    Payload      // Centre about origin
-	L      float64
+	s        Scenario
+	lines    [6]line // about origin
+	ideal    [6]float64
+	k        [6]float64 // Hertz F = k δ^(3/2); 0 when the contact has no model
+	kerr     error      // why a contact has no Hertz model
+	fall     [6]float64 // force at the allowable peak pressure, N; 0 when none on file
+	root     [6]r3.Vec  // each contact's seat root, about origin
+	alpha    [6]float64 // the seat's α, per contact
+	balpha   [6]float64 // the ball's α, per contact
+	radius   [6]float64 // the ball's radius, per contact
+	wcen     [6]float64 // the contact's weight in the centroid of the ball centres
+	origin   r3.Vec
+	pre      screw.Wrench  // the preload elements at factor 1, about origin
+	preloads []preloadLine // the preload elements, for their rates
+	pay      Payload       // Centre about origin
+	L        float64
 }
 
 // newScorer prepares the scorer of a coupling: its contacts, their Hertz
@@ -193,26 +200,10 @@ func newScorer(c Coupling, s Scenario) (*scorer, error) {
 		an, _ := Analyze(cs)
 		return nil, &InputError{Field: "Pairs", Err: fmt.Errorf("%w: a scorecard needs six independent contacts, the coupling has %d of rank %d", ErrNotExact, len(cs), an.Rank)}
 	}
-	for _, f := range []struct {
-		name string
-		v    r3.Vec
-	}{{"s.Point", s.Point}, {"s.Axis", s.Axis}, {"s.Gravity", s.Gravity}, {"s.Thermal.BaseRef", s.Thermal.BaseRef}} {
-		if !linalg.Finite3(f.v) {
-			return nil, &InputError{Field: f.name, Err: fmt.Errorf("%w: %v", ErrNonFinite, f.v)}
-		}
+	if err := checkScenario(&s); err != nil {
+		return nil, err
 	}
-	for _, f := range []struct {
-		name string
-		v    float64
-	}{{"s.Shock", s.Shock}, {"s.MinForce", s.MinForce}, {"s.Thermal.Moving", s.Thermal.Moving}, {"s.Thermal.Base", s.Thermal.Base}} {
-		if math.IsNaN(f.v) || math.IsInf(f.v, 0) {
-			return nil, &InputError{Field: f.name, Err: fmt.Errorf("%w: %g", ErrNonFinite, f.v)}
-		}
-		if f.v < 0 && (f.name == "s.Shock" || f.name == "s.MinForce") {
-			return nil, &InputError{Field: f.name, Err: fmt.Errorf("%w: must be ≥ 0, got %g", ErrRange, f.v)}
-		}
-	}
-	sc := &scorer{s: s, origin: m.origin, pre: m.preload, pay: m.payload, L: m.size}
+	sc := &scorer{s: s, origin: m.origin, pre: m.preload, preloads: m.preloads, pay: m.payload, L: m.size}
 	copy(sc.lines[:], m.lines)
 	for i := range cs {
 		sf := &m.surf[i]
@@ -235,44 +226,41 @@ func newScorer(c Coupling, s Scenario) (*scorer, error) {
 	for _, p := range c.Pairs {
 		n := p.Seat.count()
 		_, _, root, alpha := p.Seat.surfaces(p.Ball, cs[k:k+n])
-		ideal := seatIdeal(p.Seat, cs[k:k+n])
+		p.Seat.ideals(cs[k:k+n], sc.ideal[k:k+n])
 		for j := 0; j < n; j++ {
-			sc.ideal[k+j] = ideal[j]
 			sc.root[k+j] = r3.Sub(root, m.origin)
 			sc.alpha[k+j] = alpha
 			sc.balpha[k+j] = p.Ball.Material.Alpha
+			sc.radius[k+j] = p.Ball.Radius
+			sc.wcen[k+j] = 1 / float64(n*len(c.Pairs))
 		}
 		k += n
 	}
 	return sc, nil
 }
 
-// seatIdeal returns, for each contact of a seat, the best centre index a
-// layout can give it: |sin 2θ| in a groove of half-angle θ (the best
-// freed motion of the ball centre lies in the plane normal to the groove,
-// normal to the other flank's normal, and the two normals make the angle
-// π − 2θ), 1 on a flat, and for a socket's contact the index
-// of the one motion its other two contacts leave the ball's centre: along
-// their normals' cross product.
-func seatIdeal(seat Seat, cs []Contact) []float64 {
-	out := make([]float64, len(cs))
-	switch s := seat.(type) {
-	case grooveSeat:
-		v := math.Abs(math.Sin(2 * s.halfAngle()))
-		for i := range out {
-			out[i] = v
-		}
-	case Trihedral, Cone:
-		for i := range out {
-			d := r3.Cross(cs[(i+1)%3].Normal, cs[(i+2)%3].Normal)
-			out[i] = math.Abs(r3.Dot(cs[i].Normal, d)) / linalg.Norm3(d)
-		}
-	default:
-		for i := range out {
-			out[i] = 1
+// checkScenario validates the fields of a scenario that NewModel does not.
+func checkScenario(s *Scenario) error {
+	for _, f := range []struct {
+		name string
+		v    r3.Vec
+	}{{"s.Point", s.Point}, {"s.Axis", s.Axis}, {"s.Gravity", s.Gravity}, {"s.Thermal.BaseRef", s.Thermal.BaseRef}} {
+		if !linalg.Finite3(f.v) {
+			return &InputError{Field: f.name, Err: fmt.Errorf("%w: %v", ErrNonFinite, f.v)}
 		}
 	}
-	return out
+	for _, f := range []struct {
+		name string
+		v    float64
+	}{{"s.Shock", s.Shock}, {"s.MinForce", s.MinForce}, {"s.Thermal.Moving", s.Thermal.Moving}, {"s.Thermal.Base", s.Thermal.Base}} {
+		if !linalg.Finite(f.v) {
+			return &InputError{Field: f.name, Err: fmt.Errorf("%w: %g", ErrNonFinite, f.v)}
+		}
+		if f.v < 0 && (f.name == "s.Shock" || f.name == "s.MinForce") {
+			return &InputError{Field: f.name, Err: fmt.Errorf("%w: must be ≥ 0, got %g", ErrRange, f.v)}
+		}
+	}
+	return nil
 }
 
 // score fills the figures selected by need for the scorer's current
@@ -283,147 +271,163 @@ func (sc *scorer) score(card *Scorecard, need figures) error {
 		return &InputError{Field: "Pairs", Err: fmt.Errorf("%w: the six contacts are singular to working precision", ErrNotExact)}
 	}
 	if need&figMaxwell != 0 {
-		card.WeakestIndex, card.WeakestCentreIndex, card.MaxwellRatio = 1, 1, math.Inf(1)
-		for i, t := range ts {
-			l := &sc.lines[i]
-			v := t.At(l.p)
-			s := r3.Dot(l.n, v)
-			idx := math.Abs(s) / linalg.Norm3(v)
-			vc := v
-			if l.ball {
-				vc = t.At(l.centre)
-			}
-			ci := math.Abs(s) / linalg.Norm3(vc)
-			card.WeakestIndex = math.Min(card.WeakestIndex, idx)
-			if ci <= card.WeakestCentreIndex {
-				card.WeakestCentreIndex = ci
-				// The angle from its sine and cosine: accurate near 0,
-				// where acos of the index is not.
-				card.WeakestAngle = math.Atan2(linalg.Norm3(r3.Cross(l.n, vc)), math.Abs(r3.Dot(l.n, vc)))
-			}
-			if sc.ideal[i] > 0 {
-				card.MaxwellRatio = math.Min(card.MaxwellRatio, ci/sc.ideal[i])
-			}
-		}
+		sc.maxwell(card, &ts)
 	}
 	if need&figSingular != 0 {
-		var ws [6]constraint.Wrench
-		for i, l := range sc.lines {
-			ws[i] = constraint.Wrench{F: l.n, M: r3.Cross(l.p, l.n)}
+		if err := sc.singular(card); err != nil {
+			return err
 		}
-		var r constraint.Result
-		if err := constraint.Analyze(ws[:], &r); err != nil {
-			return &InputError{Field: "Pairs", Err: err}
-		}
-		card.MinSingular, card.Condition = r.Singular[r.K-1], r.Condition
-		card.Poor = r.Condition > DesignCondition
 	}
 	p := r3.Sub(sc.s.Point, sc.origin)
 	if need&figError != 0 {
-		var d, w [6]r3.Vec
-		var rss, rssw float64
-		for i, t := range ts {
-			d[i], w[i] = t.At(p), t.W
-			rss += r3.Norm2(d[i])
-			rssw += r3.Norm2(w[i])
-		}
-		card.Amplification, card.AmplificationRSS = zonotopeNorm(&d), math.Sqrt(rss)
-		card.Tilt, card.TiltRSS = zonotopeNorm(&w), math.Sqrt(rssw)
-		if u, ok := linalg.Unit3(sc.s.Axis); ok {
-			card.AxisAmplification = 0
-			for i := range d {
-				card.AxisAmplification += math.Abs(r3.Dot(u, d[i]))
-			}
-		}
+		sc.pointError(card, &ts, p)
 	}
 	var f0 [6]float64
 	if need&(figLoads|figStiffness|figModes) != 0 {
-		grav := r3.Scale(sc.pay.Mass, sc.s.Gravity)
-		gw := screw.Wrench{F: grav, M: r3.Cross(sc.pay.Centre, grav)}
-		var gain [6]float64
-		card.ShockLevel, card.LoadAmplification = math.Inf(1), 0
-		card.PreloadMin, card.PreloadMax, card.PressureRatio = 0, math.Inf(1), 0
-		for i, t := range ts {
-			a := -screw.Power(t, sc.pre)
-			e := -screw.Power(t, gw)
-			f0[i] = a + e
-			tc := linalg.Norm3(t.At(sc.pay.Centre))
-			gain[i] = sc.pay.Mass * tc
-			if sc.pay.Mass > 0 {
-				card.LoadAmplification = math.Max(card.LoadAmplification, tc)
-			}
-			switch {
-			case f0[i] <= 0:
-				card.ShockLevel = 0
-			case gain[i] > 0:
-				card.ShockLevel = math.Min(card.ShockLevel, f0[i]/gain[i])
-			}
-			need := sc.s.MinForce - e + sc.s.Shock*gain[i]
-			switch {
-			case a > 0:
-				card.PreloadMin = math.Max(card.PreloadMin, need/a)
-				if sc.fall[i] > 0 {
-					card.PreloadMax = math.Min(card.PreloadMax, (sc.fall[i]-e-sc.s.Shock*gain[i])/a)
-				}
-			case need > 0:
-				card.PreloadMin = math.Inf(1)
-			}
-			if sc.fall[i] > 0 && f0[i] > 0 {
-				card.PressureRatio = math.Max(card.PressureRatio, math.Cbrt(f0[i]/sc.fall[i]))
-			}
-		}
+		sc.loads(card, &ts, &f0)
 	}
-	// The stiffness needs every contact loaded (Hertz stiffness at zero
-	// force is zero) and a Hertz model at every contact; without them the
-	// figures stay zero.
-	loaded := sc.kerr == nil
-	for i := range f0 {
-		loaded = loaded && f0[i] > 0
-	}
-	if need&(figStiffness|figModes) != 0 && loaded {
-		st := Stiffness{origin: sc.origin, L: sc.L, payload: sc.pay}
-		for i, l := range sc.lines {
-			// dF/dδ = (3/2) k^(2/3) F^(1/3) for F = k δ^(3/2).
-			kn := 1.5 * math.Cbrt(sc.k[i]*sc.k[i]*f0[i])
-			g := scaledWrench(screw.Wrench{F: l.n, M: r3.Cross(l.p, l.n)}, sc.L)
-			addOuter(&st.k, kn, &g)
-		}
-		if need&figStiffness != 0 {
-			if c, err := st.Compliance(sc.s.Point); err == nil {
-				card.Stiffness = 1 / largestEigen3(&c.Matrix)
-				card.AxisCompliance = c.Along(sc.s.Axis)
-			}
-		}
-		if need&figModes != 0 && sc.pay.Mass > 0 && sc.pay.Inertia != ([3][3]float64{}) {
-			if modes, err := st.Modes(); err == nil {
-				card.FirstFrequency = modes[0].Frequency
-			}
-		}
+	if need&(figStiffness|figModes) != 0 {
+		sc.stiffness(card, &f0, need)
 	}
 	if need&figDrift != 0 {
-		th := sc.s.Thermal
-		var x screw.Twist
-		for i, t := range ts {
-			l := &sc.lines[i]
-			r := linalg.Norm3(r3.Sub(l.centre, l.p))
-			cg := r3.Add(l.centre, sc.origin)
-			e := -sc.balpha[i]*r + th.Moving*r3.Dot(l.n, cg) -
-				th.Base*r3.Dot(l.n, r3.Sub(r3.Add(sc.root[i], sc.origin), th.BaseRef)) - sc.alpha[i]*r3.Dot(l.n, r3.Sub(l.p, sc.root[i]))
-			x = x.Add(t.Scale(-e))
-		}
-		card.Drift = linalg.Norm3(r3.Add(x.At(p), r3.Scale(th.Moving, sc.s.Point)))
-		var cen r3.Vec
-		var up r3.Vec
-		for _, l := range sc.lines {
-			cen = r3.Add(cen, l.centre)
-			up = r3.Add(up, l.n)
-		}
-		cen = r3.Add(r3.Scale(1.0/6, cen), sc.origin)
-		if _, ok, dist := thermalCentre(global(x, sc.origin), th.Moving, cen, up, sc.s.Point); ok {
-			card.ThermalCentreDistance = dist
-		}
+		sc.drift(card, &ts, p)
 	}
 	return nil
+}
+
+// maxwell fills the Maxwell figures from the freed twists ts.
+func (sc *scorer) maxwell(card *Scorecard, ts *[6]screw.Twist) {
+	card.WeakestIndex, card.WeakestCentreIndex, card.MaxwellRatio = 1, 1, math.Inf(1)
+	for i, t := range ts {
+		l := &sc.lines[i]
+		freed, idx, ci := maxwell(t, l)
+		card.WeakestIndex = math.Min(card.WeakestIndex, idx)
+		if ci <= card.WeakestCentreIndex {
+			card.WeakestCentreIndex = ci
+			vc := freed.At(l.p)
+			if l.ball {
+				vc = freed.At(l.centre)
+			}
+			// The angle from its sine and cosine: accurate near 0,
+			// where acos of the index is not.
+			card.WeakestAngle = math.Atan2(linalg.Norm3(r3.Cross(l.n, vc)), math.Abs(r3.Dot(l.n, vc)))
+		}
+		if sc.ideal[i] > 0 {
+			card.MaxwellRatio = math.Min(card.MaxwellRatio, ci/sc.ideal[i])
+		}
+	}
+}
+
+// singular fills the singular-value figures of the normalised contact
+// matrix.
+func (sc *scorer) singular(card *Scorecard) error {
+	var ws [6]constraint.Wrench
+	for i, l := range sc.lines {
+		ws[i] = constraint.Wrench{F: l.n, M: r3.Cross(l.p, l.n)}
+	}
+	var r constraint.Result
+	if err := constraint.Analyze(ws[:], &r); err != nil {
+		return &InputError{Field: "Pairs", Err: err}
+	}
+	card.MinSingular, card.Condition = r.Singular[r.K-1], r.Condition
+	card.Poor = r.Condition > DesignCondition
+	return nil
+}
+
+// pointError fills the amplification figures at the point p (about
+// origin).
+func (sc *scorer) pointError(card *Scorecard, ts *[6]screw.Twist, p r3.Vec) {
+	var d, w [6]r3.Vec
+	card.Amplification, card.AmplificationRSS, card.Tilt, card.TiltRSS = pointError(ts, p, &d, &w)
+	if u, ok := linalg.Unit3(sc.s.Axis); ok {
+		card.AxisAmplification, _ = alongAxis(&d, u)
+	}
+}
+
+// loads fills the load, shock and preload figures, and sets f0 to the
+// contact forces under the preload and gravity.
+func (sc *scorer) loads(card *Scorecard, ts *[6]screw.Twist, f0 *[6]float64) {
+	grav := r3.Scale(sc.pay.Mass, sc.s.Gravity)
+	gw := screw.Wrench{F: grav, M: r3.Cross(sc.pay.Centre, grav)}
+	card.ShockLevel, card.LoadAmplification = math.Inf(1), 0
+	card.PreloadMin, card.PreloadMax, card.PressureRatio = 0, math.Inf(1), 0
+	for i, t := range ts {
+		a := contactForce(t, sc.pre)
+		e := contactForce(t, gw)
+		f0[i] = a + e
+		tc := linalg.Norm3(t.At(sc.pay.Centre))
+		gain := sc.pay.Mass * tc
+		if sc.pay.Mass > 0 {
+			card.LoadAmplification = math.Max(card.LoadAmplification, tc)
+		}
+		switch {
+		case f0[i] <= 0:
+			card.ShockLevel = 0
+		case gain > 0:
+			card.ShockLevel = math.Min(card.ShockLevel, f0[i]/gain)
+		}
+		need := sc.s.MinForce - e + sc.s.Shock*gain
+		switch {
+		case a > 0:
+			card.PreloadMin = math.Max(card.PreloadMin, need/a)
+			if sc.fall[i] > 0 {
+				card.PreloadMax = math.Min(card.PreloadMax, (sc.fall[i]-e-sc.s.Shock*gain)/a)
+			}
+		case need > 0:
+			card.PreloadMin = math.Inf(1)
+		}
+		if sc.fall[i] > 0 && f0[i] > 0 {
+			card.PressureRatio = math.Max(card.PressureRatio, math.Cbrt(f0[i]/sc.fall[i]))
+		}
+	}
+}
+
+// stiffness fills the stiffness figures selected by need at the contact
+// forces f0. The stiffness needs every contact loaded (Hertz stiffness at
+// zero force is zero) and a Hertz model at every contact; without them
+// the figures stay zero.
+func (sc *scorer) stiffness(card *Scorecard, f0 *[6]float64, need figures) {
+	if sc.kerr != nil {
+		return
+	}
+	var kn [6]float64
+	for i := range f0 {
+		if !(f0[i] > 0) {
+			return
+		}
+		kn[i] = normalStiffness(sc.k[i], f0[i])
+	}
+	st := stiffnessOf(sc.lines[:], kn[:], sc.preloads, sc.origin, sc.L, sc.pay)
+	if need&figStiffness != 0 {
+		if c, err := st.Compliance(sc.s.Point); err == nil {
+			card.Stiffness = 1 / largestEigen3(&c.Matrix)
+			card.AxisCompliance = c.Along(sc.s.Axis)
+		}
+	}
+	if need&figModes != 0 && sc.pay.Mass > 0 && sc.pay.Inertia != ([3][3]float64{}) {
+		if modes, err := st.Modes(); err == nil {
+			card.FirstFrequency = modes[0].Frequency
+		}
+	}
+}
+
+// drift fills the thermal figures at the point p (about origin).
+func (sc *scorer) drift(card *Scorecard, ts *[6]screw.Twist, p r3.Vec) {
+	th := &sc.s.Thermal
+	var x screw.Twist
+	var cen, up r3.Vec
+	for i, t := range ts {
+		l := &sc.lines[i]
+		e := thermalGap(th, sc.balpha[i], sc.radius[i], sc.alpha[i],
+			r3.Add(l.centre, sc.origin), r3.Add(l.p, sc.origin), l.n, r3.Add(sc.root[i], sc.origin))
+		x = x.Add(t.Scale(-e))
+		cen = r3.Add(cen, r3.Scale(sc.wcen[i], l.centre))
+		up = r3.Add(up, l.n)
+	}
+	card.Drift = linalg.Norm3(r3.Add(x.At(p), r3.Scale(th.Moving, sc.s.Point)))
+	if _, ok, dist := thermalCentre(global(x, sc.origin), th.Moving, r3.Add(cen, sc.origin), up, sc.s.Point); ok {
+		card.ThermalCentreDistance = dist
+	}
 }
 
 // largestEigen3 returns the largest eigenvalue of the symmetric positive

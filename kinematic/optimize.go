@@ -373,7 +373,7 @@ func newOptProblem(c Coupling, s Scenario, o *OptimizeOptions) (*optProblem, err
 	if math.IsNaN(o.MinMaxwell) || !(o.MinMaxwell >= 0 && o.MinMaxwell < 1) {
 		return nil, &InputError{Field: "opt.MinMaxwell", Err: fmt.Errorf("%w: must be in [0, 1), got %g", ErrRange, o.MinMaxwell)}
 	}
-	if math.IsNaN(o.MaxPressureRatio) || math.IsInf(o.MaxPressureRatio, 0) || o.MaxPressureRatio < 0 {
+	if !linalg.Finite(o.MaxPressureRatio) || o.MaxPressureRatio < 0 {
 		return nil, &InputError{Field: "opt.MaxPressureRatio", Err: fmt.Errorf("%w: must be finite and ≥ 0, got %g", ErrRange, o.MaxPressureRatio)}
 	}
 	p := &optProblem{c: c, o: *o, sc: sc}
@@ -390,95 +390,122 @@ func newOptProblem(c Coupling, s Scenario, o *OptimizeOptions) (*optProblem, err
 		}
 		op.root0 = sc.root[first]
 		if g, ok := pr.Seat.(grooveSeat); ok {
-			_, dir, _ := g.groove("")
-			rad, err := c.reference(i, up, Radial)
-			if err != nil {
-				return nil, err
-			}
-			op.groove, op.rad, op.grooveIdx = true, rad, ng
-			op.az0 = azimuthFrom(dir, up, rad)
-			op.lo, op.hi = -math.Pi/2, math.Pi/2
 			own = append(own, g.halfAngle())
+			op.grooveIdx = ng
 			ng++
-			if o.Windows != nil {
-				w := o.Windows[i]
-				field := indexed("opt.Windows", i)
-				if math.IsNaN(w.Min) || math.IsNaN(w.Max) || math.IsInf(w.Min, 0) || math.IsInf(w.Max, 0) {
-					return nil, &InputError{Field: field, Err: fmt.Errorf("%w: %+v", ErrNonFinite, w)}
-				}
-				if w.Min > w.Max {
-					return nil, &InputError{Field: field, Err: fmt.Errorf("%w: Min %g > Max %g", ErrRange, w.Min, w.Max)}
-				}
-				x, err := c.reference(i, up, w.From)
-				if err != nil {
-					if ie, ok := err.(*InputError); ok && ie.Field == "ref" {
-						ie.Field = field + ".From"
-					}
-					return nil, err
-				}
-				if w.Max-w.Min < math.Pi {
-					off := math.Atan2(r3.Dot(up, r3.Cross(rad, x)), r3.Dot(rad, x))
-					op.lo, op.hi = w.Min+off, w.Max+off
-				}
-			}
-			op.periodic = op.hi-op.lo >= math.Pi
-			if op.hi > op.lo {
-				op.azVar = p.nvar
-				p.nvar++
+			if err := p.addGroove(&op, i, g); err != nil {
+				return nil, err
 			}
 		}
 		if o.Regions != nil {
-			rg := o.Regions[i]
-			field := indexed("opt.Regions", i)
-			for _, v := range []float64{rg.HalfWidth[0], rg.HalfWidth[1], rg.Radius} {
-				if math.IsNaN(v) || math.IsInf(v, 0) || v < 0 {
-					return nil, &InputError{Field: field, Err: fmt.Errorf("%w: sizes must be finite and ≥ 0, got %+v", ErrRange, rg)}
-				}
-			}
-			if rg.Radius > 0 {
-				op.disc = rg.Radius
-				op.box = [2]float64{rg.Radius, rg.Radius}
-			} else {
-				op.box = rg.HalfWidth
-			}
-			if op.box[0] > 0 || op.box[1] > 0 {
-				op.posVar = p.nvar
-				p.nvar += 2
+			if err := p.addRegion(&op, o.Regions[i], indexed("opt.Regions", i)); err != nil {
+				return nil, err
 			}
 		}
 		p.pairs = append(p.pairs, op)
 		first += op.count
 	}
-	// Half-angle combinations: every choice for every groove, or the
-	// drawn ones.
-	p.combos = [][]float64{own}
-	p.ownCombo = 0
-	if len(o.HalfAngles) > 0 && ng > 0 {
-		p.combos = nil
-		p.ownCombo = -1
-		total := 1
-		for range ng {
-			total *= len(o.HalfAngles)
-			if total > 4096 {
-				return nil, &InputError{Field: "opt.HalfAngles", Err: fmt.Errorf("%w: %d choices for %d grooves is more than 4096 combinations", ErrRange, len(o.HalfAngles), ng)}
-			}
-		}
-		for k := 0; k < total; k++ {
-			combo := make([]float64, ng)
-			r := k
-			same := true
-			for j := range combo {
-				combo[j] = o.HalfAngles[r%len(o.HalfAngles)]
-				r /= len(o.HalfAngles)
-				same = same && combo[j] == own[j]
-			}
-			if same {
-				p.ownCombo = len(p.combos)
-			}
-			p.combos = append(p.combos, combo)
-		}
+	if err := p.setCombos(own, ng); err != nil {
+		return nil, err
 	}
 	return p, nil
+}
+
+// addGroove makes the azimuth of the groove seat g of pair i a variable
+// of op, within its window if the options give one.
+func (p *optProblem) addGroove(op *optPair, i int, g grooveSeat) error {
+	c, o, up := p.c, &p.o, op.up
+	_, dir, _ := g.groove("")
+	rad, err := c.reference(i, up, Radial)
+	if err != nil {
+		return err
+	}
+	op.groove, op.rad = true, rad
+	op.az0 = azimuthFrom(dir, up, rad)
+	op.lo, op.hi = -math.Pi/2, math.Pi/2
+	if o.Windows != nil {
+		w := o.Windows[i]
+		field := indexed("opt.Windows", i)
+		if !linalg.Finite(w.Min) || !linalg.Finite(w.Max) {
+			return &InputError{Field: field, Err: fmt.Errorf("%w: %+v", ErrNonFinite, w)}
+		}
+		if w.Min > w.Max {
+			return &InputError{Field: field, Err: fmt.Errorf("%w: Min %g > Max %g", ErrRange, w.Min, w.Max)}
+		}
+		x, err := c.reference(i, up, w.From)
+		if err != nil {
+			if ie, ok := err.(*InputError); ok && ie.Field == "ref" {
+				ie.Field = field + ".From"
+			}
+			return err
+		}
+		if w.Max-w.Min < math.Pi {
+			off := math.Atan2(r3.Dot(up, r3.Cross(rad, x)), r3.Dot(rad, x))
+			op.lo, op.hi = w.Min+off, w.Max+off
+		}
+	}
+	op.periodic = op.hi-op.lo >= math.Pi
+	if op.hi > op.lo {
+		op.azVar = p.nvar
+		p.nvar++
+	}
+	return nil
+}
+
+// addRegion makes the position of op's ball in its seat plane two
+// variables when the region rg (named field) allows it to move.
+func (p *optProblem) addRegion(op *optPair, rg Region, field string) error {
+	for _, v := range []float64{rg.HalfWidth[0], rg.HalfWidth[1], rg.Radius} {
+		if !linalg.Finite(v) || v < 0 {
+			return &InputError{Field: field, Err: fmt.Errorf("%w: sizes must be finite and ≥ 0, got %+v", ErrRange, rg)}
+		}
+	}
+	if rg.Radius > 0 {
+		op.disc = rg.Radius
+		op.box = [2]float64{rg.Radius, rg.Radius}
+	} else {
+		op.box = rg.HalfWidth
+	}
+	if op.box[0] > 0 || op.box[1] > 0 {
+		op.posVar = p.nvar
+		p.nvar += 2
+	}
+	return nil
+}
+
+// setCombos sets the half-angle combinations: every choice of
+// HalfAngles for each of the ng grooves, or the drawn half-angles own.
+func (p *optProblem) setCombos(own []float64, ng int) error {
+	o := &p.o
+	p.combos = [][]float64{own}
+	p.ownCombo = 0
+	if len(o.HalfAngles) == 0 || ng == 0 {
+		return nil
+	}
+	p.combos = nil
+	p.ownCombo = -1
+	total := 1
+	for range ng {
+		total *= len(o.HalfAngles)
+		if total > 4096 {
+			return &InputError{Field: "opt.HalfAngles", Err: fmt.Errorf("%w: %d choices for %d grooves is more than 4096 combinations", ErrRange, len(o.HalfAngles), ng)}
+		}
+	}
+	for k := 0; k < total; k++ {
+		combo := make([]float64, ng)
+		r := k
+		same := true
+		for j := range combo {
+			combo[j] = o.HalfAngles[r%len(o.HalfAngles)]
+			r /= len(o.HalfAngles)
+			same = same && combo[j] == own[j]
+		}
+		if same {
+			p.ownCombo = len(p.combos)
+		}
+		p.combos = append(p.combos, combo)
+	}
+	return nil
 }
 
 // violation returns the constraints' total violation, dimensionless.
@@ -528,7 +555,7 @@ func (p *optProblem) evaluate(obj Objective, extra *bound, x []float64, k int) (
 			v += (e - extra.limit) / math.Max(math.Abs(extra.limit), 1e-300)
 		}
 	}
-	if math.IsNaN(cst) || math.IsInf(cst, 0) {
+	if !linalg.Finite(cst) {
 		return math.Inf(1), math.Inf(1), false
 	}
 	// An exact penalty: a unit of relative violation costs a thousand
@@ -677,9 +704,9 @@ func (p *optProblem) setLayout(az []float64, offs []r3.Vec, x []float64, k int) 
 			s, co := math.Sincos(h)
 			fl := flankNormals(op.up, turn(op.rad, op.up, az[i]), s, co)
 			ns[0], ns[1] = fl[0], fl[1]
-			ideal := math.Abs(math.Sin(2 * h))
+			ideal := grooveIdeal(h)
 			sc.ideal[op.first], sc.ideal[op.first+1] = ideal, ideal
-			root = r3.Sub(c, r3.Scale(op.radius/s, op.up))
+			root = rootBelow(c, op.up, op.radius, s)
 		}
 		for j := 0; j < op.count; j++ {
 			l := &sc.lines[op.first+j]
