@@ -261,7 +261,9 @@ func Histogram(w io.Writer, res kinematic.StudyResult, opt *Options) error {
 // better: the error at the point of interest (µm/µm), the stiffness
 // there (N/µm), the first natural frequency (Hz), the shock level (g),
 // the thermal drift (µm/K) and the weakest Maxwell index. names[i] names
-// cards[i].
+// cards[i]. Every figure drawn must be finite and greater than zero (a
+// scorecard of a payload without inertia has no frequency): the error
+// names the card's field, for example "cards[1].FirstFrequency".
 func Scorecards(w io.Writer, names []string, cards []kinematic.Scorecard, opt *Options) error {
 	o := opt.orDefault()
 	if len(names) != len(cards) {
@@ -272,19 +274,28 @@ func Scorecards(w io.Writer, names []string, cards []kinematic.Scorecard, opt *O
 		Candidates: append([]string(nil), names...),
 		Notes:      o.notes(),
 	}
-	add := func(name, unit string, lower bool, f func(k *kinematic.Scorecard) float64) {
-		fig := draw.Figure{Name: name, Unit: unit, LowerIsBetter: lower}
+	for _, f := range []struct {
+		name, unit, field string
+		lower             bool
+		value             func(k *kinematic.Scorecard) float64
+	}{
+		{"error at " + o.pointName(), "µm/µm", "Amplification", true, func(k *kinematic.Scorecard) float64 { return k.Amplification }},
+		{"stiffness", "N/µm", "Stiffness", false, func(k *kinematic.Scorecard) float64 { return k.Stiffness * 1e-6 }},
+		{"first frequency", "Hz", "FirstFrequency", false, func(k *kinematic.Scorecard) float64 { return k.FirstFrequency }},
+		{"shock level", "g", "ShockLevel", false, func(k *kinematic.Scorecard) float64 { return k.ShockLevel / kinematic.StandardGravity }},
+		{"thermal drift", "µm/K", "Drift", true, func(k *kinematic.Scorecard) float64 { return k.Drift * 1e6 }},
+		{"Maxwell index", "", "WeakestIndex", false, func(k *kinematic.Scorecard) float64 { return k.WeakestIndex }},
+	} {
+		fig := draw.Figure{Name: f.name, Unit: f.unit, LowerIsBetter: f.lower}
 		for i := range cards {
-			fig.Values = append(fig.Values, f(&cards[i]))
+			v := f.value(&cards[i])
+			if !(v > 0) || math.IsInf(v, 0) {
+				return fmt.Errorf("drawing: cards[%d].%s: %w: %g, want a finite figure > 0 (figures are drawn relative to the best)", i, f.field, kinematic.ErrRange, v)
+			}
+			fig.Values = append(fig.Values, v)
 		}
 		bars.Figures = append(bars.Figures, fig)
 	}
-	add("error at "+o.pointName(), "µm/µm", true, func(k *kinematic.Scorecard) float64 { return k.Amplification })
-	add("stiffness", "N/µm", false, func(k *kinematic.Scorecard) float64 { return k.Stiffness * 1e-6 })
-	add("first frequency", "Hz", false, func(k *kinematic.Scorecard) float64 { return k.FirstFrequency })
-	add("shock level", "g", false, func(k *kinematic.Scorecard) float64 { return k.ShockLevel / kinematic.StandardGravity })
-	add("thermal drift", "µm/K", true, func(k *kinematic.Scorecard) float64 { return k.Drift * 1e6 })
-	add("Maxwell index", "", false, func(k *kinematic.Scorecard) float64 { return k.WeakestIndex })
 	return bars.WriteSVG(w)
 }
 
