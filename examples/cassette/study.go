@@ -42,6 +42,10 @@ type study struct {
 	shockG  float64
 	deltaT  float64
 	outDir  string
+
+	// res is the Monte Carlo study of the chosen layout, once run, with
+	// its samples.
+	res *kinematic.StudyResult
 }
 
 // candidate is one layout compared in the report.
@@ -371,6 +375,7 @@ func (s *study) budget(ctx context.Context, d *design.Design, a *kinematic.Assem
 			return nil, err
 		}
 		study = &res
+		s.res = study
 		s.printf("Monte Carlo, %d parts made to the drawing (interchangeability): displacement of the detector centre\n", res.Samples)
 		s.printf("  radial: median %.2f µm, 95 %% %.2f µm, 99 %% %.2f µm, 99.73 %% %.2f µm\n", res.Radial.P50*1e6, res.Radial.P95*1e6, res.Radial.P99*1e6, res.Radial.P9973*1e6)
 		s.printf("  standard deviation along x %.2f µm, y %.2f µm, z %.2f µm; tilt 99 %% %.1f µrad\n", res.X.StdDev*1e6, res.Y.StdDev*1e6, res.Z.StdDev*1e6, res.Tilt.P99*1e6)
