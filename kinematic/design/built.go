@@ -8,8 +8,7 @@ import (
 // Built is a design checked and built once: its coupling, contacts,
 // model and assembly, shared by every analysis made of it. [Design.Build]
 // makes one; it holds its own copy of the design, so changing the Design
-// afterwards does not change it. A Built is safe for concurrent use by
-// its methods, which never modify it.
+// afterwards does not change it, and its methods never modify it.
 type Built struct {
 	d        Design
 	coupling kinematic.Coupling
