@@ -151,7 +151,7 @@ func (a *Assembly) checkTolerances(tols []Tolerance) ([]int, error) {
 			return nil, err
 		}
 		if j, dup := seen[k]; dup {
-			return nil, &InputError{Field: indexed("tols", i) + ".Dimension", Err: fmt.Errorf("%w: %q is already toleranced by tols[%d]", ErrRange, t.Dimension, j)}
+			return nil, &InputError{Field: indexed("tols", i) + ".Dimension", Other: indexed("tols", j) + ".Dimension", Err: fmt.Errorf("%w: %q is already toleranced", ErrRange, t.Dimension)}
 		}
 		seen[k] = i
 		if !linalg.Finite(t.Value) {

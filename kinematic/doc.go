@@ -17,7 +17,7 @@
 // instantaneous axis of each pair of vees, the coupling centre, for three
 // balls the incentre and each groove's angle off the bisector, and for a
 // coupling with a socket each groove's angle off the socket.
-// [OptimizeGrooves] turns the vee grooves to maximise the weakest Maxwell
+// [Optimize] turns the vee grooves to maximise the weakest Maxwell
 // index within allowed azimuth windows.
 //
 // For forces, a [Model] holds the contacts with their [Preload] elements

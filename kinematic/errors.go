@@ -41,11 +41,26 @@ var (
 type InputError struct {
 	Field string // the input as the caller wrote it, e.g. "Pairs[1].Seat.HalfAngle" or "cs[4].Normal"
 	Err   error  // wraps one of the package's sentinel errors
+
+	// Other is a second input that the reason refers to, as the caller
+	// wrote it ("Pairs[0].Ball.Centre" for a ball with the same centre,
+	// "tols[1].Dimension" for a dimension toleranced twice), or "". The
+	// reason in Err does not name it; Error appends it, so that a caller
+	// translating field paths translates both.
+	Other string
 }
 
-// Error returns the package, the field and the reason, for example
-// "kinematic: Pairs[1].Seat.HalfAngle: out of range: ...".
-func (e *InputError) Error() string { return "kinematic: " + e.Field + ": " + e.Err.Error() }
+// Error returns the package, the field and the reason, and the other
+// input when there is one, for example
+// "kinematic: Pairs[1].Seat.HalfAngle: out of range: ..." or
+// "kinematic: Pairs[2].Ball.Centre: degenerate geometry: the same centre as another ball; see Pairs[0].Ball.Centre".
+func (e *InputError) Error() string {
+	s := "kinematic: " + e.Field + ": " + e.Err.Error()
+	if e.Other != "" {
+		s += "; see " + e.Other
+	}
+	return s
+}
 
 // Unwrap returns the underlying error, which wraps a sentinel.
 func (e *InputError) Unwrap() error { return e.Err }

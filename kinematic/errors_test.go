@@ -177,3 +177,37 @@ func TestSubnormalDirections(t *testing.T) {
 func linalgFinite(v r3.Vec) bool {
 	return !math.IsNaN(v.X+v.Y+v.Z) && !math.IsInf(v.X+v.Y+v.Z, 0)
 }
+
+// TestInputErrorOther: an error about two inputs names both in its
+// fields, and its message names each once, in the caller's terms.
+func TestInputErrorOther(t *testing.T) {
+	c := threeVees(t, 0)
+	c.Pairs[2].Ball.Centre = c.Pairs[0].Ball.Centre
+	_, err := c.Contacts()
+	var ie *InputError
+	if !errors.As(err, &ie) || !errors.Is(err, ErrDegenerate) {
+		t.Fatalf("coincident balls: %v", err)
+	}
+	if ie.Field != "Pairs[2].Ball.Centre" || ie.Other != "Pairs[0].Ball.Centre" {
+		t.Errorf("coincident balls: Field %q, Other %q; want Pairs[2].Ball.Centre and Pairs[0].Ball.Centre", ie.Field, ie.Other)
+	}
+	if msg := err.Error(); strings.Count(msg, "Pairs[0]") != 1 || strings.Count(msg, "Pairs[2]") != 1 {
+		t.Errorf("coincident balls: %q should name Pairs[2] and Pairs[0] once each", msg)
+	}
+
+	a, err := threeVees(t, 0).Assembly()
+	if err != nil {
+		t.Fatal(err)
+	}
+	tols := []Tolerance{{Dimension: "A.Ball.X", Value: 1e-6}, {Dimension: "B.Ball.Y", Value: 1e-6}, {Dimension: "A.Ball.X", Value: 2e-6}}
+	_, err = a.Budget(r3.Vec{}, tols)
+	if !errors.As(err, &ie) || !errors.Is(err, ErrRange) {
+		t.Fatalf("repeated tolerance: %v", err)
+	}
+	if ie.Field != "tols[2].Dimension" || ie.Other != "tols[0].Dimension" {
+		t.Errorf("repeated tolerance: Field %q, Other %q; want tols[2].Dimension and tols[0].Dimension", ie.Field, ie.Other)
+	}
+	if msg := err.Error(); strings.Count(msg, "tols[") != 2 {
+		t.Errorf("repeated tolerance: %q should name tols[2] and tols[0] once each", msg)
+	}
+}

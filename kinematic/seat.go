@@ -142,8 +142,8 @@ func checkBalls(ps []Pair) error {
 	for i, p := range ps {
 		for j := 0; j < i; j++ {
 			if d := linalg.Norm3(r3.Sub(p.Ball.Centre, ps[j].Ball.Centre)); d <= coincidentTol*span {
-				return &InputError{Field: pairField(i) + ".Ball.Centre", Err: fmt.Errorf(
-					"%w: the same centre as Pairs[%d]'s ball", ErrDegenerate, j)}
+				return &InputError{Field: pairField(i) + ".Ball.Centre", Other: pairField(j) + ".Ball.Centre",
+					Err: fmt.Errorf("%w: the same centre as another ball", ErrDegenerate)}
 			}
 		}
 	}

@@ -8,6 +8,7 @@ import (
 	"os"
 	"path/filepath"
 	"regexp"
+	"sort"
 	"strconv"
 	"strings"
 	"testing"
@@ -86,5 +87,48 @@ func TestRunErrors(t *testing.T) {
 	}
 	if err := run([]string{"a.json", "b.json"}, nil, &out); err == nil {
 		t.Error("two design files accepted")
+	}
+}
+
+// TestPercentileColumns reads the report's radial percentile columns and
+// checks them against the percentile definition that kinematic.Stats
+// documents, the nearest rank: the p-th percentile of n sorted
+// magnitudes is the ⌈p·n⌉-th smallest (Hyndman and Fan 1996, "Sample
+// quantiles in statistical packages", The American Statistician 50(4),
+// definition 1, the inverse of the empirical distribution function),
+// applied here to the study's own samples. Worked by hand for n = 10:
+// the median is the 5th smallest, and 95, 99 and 99.73 % are all the
+// largest (⌈9.5⌉ = ⌈9.9⌉ = ⌈9.973⌉ = 10); for n = 200 the ranks are
+// 100, 190, 198 and 200 (⌈199.46⌉).
+func TestPercentileColumns(t *testing.T) {
+	for _, tc := range []struct {
+		n     int
+		ranks [4]int
+	}{
+		{10, [4]int{5, 10, 10, 10}},
+		{200, [4]int{100, 190, 198, 200}},
+	} {
+		var out bytes.Buffer
+		st := &study{w: &out, source: "test", samples: tc.n, shockG: 5, deltaT: 10}
+		if err := st.run(t.Context(), builtIn); err != nil {
+			t.Fatal(err)
+		}
+		if st.res == nil || len(st.res.Points) != tc.n {
+			t.Fatalf("n = %d: the study kept no samples", tc.n)
+		}
+		m := regexp.MustCompile(`radial: median ([0-9.]+) µm, 95 % ([0-9.]+) µm, 99 % ([0-9.]+) µm, 99.73 % ([0-9.]+) µm`).FindStringSubmatch(out.String())
+		if m == nil {
+			t.Fatalf("n = %d: no radial percentiles in the report", tc.n)
+		}
+		r := make([]float64, tc.n)
+		for i, p := range st.res.Points {
+			r[i] = math.Sqrt(p.X*p.X + p.Y*p.Y + p.Z*p.Z)
+		}
+		sort.Float64s(r)
+		for k, rank := range tc.ranks {
+			if want := strconv.FormatFloat(r[rank-1]*1e6, 'f', 2, 64); m[k+1] != want {
+				t.Errorf("n = %d: column %d prints %s µm, want %s µm (the %d-th smallest of %d)", tc.n, k+1, m[k+1], want, rank, tc.n)
+			}
+		}
 	}
 }

@@ -7,14 +7,13 @@ import (
 	"math"
 	"os"
 	"path/filepath"
-	"sort"
 	"strings"
 
 	"gonum.org/v1/gonum/spatial/r3"
 
-	"github.com/sixfold-dev/sixfold/internal/draw"
 	"github.com/sixfold-dev/sixfold/kinematic"
 	"github.com/sixfold-dev/sixfold/kinematic/design"
+	"github.com/sixfold-dev/sixfold/kinematic/drawing"
 )
 
 const (
@@ -25,12 +24,9 @@ const (
 // Obstacles on the bench that a groove must not point at (demo scenario):
 // a groove whose line passes within keepOut of the direction from its
 // ball to an obstacle closer than reach would run into it.
-var obstacles = []struct {
-	name string
-	at   r3.Vec
-}{
-	{"cable pass-through", r3.Vec{X: -0.015, Y: 0.040}},
-	{"coolant port", r3.Vec{X: 0.040, Y: 0.025}},
+var obstacles = []kinematic.KeepOut{
+	{Name: "cable pass-through", At: r3.Vec{X: -0.015, Y: 0.040}, Reach: reach, Clearance: keepOut},
+	{Name: "coolant port", At: r3.Vec{X: 0.040, Y: 0.025}, Reach: reach, Clearance: keepOut},
 }
 
 const (
@@ -46,6 +42,10 @@ type study struct {
 	shockG  float64
 	deltaT  float64
 	outDir  string
+
+	// res is the Monte Carlo study of the chosen layout, once run, with
+	// its samples.
+	res *kinematic.StudyResult
 }
 
 // candidate is one layout compared in the report.
@@ -66,16 +66,17 @@ func (s *study) run(ctx context.Context, src []byte) error {
 	if err != nil {
 		return err
 	}
-	c0, err := d.Coupling()
+	drawn, err := d.Build()
 	if err != nil {
 		return err
 	}
+	c0 := drawn.Coupling()
 	s.printf("%s\n%s\n", d.Name, strings.Repeat("=", len([]rune(d.Name))))
 	s.printf("design: %s\n", s.source)
 	s.summary(d, c0)
 
 	// 1. Candidates and the choice of grooves.
-	scen := scenario(d)
+	scen := drawn.Scenario()
 	wins, err := s.windows(c0)
 	if err != nil {
 		return err
@@ -103,59 +104,38 @@ func (s *study) run(ctx context.Context, src []byte) error {
 	s.choice(best, cands, floor)
 
 	// 2. The chosen layout, evaluated.
-	chosen := *d
-	chosen.Seats = append([]design.Seat(nil), d.Seats...)
-	for i, p := range best.Coupling.Pairs {
-		if v, ok := p.Seat.(kinematic.Vee); ok {
-			chosen.Seats[i].Direction, chosen.Seats[i].Azimuth, chosen.Seats[i].Reference = v.Direction, 0, kinematic.Radial
-		}
+	chosen, err := d.WithCoupling(best.Coupling)
+	if err != nil {
+		return err
 	}
 	if chosen.MonteCarlo != nil {
-		mc := *chosen.MonteCarlo
-		mc.Samples = s.samples
-		chosen.MonteCarlo = &mc
+		chosen.MonteCarlo.Samples = s.samples
 	}
-	ev, err := chosen.Evaluate(ctx)
+	b, err := chosen.Build()
 	if err != nil {
 		return err
 	}
-	m, cs, err := chosen.Model()
-	if err != nil {
-		return err
-	}
-	a, err := chosen.Assembly()
+	ev, err := b.Evaluate(ctx)
 	if err != nil {
 		return err
 	}
 	s.constraint(ev)
-	if err := s.loads(&chosen, m, ev); err != nil {
+	if err := s.loads(chosen, b.Model(), ev); err != nil {
 		return err
 	}
 	s.vibration(ev)
-	pts, err := s.budget(ctx, &chosen, a, m, ev)
+	res, err := s.budget(ctx, chosen, b.Assembly(), b.Model(), ev)
 	if err != nil {
 		return err
 	}
 	s.requirements(ev)
 	if s.outDir != "" {
-		if err := s.drawings(&chosen, best, cands, cs, m, ev, pts); err != nil {
+		if err := s.drawings(b, ev, cands, res); err != nil {
 			return err
 		}
 	}
 	s.caution()
 	return nil
-}
-
-// scenario returns the figures' scenario of a design.
-func scenario(d *design.Design) kinematic.Scenario {
-	sc := kinematic.Scenario{Point: d.Point, Axis: d.Axis, Preloads: d.Preloads, Payload: d.Payload, MinForce: d.Requirements.MinContactForce}
-	if len(d.Cases) > 0 {
-		sc.Gravity = d.Cases[0].Gravity
-	}
-	if d.Thermal != nil {
-		sc.Thermal = *d.Thermal
-	}
-	return sc
 }
 
 func (s *study) summary(d *design.Design, c kinematic.Coupling) {
@@ -179,51 +159,34 @@ func (s *study) summary(d *design.Design, c kinematic.Coupling) {
 		d.Point.X*1e3, d.Point.Y*1e3, d.Point.Z*1e3, d.Axis.X, d.Axis.Y, d.Axis.Z)
 }
 
-// windows returns, for each groove, the largest window of frame azimuths
-// that keeps it at least keepOut from pointing at an obstacle within reach
-// of its ball; every azimuth where there is none.
+// windows prints where the obstacles lie from each groove's ball and
+// returns the groove windows they leave (kinematic.KeepOutWindows).
 func (s *study) windows(c kinematic.Coupling) ([]kinematic.Window, error) {
 	s.section("1. Packaging: groove windows")
-	wins := make([]kinematic.Window, len(c.Pairs))
+	wins, err := kinematic.KeepOutWindows(c, obstacles)
+	if err != nil {
+		return nil, fmt.Errorf("groove windows: %w", err)
+	}
 	for i, p := range c.Pairs {
-		wins[i] = kinematic.Window{Min: -90 * deg, Max: 90 * deg, From: kinematic.FrameX}
 		if _, ok := p.Seat.(kinematic.Vee); !ok {
 			continue
 		}
-		var bad []float64 // forbidden azimuth centres, mod π
+		near := false
 		for _, o := range obstacles {
-			d := r3.Sub(o.at, p.Ball.Centre)
+			// The figures printed: the obstacle seen from the ball in
+			// plan (the bench's seats have Up along z).
+			d := r3.Sub(o.At, p.Ball.Centre)
 			d.Z = 0
-			if r3.Norm(d) > reach {
+			if r3.Norm(d) > o.Reach {
 				continue
 			}
-			az := math.Atan2(d.Y, d.X)
-			bad = append(bad, math.Mod(az+2*math.Pi, math.Pi))
+			near = true
 			s.printf("groove %s: the %s lies %.0f mm away at %.0f°; keep at least %.0f° off that line\n",
-				p.Name, o.name, r3.Norm(d)*1e3, az/deg, keepOut/deg)
+				p.Name, o.Name, r3.Norm(d)*1e3, math.Atan2(d.Y, d.X)/deg, o.Clearance/deg)
 		}
-		if len(bad) == 0 {
-			continue
+		if near {
+			s.printf("groove %s: allowed from %.1f° to %.1f° (frame azimuth)\n", p.Name, wins[i].Min/deg, wins[i].Max/deg)
 		}
-		sort.Float64s(bad)
-		// The largest gap between forbidden arcs on the circle of
-		// azimuths mod π.
-		bestLo, bestW := 0.0, -1.0
-		for k := range bad {
-			lo := bad[k] + keepOut
-			hi := bad[(k+1)%len(bad)] - keepOut
-			if k == len(bad)-1 {
-				hi += math.Pi
-			}
-			if w := hi - lo; w > bestW {
-				bestLo, bestW = lo, w
-			}
-		}
-		if bestW <= 0 {
-			return nil, fmt.Errorf("groove %s has no allowed direction", p.Name)
-		}
-		wins[i] = kinematic.Window{Min: bestLo, Max: bestLo + bestW, From: kinematic.FrameX}
-		s.printf("groove %s: allowed from %.1f° to %.1f° (frame azimuth)\n", p.Name, wins[i].Min/deg, wins[i].Max/deg)
 	}
 	return wins, nil
 }
@@ -382,7 +345,7 @@ func (s *study) vibration(ev design.Evaluation) {
 	}
 }
 
-func (s *study) budget(ctx context.Context, d *design.Design, a *kinematic.Assembly, m *kinematic.Model, ev design.Evaluation) ([]r3.Vec, error) {
+func (s *study) budget(ctx context.Context, d *design.Design, a *kinematic.Assembly, m *kinematic.Model, ev design.Evaluation) (*kinematic.StudyResult, error) {
 	s.section("6. Error budget at the detector")
 	if ev.Budget != nil {
 		b := ev.Budget
@@ -401,7 +364,7 @@ func (s *study) budget(ctx context.Context, d *design.Design, a *kinematic.Assem
 		}
 		s.printf("worst case %.2f µm, RSS %.2f µm, standard deviation %.2f µm (first order)\n", b.WorstCase*1e6, b.RSS*1e6, b.Sigma*1e6)
 	}
-	var pts []r3.Vec
+	var study *kinematic.StudyResult
 	if len(d.Tolerances) > 0 {
 		seed := uint64(1)
 		if d.MonteCarlo != nil {
@@ -411,7 +374,8 @@ func (s *study) budget(ctx context.Context, d *design.Design, a *kinematic.Assem
 		if err != nil {
 			return nil, err
 		}
-		pts = res.Points
+		study = &res
+		s.res = study
 		s.printf("Monte Carlo, %d parts made to the drawing (interchangeability): displacement of the detector centre\n", res.Samples)
 		s.printf("  radial: median %.2f µm, 95 %% %.2f µm, 99 %% %.2f µm, 99.73 %% %.2f µm\n", res.Radial.P50*1e6, res.Radial.P95*1e6, res.Radial.P99*1e6, res.Radial.P9973*1e6)
 		s.printf("  standard deviation along x %.2f µm, y %.2f µm, z %.2f µm; tilt 99 %% %.1f µrad\n", res.X.StdDev*1e6, res.Y.StdDev*1e6, res.Z.StdDev*1e6, res.Tilt.P99*1e6)
@@ -439,7 +403,7 @@ func (s *study) budget(ctx context.Context, d *design.Design, a *kinematic.Assem
 		s.printf("friction at μ = %.2f (repeatability, the same cassette put back): about %.3f µm RSS, %.3f µm worst case (an estimate)\n",
 			rep.Mu, rep.RSS*1e6, rep.Worst*1e6)
 	}
-	return pts, nil
+	return study, nil
 }
 
 func (s *study) requirements(ev design.Evaluation) {
@@ -463,18 +427,18 @@ func (s *study) caution() {
 }
 
 // drawings writes the four SVG drawings.
-func (s *study) drawings(d *design.Design, best kinematic.Optimum, cands []candidate, cs []kinematic.Contact, m *kinematic.Model, ev design.Evaluation, pts []r3.Vec) error {
+func (s *study) drawings(b *design.Built, ev design.Evaluation, cands []candidate, res *kinematic.StudyResult) error {
 	s.section("8. Drawings")
 	if err := os.MkdirAll(s.outDir, 0o755); err != nil {
 		return err
 	}
-	write := func(name string, d interface{ WriteSVG(io.Writer) error }) error {
+	write := func(name string, draw func(io.Writer) error) error {
 		path := filepath.Join(s.outDir, name)
 		f, err := os.Create(path)
 		if err != nil {
 			return err
 		}
-		err = d.WriteSVG(f)
+		err = draw(f)
 		if cerr := f.Close(); err == nil {
 			err = cerr
 		}
@@ -484,34 +448,27 @@ func (s *study) drawings(d *design.Design, best kinematic.Optimum, cands []candi
 		s.printf("wrote %s\n", path)
 		return nil
 	}
-	plan, err := planOf(d, best.Coupling, ev)
-	if err != nil {
+	opt := &drawing.Options{PointName: "detector centre", Title: "Detector cassette coupling, chosen layout (plan, looking down)"}
+	if err := write("plan.svg", func(w io.Writer) error { return drawing.Plan(w, b, ev, opt) }); err != nil {
 		return err
 	}
-	if err := write("plan.svg", plan); err != nil {
+	// The cassette's top face, 40 mm above the balls.
+	opt = &drawing.Options{PointName: "detector centre", FaceHeight: 0.040}
+	if err := write("liftoff.svg", func(w io.Writer) error { return drawing.LiftOff(w, b, opt) }); err != nil {
 		return err
 	}
-	hm, err := liftOffMap(d, m)
-	if err != nil {
-		return err
-	}
-	if err := write("liftoff.svg", hm); err != nil {
-		return err
-	}
-	if len(pts) > 0 {
-		samples := make([]float64, len(pts))
-		for i, p := range pts {
-			samples[i] = r3.Norm(p) * 1e6
-		}
-		h := draw.Histogram{Title: "Detector centre: parts made to the drawing", Quantity: "displacement of the detector centre", Unit: "µm",
-			Samples: samples, Percentiles: draw.DefaultPercentiles,
-			Notes: []string{fmt.Sprintf("%d Monte Carlo samples of the tolerances (first-order model)", len(samples))}}
-		if err := write("histogram.svg", h); err != nil {
+	if res != nil && len(res.Points) > 0 {
+		opt := &drawing.Options{PointName: "detector centre", Title: "Detector centre: parts made to the drawing",
+			Notes: []string{fmt.Sprintf("%d Monte Carlo samples of the tolerances (first-order model)", len(res.Points))}}
+		if err := write("histogram.svg", func(w io.Writer) error { return drawing.Histogram(w, *res, opt) }); err != nil {
 			return err
 		}
 	}
-	if err := write("scorecards.svg", bars(cands)); err != nil {
-		return err
+	names := make([]string, len(cands))
+	cards := make([]kinematic.Scorecard, len(cands))
+	for i, c := range cands {
+		names[i], cards[i] = c.name, c.card
 	}
-	return nil
+	opt = &drawing.Options{PointName: "detector"}
+	return write("scorecards.svg", func(w io.Writer) error { return drawing.Scorecards(w, names, cards, opt) })
 }

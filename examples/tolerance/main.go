@@ -22,11 +22,9 @@ import (
 	"os/signal"
 	"strings"
 
-	"gonum.org/v1/gonum/spatial/r3"
-
-	"github.com/sixfold-dev/sixfold/internal/draw"
 	"github.com/sixfold-dev/sixfold/kinematic"
 	"github.com/sixfold-dev/sixfold/kinematic/design"
+	"github.com/sixfold-dev/sixfold/kinematic/drawing"
 )
 
 func main() {
@@ -80,7 +78,7 @@ func run(ctx context.Context, args []string, stdin io.Reader, stdout, progress i
 	if len(d.Tolerances) == 0 {
 		return fmt.Errorf("%s: the design has no tolerances to study", fs.Arg(0))
 	}
-	a, err := d.Assembly()
+	b, err := d.Build()
 	if err != nil {
 		return err
 	}
@@ -107,7 +105,7 @@ func run(ctx context.Context, args []string, stdin io.Reader, stdout, progress i
 	if progress != nil {
 		opt.Progress = bar.update
 	}
-	res, err := a.Study(ctx, d.Point, d.Tolerances, opt)
+	res, err := b.Assembly().Study(ctx, d.Point, d.Tolerances, opt)
 	bar.finish()
 	if err != nil {
 		return err
@@ -134,18 +132,12 @@ func run(ctx context.Context, args []string, stdin io.Reader, stdout, progress i
 	row("radial", res.Radial, 1e6, "µm")
 	row("tilt", res.Tilt, 1e6, "µrad")
 	if *svg != "" && len(res.Points) > 0 {
-		vals := make([]float64, len(res.Points))
-		for i, p := range res.Points {
-			vals[i] = r3.Norm(p) * 1e6
-		}
-		h := draw.Histogram{Title: "Error at the point of interest: parts made to the drawing", Quantity: "displacement of the point of interest",
-			Unit: "µm", Samples: vals, Percentiles: draw.DefaultPercentiles,
-			Notes: []string{fmt.Sprintf("%d samples, %s model, seed %d", len(vals), model, sd)}}
+		hopt := &drawing.Options{Notes: []string{fmt.Sprintf("%d samples, %s model, seed %d", len(res.Points), model, sd)}}
 		f, err := os.Create(*svg)
 		if err != nil {
 			return err
 		}
-		err = h.WriteSVG(f)
+		err = drawing.Histogram(f, res, hopt)
 		if cerr := f.Close(); err == nil {
 			err = cerr
 		}

@@ -96,3 +96,47 @@ func TestRunErrors(t *testing.T) {
 		t.Error("cancelled study succeeded")
 	}
 }
+
+// TestTiltRow reads the report's tilt row for oneBall. Worked by hand:
+// ball A rises by √2·Δr in its vee while B and C stay (see oneBall), so
+// the body turns about the line BC, which lies 75 mm from A's centre
+// (A at y = 50 mm, B and C at y = −25 mm), by θ = √2·Δr / 75 mm. With Δr
+// uniform over ±2 µm, |θ| is uniform over [0, θmax], θmax = 2√2 µm /
+// 75 mm = 37.712 µrad, the closed-form worst-case tilt: mean and |P50|
+// θmax/2 = 18.856 µrad, standard deviation θmax/√12 = 10.887 µrad,
+// |P95| 0.95·θmax = 35.827, |P99| 0.99·θmax = 37.335 and |P99.73|
+// 0.9973·θmax = 37.610 µrad.
+func TestTiltRow(t *testing.T) {
+	dir := t.TempDir()
+	path := filepath.Join(dir, "d.json")
+	if err := os.WriteFile(path, []byte(oneBall), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	var out bytes.Buffer
+	if err := run(context.Background(), []string{"-svg", "", path}, nil, &out, nil); err != nil {
+		t.Fatal(err)
+	}
+	m := regexp.MustCompile(`(?m)^tilt\s+(\S+)\s+(\S+)\s+(\S+)\s+(\S+)\s+(\S+)\s+(\S+)\s+µrad$`).FindStringSubmatch(out.String())
+	if m == nil {
+		t.Fatalf("no tilt row in\n%s", out.String())
+	}
+	thetaMax := 2 * math.Sqrt2 * 1e-6 / 0.075 * 1e6 // µrad
+	want := []float64{thetaMax / 2, thetaMax / math.Sqrt(12), thetaMax / 2, 0.95 * thetaMax, 0.99 * thetaMax, 0.9973 * thetaMax}
+	names := []string{"mean", "std dev", "|P50|", "|P95|", "|P99|", "|P99.73|"}
+	for i, w := range want {
+		got, err := strconv.ParseFloat(m[i+1], 64)
+		if err != nil {
+			t.Fatal(err)
+		}
+		// Sampling error of 5e4 samples of a uniform variable: the
+		// standard error of a quantile is √(p(1−p)/n)·θmax ≤ 0.084 µrad
+		// (at P50), of the mean θmax/√(12n) = 0.049 µrad; 1 % of each
+		// value allows at least two of them (0.19 µrad at P50).
+		if math.Abs(got-w) > 0.01*w {
+			t.Errorf("tilt %s: %g µrad, want %.3f µrad", names[i], got, w)
+		}
+	}
+	if got, _ := strconv.ParseFloat(m[6], 64); got > thetaMax*(1+1e-9)+0.0005 {
+		t.Errorf("tilt |P99.73| %g µrad beyond the worst case %.3f µrad", got, thetaMax)
+	}
+}

@@ -10,10 +10,14 @@
 //	}
 //
 // [Read] and [Parse] return a [Design], the Go form of the file with every
-// quantity in SI units; [Design.Write] writes its canonical form;
-// [Design.Coupling], [Design.Model] and [Design.Assembly] build package
-// kinematic's objects; [Design.Evaluate] runs the whole evaluation and
+// quantity in SI units; [Design.Write] writes its canonical form.
+// [Design.Build] checks a design and builds package kinematic's objects
+// once into a [Built], whose Coupling, Model, Assembly and Scenario every
+// analysis shares; [Built.Evaluate] runs the whole evaluation
+// ([Design.Evaluate] builds and evaluates in one call) and
 // [Evaluation.Verdicts] compares it with the requirements.
+// [Design.WithCoupling] writes a coupling changed by kinematic.Optimize
+// back into the design.
 //
 // # The file
 //
@@ -170,7 +174,8 @@
 //
 // Errors that package kinematic finds (coincident balls, a groove along its
 // own up, a tolerance naming no dimension) are translated to the file's
-// paths; errors.Is finds kinematic's sentinels (ErrRange, ErrDegenerate,
+// paths; an error about two entries (two balls with one centre, a
+// dimension toleranced twice) names the second in [Error.Other]; errors.Is finds kinematic's sentinels (ErrRange, ErrDegenerate,
 // ErrNotExact are the same values here). The reader reads at most
 // [MaxSize] bytes, at most 150 000 JSON values nested at most 16 deep, and
 // the counts given above, so a hostile file cannot make it allocate

@@ -67,21 +67,33 @@ var (
 // path of the entry as it stands in the file ("seats[2].half_angle",
 // "requirements.min_shock.level"; "" for the file as a whole) and why.
 // Errors that arise in package kinematic come back as an Error too, with
-// kinematic's field path ("Pairs[1].Seat.HalfAngle") translated into the
+// kinematic's field paths ("Pairs[1].Seat.HalfAngle") translated into the
 // file's ("seats[1].half_angle") and Err holding kinematic's reason, so
 // that errors.Is finds kinematic's sentinels.
 type Error struct {
 	Path string // JSON path of the entry, e.g. "seats[2].half_angle"
 	Err  error  // wraps one of the sentinel errors
+
+	// Other is the JSON path of a second entry the reason refers to
+	// ("balls[0].centre" for a ball with the same centre as the one at
+	// Path, "tolerances[1].dimension" for a dimension toleranced twice),
+	// or "".
+	Other string
 }
 
-// Error returns the package, the path and the reason, for example
-// "design: seats[2].half_angle: out of range: must be in (0, 90) deg, got 95 deg".
+// Error returns the package, the path and the reason, and the other
+// entry when there is one, for example
+// "design: seats[2].half_angle: out of range: must be in (0, 90) deg, got 95 deg" or
+// "design: balls[2].centre: degenerate: the same centre as another ball; see balls[0].centre".
 func (e *Error) Error() string {
-	if e.Path == "" {
-		return "design: " + e.Err.Error()
+	s := "design: " + e.Err.Error()
+	if e.Path != "" {
+		s = "design: " + e.Path + ": " + e.Err.Error()
 	}
-	return "design: " + e.Path + ": " + e.Err.Error()
+	if e.Other != "" {
+		s += "; see " + e.Other
+	}
+	return s
 }
 
 // Unwrap returns the underlying error, which wraps a sentinel.
@@ -104,20 +116,34 @@ func join(path, key string) string {
 func index(path string, i int) string { return fmt.Sprintf("%s[%d]", path, i) }
 
 // translator turns the field paths of package kinematic into the file's
-// JSON paths for one call.
+// JSON paths for one call. The fields of kinematic's own types (Pairs,
+// cs, preloads, payload) translate the same in every call; the names of a
+// call's parameters ("p", "magnitude", "opt") are given by the call, in
+// params.
 type translator struct {
-	b *built
+	b *Built
 
 	// lc is the path of the load case the call was given ("cases[2]"),
 	// or "" when it took none.
 	lc string
+
+	// params maps the call's parameter names, or whole fields under
+	// them ("th.Moving"), to JSON paths; the rest of a field under a
+	// parameter is written in the file's spelling ("opt.Samples" with
+	// "opt" → "monte_carlo" gives "monte_carlo.samples"). An indexed
+	// parameter ("tols[3]") keeps its index.
+	params map[string]string
 
 	// fallback is the path used for a field the translator does not
 	// know.
 	fallback string
 }
 
-// translate returns err with its kinematic field path translated into
+// pointParams are the parameters of the calls about the point of
+// interest.
+var pointParams = map[string]string{"p": "point_of_interest", "at": "point_of_interest", "tols": "tolerances"}
+
+// translate returns err with its kinematic field paths translated into
 // the file's vocabulary. Errors that are not kinematic input errors
 // (a cancelled context) are returned as they are.
 func (t translator) translate(err error) error {
@@ -125,7 +151,17 @@ func (t translator) translate(err error) error {
 	if !errors.As(err, &ke) {
 		return err
 	}
-	parts := strings.Split(ke.Field, ", ")
+	e := &Error{Path: t.fields(ke.Field), Err: ke.Err}
+	if ke.Other != "" {
+		e.Other = t.fields(ke.Other)
+	}
+	return e
+}
+
+// fields translates a list of kinematic field paths separated by ", ",
+// each named once.
+func (t translator) fields(list string) string {
+	parts := strings.Split(list, ", ")
 	out := parts[:0]
 	seen := map[string]bool{}
 	for _, p := range parts {
@@ -135,13 +171,22 @@ func (t translator) translate(err error) error {
 			out = append(out, q)
 		}
 	}
-	return &Error{Path: strings.Join(out, ", "), Err: ke.Err}
+	return strings.Join(out, ", ")
 }
 
 // field translates one kinematic field path.
 func (t translator) field(f string) string {
+	if q, ok := t.params[f]; ok {
+		return q
+	}
 	head, rest, _ := strings.Cut(f, ".")
 	name, i, indexed := splitIndex(head)
+	if q, ok := t.params[name]; ok {
+		if indexed {
+			q = index(q, i)
+		}
+		return join(q, snake(rest))
+	}
 	switch {
 	case f == "Pairs" || f == "cs":
 		return "seats"
@@ -166,31 +211,6 @@ func (t translator) field(f string) string {
 			return index(join(t.lc, "applied"), j)
 		}
 		return join(t.lc, snake(rest))
-	case name == "tols" && indexed:
-		return join(index("tolerances", i), snake(rest))
-	case f == "p" || f == "at":
-		return "point_of_interest"
-	case f == "opt" || f == "opt.Samples" || f == "opt.Seed":
-		if rest == "" {
-			return "monte_carlo"
-		}
-		return join("monte_carlo", snake(rest))
-	case head == "th":
-		switch rest {
-		case "DeltaT":
-			return "thermal.delta_t"
-		case "Moving":
-			return "thermal.moving_alpha"
-		case "Base":
-			return "thermal.base_alpha"
-		case "BaseRef":
-			return "thermal.base_ref"
-		}
-		return "thermal"
-	case f == "mu":
-		return "friction.mu"
-	case f == "magnitude":
-		return "requirements.min_shock.level"
 	}
 	if t.fallback != "" {
 		return t.fallback

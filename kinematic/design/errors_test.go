@@ -15,14 +15,18 @@ import (
 // design of a vee given by azimuth, a vee given by direction and a
 // trihedral (contacts 0–1, 2–3 and 4–6).
 func TestTranslate(t *testing.T) {
-	b := &built{
-		d: &Design{Seats: []Seat{
+	b := &Built{
+		d: Design{Seats: []Seat{
 			{Type: Vee},
 			{Type: Vee, Direction: r3.Vec{X: 1}},
 			{Type: Trihedral},
 		}},
 		pairOf: []int{0, 0, 1, 1, 2, 2, 2},
 	}
+	// The parameters of the calls, as kinematic's signatures name them.
+	calls := map[string]string{"p": "point_of_interest", "tols": "tolerances", "opt": "monte_carlo",
+		"th": "thermal", "th.DeltaT": "thermal.delta_t", "th.Moving": "thermal.moving_alpha", "th.Base": "thermal.base_alpha", "th.BaseRef": "thermal.base_ref",
+		"mu": "friction.mu", "magnitude": "requirements.min_shock.level"}
 	tests := []struct {
 		field, lc, want string
 	}{
@@ -58,7 +62,7 @@ func TestTranslate(t *testing.T) {
 	}
 	for _, tc := range tests {
 		in := &kinematic.InputError{Field: tc.field, Err: kinematic.ErrRange}
-		err := translator{b: b, lc: tc.lc}.translate(in)
+		err := translator{b: b, lc: tc.lc, params: calls}.translate(in)
 		var e *Error
 		if !errors.As(err, &e) || e.Path != tc.want {
 			t.Errorf("%q: %v, want path %q", tc.field, err, tc.want)

@@ -86,24 +86,34 @@ type Evaluation struct {
 	stiffnessNote string
 }
 
+// Evaluate returns the whole evaluation of the design, as
+// [Built.Evaluate] does, building it first with [Design.Build], whose
+// errors it returns. To make several analyses of one design, build it
+// once and use the [Built].
+func (d *Design) Evaluate(ctx context.Context) (Evaluation, error) {
+	b, err := d.Build()
+	if err != nil {
+		return Evaluation{}, err
+	}
+	return b.Evaluate(ctx)
+}
+
 // Evaluate returns the whole evaluation of the design: constraint and
 // Maxwell stability, the error amplification at the point of interest,
 // rigid statics of every load case with Hertz stresses, the worst shock,
 // seating against friction, stiffness, compliance and natural modes, the
 // error budget, the Monte Carlo study and the thermal drift, each where
-// the design gives its data. The design is checked first as by
-// [Design.Validate]. Errors are *Error values with the file's paths, or
-// ctx's error when ctx is cancelled (the Monte Carlo study stops early).
-func (d *Design) Evaluate(ctx context.Context) (Evaluation, error) {
-	b, err := d.build()
-	if err != nil {
-		return Evaluation{}, err
-	}
+// the design gives its data. Errors are *Error values with the file's
+// paths, or ctx's error when ctx is cancelled (the Monte Carlo study
+// stops early).
+func (b *Built) Evaluate(ctx context.Context) (Evaluation, error) {
+	d := &b.d
 	e := Evaluation{Analysis: b.analysis, req: d.Requirements}
 	if d.Friction != nil {
 		e.mu = d.Friction.Mu
 	}
-	t := translator{b: b}
+	t := translator{b: b, params: pointParams}
+	var err error
 	if e.Stability, err = b.analysis.Stability(); err != nil {
 		return Evaluation{}, t.translate(err)
 	}
@@ -137,7 +147,7 @@ func (d *Design) Evaluate(ctx context.Context) (Evaluation, error) {
 				if ctx.Err() != nil {
 					return Evaluation{}, ctx.Err()
 				}
-				return Evaluation{}, translator{b: b, fallback: "monte_carlo"}.translate(err)
+				return Evaluation{}, translator{b: b, fallback: "monte_carlo", params: studyParams}.translate(err)
 			}
 			e.Study = &res
 		}
@@ -145,16 +155,24 @@ func (d *Design) Evaluate(ctx context.Context) (Evaluation, error) {
 	if th := d.Thermal; th != nil {
 		dr, err := b.assembly.Drift(*th, d.Point)
 		if err != nil {
-			return Evaluation{}, translator{b: b, fallback: "thermal"}.translate(err)
+			return Evaluation{}, translator{b: b, fallback: "thermal", params: driftParams}.translate(err)
 		}
 		e.Drift = &dr
 	}
 	return e, ctx.Err()
 }
 
+// The parameters of Assembly.Study and Assembly.Drift in the file's
+// terms.
+var (
+	studyParams = map[string]string{"p": "point_of_interest", "tols": "tolerances", "opt": "monte_carlo"}
+	driftParams = map[string]string{"p": "point_of_interest", "th": "thermal",
+		"th.DeltaT": "thermal.delta_t", "th.Moving": "thermal.moving_alpha", "th.Base": "thermal.base_alpha", "th.BaseRef": "thermal.base_ref"}
+)
+
 // statics solves every load case.
-func (e *Evaluation) statics(b *built) error {
-	d := b.d
+func (e *Evaluation) statics(b *Built) error {
+	d := &b.d
 	e.Cases = make([]kinematic.Statics, len(d.Cases))
 	first := true
 	for k, lc := range d.Cases {
@@ -179,8 +197,8 @@ func (e *Evaluation) statics(b *built) error {
 }
 
 // loads makes the shock, seating and stiffness analyses.
-func (e *Evaluation) loads(b *built) error {
-	d, r, m := b.d, b.d.Requirements, b.model
+func (e *Evaluation) loads(b *Built) error {
+	d, r, m := &b.d, b.d.Requirements, b.model
 	if len(d.Cases) == 0 {
 		return nil
 	}
@@ -193,6 +211,7 @@ func (e *Evaluation) loads(b *built) error {
 		lc, t := caseOf(r.ShockCase)
 		s, err := m.Shock(lc, r.MinShock)
 		if err != nil {
+			t.params = map[string]string{"magnitude": "requirements.min_shock.level"}
 			return t.translate(err)
 		}
 		e.Shock, e.ShockCase = &s, lc.Name
@@ -201,6 +220,7 @@ func (e *Evaluation) loads(b *built) error {
 		lc, t := caseOf(r.SeatingCase)
 		s, err := m.Seating(lc, d.Friction.Mu)
 		if err != nil {
+			t.params = map[string]string{"mu": "friction.mu"}
 			return t.translate(err)
 		}
 		e.Seating, e.SeatingCase = &s, lc.Name

@@ -208,14 +208,15 @@ func TestCassette(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	ev, err := d.Evaluate(context.Background())
+	b, err := d.Build()
 	if err != nil {
 		t.Fatal(err)
 	}
-	_, cs, err := d.Model()
+	ev, err := b.Evaluate(context.Background())
 	if err != nil {
 		t.Fatal(err)
 	}
+	cs := b.Contacts()
 	for k, lc := range d.Cases {
 		// The load: preload, weight at the centre of mass, applied wrenches.
 		var f, mo r3.Vec
@@ -260,7 +261,7 @@ func TestEvaluateCancelled(t *testing.T) {
 	}
 }
 
-// TestBuilders checks that Coupling, Model and Assembly give kinematic's
+// TestBuilders checks that Build's Coupling, Model and Assembly give kinematic's
 // objects for the file: the fixture's grooves given by azimuth 0 from
 // the radial direction and by an explicit direction all point at the
 // centre (the groove of a ball at angle φ on the circle is ±(cos φ, sin φ, 0)).
@@ -269,10 +270,11 @@ func TestBuilders(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	c, err := d.Coupling()
+	b, err := d.Build()
 	if err != nil {
 		t.Fatal(err)
 	}
+	c := b.Coupling()
 	for i, p := range c.Pairs {
 		v, ok := p.Seat.(kinematic.Vee)
 		if !ok {
@@ -286,14 +288,11 @@ func TestBuilders(t *testing.T) {
 			t.Errorf("Pairs[%d].Name %q", i, p.Name)
 		}
 	}
-	m, cs, err := d.Model()
-	if err != nil || m == nil || len(cs) != 6 {
-		t.Fatalf("Model: %v, %d contacts", err, len(cs))
+	m, cs := b.Model(), b.Contacts()
+	if m == nil || len(cs) != 6 {
+		t.Fatalf("Model: %v, %d contacts", m, len(cs))
 	}
-	a, err := d.Assembly()
-	if err != nil {
-		t.Fatal(err)
-	}
+	a := b.Assembly()
 	if n := len(a.Dimensions()); n != 36 {
 		t.Errorf("%d dimensions, want 36 (12 per vee pair, kinematic.Assembly)", n)
 	}

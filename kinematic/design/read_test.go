@@ -60,7 +60,7 @@ func TestMalformed(t *testing.T) {
 		{"inline no E", edit(t, set("balls[0].material", map[string]any{"nu": 0.3})), "balls[0].material.e", ErrMissing, "a pressure or modulus in Pa"},
 		{"bad name", edit(t, set("balls[2].name", "1C")), "balls[2].name", ErrRange, "letters, digits"},
 		{"same name", edit(t, set("balls[2].name", "A")), "balls[2].name", ErrRange, `"A" is also the name of balls[0]`},
-		{"coincident balls", edit(t, set("balls[1].centre", []any{"0 mm", "50 mm", 0})), "balls[1].centre", ErrDegenerate, "the same centre as Pairs[0]'s ball"},
+		{"coincident balls", edit(t, set("balls[1].centre", []any{"0 mm", "50 mm", 0})), "balls[1].centre", ErrDegenerate, "the same centre as another ball; see balls[0].centre"},
 		{"too many balls", edit(t, set("balls", fromJSON(many(65, `{"centre": [0, 0, 0], "radius": 0.001, "material": "sapphire"}`)))), "balls", ErrTooLarge, "65 entries; at most 64"},
 
 		// Seats.
@@ -99,7 +99,7 @@ func TestMalformed(t *testing.T) {
 
 		// Tolerances and the study.
 		{"unknown dimension", edit(t, set("tolerances[0].dimension", "A.Ball.Colour")), "tolerances[0].dimension", ErrRange, `no dimension "A.Ball.Colour"`},
-		{"repeated dimension", edit(t, set("tolerances", fromJSON(`[{"dimension": "A.Ball.X", "value": "1 um"}, {"dimension": "A.Ball.X", "value": "2 um"}]`))), "tolerances[1].dimension", ErrRange, "already toleranced by tols[0]"},
+		{"repeated dimension", edit(t, set("tolerances", fromJSON(`[{"dimension": "A.Ball.X", "value": "1 um"}, {"dimension": "A.Ball.X", "value": "2 um"}]`))), "tolerances[1].dimension", ErrRange, `"A.Ball.X" is already toleranced; see tolerances[0].dimension`},
 		{"angle on a length", edit(t, set("tolerances[0].value", "1 deg")), "tolerances[0].value", ErrUnit, "(A.Ball.Radius is a length)"},
 		{"length on an angle", edit(t, set("tolerances[0]", map[string]any{"dimension": "B.Seat.Turn", "value": "1 um"})), "tolerances[0].value", ErrUnit, "(B.Seat.Turn is an angle)"},
 		{"negative tolerance", edit(t, set("tolerances[0].value", "-1 um")), "tolerances[0].value", ErrRange, "must be ≥ 0"},
@@ -148,6 +148,7 @@ func TestMalformed(t *testing.T) {
 			if want := "design: " + tc.path; tc.path != "" && !strings.HasPrefix(err.Error(), want+": ") {
 				t.Errorf("error %q does not start with %q", err, want)
 			}
+			noKinematicNames(t, err)
 		})
 		key := tc.path + " " + tc.reason
 		if other, dup := seen[key]; dup {

@@ -20,59 +20,13 @@ import (
 // or an [*Error] naming the JSON path of the first entry at fault, with
 // the errors of package kinematic translated to that path.
 func (d *Design) Validate() error {
-	_, err := d.build()
+	_, err := d.Build()
 	return err
-}
-
-// built is a validated design with its kinematic objects.
-type built struct {
-	d        *Design
-	coupling kinematic.Coupling
-	contacts []kinematic.Contact
-	pairOf   []int // the pair of each contact
-	analysis kinematic.Analysis
-	model    *kinematic.Model
-	assembly *kinematic.Assembly
-	budget   *kinematic.Budget // when the design has tolerances
-}
-
-// build checks the design and builds its coupling, model and assembly.
-func (d *Design) build() (*built, error) {
-	if err := d.check(); err != nil {
-		return nil, err
-	}
-	b := &built{d: d}
-	t := translator{b: b}
-	if err := b.buildCoupling(); err != nil {
-		return nil, err
-	}
-	an, err := kinematic.Analyze(b.contacts)
-	if err != nil {
-		return nil, t.translate(err)
-	}
-	b.analysis = an
-	if len(b.contacts) != 6 || an.Rank != 6 {
-		return nil, notExact(b)
-	}
-	if b.model, _, err = b.newModel(); err != nil {
-		return nil, err
-	}
-	if b.assembly, err = b.coupling.Assembly(); err != nil {
-		return nil, t.translate(err)
-	}
-	if len(d.Tolerances) > 0 {
-		bu, err := b.assembly.Budget(d.Point, d.Tolerances)
-		if err != nil {
-			return nil, t.translate(err)
-		}
-		b.budget = &bu
-	}
-	return b, nil
 }
 
 // notExact returns the error for a coupling that is not exactly
 // constrained.
-func notExact(b *built) error {
+func notExact(b *Built) error {
 	an := b.analysis
 	why := fmt.Sprintf("%d contacts of rank %d", len(b.contacts), an.Rank)
 	if an.DOF > 0 {
@@ -89,8 +43,8 @@ func notExact(b *built) error {
 }
 
 // buildCoupling makes the coupling and its contacts.
-func (b *built) buildCoupling() error {
-	d := b.d
+func (b *Built) buildCoupling() error {
+	d := &b.d
 	t := translator{b: b}
 	c := kinematic.Coupling{Pairs: make([]kinematic.Pair, len(d.Balls))}
 	for i, ball := range d.Balls {
@@ -135,28 +89,17 @@ func (b *built) buildCoupling() error {
 	return nil
 }
 
-// grooveError translates an error of Coupling.WithGroove for seat i.
+// grooveError translates an error of Coupling.WithGroove(i, angle, ref)
+// for seat i. A radial reference that is undefined because the ball lies
+// at the centroid of the balls is the reference's fault, not the ball's.
 func grooveError(err error, i int, t translator) error {
+	s := index("seats", i)
+	t.params = map[string]string{"i": join(s, "azimuth"), "angle": join(s, "azimuth"), "ref": join(s, "reference")}
 	e := t.translate(err)
-	if de, ok := e.(*Error); ok {
-		switch de.Path {
-		case "i", "angle":
-			de.Path = join(index("seats", i), "azimuth")
-		case "ref", join(index("balls", i), "centre"):
-			de.Path = join(index("seats", i), "reference")
-		}
+	if de, ok := e.(*Error); ok && de.Path == join(index("balls", i), "centre") {
+		de.Path = join(s, "reference")
 	}
 	return e
-}
-
-// newModel makes the model of the coupling's contacts with the design's
-// preloads and payload.
-func (b *built) newModel() (*kinematic.Model, []kinematic.Contact, error) {
-	m, err := kinematic.NewModel(b.contacts, b.d.Preloads, b.d.Payload)
-	if err != nil {
-		return nil, nil, translator{b: b}.translate(err)
-	}
-	return m, b.contacts, nil
 }
 
 // contacts returns the number of contacts of a seat of type t.

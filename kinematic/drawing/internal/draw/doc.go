@@ -1,9 +1,9 @@
-// Package draw is the project's small SVG drawing kit: a plan view of a
-// coupling, a heat map over a region, a histogram with percentile markers
-// and a grouped bar chart. It knows nothing of couplings: callers translate
-// their results into its plain types, so that imports keep pointing down
-// (kinematic never sees this package, and this package never imports
-// kinematic).
+// Package draw is the small SVG drawing kit behind package drawing, its
+// only caller: a plan view of a coupling, a heat map over a region, a
+// histogram with percentile markers and a grouped bar chart. It knows
+// nothing of couplings: package drawing translates the library's results
+// into its plain types, so that imports keep pointing down (this package
+// never imports kinematic).
 //
 // # Units and frames
 //

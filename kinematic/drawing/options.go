@@ -1,0 +1,72 @@
+package drawing
+
+import (
+	"math"
+
+	"gonum.org/v1/gonum/spatial/r3"
+
+	"github.com/sixfold-dev/sixfold/kinematic"
+	"github.com/sixfold-dev/sixfold/kinematic/drawing/internal/draw"
+)
+
+// Options are the words and settings of a drawing. The zero value, and a
+// nil *Options, draw with the defaults each field names.
+type Options struct {
+	// Title is the drawing's title; "" gives one that names what it
+	// shows.
+	Title string
+
+	// Notes are lines of text under the drawing, after its own.
+	Notes []string
+
+	// PointName names the point of interest in labels and legends, for
+	// example "detector centre"; "" means "point of interest".
+	PointName string
+
+	// FaceHeight is the height, m, above the highest ball centre of the
+	// face that a lift-off map pushes on; 0 means the height of the
+	// point of interest.
+	FaceHeight float64
+}
+
+// orDefault returns *o, or the zero Options for nil.
+func (o *Options) orDefault() Options {
+	if o == nil {
+		return Options{}
+	}
+	return *o
+}
+
+// pointName returns the name of the point of interest.
+func (o Options) pointName() string {
+	if o.PointName == "" {
+		return "point of interest"
+	}
+	return o.PointName
+}
+
+// title returns the title, or def when none is set.
+func (o Options) title(def string) string {
+	if o.Title == "" {
+		return def
+	}
+	return o.Title
+}
+
+// notes returns the drawing's own notes followed by the caller's.
+func (o Options) notes(own ...string) []string {
+	return append(own, o.Notes...)
+}
+
+func pt(v r3.Vec) draw.Point { return draw.Point{X: v.X, Y: v.Y} }
+
+// bounds returns the lower-left and upper-right corners of the ball
+// centres in plan.
+func bounds(c kinematic.Coupling) (lo, hi r3.Vec) {
+	lo, hi = r3.Vec{X: math.Inf(1), Y: math.Inf(1)}, r3.Vec{X: math.Inf(-1), Y: math.Inf(-1)}
+	for _, p := range c.Pairs {
+		lo.X, lo.Y = math.Min(lo.X, p.Ball.Centre.X), math.Min(lo.Y, p.Ball.Centre.Y)
+		hi.X, hi.Y = math.Max(hi.X, p.Ball.Centre.X), math.Max(hi.Y, p.Ball.Centre.Y)
+	}
+	return lo, hi
+}
