@@ -26,6 +26,7 @@ var fileOrder = []string{
 	"socket.go",
 	"cone.go",
 	"layouts.go",
+	"keepout.go",
 	"analyze.go",
 	"stability.go",
 	"geometry.go",

@@ -260,3 +260,15 @@ func ballCentroid(c Coupling) r3.Vec {
 	}
 	return r3.Scale(1/float64(len(c.Pairs)), s)
 }
+
+// Window is a range of allowed groove azimuths in radians, Min ≤ azimuth ≤
+// Max, measured about the seat's Up from the direction From names: the
+// [Radial] direction (the zero value) or the drawing's [FrameX]. A groove
+// is a line, so azimuths π apart are the same groove, and a window of width
+// π or more allows every direction. For example, with Up along +z, "keep
+// every groove at least 20° away from the x axis, where the cables run" is
+// Window{Min: 20°, Max: 160°, From: FrameX} (in radians).
+type Window struct {
+	Min, Max float64
+	From     Reference
+}

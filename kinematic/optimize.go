@@ -12,18 +12,6 @@ import (
 	"github.com/sixfold-dev/sixfold/internal/linalg"
 )
 
-// Window is a range of allowed groove azimuths in radians, Min ≤ azimuth ≤
-// Max, measured about the seat's Up from the direction From names: the
-// [Radial] direction (the zero value) or the drawing's [FrameX]. A groove
-// is a line, so azimuths π apart are the same groove, and a window of width
-// π or more allows every direction. For example, with Up along +z, "keep
-// every groove at least 20° away from the x axis, where the cables run" is
-// Window{Min: 20°, Max: 160°, From: FrameX} (in radians).
-type Window struct {
-	Min, Max float64
-	From     Reference
-}
-
 // Region is where a ball may be placed: a box or a disc in the plane of
 // its seat (normal to the seat's Up) centred on the ball's drawn centre.
 // The zero Region keeps the ball where it is.
