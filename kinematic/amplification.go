@@ -10,7 +10,7 @@ import (
 	"github.com/sixfold-dev/sixfold/screw"
 )
 
-// PointError is the first-order error of a point of interest of the moving
+// Amplification is the first-order error of a point of interest of the moving
 // body per unit gap error at each contact: how far the point moves, and how
 // far the body tilts, per metre that a contact's seat surface stands high
 // along its normal (or per metre of ball radius, at each of that ball's
@@ -21,9 +21,9 @@ import (
 // (the Freed twists of [Maxwell], scaled to open their contact at unit
 // speed), because then Power(x, lⱼ) = eⱼ at every contact. So the point p
 // moves by Σ eᵢ Tᵢ(p) and the body tilts by Σ eᵢ Wᵢ.
-type PointError struct {
+type Amplification struct {
 	Point    r3.Vec
-	Contacts [6]ContactError
+	Contacts [6]Effect // per unit gap error at each contact, Name its label, Pose its freed twist Tᵢ
 
 	// Worst is the largest displacement of the point, in m per m (µm per
 	// µm), for gap errors of at most one unit at every contact, in any
@@ -37,21 +37,14 @@ type PointError struct {
 	WorstTilt, RSSTilt float64
 }
 
-// ContactError is what a unit gap error at one contact does.
-type ContactError struct {
-	Label        string
-	Displacement r3.Vec // of the point, m per m of gap error: Tᵢ(p)
-	Tilt         r3.Vec // of the body, rad per m: Wᵢ
-}
-
-// ErrorAt returns the first-order error of the point p of the moving body
+// Amplification returns the first-order error of the point p of the moving body
 // per unit gap error at each contact. It returns an [*InputError] naming
 // "p" when it is not finite.
-func (s Stability) ErrorAt(p r3.Vec) (PointError, error) {
+func (s Stability) Amplification(p r3.Vec) (Amplification, error) {
 	if !linalg.Finite3(p) {
-		return PointError{}, &InputError{Field: "p", Err: fmt.Errorf("%w: %v", ErrNonFinite, p)}
+		return Amplification{}, &InputError{Field: "p", Err: fmt.Errorf("%w: %v", ErrNonFinite, p)}
 	}
-	pe := PointError{Point: p}
+	pe := Amplification{Point: p}
 	var ts [6]screw.Twist
 	for i, m := range s.Contacts {
 		ts[i] = m.Freed
@@ -59,7 +52,7 @@ func (s Stability) ErrorAt(p r3.Vec) (PointError, error) {
 	var d, w [6]r3.Vec
 	pe.Worst, pe.RSS, pe.WorstTilt, pe.RSSTilt = pointError(&ts, p, &d, &w)
 	for i, m := range s.Contacts {
-		pe.Contacts[i] = ContactError{Label: m.Label, Displacement: d[i], Tilt: w[i]}
+		pe.Contacts[i] = Effect{Name: m.Label, Pose: m.Freed, Displacement: d[i], Tilt: w[i]}
 	}
 	return pe, nil
 }
@@ -68,8 +61,8 @@ func (s Stability) ErrorAt(p r3.Vec) (PointError, error) {
 // tilt of the body per unit gap error at contact i, Tᵢ(p) and Wᵢ (ts the
 // freed twists, scaled to open their contact at unit speed, and p in their
 // frame), and returns the worst and RSS displacement and tilt of
-// [PointError]. It is the one definition of the error at a point:
-// [Stability.ErrorAt] and the scorecard call it.
+// [Amplification]. It is the one definition of the error at a point:
+// [Stability.Amplification] and the scorecard call it.
 func pointError(ts *[6]screw.Twist, p r3.Vec, d, w *[6]r3.Vec) (worst, rss, worstTilt, rssTilt float64) {
 	for i := range ts {
 		d[i], w[i] = ts[i].At(p), ts[i].W
@@ -115,7 +108,7 @@ func zonotopeNorm(v *[6]r3.Vec) float64 {
 // the direction u (an optical axis, say), in m per m: Σ|u·Tᵢ(p)| and
 // √Σ(u·Tᵢ(p))²; and across it, the same for the part of each Tᵢ(p)
 // normal to u, worst over sign patterns. A zero u gives zeros.
-func (pe PointError) Along(u r3.Vec) (worst, rss, worstAcross, rssAcross float64) {
+func (pe Amplification) Along(u r3.Vec) (worst, rss, worstAcross, rssAcross float64) {
 	d, ok := linalg.Unit3(u)
 	if !ok {
 		return 0, 0, 0, 0

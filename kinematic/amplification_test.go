@@ -7,7 +7,7 @@ import (
 	"gonum.org/v1/gonum/spatial/r3"
 )
 
-// TestErrorAtAgainstEquilibrium: an exactly constrained coupling takes a
+// TestAmplificationAgainstEquilibrium: an exactly constrained coupling takes a
 // small gap error without any change of force — six contact forces are
 // fixed by statics alone — and moves by x with Power(x, lⱼ) = eⱼ at every
 // contact (first-order kinematics: contact j's gap closes by the normal
@@ -15,7 +15,7 @@ import (
 // independent computation) with the seat of contact i set 0.1 µm high must
 // therefore move the point of interest by 0.1 µm·Tᵢ(p) relative to the
 // perfect seat, and leave the forces unchanged, to second order.
-func TestErrorAtAgainstEquilibrium(t *testing.T) {
+func TestAmplificationAgainstEquilibrium(t *testing.T) {
 	c, err := AimedVees([3]Ball{ball(-60, -35, 0), ball(65, -30, 8), ball(10, 55, -4)}, r3.Vec{X: 0.01, Y: 0.02}, three(vee45))
 	if err != nil {
 		t.Fatal(err)
@@ -23,7 +23,7 @@ func TestErrorAtAgainstEquilibrium(t *testing.T) {
 	cs := mustContacts(t, c)
 	st := mustStability(t, c)
 	p := r3.Vec{X: 0.01, Y: 0.005, Z: 0.07}
-	pe, err := st.ErrorAt(p)
+	pe, err := st.Amplification(p)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -44,11 +44,11 @@ func TestErrorAtAgainstEquilibrium(t *testing.T) {
 		}
 		got := r3.Scale(1/e, r3.Sub(e1.Displacement.At(p), e0.Displacement.At(p)))
 		if d := r3.Norm(r3.Sub(got, ce.Displacement)); d > 1e-6*r3.Norm(ce.Displacement)+1e-9 {
-			t.Errorf("%s: equilibrium moves p by %v per m, ErrorAt says %v", ce.Label, got, ce.Displacement)
+			t.Errorf("%s: equilibrium moves p by %v per m, Amplification says %v", ce.Name, got, ce.Displacement)
 		}
 		for j := range e1.Contacts {
 			if f0, f1 := e0.Contacts[j].Force, e1.Contacts[j].Force; math.Abs(f1-f0) > 1e-6*f0 {
-				t.Errorf("gap at %s changes %s's force from %g to %g N", ce.Label, e1.Contacts[j].Label, f0, f1)
+				t.Errorf("gap at %s changes %s's force from %g to %g N", ce.Name, e1.Contacts[j].Label, f0, f1)
 			}
 		}
 	}
@@ -68,20 +68,20 @@ func TestErrorAtAgainstEquilibrium(t *testing.T) {
 	}
 }
 
-// TestErrorAtEquilateral: for the equilateral coupling with radial 90°
+// TestAmplificationEquilateral: for the equilateral coupling with radial 90°
 // vees, a uniform gap error on all six contacts (every seat high by e)
 // lifts the body straight up by e/sin θ without tilt (each ball centre
 // rises by e/sin θ in its vee: the normals lean θ from the horizontal),
 // and by the threefold symmetry a point on the axis moves as far for a gap
 // error at A+ as at B+ (and A− as B−).
-func TestErrorAtEquilateral(t *testing.T) {
+func TestAmplificationEquilateral(t *testing.T) {
 	c, err := BisectorVees(equilateral(), three(vee45))
 	if err != nil {
 		t.Fatal(err)
 	}
 	st := mustStability(t, c)
 	p := r3.Vec{Z: 0.03}
-	pe, err := st.ErrorAt(p)
+	pe, err := st.Amplification(p)
 	if err != nil {
 		t.Fatal(err)
 	}

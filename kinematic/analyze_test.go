@@ -40,7 +40,7 @@ func TestLostFreedoms(t *testing.T) {
 		t.Fatalf("parallel grooves: rank %d, DOF %d; want 5, 1", an.Rank, an.DOF)
 	}
 	ax := an.Free[0].Axis()
-	if !math.IsInf(ax.Pitch, 1) || !near(ax.Dir, r3.Unit(r3.Vec{X: 1, Y: 2}), 1e-12) {
+	if !math.IsInf(ax.Pitch, 1) || !near(ax.Direction, r3.Unit(r3.Vec{X: 1, Y: 2}), 1e-12) {
 		t.Errorf("parallel grooves: free %+v, want translation along (1, 2, 0)/√5", ax)
 	}
 	if _, err := an.Stability(); !errors.Is(err, ErrNotExact) {
@@ -59,7 +59,7 @@ func TestLostFreedoms(t *testing.T) {
 		t.Fatalf("tangent grooves: rank %d, want 5", an.Rank)
 	}
 	ax = an.Free[0].Axis()
-	if math.Abs(ax.Pitch) > 1e-12*an.Length || !near(ax.Dir, up, 1e-12) || !near(ax.Point, r3.Vec{}, 1e-12*an.Length) {
+	if math.Abs(ax.Pitch) > 1e-12*an.Length || !near(ax.Direction, up, 1e-12) || !near(ax.Point, r3.Vec{}, 1e-12*an.Length) {
 		t.Errorf("tangent grooves: free %+v, want rotation about z through the origin", ax)
 	}
 }
@@ -88,8 +88,8 @@ func TestSocketVeeFlat(t *testing.T) {
 	}
 	ax := an.Free[0].Axis()
 	ab := r3.Unit(r3.Sub(bs[1].Centre, bs[0].Centre))
-	off := r3.Norm(r3.Cross(r3.Sub(bs[0].Centre, ax.Point), ax.Dir))
-	if math.Abs(ax.Pitch) > 1e-12*an.Length || math.Abs(math.Abs(r3.Dot(ax.Dir, ab))-1) > 1e-12 || off > 1e-12*an.Length {
+	off := r3.Norm(r3.Cross(r3.Sub(bs[0].Centre, ax.Point), ax.Direction))
+	if math.Abs(ax.Pitch) > 1e-12*an.Length || math.Abs(math.Abs(r3.Dot(ax.Direction, ab))-1) > 1e-12 || off > 1e-12*an.Length {
 		t.Errorf("socket and vee: free %+v, want rotation about the line through A and B", ax)
 	}
 }

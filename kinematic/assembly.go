@@ -200,12 +200,16 @@ func (a *Assembly) effects(d *dimension, out *[6]float64) {
 	}
 }
 
-// Sensitivity is the first-order effect of one dimension.
-type Sensitivity struct {
-	Dimension string
+// Effect is the first-order effect of one unit cause on the moving body
+// and on a point of interest: a unit deviation of one dimension
+// ([Assembly.Sensitivities], per m or per rad) or a unit gap error at one
+// contact ([Amplification], per m).
+type Effect struct {
+	// Name is the dimension's name or the contact's label.
+	Name string
 
 	// Pose is the small displacement of the moving body per unit of the
-	// dimension (rad and m per m or per rad), V at the origin.
+	// cause (rad and m per m or per rad), V at the origin.
 	Pose screw.Twist
 
 	// Displacement is the point of interest's displacement per unit
@@ -221,15 +225,15 @@ type Sensitivity struct {
 // with contact j, so that every gap stays closed: moving the body by x
 // opens gap j by Power(x, lⱼ) (the normal velocity of its contact point).
 // It returns an [*InputError] naming "p" when p is not finite.
-func (a *Assembly) Sensitivities(p r3.Vec) ([]Sensitivity, error) {
+func (a *Assembly) Sensitivities(p r3.Vec) ([]Effect, error) {
 	if !linalg.Finite3(p) {
 		return nil, &InputError{Field: "p", Err: fmt.Errorf("%w: %v", ErrNonFinite, p)}
 	}
-	out := make([]Sensitivity, len(a.dims))
+	out := make([]Effect, len(a.dims))
 	pl := r3.Sub(p, a.origin)
 	for k := range a.dims {
 		x := a.sensitivity(k)
-		out[k] = Sensitivity{Dimension: a.dims[k].name, Pose: global(x, a.origin), Displacement: x.At(pl), Tilt: x.W}
+		out[k] = Effect{Name: a.dims[k].name, Pose: global(x, a.origin), Displacement: x.At(pl), Tilt: x.W}
 	}
 	return out, nil
 }

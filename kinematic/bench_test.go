@@ -215,7 +215,7 @@ func BenchmarkSeat(b *testing.B) {
 	}
 	b.ReportAllocs()
 	for b.Loop() {
-		p, err := a.Seat(devs, nil)
+		p, err := a.Pose(devs, nil)
 		if err != nil {
 			b.Fatal(err)
 		}
@@ -238,7 +238,7 @@ func BenchmarkStudySample(b *testing.B) {
 		s.jd = make([]r3.Vec, len(tols))
 		s.jw = make([]r3.Vec, len(tols))
 		for i, k := range idx {
-			s.lim[i], s.normal[i] = tols[i].Value, true
+			s.lim[i], s.normal[i] = tols[i].Sigma, true
 			x := a.sensitivity(k)
 			s.jd[i], s.jw[i] = x.At(s.pl), x.W
 		}

@@ -10,45 +10,26 @@ import (
 	"github.com/sixfold-dev/sixfold/internal/linalg"
 )
 
-// Distribution is the statistical shape of a tolerance.
-type Distribution int
-
-const (
-	// Uniform spreads a deviation evenly over ±Value (standard deviation
-	// Value/√3): a toleranced dimension of a part that passed inspection.
-	Uniform Distribution = iota
-
-	// Normal gives a deviation the standard deviation Value: a process
-	// of known capability.
-	Normal
-)
-
-// String returns "Uniform" or "Normal".
-func (d Distribution) String() string {
-	switch d {
-	case Uniform:
-		return "Uniform"
-	case Normal:
-		return "Normal"
-	}
-	return fmt.Sprintf("Distribution(%d)", int(d))
-}
-
 // Tolerance is the allowed deviation of one named dimension (see
-// [Assembly]).
+// [Assembly]), in m or rad: either a HalfWidth, for a deviation spread
+// evenly over ±HalfWidth (standard deviation HalfWidth/√3; a dimension of a
+// part that passed inspection), or a Sigma, for a normal deviation of that
+// standard deviation (a process of known capability). At most one of the
+// two is non-zero; both zero holds the dimension at its nominal.
 type Tolerance struct {
-	Dimension    string
-	Value        float64 // m or rad, ≥ 0: the half-width of a Uniform tolerance, the standard deviation of a Normal one
-	Distribution Distribution
+	Dimension string
+	HalfWidth float64 // m or rad, ≥ 0: uniform over ±HalfWidth
+	Sigma     float64 // m or rad, ≥ 0: normal with this standard deviation
 }
 
-// limit returns the tolerance's limit for a worst case (±Value uniform,
-// ±3σ normal, common practice) and its standard deviation.
+// limit returns the tolerance's limit for a worst case (±HalfWidth
+// uniform, ±3σ normal, common practice) and its standard deviation (the
+// variance of a uniform deviation on [−a, a] is a²/3).
 func (t Tolerance) limit() (lim, sigma float64) {
-	if t.Distribution == Normal {
-		return 3 * t.Value, t.Value
+	if t.Sigma > 0 {
+		return 3 * t.Sigma, t.Sigma
 	}
-	return t.Value, t.Value / math.Sqrt(3)
+	return t.HalfWidth, t.HalfWidth / math.Sqrt(3)
 }
 
 // Contributor is one dimension's part in an error budget.
@@ -60,8 +41,8 @@ type Contributor struct {
 	// per unit (rad/m or rad/rad).
 	Sensitivity, TiltSensitivity r3.Vec
 
-	// Limit is the deviation used for the worst case, m or rad: ±Value
-	// for a uniform tolerance, ±3σ for a normal one. Effect is
+	// Limit is the deviation used for the worst case, m or rad:
+	// ±HalfWidth for a uniform tolerance, ±3σ for a normal one. Effect is
 	// |Sensitivity|·Limit, m, and Sigma |Sensitivity| times the
 	// tolerance's standard deviation, m. Share is Sigma² as a fraction of
 	// the budget's total variance.
@@ -74,14 +55,14 @@ type Budget struct {
 	Point        r3.Vec
 	Contributors []Contributor // largest Effect first
 
-	// WorstCase is Σ Effect, m: the displacement when every dimension is
+	// Worst is Σ Effect, m: the displacement when every dimension is
 	// at its limit with the worst sign and every sensitivity points the
 	// same way (a bound). RSS is √Σ Effect², m, the usual statistical
 	// stack of the same limits; Sigma √Σ Sigma², m, the root of the
 	// summed variance of the three coordinates for independent
 	// deviations. The tilt totals are the same for the rotation, rad.
-	WorstCase, RSS, Sigma float64
-	WorstTilt, RSSTilt    float64
+	Worst, RSS, Sigma  float64
+	WorstTilt, RSSTilt float64
 }
 
 // Budget returns the first-order error budget of the point p of the
@@ -107,7 +88,7 @@ func (a *Assembly) Budget(p r3.Vec, tols []Tolerance) (Budget, error) {
 		c := Contributor{Dimension: t.Dimension, Sensitivity: s.Displacement, TiltSensitivity: s.Tilt, Limit: lim}
 		n := linalg.Norm3(s.Displacement)
 		c.Effect, c.Sigma = n*lim, n*sd
-		b.WorstCase += c.Effect
+		b.Worst += c.Effect
 		b.RSS += c.Effect * c.Effect
 		variance += c.Sigma * c.Sigma
 		tn := linalg.Norm3(s.Tilt) * lim
@@ -154,14 +135,20 @@ func (a *Assembly) checkTolerances(tols []Tolerance) ([]int, error) {
 			return nil, &InputError{Field: indexed("tols", i) + ".Dimension", Other: indexed("tols", j) + ".Dimension", Err: fmt.Errorf("%w: %q is already toleranced", ErrRange, t.Dimension)}
 		}
 		seen[k] = i
-		if !linalg.Finite(t.Value) {
-			return nil, &InputError{Field: indexed("tols", i) + ".Value", Err: fmt.Errorf("%w: %g", ErrNonFinite, t.Value)}
+		for _, v := range [...]struct {
+			name  string
+			value float64
+		}{{"HalfWidth", t.HalfWidth}, {"Sigma", t.Sigma}} {
+			if !linalg.Finite(v.value) {
+				return nil, &InputError{Field: indexed("tols", i) + "." + v.name, Err: fmt.Errorf("%w: %g", ErrNonFinite, v.value)}
+			}
+			if v.value < 0 {
+				return nil, &InputError{Field: indexed("tols", i) + "." + v.name, Err: fmt.Errorf("%w: must be ≥ 0, got %g", ErrRange, v.value)}
+			}
 		}
-		if t.Value < 0 {
-			return nil, &InputError{Field: indexed("tols", i) + ".Value", Err: fmt.Errorf("%w: must be ≥ 0, got %g", ErrRange, t.Value)}
-		}
-		if t.Distribution != Uniform && t.Distribution != Normal {
-			return nil, &InputError{Field: indexed("tols", i) + ".Distribution", Err: fmt.Errorf("%w: unknown distribution %d", ErrRange, int(t.Distribution))}
+		if t.HalfWidth != 0 && t.Sigma != 0 {
+			return nil, &InputError{Field: indexed("tols", i) + ".Sigma", Other: indexed("tols", i) + ".HalfWidth",
+				Err: fmt.Errorf("%w: a tolerance is a half-width or a standard deviation, not both", ErrRange)}
 		}
 		idx[i] = k
 	}

@@ -29,7 +29,7 @@
 // the preload window, [Model.Equilibrium] the elastic equilibrium of any
 // contact set (a hold-down pad, a fourth ball, interferences),
 // [Model.Stiffness] the 6×6 stiffness with [Stiffness.Compliance] at a
-// point and [Stiffness.Modes] the natural frequencies, and [Model.Seating]
+// point and [Stiffness.Modes] the natural frequencies, and [Model.Homing]
 // whether friction lets the part slide home. [FormClosure] and
 // [ForceClosure] say whether a contact set holds against every load.
 //
@@ -77,7 +77,7 @@
 // radius and centre, each seat's position, turn, tilt, half-angle and
 // flank offsets (see [Assembly] for the names). A deviation of a dimension
 // is in m or rad, positive as named ("towards the ball" for a flank:
-// a flank moved by +e stands e high). The exact model ([Assembly.Seat])
+// a flank moved by +e stands e high). The exact model ([Assembly.Pose])
 // solves the seated pose by Newton's method on the tangency equations to
 // 1e-13 of the size; the linear model ([Assembly.Sensitivities]) is its
 // first derivative at the nominal, exact to second order in the
@@ -85,7 +85,7 @@
 // check it). For deviations of micrometres on a coupling of tens of
 // millimetres the two differ by about |deviation|²/size, 1e-11 m. The
 // first-order error at a point per unit gap error at each contact is
-// [Stability.ErrorAt]; an error budget ranks the toleranced dimensions by
+// [Stability.Amplification]; an error budget ranks the toleranced dimensions by
 // their effect ([Assembly.Budget]); a Monte Carlo study draws parts made to
 // the drawing ([Assembly.Study]: interchangeability, how far a different
 // part sits); [Model.Repeatability] estimates how well the same part comes

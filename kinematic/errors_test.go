@@ -199,7 +199,7 @@ func TestInputErrorOther(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	tols := []Tolerance{{Dimension: "A.Ball.X", Value: 1e-6}, {Dimension: "B.Ball.Y", Value: 1e-6}, {Dimension: "A.Ball.X", Value: 2e-6}}
+	tols := []Tolerance{{Dimension: "A.Ball.X", HalfWidth: 1e-6}, {Dimension: "B.Ball.Y", HalfWidth: 1e-6}, {Dimension: "A.Ball.X", HalfWidth: 2e-6}}
 	_, err = a.Budget(r3.Vec{}, tols)
 	if !errors.As(err, &ie) || !errors.Is(err, ErrRange) {
 		t.Fatalf("repeated tolerance: %v", err)

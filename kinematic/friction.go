@@ -10,23 +10,23 @@ import (
 	"github.com/sixfold-dev/sixfold/screw"
 )
 
-// Seating is whether the load case slides the moving body home into its
+// Homing is whether the load case slides the moving body home into its
 // seats against Coulomb friction of coefficient Mu.
-type Seating struct {
+type Homing struct {
 	Mu       float64
-	Contacts [6]SeatingContact
+	Contacts [6]HomingContact
 
-	// Seats reports whether the body seats from every slightly unseated
-	// start (each contact open in turn); MaxMu is the largest coefficient
-	// of friction at which it still does (0 when it does not seat even
-	// without friction, because a contact carries no force).
-	Seats bool
+	// Home reports whether the body slides home from every slightly
+	// unseated start (each contact open in turn); MaxMu is the largest
+	// coefficient of friction at which it still does (0 when it does not
+	// even without friction, because a contact carries no force).
+	Home  bool
 	MaxMu float64
 }
 
-// SeatingContact is the seating of the body when contact Label is the one
+// HomingContact is the homing of the body when contact Label is the one
 // still open.
-type SeatingContact struct {
+type HomingContact struct {
 	Label string
 
 	// Drive is the force in N with which the loads, net of friction at
@@ -56,7 +56,7 @@ const pivotTol = 1e-12
 // far above any dry metallic or ceramic pair (0.1 to 1, common practice).
 const muMax = 10
 
-// Seating returns whether the load case (usually the preload with
+// Homing returns whether the load case (usually the preload with
 // gravity) slides the moving body into its seats against friction mu.
 //
 // The criterion, derived here: start with contact i slightly open and the
@@ -79,23 +79,23 @@ const muMax = 10
 // the error budget), and the friction of the ball against a vee's two
 // flanks is that of two independent contacts.
 //
-// Seating returns an [*InputError] naming "mu" when it is negative or not
+// Homing returns an [*InputError] naming "mu" when it is negative or not
 // finite, and the errors of [Model.Statics] without the Hertz ones.
-func (m *Model) Seating(lc LoadCase, mu float64) (Seating, error) {
+func (m *Model) Homing(lc LoadCase, mu float64) (Homing, error) {
 	if !m.exact {
-		return Seating{}, m.errNotExact()
+		return Homing{}, m.errNotExact()
 	}
 	if !linalg.Finite(mu) {
-		return Seating{}, &InputError{Field: "mu", Err: fmt.Errorf("%w: %g", ErrNonFinite, mu)}
+		return Homing{}, &InputError{Field: "mu", Err: fmt.Errorf("%w: %g", ErrNonFinite, mu)}
 	}
 	if mu < 0 {
-		return Seating{}, &InputError{Field: "mu", Err: fmt.Errorf("%w: must be ≥ 0, got %g", ErrRange, mu)}
+		return Homing{}, &InputError{Field: "mu", Err: fmt.Errorf("%w: must be ≥ 0, got %g", ErrRange, mu)}
 	}
 	w, err := m.wrench(&lc)
 	if err != nil {
-		return Seating{}, err
+		return Homing{}, err
 	}
-	s := Seating{Mu: mu, Seats: true, MaxMu: math.Inf(1)}
+	s := Homing{Mu: mu, Home: true, MaxMu: math.Inf(1)}
 	for i := range s.Contacts {
 		sc := &s.Contacts[i]
 		sc.Label = labelOf(m.lines[i].label, i)
@@ -111,7 +111,7 @@ func (m *Model) Seating(lc LoadCase, mu float64) (Seating, error) {
 			sc.Limit = m.frictionLimit(i, w)
 		}
 		if !ok || !(rho > 0) {
-			s.Seats = false
+			s.Home = false
 		}
 		s.MaxMu = math.Min(s.MaxMu, sc.Limit)
 	}

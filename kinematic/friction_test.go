@@ -66,7 +66,7 @@ func TestSeatingIncline(t *testing.T) {
 		s, c := math.Sincos(tc.beta)
 		limit := mass * g * s / (mass*g*c + tc.q)
 		for _, mu := range []float64{0, 0.5 * limit, 0.9 * limit, 1.1 * limit} {
-			st, err := m.Seating(lc, mu)
+			st, err := m.Homing(lc, mu)
 			if err != nil {
 				t.Fatal(err)
 			}
@@ -93,28 +93,28 @@ func TestSeatingIncline(t *testing.T) {
 func TestSeatingCoupling(t *testing.T) {
 	m, _ := equilateralModel(t, math.Pi/4, 60, 0, 0)
 	lc := LoadCase{Preload: 1}
-	st, err := m.Seating(lc, 0)
+	st, err := m.Homing(lc, 0)
 	if err != nil {
 		t.Fatal(err)
 	}
-	if !st.Seats || !(st.MaxMu > 0) || st.MaxMu > 1 {
-		t.Errorf("frictionless: seats %v, max μ %g; want true and a limit in (0, tan 45° = 1]", st.Seats, st.MaxMu)
+	if !st.Home || !(st.MaxMu > 0) || st.MaxMu > 1 {
+		t.Errorf("frictionless: seats %v, max μ %g; want true and a limit in (0, tan 45° = 1]", st.Home, st.MaxMu)
 	}
-	above, err := m.Seating(lc, st.MaxMu*1.01)
+	above, err := m.Homing(lc, st.MaxMu*1.01)
 	if err != nil {
 		t.Fatal(err)
 	}
-	below, err := m.Seating(lc, st.MaxMu*0.99)
+	below, err := m.Homing(lc, st.MaxMu*0.99)
 	if err != nil {
 		t.Fatal(err)
 	}
-	if above.Seats || !below.Seats {
-		t.Errorf("at 1.01·max μ seats %v, at 0.99·max μ %v", above.Seats, below.Seats)
+	if above.Home || !below.Home {
+		t.Errorf("at 1.01·max μ seats %v, at 0.99·max μ %v", above.Home, below.Home)
 	}
-	if _, err := m.Seating(lc, -0.1); !errors.Is(err, ErrRange) {
+	if _, err := m.Homing(lc, -0.1); !errors.Is(err, ErrRange) {
 		t.Errorf("negative μ: %v", err)
 	}
-	if _, err := m.Seating(lc, math.NaN()); !errors.Is(err, ErrNonFinite) {
+	if _, err := m.Homing(lc, math.NaN()); !errors.Is(err, ErrNonFinite) {
 		t.Errorf("NaN μ: %v", err)
 	}
 }

@@ -306,7 +306,7 @@ func FuzzSeat(f *testing.F) {
 			// Spread over every dimension by a stride.
 			devs[i] = Deviation{dims[(7*i)%len(dims)], x[0]}
 		}
-		p, err := a.Seat(devs, nil)
+		p, err := a.Pose(devs, nil)
 		if err != nil {
 			return
 		}

@@ -78,10 +78,10 @@ type Groove struct {
 // (parallel grooves) the line is at infinity: the pair leaves a translation
 // along the grooves free instead, and Parallel is set.
 type PairAxis struct {
-	A, B     int    // indices into Coupling.Pairs
-	Point    r3.Vec // the point of the axis nearest the midpoint of the two balls, m
-	Dir      r3.Vec // unit
-	Parallel bool
+	A, B      int    // indices into Coupling.Pairs
+	Point     r3.Vec // the point of the axis nearest the midpoint of the two balls, m
+	Direction r3.Vec // unit
+	Parallel  bool
 }
 
 // parallelTol is the sine of the angle between two grooves below which
@@ -166,16 +166,16 @@ func (c Coupling) Geometry() (Geometry, error) {
 			u := r3.Cross(gi.Direction, gj.Direction)
 			if linalg.Norm3(u) <= parallelTol {
 				ax.Parallel = true
-				ax.Dir = gi.Direction
+				ax.Direction = gi.Direction
 				g.Axes = append(g.Axes, ax)
 				continue
 			}
-			ax.Dir, _ = linalg.Unit3(u)
+			ax.Direction, _ = linalg.Unit3(u)
 			// The point of the line nearest the midpoint m: solve
 			// dᵢ·x = dᵢ·pᵢ, dⱼ·x = dⱼ·pⱼ, u·x = u·m.
 			m := r3.Scale(0.5, r3.Add(gi.Point, gj.Point))
 			ax.Point = r3.Add(m, planes(gi.Direction, r3.Dot(gi.Direction, r3.Sub(gi.Point, m)),
-				gj.Direction, r3.Dot(gj.Direction, r3.Sub(gj.Point, m)), ax.Dir))
+				gj.Direction, r3.Dot(gj.Direction, r3.Sub(gj.Point, m)), ax.Direction))
 			g.Axes = append(g.Axes, ax)
 		}
 	}

@@ -136,8 +136,45 @@ type Optimum struct {
 	// the best of the second.
 	Front []FrontPoint
 
+	// Status says how the search ended: converged, held back by the
+	// constraints in Binding, or stopped by its evaluation budget.
+	Status Status
+
 	// Evaluations is the number of layouts evaluated.
 	Evaluations int
+}
+
+// Status is how a search by [Optimize] ended.
+type Status int
+
+const (
+	// Converged: the local search from the best layout found converged
+	// (or every layout was enumerated), and no constraint binds.
+	Converged Status = iota
+
+	// Constrained: the optimum sits on a constraint, which
+	// Optimum.Binding names (a window edge, a region's boundary, the
+	// Maxwell floor, the pressure ceiling); relaxing it would improve
+	// the objective.
+	Constrained
+
+	// EvaluationLimit: the local search from the best layout found
+	// stopped at its evaluation budget before it converged; the result is
+	// the best layout seen, not a converged optimum.
+	EvaluationLimit
+)
+
+// String returns the status's name.
+func (s Status) String() string {
+	switch s {
+	case Converged:
+		return "Converged"
+	case Constrained:
+		return "Constrained"
+	case EvaluationLimit:
+		return "EvaluationLimit"
+	}
+	return fmt.Sprintf("Status(%d)", int(s))
 }
 
 // FrontPoint is one layout of a trade-off curve.
@@ -217,6 +254,12 @@ func Optimize(c Coupling, s Scenario, opt *OptimizeOptions) (Optimum, error) {
 	}
 	res.Value = figure(o.Objective, &res.Score)
 	res.Binding = p.binding(best.x, &res.Score)
+	switch {
+	case p.limited[best.combo]:
+		res.Status = EvaluationLimit
+	case len(res.Binding) > 0:
+		res.Status = Constrained
+	}
 	if baz, ok := p.bisectorAzimuths(); ok && p.ownCombo >= 0 {
 		_, in := p.vars(baz)
 		p.setLayout(baz, make([]r3.Vec, len(p.pairs)), nil, p.ownCombo)
@@ -316,6 +359,10 @@ type optProblem struct {
 	pairs []optPair
 	nvar  int
 	evals int
+
+	// limited reports, per half-angle combination, whether the last
+	// search's polish of its best layout ran out of evaluations.
+	limited []bool
 
 	combos   [][]float64 // half-angle choices, one per groove pair, per combination
 	ownCombo int         // index of the drawn half-angles in combos (−1 if not there)
@@ -774,6 +821,7 @@ func (p *optProblem) search(obj Objective, extra *bound) (candidate, bool) {
 	}
 	rng := rand.New(rand.NewPCG(p.o.Seed, 0x5eed))
 	grid := p.grid(rng)
+	p.limited = make([]bool, len(p.combos))
 	for k := range p.combos {
 		var starts, tried []candidate
 		own, in := p.ownVars()
@@ -822,7 +870,8 @@ func (p *optProblem) search(obj Objective, extra *bound) (candidate, bool) {
 		// Polish the best with a small simplex: the figures are minima
 		// and maxima of smooth ones, where a large simplex stalls.
 		if best.ok && best.combo == k {
-			_, _ = optimize.Minimize(problem, append([]float64(nil), best.x...), settings, &optimize.NelderMead{SimplexSize: 0.01})
+			r, _ := optimize.Minimize(problem, append([]float64(nil), best.x...), settings, &optimize.NelderMead{SimplexSize: 0.01})
+			p.limited[k] = r != nil && r.Status == optimize.FunctionEvaluationLimit
 		}
 	}
 	return best, best.ok

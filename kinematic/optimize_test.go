@@ -127,8 +127,8 @@ func TestOptimizeBinding(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if len(free.Binding) != 0 {
-		t.Errorf("unconstrained: binding %v", free.Binding)
+	if len(free.Binding) != 0 || free.Status != Converged {
+		t.Errorf("unconstrained: binding %v, status %v", free.Binding, free.Status)
 	}
 	b := free.Azimuths[1]
 	all := Window{Min: -math.Pi / 2, Max: math.Pi / 2}
@@ -140,6 +140,9 @@ func TestOptimizeBinding(t *testing.T) {
 	found := false
 	for _, bd := range res.Binding {
 		found = found || bd == "Windows[1].Min"
+	}
+	if res.Status != Constrained {
+		t.Errorf("window excluding the optimum: status %v, want Constrained", res.Status)
 	}
 	if !found || math.Abs(wrapAzimuth(res.Azimuths[1]-(b+0.2))) > 1e-6 {
 		t.Errorf("window excluding the optimum: binding %v, groove B at %g (edge %g)", res.Binding, res.Azimuths[1], b+0.2)

@@ -10,9 +10,9 @@ import (
 	"github.com/sixfold-dev/sixfold/screw"
 )
 
-// SeatOptions holds options for [Assembly.Seat]; the zero value and a nil
+// PoseOptions holds options for [Assembly.Pose]; the zero value and a nil
 // pointer mean defaults.
-type SeatOptions struct {
+type PoseOptions struct {
 	// Approach holds, per contact in the order of [Coupling.Contacts],
 	// an elastic approach in m by which the surfaces overlap when seated
 	// under preload (for example Statics(...).Contacts[i].Hertz.Approach).
@@ -109,7 +109,7 @@ func (a *Assembly) apply(g *geom, k int, v float64) {
 	}
 }
 
-// Seat returns the exact pose of the moving body with the deviations
+// Pose returns the exact pose of the moving body with the deviations
 // applied (in the order given; finite rotations do not commute, which
 // changes the result at second order): the rotation and translation at
 // which every ball touches each of its seat surfaces, found by Newton's
@@ -118,13 +118,13 @@ func (a *Assembly) apply(g *geom, k int, v float64) {
 // steps are x = −Σ (gᵢ + aᵢ) Tᵢ with the twists Tᵢ of power δᵢⱼ; the
 // convergence is quadratic. A perfect coupling seats at the nominal pose.
 //
-// Seat returns an [*InputError] naming "devs[i]" for an unknown dimension
+// Pose returns an [*InputError] naming "devs[i]" for an unknown dimension
 // or a value that is not finite, "opt.Approach" for a list of the wrong
 // length or a bad value, and one wrapping [ErrRange] naming the pair when
 // a ball cannot reach its seat: a ball radius that is not positive, a
 // contact that moves more than half its ball's radius across its seat, or
 // no convergence.
-func (a *Assembly) Seat(devs []Deviation, opt *SeatOptions) (Pose, error) {
+func (a *Assembly) Pose(devs []Deviation, opt *PoseOptions) (Pose, error) {
 	g := a.nominal()
 	for i, d := range devs {
 		k, ok := a.index[d.Dimension]
@@ -137,7 +137,7 @@ func (a *Assembly) Seat(devs []Deviation, opt *SeatOptions) (Pose, error) {
 		}
 		a.apply(&g, k, d.Value)
 	}
-	var o SeatOptions
+	var o PoseOptions
 	if opt != nil {
 		o = *opt
 	}

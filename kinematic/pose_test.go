@@ -43,7 +43,7 @@ func generalAssemblies(t testing.TB) map[string]*Assembly {
 // of its size.
 func TestSeatNominal(t *testing.T) {
 	for name, a := range generalAssemblies(t) {
-		p, err := a.Seat(nil, nil)
+		p, err := a.Pose(nil, nil)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -71,7 +71,7 @@ func TestSeatBallRadius(t *testing.T) {
 			t.Fatal(err)
 		}
 		for _, dr := range []float64{1e-6, -2e-5, 1e-4} {
-			p, err := a.Seat([]Deviation{{"A.Ball.Radius", dr}}, nil)
+			p, err := a.Pose([]Deviation{{"A.Ball.Radius", dr}}, nil)
 			if err != nil {
 				t.Fatal(err)
 			}
@@ -114,7 +114,7 @@ func TestSeatSecondOrder(t *testing.T) {
 				ds[i] = Deviation{d.Dimension, d.Value * scale}
 				lin = r3.Add(lin, r3.Scale(d.Value*scale, sens[i].Displacement))
 			}
-			p, err := a.Seat(ds, nil)
+			p, err := a.Pose(ds, nil)
 			if err != nil {
 				t.Fatal(err)
 			}
@@ -144,7 +144,7 @@ func TestSeatAgainstMinimiser(t *testing.T) {
 		for i, d := range dims {
 			devs = append(devs, Deviation{d, 3e-5 * math.Cos(float64(5*i+2))})
 		}
-		p, err := a.Seat(devs, nil)
+		p, err := a.Pose(devs, nil)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -209,11 +209,11 @@ func TestSeatScale(t *testing.T) {
 			devs2[i].Value *= 1000
 		}
 	}
-	p1, err := a1.Seat(devs, nil)
+	p1, err := a1.Pose(devs, nil)
 	if err != nil {
 		t.Fatal(err)
 	}
-	p2, err := a2.Seat(devs2, nil)
+	p2, err := a2.Pose(devs2, nil)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -230,19 +230,19 @@ func TestSeatScale(t *testing.T) {
 func TestSeatErrors(t *testing.T) {
 	a := generalAssemblies(t)["three-vee"]
 	var ie *InputError
-	if _, err := a.Seat([]Deviation{{"A.Ball.Radius", 1e-6}, {"Z.Ball.Radius", 1e-6}}, nil); !errors.As(err, &ie) || ie.Field != "devs[1].Dimension" {
+	if _, err := a.Pose([]Deviation{{"A.Ball.Radius", 1e-6}, {"Z.Ball.Radius", 1e-6}}, nil); !errors.As(err, &ie) || ie.Field != "devs[1].Dimension" {
 		t.Errorf("unknown dimension: %v", err)
 	}
-	if _, err := a.Seat([]Deviation{{"A.Ball.Radius", math.NaN()}}, nil); !errors.Is(err, ErrNonFinite) {
+	if _, err := a.Pose([]Deviation{{"A.Ball.Radius", math.NaN()}}, nil); !errors.Is(err, ErrNonFinite) {
 		t.Errorf("NaN deviation: %v", err)
 	}
-	if _, err := a.Seat([]Deviation{{"A.Ball.Radius", -6e-3}}, nil); !errors.As(err, &ie) || ie.Field != "Pairs[0]" {
+	if _, err := a.Pose([]Deviation{{"A.Ball.Radius", -6e-3}}, nil); !errors.As(err, &ie) || ie.Field != "Pairs[0]" {
 		t.Errorf("negative radius: %v", err)
 	}
-	if _, err := a.Seat([]Deviation{{"B.Seat.Flank+", 4e-3}}, nil); !errors.Is(err, ErrRange) {
+	if _, err := a.Pose([]Deviation{{"B.Seat.Flank+", 4e-3}}, nil); !errors.Is(err, ErrRange) {
 		t.Errorf("a flank 4 mm high: %v", err)
 	}
-	if _, err := a.Seat(nil, &SeatOptions{Approach: []float64{1}}); !errors.As(err, &ie) || ie.Field != "opt.Approach" {
+	if _, err := a.Pose(nil, &PoseOptions{Approach: []float64{1}}); !errors.As(err, &ie) || ie.Field != "opt.Approach" {
 		t.Errorf("short approach list: %v", err)
 	}
 	v := vee45

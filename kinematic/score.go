@@ -79,7 +79,7 @@ type Scorecard struct {
 	// AmplificationRSS its root sum of squares; AxisAmplification the
 	// worst along Axis (0 without one); Tilt and TiltRSS the same for
 	// the rotation, rad/m (µrad per µm). Lower is better. See
-	// [PointError].
+	// [Amplification].
 	Amplification, AmplificationRSS, AxisAmplification float64
 	Tilt, TiltRSS                                      float64
 
@@ -121,7 +121,7 @@ type Scorecard struct {
 // Score returns the design figures of the coupling, which must be exactly
 // constrained, in the scenario. Every figure comes from the one
 // factorisation of the 6×6 contact matrix and agrees with the API it
-// summarises ([Stability.ErrorAt], [Model.Shock], [Model.Stiffness],
+// summarises ([Stability.Amplification], [Model.Shock], [Model.Stiffness],
 // [Stiffness.Compliance], [Stiffness.Modes], [Assembly.Drift]).
 //
 // The stiffness figures (Stiffness, AxisCompliance, FirstFrequency) need
@@ -163,7 +163,7 @@ const (
 // seat ideals, expansion data) is held, and the contact lines are set by
 // the caller (the optimiser) or by newScorer. Every figure comes from the
 // kernel the public API uses: maxwell (Stability), pointError and
-// alongAxis (Stability.ErrorAt), contactForce (Model's statics),
+// alongAxis (Stability.Amplification), contactForce (Model's statics),
 // normalStiffness and stiffnessOf (Model.Stiffness), thermalGap and
 // thermalCentre (Assembly.Drift).
 type scorer struct {

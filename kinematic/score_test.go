@@ -53,7 +53,7 @@ func TestScoreAgreesWithAPIs(t *testing.T) {
 	// Every vee is 90°: the ideal is |sin 90°| = 1.
 	near("Maxwell ratio", card.MaxwellRatio, weakC, 1e-9)
 	near("condition", card.Condition, an.Condition, 1e-9)
-	pe, _ := st.ErrorAt(s.Point)
+	pe, _ := st.Amplification(s.Point)
 	near("amplification", card.Amplification, pe.Worst, 1e-9)
 	near("amplification RSS", card.AmplificationRSS, pe.RSS, 1e-9)
 	near("tilt", card.Tilt, pe.WorstTilt, 1e-9)

@@ -125,11 +125,11 @@ type Shock struct {
 
 // ShockContact is one contact under the worst shock.
 type ShockContact struct {
-	Label string
-	Base  float64 // N, the force in the base case
-	Gain  float64 // N per m/s²: the largest change of force per unit acceleration, in any direction
-	Worst r3.Vec  // unit direction of the base's acceleration that unloads this contact soonest
-	Least float64 // N, the smallest force at Magnitude in any direction: Base − Magnitude·Gain
+	Label     string
+	Base      float64 // N, the force in the base case
+	Gain      float64 // N per m/s²: the largest change of force per unit acceleration, in any direction
+	Direction r3.Vec  // unit direction of the base's acceleration that unloads this contact soonest
+	Least     float64 // N, the smallest force at Magnitude in any direction: Base − Magnitude·Gain
 	// Unload is the acceleration magnitude in m/s² along Worst at which
 	// the contact unloads, Base/Gain (+Inf when Gain is 0; 0 when Base ≤ 0).
 	Unload float64
@@ -175,7 +175,7 @@ func (m *Model) Shock(base LoadCase, magnitude float64) (Shock, error) {
 		sc := &s.Contacts[i]
 		sc.Label, sc.Base, sc.Gain = labelOf(m.lines[i].label, i), f[i], linalg.Norm3(g)
 		if sc.Gain > 0 {
-			sc.Worst = r3.Scale(-1/sc.Gain, g)
+			sc.Direction = r3.Scale(-1/sc.Gain, g)
 		}
 		sc.Least = f[i] - magnitude*sc.Gain
 		switch {
@@ -191,7 +191,7 @@ func (m *Model) Shock(base LoadCase, magnitude float64) (Shock, error) {
 	for _, sc := range s.Contacts {
 		if sc.Unload <= s.Unload*(1+unloadTol) && !math.IsInf(sc.Unload, 1) {
 			if s.First == nil {
-				s.Direction = sc.Worst
+				s.Direction = sc.Direction
 			}
 			s.First = append(s.First, sc.Label)
 		}

@@ -39,7 +39,7 @@ type Stiffness struct {
 
 	k       [36]float64 // scaled (V, W·L) → (F, M/L) about origin
 	origin  r3.Vec
-	L       float64
+	length  float64
 	payload Payload // Centre about origin
 }
 
@@ -129,7 +129,7 @@ func (m *Model) Stiffness(lc LoadCase, opt *StiffnessOptions) (Stiffness, error)
 		t1 := linalg.AnyNormal(l.n)
 		t2 := r3.Cross(l.n, t1)
 		for _, t := range [2]r3.Vec{t1, t2} {
-			g := scaledWrench(screw.Wrench{F: t, M: r3.Cross(l.p, t)}, st.L)
+			g := scaledWrench(screw.Wrench{F: t, M: r3.Cross(l.p, t)}, st.length)
 			addOuter(&st.k, kt, &g)
 		}
 	}
@@ -149,7 +149,7 @@ func stiffnessOf(ls []line, kn []float64, ps []preloadLine, origin r3.Vec, L flo
 	if !(L > 0) {
 		L = 1
 	}
-	st := Stiffness{origin: origin, L: L, payload: payload}
+	st := Stiffness{origin: origin, length: L, payload: payload}
 	for i := range ls {
 		if kn[i] == 0 {
 			continue
@@ -202,10 +202,10 @@ func (s Stiffness) Matrix(about r3.Vec) [6][6]float64 {
 			// for y = (V, W·L), g = (F, M/L).
 			f := 1.0
 			if a >= 3 {
-				f *= s.L
+				f *= s.length
 			}
 			if b >= 3 {
-				f *= s.L
+				f *= s.length
 			}
 			k[a][b] = s.k[6*a+b] * f
 		}
@@ -296,10 +296,10 @@ func (s Stiffness) Compliance(at r3.Vec) (Compliance, error) {
 		for b := range 6 {
 			f := 1.0
 			if a >= 3 {
-				f /= s.L
+				f /= s.length
 			}
 			if b >= 3 {
-				f /= s.L
+				f /= s.length
 			}
 			co[a][b] = cs[a][b] * f
 		}

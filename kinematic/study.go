@@ -15,9 +15,12 @@ import (
 	"github.com/sixfold-dev/sixfold/internal/linalg"
 )
 
-// StudyOptions holds options for [Assembly.Study].
+// StudyOptions holds options for [Assembly.Study]; the zero value and a
+// nil pointer mean defaults: 100 000 first-order samples with seed 0 on
+// GOMAXPROCS workers.
 type StudyOptions struct {
-	// Samples is the number of parts drawn, > 0 and at most 1e7.
+	// Samples is the number of parts drawn, at most 1e7; zero means
+	// 100 000, enough for the 99.73rd percentile to rest on 270 samples.
 	Samples int
 
 	// Seed makes the study reproducible: the same seed gives the same
@@ -27,7 +30,7 @@ type StudyOptions struct {
 	// Workers is the number of goroutines; zero means GOMAXPROCS.
 	Workers int
 
-	// Exact seats every sample with the exact model ([Assembly.Seat])
+	// Exact seats every sample with the exact model ([Assembly.Pose])
 	// instead of the first-order one ([Assembly.Sensitivities]).
 	Exact bool
 
@@ -72,6 +75,10 @@ type StudyResult struct {
 // maxSamples bounds a study's memory: 32 bytes a sample.
 const maxSamples = 10_000_000
 
+// defaultSamples is the number of samples of a study whose options leave
+// it zero.
+const defaultSamples = 100_000
+
 // studyBlock is the number of samples drawn from one random stream: block
 // k uses the stream PCG(seed, k), so the samples do not depend on which
 // worker draws them.
@@ -86,14 +93,19 @@ const studyBlock = 4096
 // [Model.Repeatability]'s question.
 //
 // The study stops early with ctx's error when ctx is cancelled.
-// Errors are those of [Assembly.Budget] and [Assembly.Seat] (for the
-// calibration), and an [*InputError] naming "opt" when it is nil,
-// "opt.Samples" out of range or "opt.Workers" negative.
+// Errors are those of [Assembly.Budget] and [Assembly.Pose] (for the
+// calibration), and an [*InputError] naming "opt.Samples" out of range or
+// "opt.Workers" negative.
 func (a *Assembly) Study(ctx context.Context, p r3.Vec, tols []Tolerance, opt *StudyOptions) (StudyResult, error) {
-	if opt == nil {
-		return StudyResult{}, &InputError{Field: "opt", Err: fmt.Errorf("%w: a study needs options (at least Samples)", ErrRange)}
+	var o StudyOptions
+	if opt != nil {
+		o = *opt
 	}
-	if opt.Samples <= 0 || opt.Samples > maxSamples {
+	if o.Samples == 0 {
+		o.Samples = defaultSamples
+	}
+	opt = &o
+	if opt.Samples < 0 || opt.Samples > maxSamples {
 		return StudyResult{}, &InputError{Field: "opt.Samples", Err: fmt.Errorf("%w: must be in [1, %d], got %d", ErrRange, maxSamples, opt.Samples)}
 	}
 	if opt.Workers < 0 {
@@ -124,7 +136,11 @@ func (a *Assembly) newSampler(p r3.Vec, tols []Tolerance, opt *StudyOptions) (*s
 	s.lim = make([]float64, len(tols))
 	s.normal = make([]bool, len(tols))
 	for i, t := range tols {
-		s.lim[i], s.normal[i] = t.Value, t.Distribution == Normal
+		if t.Sigma > 0 {
+			s.lim[i], s.normal[i] = t.Sigma, true
+		} else {
+			s.lim[i] = t.HalfWidth
+		}
 	}
 	// The calibrated part: its geometry for the exact model, its
 	// first-order displacement for the linear one.

@@ -15,10 +15,10 @@ import (
 // a half-angle.
 func studyTolerances() []Tolerance {
 	return []Tolerance{
-		{"A.Ball.Radius", 1e-6, Normal}, {"B.Ball.Radius", 1e-6, Normal}, {"C.Ball.Radius", 1e-6, Normal},
-		{"A.Ball.X", 2e-6, Normal}, {"B.Ball.Y", 2e-6, Normal}, {"C.Ball.Z", 2e-6, Normal},
-		{"A.Seat.X", 3e-6, Normal}, {"B.Seat.Z", 3e-6, Normal}, {"C.Seat.Turn", 1e-4, Normal},
-		{"B.Seat.HalfAngle", 2e-4, Normal}, {"C.Seat.Flank+", 1e-6, Normal},
+		{Dimension: "A.Ball.Radius", Sigma: 1e-6}, {Dimension: "B.Ball.Radius", Sigma: 1e-6}, {Dimension: "C.Ball.Radius", Sigma: 1e-6},
+		{Dimension: "A.Ball.X", Sigma: 2e-6}, {Dimension: "B.Ball.Y", Sigma: 2e-6}, {Dimension: "C.Ball.Z", Sigma: 2e-6},
+		{Dimension: "A.Seat.X", Sigma: 3e-6}, {Dimension: "B.Seat.Z", Sigma: 3e-6}, {Dimension: "C.Seat.Turn", Sigma: 1e-4},
+		{Dimension: "B.Seat.HalfAngle", Sigma: 2e-4}, {Dimension: "C.Seat.Flank+", Sigma: 1e-6},
 	}
 }
 
@@ -45,7 +45,7 @@ func TestStudyLinearMoments(t *testing.T) {
 	var vx, vy, vz float64
 	for i, k := range idx {
 		j := sens[k].Displacement
-		s := tols[i].Value
+		s := tols[i].Sigma
 		vx, vy, vz = vx+j.X*j.X*s*s, vy+j.Y*j.Y*s*s, vz+j.Z*j.Z*s*s
 	}
 	for _, c := range []struct {
@@ -89,7 +89,7 @@ func TestStudyLinearMoments(t *testing.T) {
 func TestStudyReproducible(t *testing.T) {
 	a := generalAssemblies(t)["socket-vee-flat"]
 	p := r3.Vec{Z: 0.04}
-	tols := []Tolerance{{"A.Ball.Radius", 2e-6, Uniform}, {"B.Seat.Y", 5e-6, Uniform}, {"C.Seat.Height", 3e-6, Normal}, {"B.Seat.Turn", 1e-4, Uniform}}
+	tols := []Tolerance{{Dimension: "A.Ball.Radius", HalfWidth: 2e-6}, {Dimension: "B.Seat.Y", HalfWidth: 5e-6}, {Dimension: "C.Seat.Height", Sigma: 3e-6}, {Dimension: "B.Seat.Turn", HalfWidth: 1e-4}}
 	run := func(workers int, seed uint64, exact bool) StudyResult {
 		var last, total int
 		res, err := a.Study(context.Background(), p, tols, &StudyOptions{
@@ -130,16 +130,24 @@ func TestStudyReproducible(t *testing.T) {
 	if _, err := a.Study(ctx, p, tols, &StudyOptions{Samples: 100000}); !errors.Is(err, context.Canceled) {
 		t.Errorf("cancelled study: %v", err)
 	}
-	for _, o := range []*StudyOptions{nil, {Samples: 0}, {Samples: 10, Workers: -1}} {
+	for _, o := range []*StudyOptions{{Samples: -1}, {Samples: 10_000_001}, {Samples: 10, Workers: -1}} {
 		if _, err := a.Study(context.Background(), p, tols, o); !errors.Is(err, ErrRange) {
 			t.Errorf("options %+v: %v", o, err)
 		}
 	}
+	// Nil options and zero Samples mean the documented default of 100 000
+	// first-order samples.
+	for _, o := range []*StudyOptions{nil, {}} {
+		res, err := a.Study(context.Background(), p, tols, o)
+		if err != nil || res.Samples != 100_000 {
+			t.Errorf("options %+v: %d samples, %v; want the documented 100 000", o, res.Samples, err)
+		}
+	}
 	var ie *InputError
-	if _, err := a.Study(context.Background(), p, []Tolerance{{"A.Ball.Radius", -1, Uniform}}, &StudyOptions{Samples: 10}); !errors.As(err, &ie) || ie.Field != "tols[0].Value" {
+	if _, err := a.Study(context.Background(), p, []Tolerance{{Dimension: "A.Ball.Radius", HalfWidth: -1}}, &StudyOptions{Samples: 10}); !errors.As(err, &ie) || ie.Field != "tols[0].HalfWidth" {
 		t.Errorf("negative tolerance: %v", err)
 	}
-	if _, err := a.Study(context.Background(), p, []Tolerance{{"A.Ball.Radius", 1, Uniform}, {"A.Ball.Radius", 1, Uniform}}, &StudyOptions{Samples: 10}); !errors.As(err, &ie) || ie.Field != "tols[1].Dimension" {
+	if _, err := a.Study(context.Background(), p, []Tolerance{{Dimension: "A.Ball.Radius", HalfWidth: 1}, {Dimension: "A.Ball.Radius", HalfWidth: 1}}, &StudyOptions{Samples: 10}); !errors.As(err, &ie) || ie.Field != "tols[1].Dimension" {
 		t.Errorf("repeated dimension: %v", err)
 	}
 }

@@ -60,7 +60,7 @@ type Drift struct {
 //
 // Drift returns an [*InputError] naming "th.DeltaT", "th.Moving",
 // "th.Base", "th.BaseRef" or "p" for numbers that are not finite, and the
-// errors of [Assembly.Seat].
+// errors of [Assembly.Pose].
 func (a *Assembly) Drift(th Thermal, p r3.Vec) (Drift, error) {
 	for _, f := range []struct {
 		name string

@@ -43,7 +43,7 @@ func (s Stiffness) Modes() ([6]Mode, error) {
 	if p.Inertia == ([3][3]float64{}) {
 		return modes, &InputError{Field: "payload.Inertia", Err: fmt.Errorf("%w: natural frequencies need the payload's inertia tensor", ErrDegenerate)}
 	}
-	L := s.L
+	L := s.length
 	// Scaled mass matrix for y = (V, W·L), V at the origin o, centre
 	// c = com − o: the kinetic energy ½m|V + W × c|² + ½WᵀJW gives
 	// M_VV = mI, M_VW = −m[c]×, M_WW = J − m[c]×², then D M D.

@@ -206,12 +206,12 @@ func TestLinesMeetingALine(t *testing.T) {
 		if math.Abs(ax.Pitch) > 1e-12*an.Length {
 			t.Errorf("pitch %g m/rad, want 0", ax.Pitch)
 		}
-		if math.Abs(math.Abs(r3.Dot(ax.Dir, e))-1) > 1e-12 {
-			t.Errorf("axis direction %v, want ±%v", ax.Dir, e)
+		if math.Abs(math.Abs(r3.Dot(ax.Direction, e))-1) > 1e-12 {
+			t.Errorf("axis direction %v, want ±%v", ax.Direction, e)
 		}
 		// The axis passes through a: the distance of a from the axis line.
 		off := r3.Sub(a, ax.Point)
-		if d := r3.Norm(r3.Cross(off, ax.Dir)); d > 1e-12*an.Length {
+		if d := r3.Norm(r3.Cross(off, ax.Direction)); d > 1e-12*an.Length {
 			t.Errorf("axis misses the common line by %g m", d)
 		}
 	}
@@ -237,7 +237,7 @@ func TestConcurrentLines(t *testing.T) {
 		if math.Abs(ax.Pitch) > 1e-12*r3.Norm(c) {
 			t.Errorf("free twist %d: pitch %g, want 0", i, ax.Pitch)
 		}
-		if d := r3.Norm(r3.Cross(r3.Sub(c, ax.Point), ax.Dir)); d > 1e-12*r3.Norm(c) {
+		if d := r3.Norm(r3.Cross(r3.Sub(c, ax.Point), ax.Direction)); d > 1e-12*r3.Norm(c) {
 			t.Errorf("free twist %d: axis misses the common point by %g m", i, d)
 		}
 		// The point does not move.

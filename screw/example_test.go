@@ -43,7 +43,7 @@ func ExampleAnalyze() {
 	fmt.Printf("constraints: %d, free motions: %d\n", an.Rank, len(an.Free))
 	ax := an.Free[0].Axis()
 	fmt.Printf("free: rotation about (%.0f, %.0f, %.0f) through (%.1f, %.1f) mm, pitch %.1f mm/rad\n",
-		ax.Dir.X, ax.Dir.Y, ax.Dir.Z, ax.Point.X*1e3, ax.Point.Y*1e3, ax.Pitch*1e3)
+		ax.Direction.X, ax.Direction.Y, ax.Direction.Z, ax.Point.X*1e3, ax.Point.Y*1e3, ax.Pitch*1e3)
 	// Output:
 	// constraints: 5, free motions: 1
 	// free: rotation about (0, 0, 1) through (0.0, 0.0) mm, pitch 0.0 mm/rad

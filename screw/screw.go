@@ -25,15 +25,15 @@ type Wrench struct {
 }
 
 // Axis is the screw axis of a twist: the line through Point with unit
-// direction Dir, and the pitch in metres per radian (the translation along
-// Dir per radian of rotation about it). Point is the point of the line
-// nearest the origin. A pure translation has Pitch = +Inf, Dir along the
-// translation and Point at the origin. The zero Axis (Dir zero) stands for
+// direction Direction, and the pitch in metres per radian (the translation along
+// Direction per radian of rotation about it). Point is the point of the line
+// nearest the origin. A pure translation has Pitch = +Inf, Direction along the
+// translation and Point at the origin. The zero Axis (Direction zero) stands for
 // no motion.
 type Axis struct {
-	Point r3.Vec
-	Dir   r3.Vec
-	Pitch float64
+	Point     r3.Vec
+	Direction r3.Vec
+	Pitch     float64
 }
 
 // Line returns the wrench of a unit force, in newtons, acting along the line
@@ -105,15 +105,15 @@ func (t Twist) Axis() Axis {
 		if !ok {
 			return Axis{}
 		}
-		return Axis{Dir: v, Pitch: math.Inf(1)}
+		return Axis{Direction: v, Pitch: math.Inf(1)}
 	}
 	// |W|·d = W: point W×V/|W|² = d×V/|W|, pitch W·V/|W|² = d·V/|W|.
 	w := linalg.Norm3(t.W)
 	p := r3.Cross(d, t.V)
 	return Axis{
-		Point: r3.Vec{X: p.X / w, Y: p.Y / w, Z: p.Z / w}, // not ·(1/w), which overflows for subnormal w
-		Dir:   d,
-		Pitch: r3.Dot(d, t.V) / w,
+		Point:     r3.Vec{X: p.X / w, Y: p.Y / w, Z: p.Z / w}, // not ·(1/w), which overflows for subnormal w
+		Direction: d,
+		Pitch:     r3.Dot(d, t.V) / w,
 	}
 }
 

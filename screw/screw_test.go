@@ -119,8 +119,8 @@ func TestAxis(t *testing.T) {
 	if got, want := ax.Pitch, lead/(2*math.Pi); math.Abs(got-want) > 4e-16*r3.Norm(tw.V)/omega {
 		t.Errorf("pitch = %.17g, want %.17g", got, want)
 	}
-	if !near(ax.Dir, e, 1e-15) {
-		t.Errorf("dir = %v, want %v", ax.Dir, e)
+	if !near(ax.Direction, e, 1e-15) {
+		t.Errorf("dir = %v, want %v", ax.Direction, e)
 	}
 	// a is the point of the axis nearest the origin, since a ⊥ e.
 	if !near(ax.Point, a, 1e-15) {
@@ -133,7 +133,7 @@ func TestAxisSpecial(t *testing.T) {
 		t.Errorf("zero twist: Axis = %v, want the zero Axis", got)
 	}
 	got := Twist{V: r3.Vec{Y: -4}}.Axis()
-	if !math.IsInf(got.Pitch, 1) || got.Dir != (r3.Vec{Y: -1}) || got.Point != (r3.Vec{}) {
+	if !math.IsInf(got.Pitch, 1) || got.Direction != (r3.Vec{Y: -1}) || got.Point != (r3.Vec{}) {
 		t.Errorf("translation: Axis = %v, want pitch +Inf along -y", got)
 	}
 	// A pure rotation has pitch exactly 0; its axis point is
@@ -148,11 +148,11 @@ func TestAxisSpecial(t *testing.T) {
 	// to zero; a translation at subnormal speed has a direction.
 	s := 0x1p-1074
 	got = Twist{W: r3.Vec{Z: s}, V: r3.Vec{X: 0x1p-1040, Z: 3 * 0x1p-1040}}.Axis()
-	if got.Dir != (r3.Vec{Z: 1}) || got.Pitch != 3*0x1p34 || got.Point != (r3.Vec{Y: 0x1p34}) {
+	if got.Direction != (r3.Vec{Z: 1}) || got.Pitch != 3*0x1p34 || got.Point != (r3.Vec{Y: 0x1p34}) {
 		t.Errorf("subnormal W: Axis = %v, want pitch 3·2³⁴ along z through (0, 2³⁴, 0)", got)
 	}
 	got = Twist{V: r3.Vec{X: -s}}.Axis()
-	if got.Dir != (r3.Vec{X: -1}) || !math.IsInf(got.Pitch, 1) {
+	if got.Direction != (r3.Vec{X: -1}) || !math.IsInf(got.Pitch, 1) {
 		t.Errorf("subnormal translation: Axis = %v, want pitch +Inf along −x", got)
 	}
 }

@@ -310,13 +310,13 @@ func (s *study) loads(d *design.Design, m *kinematic.Model, ev design.Evaluation
 	s.printf("transport shock of %.1f g in the worst direction on case %q: least force %.2f N at %s; %s\n",
 		s.shockG, base.Name, least, at, verdict)
 	s.printf("the first contact unloads at %.2f g (%s)\n", sh.Unload/g0, strings.Join(sh.First, ", "))
-	if ev.Seating != nil {
-		st := ev.Seating
+	if ev.Homing != nil {
+		st := ev.Homing
 		ok := "slides home"
-		if !st.Seats {
+		if !st.Home {
 			ok = "does NOT slide home"
 		}
-		s.printf("friction seating at μ = %.2f under case %q: the cassette %s; it still does up to μ = %.3f\n", st.Mu, ev.SeatingCase, ok, st.MaxMu)
+		s.printf("friction seating at μ = %.2f under case %q: the cassette %s; it still does up to μ = %.3f\n", st.Mu, ev.HomingCase, ok, st.MaxMu)
 	}
 	return nil
 }
@@ -362,7 +362,7 @@ func (s *study) budget(ctx context.Context, d *design.Design, a *kinematic.Assem
 			}
 			s.printf("%-20s ±%9.2f %-6s %10.3f %9.1f%%\n", c.Dimension, v, unit, c.Effect*1e6, 100*c.Share)
 		}
-		s.printf("worst case %.2f µm, RSS %.2f µm, standard deviation %.2f µm (first order)\n", b.WorstCase*1e6, b.RSS*1e6, b.Sigma*1e6)
+		s.printf("worst case %.2f µm, RSS %.2f µm, standard deviation %.2f µm (first order)\n", b.Worst*1e6, b.RSS*1e6, b.Sigma*1e6)
 	}
 	var study *kinematic.StudyResult
 	if len(d.Tolerances) > 0 {

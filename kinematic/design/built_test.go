@@ -89,7 +89,7 @@ func TestNoKinematicNames(t *testing.T) {
 		{"repeated dimension", func(d *Design) {
 			d.Tolerances = append(d.Tolerances, d.Tolerances[0])
 		}, "tolerances[1].dimension"},
-		{"negative tolerance", func(d *Design) { d.Tolerances[0].Value = -1e-6 }, "tolerances[0].value"},
+		{"negative tolerance", func(d *Design) { d.Tolerances[0].HalfWidth = -1e-6 }, "tolerances[0].value"},
 		{"negative shock", func(d *Design) { d.Requirements.MinShock = -1 }, "requirements.min_shock.level"},
 		{"monte carlo samples", func(d *Design) { d.MonteCarlo = &MonteCarlo{Samples: 0} }, "monte_carlo.samples"},
 	} {

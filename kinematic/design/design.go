@@ -194,12 +194,12 @@ type Requirements struct {
 	MinFrequency  float64
 	FrequencyCase string
 
-	// MaxWorstCase and MaxRSS bound the first-order error budget of the
-	// point of interest, m (kinematic.Budget WorstCase and RSS; along Axis
+	// MaxWorst and MaxRSS bound the first-order error budget of the
+	// point of interest, m (kinematic.Budget Worst and RSS; along Axis
 	// with AlongAxis).
-	MaxWorstCase float64
-	MaxRSS       float64
-	AlongAxis    bool
+	MaxWorst  float64
+	MaxRSS    float64
+	AlongAxis bool
 
 	// MaxStudy bounds the Monte Carlo study's radial displacement of the
 	// point of interest at StudyPercentile, m.
@@ -210,10 +210,10 @@ type Requirements struct {
 	// interest over Thermal.DeltaT, m.
 	MaxThermalDrift float64
 
-	// Seating requires the body to seat against the friction Friction.Mu
-	// under case SeatingCase (kinematic.Model.Seating).
-	Seating     bool
-	SeatingCase string
+	// Homing requires the body to seat against the friction Friction.Mu
+	// under case SeatingCase (kinematic.Model.Homing).
+	Homing     bool
+	HomingCase string
 }
 
 var zeroVec r3.Vec

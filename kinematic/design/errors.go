@@ -181,6 +181,9 @@ func (t translator) field(f string) string {
 	}
 	head, rest, _ := strings.Cut(f, ".")
 	name, i, indexed := splitIndex(head)
+	if name == "tols" && (rest == "HalfWidth" || rest == "Sigma") {
+		rest = "Value" // the file gives either as "value" with its "distribution"
+	}
 	if q, ok := t.params[name]; ok {
 		if indexed {
 			q = index(q, i)

@@ -23,9 +23,9 @@ type Evaluation struct {
 	Stability kinematic.Stability
 	Weakest   int
 
-	// PointError is the error amplification at the point of interest:
+	// Amplification is the error amplification at the point of interest:
 	// its displacement per unit gap error at each contact.
-	PointError kinematic.PointError
+	Amplification kinematic.Amplification
 
 	// Cases holds the rigid statics of every load case, in the design's
 	// order, with each contact's Hertz stresses against the allowable.
@@ -46,10 +46,10 @@ type Evaluation struct {
 	Shock     *kinematic.Shock
 	ShockCase string
 
-	// Seating is whether the body seats against the design's friction
+	// Homing is whether the body seats against the design's friction
 	// under case SeatingCase. Nil without friction or load cases.
-	Seating     *kinematic.Seating
-	SeatingCase string
+	Homing     *kinematic.Homing
+	HomingCase string
 
 	// Stiffness is the coupling's stiffness under case StiffnessCase (the
 	// frequency requirement's case, else the first); Compliance is its
@@ -63,12 +63,12 @@ type Evaluation struct {
 	StiffnessCase string
 
 	// Budget is the first-order error budget of the point of interest
-	// for the tolerances, and AxisWorstCase and AxisRSS its worst case
+	// for the tolerances, and AxisWorst and AxisRSS its worst case
 	// and RSS along the design's axis, m (zero without an axis). Nil
 	// without tolerances.
-	Budget        *kinematic.Budget
-	AxisWorstCase float64
-	AxisRSS       float64
+	Budget    *kinematic.Budget
+	AxisWorst float64
+	AxisRSS   float64
 
 	// Study is the Monte Carlo study of the point of interest. Nil
 	// without monte_carlo or tolerances.
@@ -122,7 +122,7 @@ func (b *Built) Evaluate(ctx context.Context) (Evaluation, error) {
 			e.Weakest = i
 		}
 	}
-	if e.PointError, err = e.Stability.ErrorAt(d.Point); err != nil {
+	if e.Amplification, err = e.Stability.Amplification(d.Point); err != nil {
 		return Evaluation{}, t.translate(err)
 	}
 	if err := e.statics(b); err != nil {
@@ -137,7 +137,7 @@ func (b *Built) Evaluate(ctx context.Context) (Evaluation, error) {
 	if b.budget != nil {
 		e.Budget = b.budget
 		if d.Axis != zeroVec {
-			e.AxisWorstCase, e.AxisRSS = b.budget.Along(d.Axis)
+			e.AxisWorst, e.AxisRSS = b.budget.Along(d.Axis)
 		}
 		if mc := d.MonteCarlo; mc != nil {
 			res, err := b.assembly.Study(ctx, d.Point, d.Tolerances, &kinematic.StudyOptions{
@@ -217,13 +217,13 @@ func (e *Evaluation) loads(b *Built) error {
 		e.Shock, e.ShockCase = &s, lc.Name
 	}
 	if d.Friction != nil {
-		lc, t := caseOf(r.SeatingCase)
-		s, err := m.Seating(lc, d.Friction.Mu)
+		lc, t := caseOf(r.HomingCase)
+		s, err := m.Homing(lc, d.Friction.Mu)
 		if err != nil {
 			t.params = map[string]string{"mu": "friction.mu"}
 			return t.translate(err)
 		}
-		e.Seating, e.SeatingCase = &s, lc.Name
+		e.Homing, e.HomingCase = &s, lc.Name
 	}
 	lc, t := caseOf(r.FrequencyCase)
 	e.StiffnessCase = lc.Name
@@ -311,12 +311,12 @@ func (e Evaluation) Verdicts() Verdicts {
 		add("min_frequency", f, r.MinFrequency, "Hz", true, note)
 	}
 	if e.Budget != nil {
-		worst, rss, note := e.Budget.WorstCase, e.Budget.RSS, "at the point of interest"
+		worst, rss, note := e.Budget.Worst, e.Budget.RSS, "at the point of interest"
 		if r.AlongAxis {
-			worst, rss, note = e.AxisWorstCase, e.AxisRSS, "along the axis at the point of interest"
+			worst, rss, note = e.AxisWorst, e.AxisRSS, "along the axis at the point of interest"
 		}
-		if r.MaxWorstCase > 0 {
-			add("max_error.worst_case", worst, r.MaxWorstCase, "m", false, note)
+		if r.MaxWorst > 0 {
+			add("max_error.worst_case", worst, r.MaxWorst, "m", false, note)
 		}
 		if r.MaxRSS > 0 {
 			add("max_error.rss", rss, r.MaxRSS, "m", false, note)
@@ -332,9 +332,9 @@ func (e Evaluation) Verdicts() Verdicts {
 	if r.MaxThermalDrift > 0 && e.Drift != nil {
 		add("max_thermal_drift", r3.Norm(e.Drift.Exact), r.MaxThermalDrift, "m", false, "exact seat of the expanded geometry")
 	}
-	if r.Seating && e.Seating != nil {
-		v := Verdict{Requirement: "requirements.seating", Value: e.Seating.MaxMu, Limit: e.mu, Min: true,
-			Pass: e.Seating.Seats, Note: fmt.Sprintf("under case %q", e.SeatingCase)}
+	if r.Homing && e.Homing != nil {
+		v := Verdict{Requirement: "requirements.seating", Value: e.Homing.MaxMu, Limit: e.mu, Min: true,
+			Pass: e.Homing.Home, Note: fmt.Sprintf("under case %q", e.HomingCase)}
 		vs = append(vs, v)
 	}
 	return vs
@@ -352,7 +352,7 @@ func where(b kinematic.Bound) string {
 // against the requirement's limit, both in the SI unit Unit ("" for a
 // pure number). A minimum (Min) passes when Value ≥ Limit, a maximum when
 // Value ≤ Limit. For requirements.seating, Value is the largest
-// coefficient of friction at which the body seats (kinematic.Seating
+// coefficient of friction at which the body seats (kinematic.Homing
 // MaxMu), Limit the design's, and Pass whether it seats at that friction.
 type Verdict struct {
 	Requirement string // the requirement's JSON path, e.g. "requirements.min_shock"

@@ -150,7 +150,7 @@ func TestEquilateralEndToEnd(t *testing.T) {
 	if ev.ShockCase != "seated" {
 		t.Errorf("ShockCase %q, want \"seated\"", ev.ShockCase)
 	}
-	near("error amplification RSS at O", ev.PointError.RSS, math.Sqrt(60)/6, 1e-9)
+	near("error amplification RSS at O", ev.Amplification.RSS, math.Sqrt(60)/6, 1e-9)
 
 	// 6: modes and compliance.
 	delta := a * a / r
@@ -173,9 +173,9 @@ func TestEquilateralEndToEnd(t *testing.T) {
 	near("compliance along z at O", ev.Compliance.Along(r3.Vec{Z: 1}), 1/(6*k*sin*sin), 1e-9)
 
 	// 7: error budget, also along the axis (z).
-	near("budget worst case", ev.Budget.WorstCase, math.Sqrt2*e, 1e-9)
+	near("budget worst case", ev.Budget.Worst, math.Sqrt2*e, 1e-9)
 	near("budget RSS", ev.Budget.RSS, math.Sqrt(3)*math.Sqrt2/3*e, 1e-9)
-	near("budget worst case along z", ev.AxisWorstCase, math.Sqrt2*e, 1e-9)
+	near("budget worst case along z", ev.AxisWorst, math.Sqrt2*e, 1e-9)
 	near("budget RSS along z", ev.AxisRSS, math.Sqrt(3)*math.Sqrt2/3*e, 1e-9)
 
 	// 8: Monte Carlo 99th percentile, within 1 % (five times its

@@ -33,7 +33,7 @@ func Example() {
 	fmt.Printf("contact force in case %q: %.2f N\n", st.Case, st.Contacts[0].Force)
 	fmt.Printf("shock level: %.2f g\n", ev.Shock.Unload/kinematic.StandardGravity)
 	fmt.Printf("first natural frequency: %.0f Hz\n", ev.Modes[0].Frequency)
-	fmt.Printf("error budget at the centre: worst case %.3f µm, RSS %.3f µm\n", ev.Budget.WorstCase*1e6, ev.Budget.RSS*1e6)
+	fmt.Printf("error budget at the centre: worst case %.3f µm, RSS %.3f µm\n", ev.Budget.Worst*1e6, ev.Budget.RSS*1e6)
 	if err := ev.Verdicts().Err(); err != nil {
 		fmt.Println(err)
 	} else {
@@ -79,7 +79,7 @@ func ExampleDesign_Build() {
 	if err != nil {
 		log.Fatal(err)
 	}
-	fmt.Printf("error budget at the centre: worst case %.3f µm\n", ev.Budget.WorstCase*1e6)
+	fmt.Printf("error budget at the centre: worst case %.3f µm\n", ev.Budget.Worst*1e6)
 	// Output:
 	// 3 pairs, 6 contacts, 36 named dimensions
 	// contact force in case "seated": 75.33 N

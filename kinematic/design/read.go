@@ -668,13 +668,15 @@ func readTolerance(n *node, path string) (kinematic.Tolerance, error) {
 	if n.get("value") == nil {
 		return t, errorf(join(path, "value"), ErrMissing, "%s of %s in %s", t.Dimension, k.what, k.si)
 	}
-	if err := optQuantity(n, path, "value", k, &t.Value); err != nil {
+	var value float64
+	if err := optQuantity(n, path, "value", k, &value); err != nil {
 		var e *Error
 		if errors.As(err, &e) && errors.Is(err, ErrUnit) {
 			e.Err = fmt.Errorf("%w (%s is %s)", e.Err, t.Dimension, k.what)
 		}
 		return t, err
 	}
+	t.HalfWidth = value
 	if dist := n.get("distribution"); dist != nil {
 		v, err := text(dist, join(path, "distribution"), maxName)
 		if err != nil {
@@ -682,9 +684,8 @@ func readTolerance(n *node, path string) (kinematic.Tolerance, error) {
 		}
 		switch v {
 		case "uniform":
-			t.Distribution = kinematic.Uniform
 		case "normal":
-			t.Distribution = kinematic.Normal
+			t.HalfWidth, t.Sigma = 0, value
 		default:
 			return t, errorf(join(path, "distribution"), ErrRange, "%q; must be \"uniform\" or \"normal\"", v)
 		}
@@ -825,7 +826,7 @@ func readRequirements(n *node, path string) (Requirements, error) {
 		if m.get("worst_case") == nil && m.get("rss") == nil {
 			return r, errorf(join(p, "worst_case"), ErrMissing, "an error requirement needs worst_case, rss or both (lengths)")
 		}
-		for _, l := range []limit{{"worst_case", length, &r.MaxWorstCase}, {"rss", length, &r.MaxRSS}} {
+		for _, l := range []limit{{"worst_case", length, &r.MaxWorst}, {"rss", length, &r.MaxRSS}} {
 			if m.get(l.key) == nil {
 				continue
 			}
@@ -875,8 +876,8 @@ func readRequirements(n *node, path string) (Requirements, error) {
 		if err := fields(m, p, "a seating requirement", "case"); err != nil {
 			return r, err
 		}
-		r.Seating = true
-		if err := caseRef(m, p, &r.SeatingCase); err != nil {
+		r.Homing = true
+		if err := caseRef(m, p, &r.HomingCase); err != nil {
 			return r, err
 		}
 	}

@@ -118,7 +118,7 @@ func TestGoDesign(t *testing.T) {
 		},
 		Cases:      []kinematic.LoadCase{{Name: "g", Preload: 0, Gravity: r3.Vec{Z: -9.80665}}},
 		Payload:    kinematic.Payload{Mass: 0.1},
-		Tolerances: []kinematic.Tolerance{{Dimension: "P.Seat.Rod+", Value: 1e-6, Distribution: kinematic.Normal}},
+		Tolerances: []kinematic.Tolerance{{Dimension: "P.Seat.Rod+", Sigma: 1e-6}},
 		Point:      r3.Vec{Z: 0.01},
 	}
 	roundTrip(t, d)

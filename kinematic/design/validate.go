@@ -458,7 +458,7 @@ func (d *Design) checkRequirements() error {
 		{"min_contact_force", r.MinContactForce},
 		{"min_shock.level", r.MinShock},
 		{"min_frequency.limit", r.MinFrequency},
-		{"max_error.worst_case", r.MaxWorstCase},
+		{"max_error.worst_case", r.MaxWorst},
 		{"max_error.rss", r.MaxRSS},
 		{"max_study.limit", r.MaxStudy},
 		{"max_thermal_drift", r.MaxThermalDrift},
@@ -479,9 +479,9 @@ func (d *Design) checkRequirements() error {
 	}{
 		{"min_shock.case", r.ShockCase != "", r.MinShock > 0},
 		{"min_frequency.case", r.FrequencyCase != "", r.MinFrequency > 0},
-		{"seating.case", r.SeatingCase != "", r.Seating},
+		{"seating.case", r.HomingCase != "", r.Homing},
 		{"max_study.percentile", r.StudyPercentile != P99, r.MaxStudy > 0},
-		{"max_error.along_axis", r.AlongAxis, r.MaxWorstCase > 0 || r.MaxRSS > 0},
+		{"max_error.along_axis", r.AlongAxis, r.MaxWorst > 0 || r.MaxRSS > 0},
 	} {
 		if o.set && !o.parent {
 			return errorf(join(p, o.path), ErrRange, "set without the requirement's limit")
@@ -530,7 +530,7 @@ func (d *Design) checkRequirements() error {
 			return errorf(join(p, "min_frequency"), ErrMissing, "natural frequencies need the payload's mass and inertia")
 		}
 	}
-	if (r.MaxWorstCase > 0 || r.MaxRSS > 0) && len(d.Tolerances) == 0 {
+	if (r.MaxWorst > 0 || r.MaxRSS > 0) && len(d.Tolerances) == 0 {
 		return errorf(join(p, "max_error"), ErrMissing, "an error budget needs tolerances")
 	}
 	if r.AlongAxis && d.Axis == zeroVec {
@@ -547,8 +547,8 @@ func (d *Design) checkRequirements() error {
 	if r.MaxThermalDrift > 0 && d.Thermal == nil {
 		return errorf(join(p, "max_thermal_drift"), ErrMissing, "a thermal drift needs thermal (delta_t)")
 	}
-	if r.Seating {
-		if err := needCase("seating.case", r.SeatingCase); err != nil {
+	if r.Homing {
+		if err := needCase("seating.case", r.HomingCase); err != nil {
 			return err
 		}
 		if d.Friction == nil {

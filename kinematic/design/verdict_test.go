@@ -26,7 +26,7 @@ func TestVerdictsPassFail(t *testing.T) {
 	d.Requirements.MinShock = 10 * kinematic.StandardGravity // > 7.29 g: fails
 	d.Requirements.MinFrequency = 900                        // > 797.4 Hz: fails
 	d.Requirements.MaxRSS = 0.5e-6                           // < 0.8165 µm: fails
-	d.Requirements.MaxWorstCase = 1.5e-6                     // > 1.414 µm: passes
+	d.Requirements.MaxWorst = 1.5e-6                         // > 1.414 µm: passes
 	d.Requirements.MaxStudy = 0                              // not set
 	ev, err := d.Evaluate(context.Background())
 	if err != nil {
@@ -100,7 +100,7 @@ func TestVerdictsOpenContact(t *testing.T) {
 	d.Requirements.ShockCase = ""
 	d.Cases = append(d.Cases, kinematic.LoadCase{Name: "dropped", Preload: 1, Acceleration: r3.Vec{Z: -20 * kinematic.StandardGravity}})
 	d.Requirements.FrequencyCase = "dropped"
-	d.Requirements.SeatingCase = "dropped"
+	d.Requirements.HomingCase = "dropped"
 	d.Friction.Mu = 0
 	ev, err := d.Evaluate(context.Background())
 	if err != nil {

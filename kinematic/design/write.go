@@ -255,11 +255,11 @@ func (d *Design) wire() wireDesign {
 		w.Cases = append(w.Cases, wc)
 	}
 	for _, t := range d.Tolerances {
-		dist := "uniform"
-		if t.Distribution == kinematic.Normal {
-			dist = "normal"
+		dist, value := "uniform", t.HalfWidth
+		if t.Sigma != 0 {
+			dist, value = "normal", t.Sigma
 		}
-		w.Tolerances = append(w.Tolerances, wireTolerance{Dimension: t.Dimension, Value: t.Value, Distribution: dist})
+		w.Tolerances = append(w.Tolerances, wireTolerance{Dimension: t.Dimension, Value: value, Distribution: dist})
 	}
 	if th := d.Thermal; th != nil {
 		w.Thermal = &wireThermal{DeltaT: th.DeltaT, Moving: th.Moving, Base: th.Base, BaseRef: optVec(th.BaseRef)}
@@ -279,14 +279,14 @@ func (d *Design) wire() wireDesign {
 		if r.MinFrequency > 0 {
 			wr.MinFrequency = &wireLimitCase{Limit: r.MinFrequency, Case: r.FrequencyCase}
 		}
-		if r.MaxWorstCase > 0 || r.MaxRSS > 0 {
-			wr.MaxError = &wireMaxError{WorstCase: r.MaxWorstCase, RSS: r.MaxRSS, AlongAxis: r.AlongAxis}
+		if r.MaxWorst > 0 || r.MaxRSS > 0 {
+			wr.MaxError = &wireMaxError{WorstCase: r.MaxWorst, RSS: r.MaxRSS, AlongAxis: r.AlongAxis}
 		}
 		if r.MaxStudy > 0 {
 			wr.MaxStudy = &wireMaxStudy{Limit: r.MaxStudy, Percentile: r.StudyPercentile.String()}
 		}
-		if r.Seating {
-			wr.Seating = &wireSeating{Case: r.SeatingCase}
+		if r.Homing {
+			wr.Seating = &wireSeating{Case: r.HomingCase}
 		}
 		w.Requirements = wr
 	}

@@ -124,7 +124,7 @@ func TestDrawings(t *testing.T) {
 	}
 
 	res, err := b.Assembly().Study(context.Background(), b.Design().Point,
-		[]kinematic.Tolerance{{Dimension: "A.Ball.X", Value: 1e-6}}, &kinematic.StudyOptions{Samples: 200, Seed: 1, KeepSamples: true})
+		[]kinematic.Tolerance{{Dimension: "A.Ball.X", HalfWidth: 1e-6}}, &kinematic.StudyOptions{Samples: 200, Seed: 1, KeepSamples: true})
 	if err != nil {
 		t.Fatal(err)
 	}

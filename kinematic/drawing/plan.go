@@ -73,10 +73,10 @@ func Plan(w io.Writer, b *design.Built, ev design.Evaluation, opt *Options) erro
 		q := ax.Point
 		if math.Hypot(q.X-mid.X, q.Y-mid.Y) > 0.75*size {
 			p.Notes = append(p.Notes, fmt.Sprintf("axis of seats %s: through (%.0f, %.0f) mm, direction (%.2f, %.2f, %.2f), off the drawing",
-				name, q.X*1e3, q.Y*1e3, noNegZero(ax.Dir.X), noNegZero(ax.Dir.Y), noNegZero(ax.Dir.Z)))
+				name, q.X*1e3, q.Y*1e3, noNegZero(ax.Direction.X), noNegZero(ax.Direction.Y), noNegZero(ax.Direction.Z)))
 			continue
 		}
-		p.PairAxes = append(p.PairAxes, draw.Line{Label: "axis " + name, Through: pt(ax.Point), Direction: pt(ax.Dir)})
+		p.PairAxes = append(p.PairAxes, draw.Line{Label: "axis " + name, Through: pt(ax.Point), Direction: pt(ax.Direction)})
 	}
 	if g.HasCentre {
 		p.Markers = append(p.Markers, draw.Marker{Kind: draw.CouplingCentre, At: pt(g.Centre), Label: "grooves meet"})
