@@ -10,7 +10,6 @@ import (
 
 	"github.com/google/go-cmp/cmp"
 	"gonum.org/v1/gonum/mat"
-	"gonum.org/v1/gonum/optimize/convex/lp"
 	"gonum.org/v1/gonum/spatial/r3"
 )
 
@@ -582,59 +581,6 @@ func TestClosureOpposedPairs(t *testing.T) {
 	}
 	if cl := mustForm(t, cs[:11]); cl.Closed {
 		t.Errorf("one contact of a pair removed: %+v, want not closed (its line is pushed one way only)", cl)
-	}
-}
-
-// TestClosureSimplexAgainstGonum compares the simplex of closureSolve with
-// gonum's lp.Simplex, the reference library, on the closure programs of
-// random generators (Gaussian unit columns: generic, non-degenerate
-// programs, on which gonum ends): the same feasibility and the same optimum.
-func TestClosureSimplexAgainstGonum(t *testing.T) {
-	rng := rand.New(rand.NewPCG(4, 4))
-	agree := [2]int{}
-	for range 300 {
-		n := 7 + rng.IntN(20)
-		a := make([]float64, 6*n)
-		am := mat.NewDense(6, n, nil)
-		b := make([]float64, 6)
-		c := make([]float64, n)
-		for j := range n {
-			var nrm float64
-			for r := range 6 {
-				a[6*j+r] = rng.NormFloat64()
-				nrm += a[6*j+r] * a[6*j+r]
-			}
-			c[j] = 1
-			for r := range 6 {
-				a[6*j+r] /= math.Sqrt(nrm)
-				am.Set(r, j, a[6*j+r])
-				b[r] -= a[6*j+r]
-			}
-		}
-		opt, _, gerr := lp.Simplex(c, am, b, 1e-12, nil)
-		x, feasible, err := closureSimplex(a, [6]float64(b))
-		if err != nil {
-			t.Fatalf("n = %d: %v", n, err)
-		}
-		switch {
-		case errors.Is(gerr, lp.ErrInfeasible):
-			if feasible {
-				t.Errorf("n = %d: feasible, gonum says infeasible", n)
-			}
-			agree[0]++
-		case gerr == nil:
-			var sum float64
-			for _, v := range x {
-				sum += v
-			}
-			if !feasible || math.Abs(sum-opt) > 1e-9*(1+opt) {
-				t.Errorf("n = %d: feasible %v, optimum %g; gonum %g", n, feasible, sum, opt)
-			}
-			agree[1]++
-		}
-	}
-	if agree[0] < 30 || agree[1] < 30 {
-		t.Fatalf("compared %d infeasible and %d feasible programs: too few", agree[0], agree[1])
 	}
 }
 

@@ -1,0 +1,85 @@
+// Package lp solves small linear programs in standard form by the
+// two-phase revised simplex method, made safe against degenerate programs:
+// Harris's ratio test, Bland's rule when pivots stall, and an iteration
+// limit. It serves kinematic's closure tests (6 rows, many columns) and its
+// preload sizing (one row per preload element, solved as the dual of the
+// sizing program).
+//
+// # Problem form
+//
+// [Solve] takes
+//
+//	minimise cᵀx subject to A·x = b, x ≥ 0,
+//
+// with A an m×n matrix stored column-major (column j in a[m·j : m·j+m]),
+// m = len(b), n = len(c). A program in another form is brought to this one
+// by the caller: an inequality A·x ≥ b by a surplus column −I, a bound
+// x ≥ l by the substitution x = l + x', or, when there are many more
+// inequalities than variables, by solving the dual program, whose optimal
+// multipliers [Result].Y are the primal solution.
+//
+// The method works on rows: each pivot factorises the m×m basis afresh
+// (LU with partial pivoting), O(m³ + m·n) operations, so that rounding
+// does not accumulate; it is meant for m up to a few dozen and any n. A
+// feasible program needs A of full row rank m to working precision,
+// otherwise Solve returns [ErrSingular].
+//
+// # What is returned when
+//
+//   - [Optimal]: X is an optimal vertex (at most m non-zero entries),
+//     Value = cᵀx, Y the simplex multipliers: an optimal dual solution,
+//     Aᵀy ≤ c and bᵀy = cᵀx, both to the tolerances below.
+//   - [Infeasible]: X is nil; Y is a Farkas certificate, Aᵀy ≤ 0 and
+//     bᵀy > 0 (to the tolerances), the proof that no x ≥ 0 meets A·x = b.
+//   - [Unbounded]: the program is feasible and the objective decreases
+//     without bound along a ray; X and Y are nil.
+//   - An error for input that is not a program (a dimension of 0,
+//     len(a) ≠ m·n, NaN or infinite entries), for a singular basis
+//     ([ErrSingular]) or when the pivots reach Options.MaxPivots
+//     ([ErrIterationLimit]). Solve never panics and never returns NaN.
+//
+// # Tolerances
+//
+// Every decision is taken on a scaled copy of the program: each row of A
+// divided by a power of two that brings its largest entry into [1/2, 1),
+// then each column likewise; b and c each brought to a largest entry in
+// [1/2, 1) the same way. Powers of two round nothing, so the decisions do
+// not depend on the units of the rows, the columns, b or c: a row, a
+// column, b or c multiplied by a power of two gives exactly the same pivots
+// and the solution scaled accordingly, and by any other factor the same
+// solution to rounding (the tests check both). On the scaled program
+// (values near 1):
+//
+//   - a reduced cost below −1e-11·(1 + |π|∞) improves (π the multipliers);
+//   - an entry of B⁻¹aⱼ above 1e-9·(1 + |B⁻¹aⱼ|∞) may be a pivot;
+//   - a basic variable may fall to −1e-12·(1 + |b'|∞) in the Harris ratio
+//     test;
+//   - the program is infeasible when the phase-I optimum (the total of the
+//     artificial variables) exceeds 1e-10·(1 + |b'|₁);
+//   - a pivot of the basis's LU at or below 1e-13 of its largest entry is
+//     singular.
+//
+// In the caller's units, therefore: X may have entries down to about
+// −1e-12 times the scale of x that b sets, and A·x = b holds to a residual
+// of a small multiple of 1e-10·|b| row by row (more when the optimal basis
+// is ill-conditioned: the residual of a backward-stable solve grows with
+// its condition number). Callers that need a verdict to be exact check
+// their own residual, as kinematic's closure does.
+//
+// # Degeneracy
+//
+// Degenerate programs (basic variables at zero, many bases for one vertex)
+// are common in the symmetric designs of the module, and a simplex method
+// may cycle on them for ever; gonum's lp.Simplex does, on programs that
+// fuzzing found (see the tests). Here the Harris ratio test prefers large
+// pivots among near-ties; after 8 pivots in a row that gain nothing the
+// entering and leaving columns are chosen by Bland's smallest-index rule,
+// which cannot cycle (Bland 1977), until a pivot gains; and the pivots are
+// counted against a limit in any case. Callers can also perturb their
+// program (kinematic's closure raises its bounds by distinct amounts of
+// 1e-10, after Charnes 1952).
+//
+// # Conventions
+//
+// The inputs are never modified; the slices of a [Result] are new.
+package lp
