@@ -211,7 +211,21 @@ func ForceClosure(cs []Contact, mu float64, opt *ClosureOptions) (Closure, error
 		}
 		t1s[i] = t
 	}
-	pc, length := an.Centre, an.Length
+	a := forceGenerators(cs, t1s, an.Centre, an.Length, mu, k)
+	rank, cond := closureRank(a)
+	cl := Closure{Rank: rank}
+	if rank < 6 {
+		return cl, nil
+	}
+	return closureSolve(a, cond, cl)
+}
+
+// forceGenerators returns the 6×N column-major generators of ForceClosure
+// (each contact's normal, then the k edges of its friction pyramid, in
+// normalised coordinates about pc) for the contacts cs with first tangents
+// t1s, friction coefficient mu > 0 and k sides; length is the Length of
+// their analysis, 0 if every normal passes through pc.
+func forceGenerators(cs []Contact, t1s []r3.Vec, pc r3.Vec, length, mu float64, k int) []float64 {
 	if !(length > 0) {
 		// Every normal passes through Centre (one ball in a socket, say);
 		// the edges do not. The RMS distance of the contact points from
@@ -249,12 +263,7 @@ func ForceClosure(cs []Contact, mu float64, opt *ClosureOptions) (Closure, error
 			closureColumn(a[col:col+6], c.Point, f, pc, length)
 		}
 	}
-	rank, cond := closureRank(a)
-	cl := Closure{Rank: rank}
-	if rank < 6 {
-		return cl, nil
-	}
-	return closureSolve(a, cond, cl)
+	return a
 }
 
 // closureColumn writes into col the unit force along f through p in
@@ -350,6 +359,23 @@ func closureRank(a []float64) (rank int, cond float64) {
 // a relative 2e-10.
 const closurePerturb = 1e-10
 
+// closureBounds returns the raised bounds lⱼ = 1 + εⱼ of closureSolve
+// (closurePerturb) for the 6×N generators a, and b = −A·l.
+func closureBounds(a []float64) (l []float64, b [6]float64) {
+	n := len(a) / 6
+	l = make([]float64, n)
+	for j := range n {
+		// εⱼ/closurePerturb = 1 + frac(j·φ), φ the golden section:
+		// distinct and evenly spread for any n.
+		_, f := math.Modf(float64(j) * 0.6180339887498949)
+		l[j] = 1 + closurePerturb*(1+f)
+		for r := range 6 {
+			b[r] -= l[j] * a[6*j+r]
+		}
+	}
+	return l, b
+}
+
 // closureSolve decides closure of the 6×N column-major generators a, known
 // to have rank 6 and condition number cond, and fills in cl.
 //
@@ -362,17 +388,7 @@ const closurePerturb = 1e-10
 // below.
 func closureSolve(a []float64, cond float64, cl Closure) (Closure, error) {
 	n := len(a) / 6
-	l := make([]float64, n)
-	var b [6]float64
-	for j := range n {
-		// εⱼ/closurePerturb = 1 + frac(j·φ), φ the golden section:
-		// distinct and evenly spread for any n.
-		_, f := math.Modf(float64(j) * 0.6180339887498949)
-		l[j] = 1 + closurePerturb*(1+f)
-		for r := range 6 {
-			b[r] -= l[j] * a[6*j+r]
-		}
-	}
+	l, b := closureBounds(a)
 	ones := make([]float64, n)
 	for j := range ones {
 		ones[j] = 1

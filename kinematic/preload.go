@@ -196,9 +196,10 @@ func (m *Model) SizePreload(cases []LoadCase, minForce float64) (PreloadSizing, 
 //
 //	maximise Σ βᵢₖ yᵢₖ subject to Σᵢₖ aᵢⱼ yᵢₖ ≤ Fⱼ for every element j, y ≥ 0,
 //
-// in the standard form of lp.Solve with a slack tⱼ ≥ 0 per element:
-// minimise −βᵀy subject to Σᵢₖ aᵢⱼ yᵢₖ + tⱼ = Fⱼ. Its optimal multipliers π
-// give the factors, s = −π: the reduced costs of the y columns are
+// in the standard form of lp.Solve with a slack tⱼ ≥ 0 per element and
+// each row divided by Fⱼ (sizeDual): minimise −βᵀy subject to
+// Σᵢₖ (aᵢⱼ/Fⱼ) yᵢₖ + tⱼ = 1. Its optimal multipliers π give the factors,
+// sⱼ = −πⱼ/Fⱼ: the reduced costs of the y columns are
 // −βᵢₖ + Σⱼ aᵢⱼ sⱼ ≥ 0 (every contact at minForce), those of the slacks
 // sⱼ ≥ 0, and Σ sⱼ Fⱼ equals the dual optimum. The dual is feasible at
 // y = 0 (F ≥ 0), so it is either optimal or unbounded, and unbounded
@@ -215,27 +216,11 @@ func (m *Model) sizeLP(a [][6]float64, e [][6]float64, minForce float64) ([]floa
 			}
 		}
 	}
-	nu, np := len(used), 6*len(e)
-	// Dual: nu rows; columns y (np of them), then the slacks t (nu).
-	A := make([]float64, nu*(np+nu))
-	b := make([]float64, nu)
-	c := make([]float64, np+nu)
-	for jj, j := range used {
-		b[jj] = linalg.Norm3(m.preloads[j].w.F)
-		if b[jj] == 0 {
-			b[jj] = 1 // a pure couple: count its factor
-		}
-		A[nu*(np+jj)+jj] = 1
+	out := make([]float64, len(a))
+	if len(used) == 0 {
+		return out, nil // no element pushes: SizePreload checked that none is needed
 	}
-	for k := range e {
-		for i := range 6 {
-			p := 6*k + i
-			c[p] = -(minForce - e[k][i])
-			for jj, j := range used {
-				A[nu*p+jj] = a[j][i]
-			}
-		}
-	}
+	A, b, c := m.sizeDual(a, e, minForce, used)
 	sol, err := lp.Solve(c, A, b, nil)
 	if err == nil && sol.Status == lp.Unbounded {
 		return nil, &InputError{Field: "cases", Err: fmt.Errorf(
@@ -247,9 +232,52 @@ func (m *Model) sizeLP(a [][6]float64, e [][6]float64, minForce float64) ([]floa
 	if err != nil {
 		return nil, &InputError{Field: "cases", Err: fmt.Errorf("%w: the preload linear program failed: %v", ErrRange, err)}
 	}
-	out := make([]float64, len(a))
+	f := m.sizeWeights(used)
 	for jj, j := range used {
-		out[j] = math.Max(0, -sol.Y[jj])
+		out[j] = math.Max(0, -sol.Y[jj]/f[jj])
 	}
 	return out, nil
+}
+
+// sizeDual returns the dual program of sizeLP for the elements used, in the
+// form of lp.Solve: the nu×(6·len(e)+nu) column-major matrix (columns y,
+// then the slacks t), the right-hand side and the costs −β. Row j is
+// divided by Fⱼ (sizeWeights): its entries aᵢⱼ/Fⱼ are contact forces per
+// newton of the element's force, dimensionless and near 1 whatever the
+// element's size, and its right-hand side is 1. (Without it a row of
+// tiny forces would be dwarfed by its own slack's 1 and solved only to
+// the tolerance of that 1.) The multipliers are then −Fⱼsⱼ.
+func (m *Model) sizeDual(a [][6]float64, e [][6]float64, minForce float64, used []int) (A, b, c []float64) {
+	f := m.sizeWeights(used)
+	nu, np := len(used), 6*len(e)
+	A = make([]float64, nu*(np+nu))
+	b = make([]float64, nu)
+	c = make([]float64, np+nu)
+	for jj := range used {
+		b[jj] = 1
+		A[nu*(np+jj)+jj] = 1
+	}
+	for k := range e {
+		for i := range 6 {
+			p := 6*k + i
+			c[p] = -(minForce - e[k][i])
+			for jj, j := range used {
+				A[nu*p+jj] = a[j][i] / f[jj]
+			}
+		}
+	}
+	return A, b, c
+}
+
+// sizeWeights returns the weight Fⱼ of each element used in the total:
+// the magnitude of its force, or 1 for a pure couple (its factor counts).
+func (m *Model) sizeWeights(used []int) []float64 {
+	f := make([]float64, len(used))
+	for jj, j := range used {
+		f[jj] = linalg.Norm3(m.preloads[j].w.F)
+		if f[jj] == 0 {
+			f[jj] = 1
+		}
+	}
+	return f
 }

@@ -3,11 +3,14 @@ package kinematic
 import (
 	"errors"
 	"math"
+	"path/filepath"
 	"testing"
 
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"github.com/sixfold-dev/sixfold/hertz"
+	"github.com/sixfold-dev/sixfold/internal/fuzzdata"
+	"github.com/sixfold-dev/sixfold/internal/linalg"
 )
 
 // TestSizePreloadClosedForm: equilateral three-vee, one vertical preload
@@ -165,5 +168,92 @@ func TestSizePreloadErrors(t *testing.T) {
 	}
 	if _, err := up.SizePreload([]LoadCase{{Name: "rest"}}, 1); !errors.Is(err, ErrRange) {
 		t.Errorf("upward preload: %v", err)
+	}
+}
+
+// TestWriteLPSizingPrograms writes the sizing programs of the
+// FuzzSizePreload corpus (see lpDataDir): the dual program that sizeLP
+// solves, and the primal program in the form gonum's lp.Simplex was given
+// (a surplus per case and contact, each row divided by its largest
+// coefficient), on which gonum panicked.
+func TestWriteLPSizingPrograms(t *testing.T) {
+	if *lpDataDir == "" {
+		t.Skip("writes files only with -lpdata")
+	}
+	c0, err := BisectorVees(isosceles(), three(vee45))
+	if err != nil {
+		t.Fatal(err)
+	}
+	cs, err := c0.Contacts()
+	if err != nil {
+		t.Fatal(err)
+	}
+	paths, _ := filepath.Glob("testdata/fuzz/FuzzSizePreload/*")
+	for _, path := range paths {
+		raw, _, _ := lpCorpus(t, path)
+		x := fuzzdata.Floats(raw, 19)[0]
+		var pre []Preload
+		for k := 0; k < 3; k++ {
+			pre = append(pre, Preload{Point: cs[2*k].Centre, Direction: r3.Vec{X: x[4*k], Y: x[4*k+1], Z: x[4*k+2]}, Force: x[4*k+3]})
+		}
+		m, err := NewModel(cs, pre, Payload{Mass: 1, Centre: r3.Vec{Z: 0.02}})
+		if err != nil {
+			t.Fatal(err)
+		}
+		cases := []LoadCase{{Gravity: r3.Vec{X: x[12], Y: x[13], Z: x[14]}}, {Gravity: r3.Vec{X: x[15], Y: x[16], Z: x[17]}}}
+		minForce := math.Abs(x[18])
+		a := make([][6]float64, len(m.preloads))
+		var used []int
+		for j, p := range m.preloads {
+			m.forces(p.w, &a[j])
+			if a[j] != ([6]float64{}) {
+				used = append(used, j)
+			}
+		}
+		e := make([][6]float64, len(cases))
+		for k := range cases {
+			w, err := m.wrench(&cases[k])
+			if err != nil {
+				t.Fatal(err)
+			}
+			m.forces(w, &e[k])
+		}
+		src := "kinematic/" + filepath.ToSlash(path)
+		A, b, c := m.sizeDual(a, e, minForce, used)
+		lpWrite(t, "sizing-dual-"+filepath.Base(path), []string{
+			"The dual of the preload sizing program of " + src + " (sizeDual), written by TestWriteLPSizingPrograms.",
+		}, c, A, b)
+		// The primal as gonum was given it.
+		nu, rows := len(used), 6*len(e)
+		Ap := make([]float64, rows*(nu+rows))
+		bp := make([]float64, rows)
+		cp := make([]float64, nu+rows)
+		for jj, j := range used {
+			cp[jj] = linalg.Norm3(m.preloads[j].w.F)
+			if cp[jj] == 0 {
+				cp[jj] = 1
+			}
+		}
+		for k := range e {
+			for i := range 6 {
+				r := 6*k + i
+				big := math.Abs(minForce - e[k][i])
+				for _, j := range used {
+					big = math.Max(big, math.Abs(a[j][i]))
+				}
+				if big == 0 {
+					big = 1
+				}
+				for jj, j := range used {
+					Ap[rows*jj+r] = a[j][i] / big
+				}
+				Ap[rows*(nu+r)+r] = -1 / big
+				bp[r] = (minForce - e[k][i]) / big
+			}
+		}
+		lpWrite(t, "sizing-primal-"+filepath.Base(path), []string{
+			"The preload sizing program of " + src + " in the form gonum's lp.Simplex was given (it panicked: a singular initial basis),",
+			"a surplus per case and contact, each row divided by its largest coefficient; written by TestWriteLPSizingPrograms.",
+		}, cp, Ap, bp)
 	}
 }
