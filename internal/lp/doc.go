@@ -44,11 +44,13 @@
 // divided by a power of two that brings its largest entry into [1/2, 1),
 // then each column likewise; b and c each brought to a largest entry in
 // [1/2, 1) the same way. Powers of two round nothing, so the decisions do
-// not depend on the units of the rows, the columns, b or c: a row, a
-// column, b or c multiplied by a power of two gives exactly the same pivots
-// and the solution scaled accordingly, and by any other factor the same
-// solution to rounding (the tests check both). On the scaled program
-// (values near 1):
+// not depend on the units of the rows, b or c: rows, b or c multiplied by
+// powers of two give exactly the same pivots and the solution scaled
+// exactly. Columns multiplied by powers of two, or anything by other
+// factors, give the same optimum to the tolerances below (a column's
+// factor can change which entry is the largest of a row, and so the
+// scaled program by powers of two). The tests check both. On the scaled
+// program (values near 1):
 //
 //   - a reduced cost below −1e-11·(1 + |π|∞) improves (π the multipliers);
 //   - an entry of B⁻¹aⱼ above 1e-9·(1 + |B⁻¹aⱼ|∞) may be a pivot;
