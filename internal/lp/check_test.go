@@ -18,59 +18,60 @@ import (
 // bound below).
 const checkTol = 1e-9
 
-// scaledProgram is the program divided by the tests' own scales, written
-// apart from the solver's: each row of A by its largest magnitude, then
-// each column likewise; b and c by their largest magnitudes after that.
+// scaledProgram is the program scaled by the tests' own factors, written
+// apart from the solver's: each row of A by the power of two that brings
+// its largest magnitude into [1/2, 1), then each column likewise; b and c
+// by their largest magnitudes after that. The exponents are compared as
+// integers (math.Frexp), so no factor overflows on data of any spread.
 // x' = x·colS/bS and y' = y·rowS/cS are then the solution in units in
-// which the data are near 1, where the solver's tolerances apply.
+// which the data are near 1, where the documented tolerances apply.
 type scaledProgram struct {
 	m, n       int
 	a, b, c    []float64
-	rowS, colS []float64
-	bS, cS     float64
+	rowK, colK []int // the exponents of rowS, colS
+	bK, cK     int
 }
 
-func nonzero(v float64) float64 {
-	if v == 0 {
-		return 1
+// topExp returns the exponent k for which the largest |vᵢ|·2^(kᵢ) lies in
+// [1/2, 1) scaled by 2^k; 0 if all vᵢ are 0.
+func topExp(vs []float64, ks func(i int) int) int {
+	best, any := 0, false
+	for i, v := range vs {
+		if v == 0 {
+			continue
+		}
+		_, e := math.Frexp(v)
+		if e += ks(i); !any || e > best {
+			best, any = e, true
+		}
 	}
-	return v
+	return -best
 }
 
 func newScaledProgram(c, a, b []float64) *scaledProgram {
 	m, n := len(b), len(c)
 	p := &scaledProgram{m: m, n: n, a: make([]float64, m*n), b: make([]float64, m), c: make([]float64, n),
-		rowS: make([]float64, m), colS: make([]float64, n)}
+		rowK: make([]int, m), colK: make([]int, n)}
+	row := make([]float64, n)
+	for r := range m {
+		for j := range n {
+			row[j] = a[m*j+r]
+		}
+		p.rowK[r] = topExp(row, func(int) int { return 0 })
+	}
 	for j := range n {
+		p.colK[j] = topExp(a[m*j:m*j+m], func(r int) int { return p.rowK[r] })
 		for r := range m {
-			p.rowS[r] = max(p.rowS[r], math.Abs(a[m*j+r]))
+			p.a[m*j+r] = math.Ldexp(a[m*j+r], p.rowK[r]+p.colK[j])
 		}
 	}
+	p.bK = topExp(b, func(r int) int { return p.rowK[r] })
+	p.cK = topExp(c, func(j int) int { return p.colK[j] })
 	for r := range m {
-		p.rowS[r] = nonzero(p.rowS[r])
+		p.b[r] = math.Ldexp(b[r], p.rowK[r]+p.bK)
 	}
 	for j := range n {
-		for r := range m {
-			p.colS[j] = max(p.colS[j], math.Abs(a[m*j+r])/p.rowS[r])
-		}
-		p.colS[j] = nonzero(p.colS[j])
-		for r := range m {
-			p.a[m*j+r] = a[m*j+r] / p.rowS[r] / p.colS[j]
-		}
-	}
-	for r := range m {
-		p.bS = max(p.bS, math.Abs(b[r])/p.rowS[r])
-	}
-	p.bS = nonzero(p.bS)
-	for j := range n {
-		p.cS = max(p.cS, math.Abs(c[j])/p.colS[j])
-	}
-	p.cS = nonzero(p.cS)
-	for r := range m {
-		p.b[r] = b[r] / p.rowS[r] / p.bS
-	}
-	for j := range n {
-		p.c[j] = c[j] / p.colS[j] / p.cS
+		p.c[j] = math.Ldexp(c[j], p.colK[j]+p.cK)
 	}
 	return p
 }
@@ -78,7 +79,7 @@ func newScaledProgram(c, a, b []float64) *scaledProgram {
 func (p *scaledProgram) x(x []float64) []float64 {
 	out := make([]float64, len(x))
 	for j, v := range x {
-		out[j] = v * p.colS[j] / p.bS
+		out[j] = math.Ldexp(v, p.bK-p.colK[j])
 	}
 	return out
 }
@@ -86,18 +87,34 @@ func (p *scaledProgram) x(x []float64) []float64 {
 func (p *scaledProgram) y(y []float64) []float64 {
 	out := make([]float64, len(y))
 	for r, v := range y {
-		out[r] = v * p.rowS[r] / p.cS
+		out[r] = math.Ldexp(v, p.cK-p.rowK[r])
+	}
+	return out
+}
+
+// farkas returns the certificate y in the scaled units of the rows,
+// y·rowS, brought to a largest magnitude in [1/2, 1) (a certificate is
+// one up to a positive factor); exponents in integer arithmetic, so that
+// nothing overflows.
+func (p *scaledProgram) farkas(y []float64) []float64 {
+	k := topExp(y, func(r int) int { return -p.rowK[r] })
+	out := make([]float64, len(y))
+	for r, v := range y {
+		out[r] = math.Ldexp(v, k-p.rowK[r])
 	}
 	return out
 }
 
 // primalViolation returns the largest violation of x ≥ 0 and A·x = b by
-// the scaled solution xs, each relative to 1 + the magnitude of the terms
-// of its row.
+// the scaled solution xs: of x ≥ 0 relative to 1 + |b'|∞ (the documented
+// bound), of each row relative to 1 + the magnitude of its terms.
 func (p *scaledProgram) primalViolation(xs []float64) float64 {
-	var worst float64
+	var worst, bMax float64
+	for _, v := range p.b {
+		bMax = max(bMax, math.Abs(v))
+	}
 	for _, v := range xs {
-		worst = max(worst, -v)
+		worst = max(worst, -v/(1+bMax))
 	}
 	for r := range p.m {
 		res, mag := -p.b[r], 0.0
@@ -113,9 +130,13 @@ func (p *scaledProgram) primalViolation(xs []float64) float64 {
 
 // dualViolation returns the largest violation of Aᵀy ≤ c by the scaled
 // multipliers ys (costs c, or 0 for a Farkas certificate), each relative
-// to 1 + the magnitude of the terms of its column.
+// to 1 + |y|∞ + the magnitude of the terms of its column (the solver
+// prices to a tolerance relative to 1 + |π|∞).
 func (p *scaledProgram) dualViolation(ys []float64, farkas bool) float64 {
-	var worst float64
+	var worst, yMax float64
+	for _, v := range ys {
+		yMax = max(yMax, math.Abs(v))
+	}
 	for j := range p.n {
 		var s, mag float64
 		for r := range p.m {
@@ -127,7 +148,7 @@ func (p *scaledProgram) dualViolation(ys []float64, farkas bool) float64 {
 		if farkas {
 			cj = 0
 		}
-		worst = max(worst, (s-cj)/(1+mag))
+		worst = max(worst, (s-cj)/(1+yMax+mag))
 	}
 	return worst
 }
@@ -147,18 +168,12 @@ func (p *scaledProgram) gap(xs, ys []float64) float64 {
 	return math.Abs(s) / (1 + mag)
 }
 
-// farkasMargin returns bᵀy for the scaled certificate ys divided by its
-// largest magnitude: positive for a valid certificate.
+// farkasMargin returns bᵀy for the scaled certificate ys (of farkas):
+// positive for a valid certificate.
 func (p *scaledProgram) farkasMargin(ys []float64) float64 {
-	var big, s float64
-	for _, v := range ys {
-		big = max(big, math.Abs(v))
-	}
-	if big == 0 {
-		return 0
-	}
+	var s float64
 	for r := range p.m {
-		s += p.b[r] * ys[r] / big
+		s += p.b[r] * ys[r]
 	}
 	return s
 }

@@ -59,14 +59,21 @@
 //   - the program is infeasible when the phase-I optimum (the total of the
 //     artificial variables) exceeds 1e-10·(1 + |b'|₁);
 //   - a pivot of the basis's LU at or below 1e-13 of its largest entry is
-//     singular.
+//     singular;
+//   - an optimal X may have entries down to −1e-9·(1 + |b'|∞) (Harris's
+//     −1e-12, plus what driving a near-zero artificial variable out of the
+//     basis leaves); a basis that leaves more is reported as [ErrSingular].
 //
-// In the caller's units, therefore: X may have entries down to about
-// −1e-12 times the scale of x that b sets, and A·x = b holds to a residual
-// of a small multiple of 1e-10·|b| row by row (more when the optimal basis
-// is ill-conditioned: the residual of a backward-stable solve grows with
-// its condition number). Callers that need a verdict to be exact check
-// their own residual, as kinematic's closure does.
+// In the caller's units, therefore: X may have entries slightly below zero,
+// by at most 1e-9 of the scale of x that b and the column set; A·x = b holds
+// to a residual of a few ulps of |A|·|x| row by row (the LU solve is
+// backward stable); the reduced costs c − Aᵀy are above −1e-11·(1 + |y|∞)
+// in scaled units. Values far below the largest of their row or column
+// (by 2^1000, say) may underflow in the scaling and count as zero. A
+// solution that float64 cannot hold (an entry of X or Y that overflows or
+// underflows) is an error wrapping [errs.ErrRange]. Callers that need a
+// verdict to be exact check their own residual, as kinematic's closure
+// does.
 //
 // # Degeneracy
 //

@@ -105,19 +105,19 @@ func Solve(c, a, b []float64, opt *Options) (Result, error) {
 		return Result{Pivots: s.pivots}, err
 	}
 	res := Result{Status: st, Pivots: s.pivots}
+	okX, okY := true, true
 	switch st {
 	case Optimal:
-		res.X, res.Y = sc.unscaleX(s), sc.unscaleY(s.pi, sc.kc)
+		res.X, okX = sc.unscaleX(s)
+		res.Y, okY = sc.unscaleY(s.pi, sc.kc)
 		for j, v := range res.X {
 			res.Value += c[j] * v
 		}
 	case Infeasible:
-		res.Y = sc.unscaleY(s.pi, 0)
+		res.Y, okY = sc.unscaleY(s.pi, 0)
 	}
-	for _, v := range append(res.X, res.Y...) {
-		if math.IsInf(v, 0) || math.IsNaN(v) {
-			return Result{Pivots: s.pivots}, fmt.Errorf("lp: %w: the solution is beyond the range of float64", errs.ErrRange)
-		}
+	if !okX || !okY || math.IsInf(res.Value, 0) || math.IsNaN(res.Value) {
+		return Result{Pivots: s.pivots}, fmt.Errorf("lp: %w: the solution is beyond the range of float64", errs.ErrRange)
 	}
 	return res, nil
 }

@@ -21,46 +21,73 @@ type scaling struct {
 	kb, kc         int
 }
 
-// exponent returns k such that v·2^k has magnitude in [1/2, 1), or 0 for
-// v = 0.
-func exponent(v float64) int {
+// expOf returns e with |v| in [2^(e−1), 2^e) for v ≠ 0, and ok false
+// for v = 0.
+func expOf(v float64) (e int, ok bool) {
 	if v == 0 {
+		return 0, false
+	}
+	_, e = math.Frexp(v)
+	return e, true
+}
+
+// maxExp tracks the largest exponent of a set of numbers in integer
+// arithmetic, so that no intermediate product can overflow or underflow.
+type maxExp struct {
+	e  int
+	ok bool
+}
+
+// add includes v·2^k.
+func (x *maxExp) add(v float64, k int) {
+	if e, ok := expOf(v); ok && (!x.ok || e+k > x.e) {
+		x.e, x.ok = e+k, true
+	}
+}
+
+// shift returns the k that brings the largest number into [1/2, 1), 0 if
+// all were zero.
+func (x maxExp) shift() int {
+	if !x.ok {
 		return 0
 	}
-	_, e := math.Frexp(v)
-	return -e
+	return -x.e
 }
 
 // newScaling builds the scaled program of A (m×n column-major), b and c.
+// The exponents are found in integer arithmetic and every scaled number is
+// at most 1 in magnitude: nothing overflows, whatever the spread of the
+// data (numbers far below the largest of their row or column may
+// underflow, which only drops what is negligible there).
 func newScaling(c, a, b []float64, m, n int) *scaling {
 	sc := &scaling{
 		a: make([]float64, m*n), b: make([]float64, m), c: make([]float64, n),
 		sign: make([]float64, m), rowExp: make([]int, m), colExp: make([]int, n),
 	}
-	rowMax := make([]float64, m)
+	rows := make([]maxExp, m)
 	for j := range n {
 		for r, v := range a[m*j : m*j+m] {
-			rowMax[r] = max(rowMax[r], math.Abs(v))
+			rows[r].add(v, 0)
 		}
 	}
 	for r := range m {
-		sc.rowExp[r] = exponent(rowMax[r])
+		sc.rowExp[r] = rows[r].shift()
 	}
 	for j := range n {
-		var big float64
+		var col maxExp
 		for r, v := range a[m*j : m*j+m] {
-			big = max(big, math.Abs(math.Ldexp(v, sc.rowExp[r])))
+			col.add(v, sc.rowExp[r])
 		}
-		sc.colExp[j] = exponent(big)
+		sc.colExp[j] = col.shift()
 		for r, v := range a[m*j : m*j+m] {
 			sc.a[m*j+r] = math.Ldexp(v, sc.rowExp[r]+sc.colExp[j])
 		}
 	}
-	var bMax float64
+	var bx maxExp
 	for r, v := range b {
-		bMax = max(bMax, math.Abs(math.Ldexp(v, sc.rowExp[r])))
+		bx.add(v, sc.rowExp[r])
 	}
-	sc.kb = exponent(bMax)
+	sc.kb = bx.shift()
 	for r, v := range b {
 		sc.sign[r] = 1
 		if v < 0 {
@@ -73,35 +100,50 @@ func newScaling(c, a, b []float64, m, n int) *scaling {
 			}
 		}
 	}
-	var cMax float64
+	var cx maxExp
 	for j, v := range c {
-		cMax = max(cMax, math.Abs(math.Ldexp(v, sc.colExp[j])))
+		cx.add(v, sc.colExp[j])
 	}
-	sc.kc = exponent(cMax)
+	sc.kc = cx.shift()
 	for j, v := range c {
 		sc.c[j] = math.Ldexp(v, sc.colExp[j]+sc.kc)
 	}
 	return sc
 }
 
+// unscale returns v·2^k and reports whether it is exact: false if it
+// overflows, or underflows into the subnormal range and loses digits (a
+// number that float64 cannot hold).
+func unscale(v float64, k int) (float64, bool) {
+	u := math.Ldexp(v, k)
+	return u, !math.IsInf(u, 0) && math.Ldexp(u, -k) == v
+}
+
 // unscaleX returns the solution x of the caller's program from the basis of
-// the solver s.
-func (sc *scaling) unscaleX(s *solver) []float64 {
+// the solver s, and reports whether float64 holds it.
+func (sc *scaling) unscaleX(s *solver) ([]float64, bool) {
 	x := make([]float64, s.n)
+	ok := true
 	for k, j := range s.basic {
 		if j < s.n {
-			x[j] = math.Ldexp(s.xb[k], sc.colExp[j]-sc.kb)
+			var exact bool
+			x[j], exact = unscale(s.xb[k], sc.colExp[j]-sc.kb)
+			ok = ok && exact
 		}
 	}
-	return x
+	return x, ok
 }
 
 // unscaleY returns the multipliers of the caller's program from those of
-// the scaled program, yp, whose costs were scaled by 2^kc.
-func (sc *scaling) unscaleY(yp []float64, kc int) []float64 {
+// the scaled program, yp, whose costs were scaled by 2^kc, and reports
+// whether float64 holds them.
+func (sc *scaling) unscaleY(yp []float64, kc int) ([]float64, bool) {
 	y := make([]float64, len(yp))
+	ok := true
 	for r, v := range yp {
-		y[r] = sc.sign[r] * math.Ldexp(v, sc.rowExp[r]-kc)
+		var exact bool
+		y[r], exact = unscale(sc.sign[r]*v, sc.rowExp[r]-kc)
+		ok = ok && exact
 	}
-	return y
+	return y, ok
 }

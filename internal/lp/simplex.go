@@ -26,6 +26,13 @@ const (
 	// infeasTol, times 1 + |b'|₁, is the phase-I optimum (the total of the
 	// artificial variables) above which the program is infeasible.
 	infeasTol = 1e-10
+	// negTol is how far below zero a variable of the final basis may be:
+	// Harris's ratio test leaves at most feasTol·(1 + |b'|∞), and driving an
+	// artificial variable left at up to infeasTol out of the basis divides
+	// it by its pivot; a thousand times feasTol passes every
+	// well-conditioned basis, and a basis that leaves more is too
+	// ill-conditioned to trust (ErrSingular).
+	negTol = 1e-9
 	// stallPivots is the number of successive pivots that gain nothing
 	// after which the solver turns to Bland's rule until one gains.
 	stallPivots = 8
@@ -285,6 +292,11 @@ func (s *solver) solve() (Status, error) {
 	}
 	if unbounded {
 		return Unbounded, nil
+	}
+	for _, v := range s.xb {
+		if v < -negTol*s.feasTol/feasTol { // −negTol·(1 + |b'|∞)
+			return 0, fmt.Errorf("%w: the optimal basis leaves a variable at %g of the data's scale", ErrSingular, v)
+		}
 	}
 	return Optimal, nil
 }
