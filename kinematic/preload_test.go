@@ -257,3 +257,46 @@ func TestWriteLPSizingPrograms(t *testing.T) {
 		}, cp, Ap, bp)
 	}
 }
+
+var sinkSizing PreloadSizing
+
+// BenchmarkSizePreload measures the sizing of one central clamp (closed
+// form) and of three plungers, one over each ball (a linear program), over
+// an upright and a sideways case, and of the three plungers over twelve
+// cases (gravity turned about a cone).
+func BenchmarkSizePreload(b *testing.B) {
+	m, cs := equilateralModel(b, math.Pi/4, 50, 0.8, 0.03)
+	var pre []Preload
+	for k := 0; k < 3; k++ {
+		pre = append(pre, Preload{Name: "plunger", Point: cs[2*k].Centre, Direction: r3.Vec{Z: -1}, Force: 10})
+	}
+	m3, err := NewModel(cs, pre, Payload{Mass: 0.8, Centre: r3.Vec{Z: 0.03}})
+	if err != nil {
+		b.Fatal(err)
+	}
+	two := []LoadCase{
+		{Name: "upright", Gravity: r3.Vec{Z: -StandardGravity}},
+		{Name: "side", Gravity: r3.Vec{X: StandardGravity}},
+	}
+	var twelve []LoadCase
+	for k := range 12 {
+		s, c := math.Sincos(2 * math.Pi * float64(k) / 12)
+		twelve = append(twelve, LoadCase{Gravity: r3.Scale(StandardGravity, r3.Vec{X: 0.5 * c, Y: 0.5 * s, Z: -1})})
+	}
+	for _, bc := range []struct {
+		name  string
+		m     *Model
+		cases []LoadCase
+	}{{"clamp/2cases", m, two}, {"plungers/2cases", m3, two}, {"plungers/12cases", m3, twelve}} {
+		b.Run(bc.name, func(b *testing.B) {
+			b.ReportAllocs()
+			for b.Loop() {
+				sz, err := bc.m.SizePreload(bc.cases, 1)
+				if err != nil {
+					b.Fatal(err)
+				}
+				sinkSizing = sz
+			}
+		})
+	}
+}

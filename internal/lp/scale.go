@@ -60,11 +60,19 @@ func (x maxExp) shift() int {
 // data (numbers far below the largest of their row or column may
 // underflow, which only drops what is negligible there).
 func newScaling(c, a, b []float64, m, n int) *scaling {
+	// Two allocations: the floats, then the exponents.
+	fs := make([]float64, m*n+2*m+n)
+	is := make([]int, m+n)
 	sc := &scaling{
-		a: make([]float64, m*n), b: make([]float64, m), c: make([]float64, n),
-		sign: make([]float64, m), rowExp: make([]int, m), colExp: make([]int, n),
+		a: fs[:m*n], b: fs[m*n : m*n+m], c: fs[m*n+m : m*n+m+n], sign: fs[m*n+m+n:],
+		rowExp: is[:m], colExp: is[m:],
 	}
-	rows := make([]maxExp, m)
+	var rowBuf [16]maxExp
+	rows := rowBuf[:0]
+	if m > len(rowBuf) {
+		rows = make([]maxExp, m)
+	}
+	rows = rows[:m]
 	for j := range n {
 		for r, v := range a[m*j : m*j+m] {
 			rows[r].add(v, 0)

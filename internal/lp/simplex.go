@@ -59,12 +59,11 @@ type solver struct {
 // newSolver returns a solver of the scaled program sc, starting from the
 // basis of the artificial variables (feasible at x = b' ≥ 0).
 func newSolver(sc *scaling, m, n int) *solver {
-	s := &solver{
-		m: m, n: n, a: sc.a, b: sc.b, c: sc.c,
-		basic: make([]int, m), inBasis: make([]bool, n+m),
-		lu: make([]float64, m*m), perm: make([]int, m),
-	}
-	f := make([]float64, 5*m)
+	s := &solver{m: m, n: n, a: sc.a, b: sc.b, c: sc.c, inBasis: make([]bool, n+m)}
+	is := make([]int, 2*m)
+	s.basic, s.perm = is[:m], is[m:]
+	f := make([]float64, m*m+5*m)
+	s.lu, f = f[:m*m], f[m*m:]
 	s.xb, s.pi, s.d, s.col, s.work = f[:m], f[m:2*m], f[2*m:3*m], f[3*m:4*m], f[4*m:]
 	var bMax float64
 	for k := range m {
