@@ -171,6 +171,75 @@ func TestSizePreloadErrors(t *testing.T) {
 	}
 }
 
+// sizingFuzzInput returns the model, load cases and minimum force of the
+// FuzzSizePreload corpus file path, built as the fuzz target builds them.
+func sizingFuzzInput(t *testing.T, path string) (*Model, []LoadCase, float64) {
+	t.Helper()
+	c0, err := BisectorVees(isosceles(), three(vee45))
+	if err != nil {
+		t.Fatal(err)
+	}
+	cs, err := c0.Contacts()
+	if err != nil {
+		t.Fatal(err)
+	}
+	raw, _, _ := lpCorpus(t, path)
+	x := fuzzdata.Floats(raw, 19)[0]
+	var pre []Preload
+	for k := 0; k < 3; k++ {
+		pre = append(pre, Preload{Point: cs[2*k].Centre, Direction: r3.Vec{X: x[4*k], Y: x[4*k+1], Z: x[4*k+2]}, Force: x[4*k+3]})
+	}
+	m, err := NewModel(cs, pre, Payload{Mass: 1, Centre: r3.Vec{Z: 0.02}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	cases := []LoadCase{{Gravity: r3.Vec{X: x[12], Y: x[13], Z: x[14]}}, {Gravity: r3.Vec{X: x[15], Y: x[16], Z: x[17]}}}
+	return m, cases, math.Abs(x[18])
+}
+
+// TestSizePreloadDegenerate: on the inputs of the FuzzSizePreload corpus
+// (the first made gonum's simplex panic: three elements of which one
+// pushes two contacts with forces of 1e-76 N per unit factor, a minimum
+// force of 6e116 N) the sizing succeeds and its factors keep every contact
+// at minForce in every case, to the 1e-9 of the solver's tolerances
+// (internal/lp: residuals of 1e-10 of the data), each force and its terms
+// summed by hand here.
+func TestSizePreloadDegenerate(t *testing.T) {
+	paths, _ := filepath.Glob("testdata/fuzz/FuzzSizePreload/*")
+	if len(paths) == 0 {
+		t.Fatal("no corpus")
+	}
+	for _, path := range paths {
+		m, cases, minForce := sizingFuzzInput(t, path)
+		sz, err := m.SizePreload(cases, minForce)
+		if err != nil {
+			t.Fatalf("%s: %v", path, err)
+		}
+		a := make([][6]float64, len(m.preloads))
+		for j, p := range m.preloads {
+			m.forces(p.w, &a[j])
+		}
+		for k := range cases {
+			w, err := m.wrench(&cases[k])
+			if err != nil {
+				t.Fatal(err)
+			}
+			var e [6]float64
+			m.forces(w, &e)
+			for i := range 6 {
+				f, mag := e[i], math.Abs(e[i])
+				for j, s := range sz.Factors {
+					f += s * a[j][i]
+					mag += math.Abs(s * a[j][i])
+				}
+				if f < minForce-1e-9*max(mag, minForce) {
+					t.Errorf("%s: case %d contact %d at %g N, below minForce %g N", path, k, i, f, minForce)
+				}
+			}
+		}
+	}
+}
+
 // TestWriteLPSizingPrograms writes the sizing programs of the
 // FuzzSizePreload corpus (see lpDataDir): the dual program that sizeLP
 // solves, and the primal program in the form gonum's lp.Simplex was given
@@ -180,28 +249,9 @@ func TestWriteLPSizingPrograms(t *testing.T) {
 	if *lpDataDir == "" {
 		t.Skip("writes files only with -lpdata")
 	}
-	c0, err := BisectorVees(isosceles(), three(vee45))
-	if err != nil {
-		t.Fatal(err)
-	}
-	cs, err := c0.Contacts()
-	if err != nil {
-		t.Fatal(err)
-	}
 	paths, _ := filepath.Glob("testdata/fuzz/FuzzSizePreload/*")
 	for _, path := range paths {
-		raw, _, _ := lpCorpus(t, path)
-		x := fuzzdata.Floats(raw, 19)[0]
-		var pre []Preload
-		for k := 0; k < 3; k++ {
-			pre = append(pre, Preload{Point: cs[2*k].Centre, Direction: r3.Vec{X: x[4*k], Y: x[4*k+1], Z: x[4*k+2]}, Force: x[4*k+3]})
-		}
-		m, err := NewModel(cs, pre, Payload{Mass: 1, Centre: r3.Vec{Z: 0.02}})
-		if err != nil {
-			t.Fatal(err)
-		}
-		cases := []LoadCase{{Gravity: r3.Vec{X: x[12], Y: x[13], Z: x[14]}}, {Gravity: r3.Vec{X: x[15], Y: x[16], Z: x[17]}}}
-		minForce := math.Abs(x[18])
+		m, cases, minForce := sizingFuzzInput(t, path)
 		a := make([][6]float64, len(m.preloads))
 		var used []int
 		for j, p := range m.preloads {
