@@ -112,7 +112,30 @@ func (m *Model) SizePreload(cases []LoadCase, minForce float64) (PreloadSizing, 
 	bound := func(k, i int) Bound { return Bound{Case: names[k], Contact: labelOf(m.lines[i].label, i)} }
 
 	var sz PreloadSizing
-	// The common scale: every element at the same factor s.
+	if err := m.commonScale(&sz, a, e, minForce, names, bound); err != nil {
+		return PreloadSizing{}, err
+	}
+	// The smallest total preload, element by element.
+	if nj == 1 {
+		sz.Factors = []float64{sz.MinScale}
+	} else {
+		f, err := m.sizeLP(a, e, minForce)
+		if err != nil {
+			return PreloadSizing{}, err
+		}
+		sz.Factors = f
+	}
+	for j, s := range sz.Factors {
+		sz.Total += s * linalg.Norm3(m.preloads[j].w.F)
+	}
+	sz.Binding = sizeBinding(sz.Factors, a, e, minForce, bound)
+	return sz, nil
+}
+
+// commonScale fills in sz's MinScale, MaxScale and their Bindings: every
+// element at one common factor s, with a[j] the contact forces of element
+// j at factor 1 and e[k] those of the rest of case k (SizePreload).
+func (m *Model) commonScale(sz *PreloadSizing, a, e [][6]float64, minForce float64, names []string, bound func(k, i int) Bound) error {
 	var sum [6]float64
 	for j := range a {
 		for i := range sum {
@@ -129,7 +152,7 @@ func (m *Model) SizePreload(cases []LoadCase, minForce float64) (PreloadSizing, 
 					sz.MinScale, sz.MinBinding = s, bound(k, i)
 				}
 			case need > 0:
-				return PreloadSizing{}, &InputError{Field: "cases", Err: fmt.Errorf(
+				return &InputError{Field: "cases", Err: fmt.Errorf(
 					"%w: case %q leaves contact %s at %.6g N, below minForce %g N, and the preload does not push it closed",
 					ErrRange, names[k], labelOf(m.lines[i].label, i), e[k][i], minForce)}
 			}
@@ -147,7 +170,7 @@ func (m *Model) SizePreload(cases []LoadCase, minForce float64) (PreloadSizing, 
 		}
 		fa, err := s.pair.LoadForPressure(s.allow)
 		if err != nil {
-			return PreloadSizing{}, fromHertz(err, indexed("cs", i)+".Moving", indexed("cs", i)+".Base", nil)
+			return fromHertz(err, indexed("cs", i)+".Moving", indexed("cs", i)+".Base", nil)
 		}
 		for k := range e {
 			if v := (fa - e[k][i]) / sum[i]; v < sz.MaxScale {
@@ -155,36 +178,28 @@ func (m *Model) SizePreload(cases []LoadCase, minForce float64) (PreloadSizing, 
 			}
 		}
 	}
+	return nil
+}
 
-	// The smallest total preload, element by element.
-	if nj == 1 {
-		sz.Factors = []float64{sz.MinScale}
-	} else {
-		f, err := m.sizeLP(a, e, minForce)
-		if err != nil {
-			return PreloadSizing{}, err
-		}
-		sz.Factors = f
-	}
-	for j, s := range sz.Factors {
-		sz.Total += s * linalg.Norm3(m.preloads[j].w.F)
-	}
-	// Binding pairs at the optimum.
+// sizeBinding returns the case and contact pairs at minForce, to bindTol,
+// for the factors.
+func sizeBinding(factors []float64, a, e [][6]float64, minForce float64, bound func(k, i int) Bound) []Bound {
+	var out []Bound
 	scale := math.Max(minForce, 1e-300)
 	for k := range e {
 		for i := 0; i < 6; i++ {
 			f := e[k][i]
 			var mag float64
-			for j, s := range sz.Factors {
+			for j, s := range factors {
 				f += s * a[j][i]
 				mag = math.Max(mag, math.Abs(s*a[j][i]))
 			}
 			if math.Abs(f-minForce) <= bindTol*math.Max(scale, math.Max(mag, math.Abs(e[k][i]))) {
-				sz.Binding = append(sz.Binding, bound(k, i))
+				out = append(out, bound(k, i))
 			}
 		}
 	}
-	return sz, nil
+	return out
 }
 
 // sizeLP solves min Σ sⱼ Fⱼ subject to Σⱼ sⱼ aᵢⱼ + eᵢₖ ≥ minForce, s ≥ 0:
