@@ -16,11 +16,13 @@
 // by the caller: an inequality A·x ≥ b by a surplus column −I, a bound
 // x ≥ l by the substitution x = l + x', or, when there are many more
 // inequalities than variables, by solving the dual program, whose optimal
-// multipliers [Result].Y are the primal solution.
+// multipliers [Result].Y are then the primal solution (up to sign).
 //
-// The method works on rows: each pivot factorises the m×m basis afresh
-// (LU with partial pivoting), O(m³ + m·n) operations, so that rounding
-// does not accumulate; it is meant for m up to a few dozen and any n. A
+// The column with the most negative reduced cost on the scaled program
+// enters (Dantzig's rule). Each pivot factorises the m×m basis afresh (LU
+// with partial pivoting, Golub & Van Loan, Matrix Computations, 4th ed.,
+// 2013, Algorithm 3.4.1): O(m³ + m·n) operations, and no rounding carried
+// from pivot to pivot. It is meant for m up to a few dozen and any n. A
 // feasible program needs A of full row rank m to working precision,
 // otherwise Solve returns [ErrSingular].
 //

@@ -12,11 +12,13 @@ import (
 type Status int
 
 const (
-	// Optimal: X is an optimal vertex and Y optimal multipliers.
+	// Optimal means that X is an optimal vertex and Y optimal multipliers.
 	Optimal Status = iota
-	// Infeasible: no x ≥ 0 satisfies A·x = b; Y is a Farkas certificate.
+	// Infeasible means that no x ≥ 0 satisfies A·x = b; Y is a Farkas
+	// certificate.
 	Infeasible
-	// Unbounded: the program is feasible and cᵀx has no lower bound on it.
+	// Unbounded means that the program is feasible and cᵀx has no lower
+	// bound on it.
 	Unbounded
 )
 
@@ -37,8 +39,9 @@ func (s Status) String() string {
 // means the defaults.
 type Options struct {
 	// MaxPivots bounds the simplex pivots of both phases together; 0 means
-	// 50·(m + n), far more than the programs of the module need (a few
-	// times m is typical; Chvátal 1983, ch. 4, from memory).
+	// 50·(m + n), far more than the programs of the module need (between
+	// m and 3m pivots is what the simplex method typically makes; from
+	// memory, common practice).
 	MaxPivots int
 }
 
@@ -68,7 +71,9 @@ type Result struct {
 var (
 	// ErrSingular reports a basis singular to working precision: A does not
 	// have full row rank (or has it only to rounding) and the program is
-	// feasible, or rounding made a pivot vanish.
+	// feasible, rounding made a pivot vanish, or the optimal basis is too
+	// ill-conditioned to keep x ≥ 0 to tolerance (see the package
+	// documentation).
 	ErrSingular = errors.New("lp: the simplex basis is singular to working precision")
 
 	// ErrIterationLimit reports that the simplex made Options.MaxPivots
