@@ -75,12 +75,12 @@ const closureMaxSides = 256
 
 // closureMarginTol, times the condition number of the normalised
 // generators, is the Margin at or below which a set is reported as not
-// closed. The simplex of internal/lp works to tolerances of 1e-12 to 1e-10
-// of its scaled data (here columns of unit norm), and rounding in the generators
-// is amplified by their condition number; a smaller Margin cannot be told
-// from the boundary of closure, where it is exactly 0, and the verdict is
-// then the safe one. For a well-shaped coupling (condition below 10) the
-// threshold is below 1e-11.
+// closed. The simplex of internal/lp works to tolerances of 1e-12 to
+// 1e-10 of its scaled data (here columns of unit norm), and rounding in
+// the generators is amplified by their condition number; a smaller Margin
+// cannot be told from the boundary of closure, where it is exactly 0, and
+// the verdict is then the safe one. For a well-shaped coupling (condition
+// below 10) the threshold is below 1e-11.
 const closureMarginTol = 1e-12
 
 // closureCheckTol is the relative residual and the relative negative load
@@ -111,8 +111,8 @@ const closureTangentTol = 1e-6
 // subject to those constraints, is solved by the two-phase revised simplex
 // method of the module (internal/lp), made safe against the degenerate
 // programs of symmetric designs by perturbing the bounds (by 2e-10 at most)
-// and by Bland's rule; gonum's lp.Simplex cycles for ever on some of them
-// (see internal/lp's tests) and serves as the reference in the tests. The optimum gives
+// and by Bland's rule; gonum's lp.Simplex, tried first, cycled for ever on
+// some of them and serves as the reference in the tests. The optimum gives
 // the Margin, to a relative 2e-10: a quantitative test in the manner of
 // Trinkle (1992, "A quantitative test for form closure grasps", IEEE/RSJ
 // IROS).
