@@ -33,6 +33,9 @@
 //     Aᵀy ≤ c and bᵀy = cᵀx, both to the tolerances below.
 //   - [Infeasible]: X is nil; Y is a Farkas certificate, Aᵀy ≤ 0 and
 //     bᵀy > 0 (to the tolerances), the proof that no x ≥ 0 meets A·x = b.
+//     On an ill-conditioned basis at the boundary of feasibility the
+//     rounding of y (ε times the basis's condition) can exceed bᵀy: the
+//     verdict is then one the data cannot settle.
 //   - [Unbounded]: the program is feasible and the objective decreases
 //     without bound along a ray; X and Y are nil.
 //   - An error for input that is not a program (a dimension of 0,

@@ -46,8 +46,10 @@ func fuzzEncode(c, a, b []float64) (mb, nb uint8, data []byte) {
 // 10 s (the iteration limit; it never hangs) without panicking, that an
 // error is one of those documented (ErrNonFinite exactly when an entry is
 // NaN or infinite), that every number returned is finite, that an optimum
-// and a Farkas certificate pass their checks (verify, without the duality
-// gap, which grows with the condition of the basis), and that the optimum
+// and a Farkas certificate pass their checks (verify, not strict: without
+// the duality gap, and with bᵀy of a certificate down to −checkTol, since
+// both carry rounding that grows with the condition of the basis), and
+// that the optimum
 // is not worse than gonum's when gonum finds one: by no more than what
 // pricing to tolerance can leave, checkTol·(1 + |y|∞)·|x_gonum|₁ plus
 // checkTol times the terms of both objectives, all scaled. Seeds: the
