@@ -8,6 +8,7 @@ import (
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"github.com/sixfold-dev/sixfold/internal/linalg"
+	"github.com/sixfold-dev/sixfold/internal/lp"
 	"github.com/sixfold-dev/sixfold/screw"
 )
 
@@ -74,12 +75,12 @@ const closureMaxSides = 256
 
 // closureMarginTol, times the condition number of the normalised
 // generators, is the Margin at or below which a set is reported as not
-// closed. The simplex of closureSimplex works to tolerances of 1e-12 to
-// 1e-10 of its data (columns of unit norm), and rounding in the generators
-// is amplified by their condition number; a smaller Margin cannot be told
-// from the boundary of closure, where it is exactly 0, and the verdict is
-// then the safe one. For a well-shaped coupling (condition below 10) the
-// threshold is below 1e-11.
+// closed. The simplex of internal/lp works to tolerances of 1e-12 to
+// 1e-10 of its scaled data (here columns of unit norm), and rounding in
+// the generators is amplified by their condition number; a smaller Margin
+// cannot be told from the boundary of closure, where it is exactly 0, and
+// the verdict is then the safe one. For a well-shaped coupling (condition
+// below 10) the threshold is below 1e-11.
 const closureMarginTol = 1e-12
 
 // closureCheckTol is the relative residual and the relative negative load
@@ -107,11 +108,11 @@ const closureTangentTol = 1e-6
 // Σ λᵢŵᵢ = 0. (If such λ exist, any wrench w = Σ μᵢŵᵢ is also Σ (μᵢ + sλᵢ)ŵᵢ,
 // non-negative for s large; conversely, if the ŵᵢ positively span, −Σŵᵢ is a
 // non-negative combination Σνᵢŵᵢ and λ = 1 + ν.) The program, minimise Σλᵢ
-// subject to those constraints, is solved by a two-phase simplex method of
-// this package, made safe against the degenerate programs of symmetric
-// designs by perturbing the bounds (by 2e-10 at most) and by Bland's rule;
-// gonum's lp.Simplex cycles for ever on some of them (see closureSimplex in
-// the source) and serves as the reference in the tests. The optimum gives
+// subject to those constraints, is solved by the two-phase revised simplex
+// method of the module (internal/lp), made safe against the degenerate
+// programs of symmetric designs by perturbing the bounds (by 2e-10 at most)
+// and by Bland's rule; gonum's lp.Simplex, tried first, cycled for ever on
+// some of them and serves as the reference in the tests. The optimum gives
 // the Margin, to a relative 2e-10: a quantitative test in the manner of
 // Trinkle (1992, "A quantitative test for form closure grasps", IEEE/RSJ
 // IROS).
@@ -210,7 +211,21 @@ func ForceClosure(cs []Contact, mu float64, opt *ClosureOptions) (Closure, error
 		}
 		t1s[i] = t
 	}
-	pc, length := an.Centre, an.Length
+	a := forceGenerators(cs, t1s, an.Centre, an.Length, mu, k)
+	rank, cond := closureRank(a)
+	cl := Closure{Rank: rank}
+	if rank < 6 {
+		return cl, nil
+	}
+	return closureSolve(a, cond, cl)
+}
+
+// forceGenerators returns the 6×N column-major generators of ForceClosure
+// (each contact's normal, then the k edges of its friction pyramid, in
+// normalised coordinates about pc) for the contacts cs with first tangents
+// t1s, friction coefficient mu > 0 and k sides; length is the Length of
+// their analysis, 0 if every normal passes through pc.
+func forceGenerators(cs []Contact, t1s []r3.Vec, pc r3.Vec, length, mu float64, k int) []float64 {
 	if !(length > 0) {
 		// Every normal passes through Centre (one ball in a socket, say);
 		// the edges do not. The RMS distance of the contact points from
@@ -248,12 +263,7 @@ func ForceClosure(cs []Contact, mu float64, opt *ClosureOptions) (Closure, error
 			closureColumn(a[col:col+6], c.Point, f, pc, length)
 		}
 	}
-	rank, cond := closureRank(a)
-	cl := Closure{Rank: rank}
-	if rank < 6 {
-		return cl, nil
-	}
-	return closureSolve(a, cond, cl)
+	return a
 }
 
 // closureColumn writes into col the unit force along f through p in
@@ -336,35 +346,52 @@ func closureRank(a []float64) (rank int, cond float64) {
 // a relative 2e-10.
 const closurePerturb = 1e-10
 
+// closureBounds returns the raised bounds lⱼ = 1 + εⱼ of closureSolve
+// (closurePerturb) for the 6×N generators a, and b = −A·l.
+func closureBounds(a []float64) (l []float64, b [6]float64) {
+	n := len(a) / 6
+	l = make([]float64, n)
+	for j := range n {
+		// εⱼ/closurePerturb = 1 + frac(j·φ), φ the golden section:
+		// distinct and evenly spread for any n.
+		_, f := math.Modf(float64(j) * 0.6180339887498949)
+		l[j] = 1 + closurePerturb*(1+f)
+		for r := range 6 {
+			b[r] -= l[j] * a[6*j+r]
+		}
+	}
+	return l, b
+}
+
 // closureSolve decides closure of the 6×N column-major generators a, known
 // to have rank 6 and condition number cond, and fills in cl.
 //
 // The closure program (Lynch & Park 2017, §12.1.7): minimise Σλⱼ subject to
 // Σλⱼŵⱼ = 0, λⱼ ≥ 1, feasible exactly when the set is closed; with the
 // bounds raised to lⱼ (closurePerturb), λ = l + x and b = −A·l, in standard
-// form: minimise Σxⱼ subject to A·x = b, x ≥ 0, bounded below by 0.
+// form: minimise Σxⱼ subject to A·x = b, x ≥ 0, bounded below by 0,
+// solved by lp.Solve. An error means a numerical failure of the solver (a
+// singular basis, the iteration limit) or a solution that fails the check
+// below.
 func closureSolve(a []float64, cond float64, cl Closure) (Closure, error) {
 	n := len(a) / 6
-	l := make([]float64, n)
-	var b [6]float64
-	var sumL float64
-	for j := range n {
-		// εⱼ/closurePerturb = 1 + frac(j·φ), φ the golden section:
-		// distinct and evenly spread for any n.
-		_, f := math.Modf(float64(j) * 0.6180339887498949)
-		l[j] = 1 + closurePerturb*(1+f)
-		sumL += l[j]
-		for r := range 6 {
-			b[r] -= l[j] * a[6*j+r]
-		}
+	l, b := closureBounds(a)
+	ones := make([]float64, n)
+	for j := range ones {
+		ones[j] = 1
 	}
-	x, feasible, err := closureSimplex(a, b)
+	sol, err := lp.Solve(ones, a, b[:], nil)
+	if err == nil && sol.Status == lp.Unbounded {
+		// Σxⱼ ≥ 0 on x ≥ 0: only rounding can find a ray.
+		err = errors.New("the simplex found a ray in a program bounded below")
+	}
 	if err != nil {
 		return Closure{}, fmt.Errorf("kinematic: closure: %w (a set of rank 6 and condition %.3g)", err, cond)
 	}
-	if !feasible {
+	if sol.Status == lp.Infeasible {
 		return cl, nil // no λ ≥ 1 balances: some wrench is not resisted
 	}
+	x := sol.X
 	// Check the solution: λ = l + x must be at least 1 and balance.
 	var total, big float64
 	var res [6]float64
@@ -389,337 +416,4 @@ func closureSolve(a []float64, cond float64, cl Closure) (Closure, error) {
 		cl.Closed, cl.Margin = true, margin
 	}
 	return cl, nil
-}
-
-// Tolerances of closureSimplex, for columns of unit norm and a right-hand
-// side of norm at most N.
-const (
-	// closureCostTol, times 1 + |π|∞ (π the simplex multipliers), is the
-	// reduced cost below which a column enters: reduced costs carry a few
-	// ulps of that scale, so anything above −1e-11 of it is zero to
-	// rounding.
-	closureCostTol = 1e-11
-	// closurePivotTol, times 1 + |B⁻¹aⱼ|∞, is the smallest entry of the
-	// entering column that can be a pivot: smaller ones would leave the
-	// next basis singular to working precision.
-	closurePivotTol = 1e-9
-	// closureFeasTol, times 1 + |b|∞, is how far below zero a basic
-	// variable may go in the ratio test of Harris (1973, "Pivot selection
-	// methods of the Devex LP code", Math. Program. 5), which in exchange
-	// for it picks the largest pivot among the near-ties: a hundredth of
-	// the perturbation of closurePerturb, and a hundred times the rounding
-	// of the basic variables.
-	closureFeasTol = 1e-12
-	// closureInfeasTol, times 1 + |b|₁, is the phase-I optimum (the total
-	// of the artificial variables) above which the program is infeasible.
-	// A set feasible only within it has a margin far below
-	// closureMarginTol and is reported not closed either way.
-	closureInfeasTol = 1e-10
-	// closureStall is the number of successive pivots that gain nothing
-	// after which closureSimplex turns to Bland's rule until one gains.
-	closureStall = 8
-)
-
-// closureSimplex solves minimise Σxⱼ subject to A·x = b, x ≥ 0, for the
-// 6×N column-major a of rank 6 (columns of unit norm), by the two-phase
-// revised simplex method (Dantzig; Chvátal, Linear Programming, 1983, ch.
-// 7–8), and reports whether the program is feasible. The column with the
-// most negative reduced cost enters; the ratio test is Harris's, which
-// prefers large pivots; the 6×6 basis is factorised afresh at each pivot
-// (partial pivoting), so rounding does not accumulate. closureSolve's
-// perturbation makes every pivot gain on all but ill-conditioned sets; if
-// closureStall pivots in a row gain nothing, the smallest-index rule of
-// Bland (1977, "New finite pivoting rules for the simplex method", Math.
-// Oper. Res. 2(2)), which cannot cycle, chooses until one does. An error
-// means a numerical failure: a singular basis, or more pivots than any
-// program of this size needs.
-//
-// gonum's lp.Simplex would do, but it cycles for ever on the degenerate
-// programs that symmetric designs produce, in its phase I and in its main
-// loop (its fallback rule follows a list that pivots permute, not Bland's
-// order), it has no iteration limit, and its ratio test accepts pivots
-// that leave the basis singular: fuzzing found all three, on a three-vee
-// coupling with a hold-down pad and on friction pyramids. It stays the
-// reference in the tests.
-func closureSimplex(a []float64, b [6]float64) (x []float64, feasible bool, err error) {
-	n := len(a) / 6
-	// Rows with b < 0 are negated, so that the artificial variables
-	// (columns n to n+5, the identity) start feasible at b.
-	var sg, bs [6]float64
-	var b1, binf float64
-	for r := range 6 {
-		sg[r] = 1
-		if b[r] < 0 {
-			sg[r] = -1
-		}
-		bs[r] = sg[r] * b[r]
-		b1 += bs[r]
-		binf = max(binf, bs[r])
-	}
-	feasTol := closureFeasTol * (1 + binf)
-	col := func(j int, out *[6]float64) {
-		if j >= n {
-			*out = [6]float64{}
-			out[j-n] = 1
-			return
-		}
-		for r := range 6 {
-			out[r] = sg[r] * a[6*j+r]
-		}
-	}
-	basic := [6]int{n, n + 1, n + 2, n + 3, n + 4, n + 5}
-	inBasis := make([]bool, n+6)
-	for _, j := range basic {
-		inBasis[j] = true
-	}
-	var lu [36]float64
-	var perm [6]int
-	var xb [6]float64
-	factor := func() error {
-		for k, j := range basic {
-			var c [6]float64
-			col(j, &c)
-			copy(lu[6*k:6*k+6], c[:]) // column-major: column k is basic[k]
-		}
-		if !closureLU(&lu, &perm) {
-			return errors.New("the simplex basis is singular to working precision")
-		}
-		xb = bs
-		closureLUSolve(&lu, &perm, &xb)
-		return nil
-	}
-	maxPivots := 50 * (n + 6)
-	pivots, stalled := 0, 0
-	// phase runs the simplex for the costs cost(j) over the columns with
-	// allowed(j), from the current basis.
-	phase := func(cost func(int) float64, allowed func(int) bool) error {
-		for {
-			if err := factor(); err != nil {
-				return err
-			}
-			var pi [6]float64 // multipliers π = B⁻ᵀc_B
-			for k, j := range basic {
-				pi[k] = cost(j)
-			}
-			closureLUSolveT(&lu, &perm, &pi)
-			scale := 1.0
-			for _, v := range pi {
-				scale = max(scale, 1+math.Abs(v))
-			}
-			bland := stalled >= closureStall
-			enter, best := -1, -closureCostTol*scale
-			var c [6]float64
-			for j := 0; j < n+6; j++ {
-				if inBasis[j] || !allowed(j) {
-					continue
-				}
-				col(j, &c)
-				r := cost(j) - (pi[0]*c[0] + pi[1]*c[1] + pi[2]*c[2] + pi[3]*c[3] + pi[4]*c[4] + pi[5]*c[5])
-				if r < best {
-					enter, best = j, r
-					if bland {
-						break // Bland: the first improving column
-					}
-				}
-			}
-			if enter < 0 {
-				return nil
-			}
-			if pivots++; pivots > maxPivots {
-				return fmt.Errorf("the simplex made %d pivots without ending", maxPivots)
-			}
-			var d [6]float64
-			col(enter, &d)
-			closureLUSolve(&lu, &perm, &d)
-			var dmax float64
-			for _, v := range d {
-				dmax = max(dmax, math.Abs(v))
-			}
-			pivTol := closurePivotTol * (1 + dmax)
-			// Harris, pass 1: the largest step that keeps every basic
-			// variable above −feasTol.
-			theta := math.Inf(1)
-			for i := range 6 {
-				if d[i] > pivTol {
-					theta = min(theta, (max(xb[i], 0)+feasTol)/d[i])
-				}
-			}
-			if math.IsInf(theta, 1) {
-				return errors.New("the simplex found no pivot in the entering column")
-			}
-			// Pass 2: among the rows that bind within that step, the
-			// largest pivot (or, under Bland's rule, the smallest index
-			// among the rows that bind first).
-			leave := -1
-			if bland {
-				first := math.Inf(1)
-				for i := range 6 {
-					if d[i] > pivTol {
-						first = min(first, max(xb[i], 0)/d[i])
-					}
-				}
-				for i := range 6 {
-					if d[i] > pivTol && max(xb[i], 0)/d[i] <= first+feasTol/d[i] && (leave < 0 || basic[i] < basic[leave]) {
-						leave = i
-					}
-				}
-			} else {
-				for i := range 6 {
-					if d[i] > pivTol && max(xb[i], 0)/d[i] <= theta && (leave < 0 || d[i] > d[leave]) {
-						leave = i
-					}
-				}
-			}
-			if step := max(xb[leave], 0) / d[leave]; step*(-best) <= closureCostTol*scale*feasTol {
-				stalled++ // the pivot gains nothing
-			} else {
-				stalled = 0
-			}
-			inBasis[basic[leave]], inBasis[enter] = false, true
-			basic[leave] = enter
-		}
-	}
-	// Phase I: minimise the total of the artificial variables.
-	if err := phase(func(j int) float64 {
-		if j >= n {
-			return 1
-		}
-		return 0
-	}, func(int) bool { return true }); err != nil {
-		return nil, false, err
-	}
-	var w float64
-	for k, j := range basic {
-		if j >= n {
-			w += max(xb[k], 0)
-		}
-	}
-	if w > closureInfeasTol*(1+b1) {
-		return nil, false, nil
-	}
-	// Drive the artificial variables left in the basis (near zero) out of
-	// it, each for the original column with the largest pivot in its row:
-	// rank 6 guarantees one.
-	for k := range basic {
-		if basic[k] < n {
-			continue
-		}
-		if err := factor(); err != nil {
-			return nil, false, err
-		}
-		best, bestV := -1, 0.0
-		var d [6]float64
-		for j := range n {
-			if inBasis[j] {
-				continue
-			}
-			col(j, &d)
-			closureLUSolve(&lu, &perm, &d)
-			if v := math.Abs(d[k]); v > bestV {
-				best, bestV = j, v
-			}
-		}
-		if best < 0 || bestV <= closurePivotTol {
-			return nil, false, errors.New("the simplex cannot leave phase I: the generators are of rank 6 only to rounding")
-		}
-		inBasis[basic[k]], inBasis[best] = false, true
-		basic[k] = best
-	}
-	// Phase II: minimise Σx over the original columns.
-	stalled = 0
-	if err := phase(func(int) float64 { return 1 }, func(j int) bool { return j < n }); err != nil {
-		return nil, false, err
-	}
-	if err := factor(); err != nil {
-		return nil, false, err
-	}
-	x = make([]float64, n)
-	for k, j := range basic {
-		x[j] = xb[k]
-	}
-	return x, true, nil
-}
-
-// closureLU factorises the 6×6 column-major matrix m in place, P·M = L·U
-// with partial pivoting (Golub & Van Loan, Matrix Computations, 4th ed.,
-// 2013, Algorithm 3.4.1), and reports false if a pivot is at or below 1e-13
-// times the largest entry of M: singular to working precision for columns
-// of unit norm.
-func closureLU(m *[36]float64, perm *[6]int) bool {
-	var big float64
-	for _, v := range m {
-		big = max(big, math.Abs(v))
-	}
-	for i := range perm {
-		perm[i] = i
-	}
-	at := func(r, c int) *float64 { return &m[6*c+r] }
-	for k := range 6 {
-		p := k
-		for r := k + 1; r < 6; r++ {
-			if math.Abs(*at(r, k)) > math.Abs(*at(p, k)) {
-				p = r
-			}
-		}
-		if !(math.Abs(*at(p, k)) > 1e-13*big) {
-			return false
-		}
-		if p != k {
-			perm[k], perm[p] = perm[p], perm[k]
-			for c := range 6 {
-				*at(k, c), *at(p, c) = *at(p, c), *at(k, c)
-			}
-		}
-		piv := *at(k, k)
-		for r := k + 1; r < 6; r++ {
-			f := *at(r, k) / piv
-			*at(r, k) = f
-			for c := k + 1; c < 6; c++ {
-				*at(r, c) -= f * *at(k, c)
-			}
-		}
-	}
-	return true
-}
-
-// closureLUSolve overwrites v with M⁻¹v for M factorised by closureLU.
-func closureLUSolve(m *[36]float64, perm *[6]int, v *[6]float64) {
-	var y [6]float64
-	for r := range 6 {
-		y[r] = v[perm[r]]
-	}
-	for r := range 6 {
-		for c := range r {
-			y[r] -= m[6*c+r] * y[c]
-		}
-	}
-	for r := 5; r >= 0; r-- {
-		for c := r + 1; c < 6; c++ {
-			y[r] -= m[6*c+r] * y[c]
-		}
-		y[r] /= m[6*r+r]
-	}
-	*v = y
-}
-
-// closureLUSolveT overwrites v with M⁻ᵀv for M factorised by closureLU:
-// Mᵀ = Uᵀ·Lᵀ·P.
-func closureLUSolveT(m *[36]float64, perm *[6]int, v *[6]float64) {
-	y := *v
-	for r := range 6 { // Uᵀ is lower triangular
-		for c := range r {
-			y[r] -= m[6*r+c] * y[c]
-		}
-		y[r] /= m[6*r+r]
-	}
-	for r := 5; r >= 0; r-- { // Lᵀ is unit upper triangular
-		for c := r + 1; c < 6; c++ {
-			y[r] -= m[6*r+c] * y[c]
-		}
-	}
-	var out [6]float64
-	for r := range 6 {
-		out[perm[r]] = y[r]
-	}
-	*v = out
 }

@@ -3,15 +3,22 @@ package kinematic
 import (
 	"encoding/binary"
 	"errors"
+	"flag"
+	"fmt"
 	"math"
 	"math/rand/v2"
+	"os"
+	"path/filepath"
 	"slices"
+	"strconv"
+	"strings"
 	"testing"
 
 	"github.com/google/go-cmp/cmp"
 	"gonum.org/v1/gonum/mat"
-	"gonum.org/v1/gonum/optimize/convex/lp"
 	"gonum.org/v1/gonum/spatial/r3"
+
+	"github.com/sixfold-dev/sixfold/internal/linalg"
 )
 
 // Helpers of this file are named closure… so as not to depend on the other
@@ -585,59 +592,6 @@ func TestClosureOpposedPairs(t *testing.T) {
 	}
 }
 
-// TestClosureSimplexAgainstGonum compares the simplex of closureSolve with
-// gonum's lp.Simplex, the reference library, on the closure programs of
-// random generators (Gaussian unit columns: generic, non-degenerate
-// programs, on which gonum ends): the same feasibility and the same optimum.
-func TestClosureSimplexAgainstGonum(t *testing.T) {
-	rng := rand.New(rand.NewPCG(4, 4))
-	agree := [2]int{}
-	for range 300 {
-		n := 7 + rng.IntN(20)
-		a := make([]float64, 6*n)
-		am := mat.NewDense(6, n, nil)
-		b := make([]float64, 6)
-		c := make([]float64, n)
-		for j := range n {
-			var nrm float64
-			for r := range 6 {
-				a[6*j+r] = rng.NormFloat64()
-				nrm += a[6*j+r] * a[6*j+r]
-			}
-			c[j] = 1
-			for r := range 6 {
-				a[6*j+r] /= math.Sqrt(nrm)
-				am.Set(r, j, a[6*j+r])
-				b[r] -= a[6*j+r]
-			}
-		}
-		opt, _, gerr := lp.Simplex(c, am, b, 1e-12, nil)
-		x, feasible, err := closureSimplex(a, [6]float64(b))
-		if err != nil {
-			t.Fatalf("n = %d: %v", n, err)
-		}
-		switch {
-		case errors.Is(gerr, lp.ErrInfeasible):
-			if feasible {
-				t.Errorf("n = %d: feasible, gonum says infeasible", n)
-			}
-			agree[0]++
-		case gerr == nil:
-			var sum float64
-			for _, v := range x {
-				sum += v
-			}
-			if !feasible || math.Abs(sum-opt) > 1e-9*(1+opt) {
-				t.Errorf("n = %d: feasible %v, optimum %g; gonum %g", n, feasible, sum, opt)
-			}
-			agree[1]++
-		}
-	}
-	if agree[0] < 30 || agree[1] < 30 {
-		t.Fatalf("compared %d infeasible and %d feasible programs: too few", agree[0], agree[1])
-	}
-}
-
 // closureWithTangents returns a copy of the coupling's contacts with each
 // vee contact's Tangent set to its groove direction (n₊ × n₋, normal to
 // both flanks' normals) turned by rot about its normal.
@@ -1070,5 +1024,138 @@ func BenchmarkForceClosure(b *testing.B) {
 				sinkClosure = cl
 			}
 		})
+	}
+}
+
+// lpDataDir, when set (go test ./kinematic/ -run WriteLP -args -lpdata
+// ../internal/lp/testdata/programs), is where TestWriteLPClosurePrograms and
+// TestWriteLPSizingPrograms write the linear programs of the fuzz corpora,
+// the degenerate programs of internal/lp's tests.
+var lpDataDir = flag.String("lpdata", "", "directory to write the linear programs of the fuzz corpora into")
+
+// lpWrite writes the program minimise cᵀx, A·x = b, x ≥ 0 (A m×n,
+// column-major) into dir/name.txt, every number exactly (shortest
+// round-trip decimal), after comment lines naming its source.
+func lpWrite(t *testing.T, name string, comment []string, c, a, b []float64) {
+	t.Helper()
+	var sb strings.Builder
+	for _, l := range comment {
+		fmt.Fprintf(&sb, "# %s\n", l)
+	}
+	fmt.Fprintf(&sb, "m %d\nn %d\n", len(b), len(c))
+	for _, row := range []struct {
+		name string
+		v    []float64
+	}{{"c", c}, {"b", b}, {"a", a}} {
+		sb.WriteString(row.name)
+		for _, v := range row.v {
+			sb.WriteString(" " + strconv.FormatFloat(v, 'g', -1, 64))
+		}
+		sb.WriteString("\n")
+	}
+	if err := os.WriteFile(filepath.Join(*lpDataDir, name+".txt"), []byte(sb.String()), 0o644); err != nil {
+		t.Fatal(err)
+	}
+}
+
+// lpCorpus returns the values of the fuzz corpus file path: the []byte,
+// float64 and int lines of the "go test fuzz v1" format.
+func lpCorpus(t *testing.T, path string) (b []byte, fs []float64, is []int) {
+	t.Helper()
+	data, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, l := range strings.Split(strings.TrimSpace(string(data)), "\n")[1:] {
+		open, close := strings.IndexByte(l, '('), strings.LastIndexByte(l, ')')
+		arg := l[open+1 : close]
+		switch l[:open] {
+		case "[]byte":
+			s, err := strconv.Unquote(arg)
+			if err != nil {
+				t.Fatal(err)
+			}
+			b = []byte(s)
+		case "float64":
+			v, err := strconv.ParseFloat(arg, 64)
+			if err != nil {
+				t.Fatal(err)
+			}
+			fs = append(fs, v)
+		case "int":
+			v, err := strconv.Atoi(arg)
+			if err != nil {
+				t.Fatal(err)
+			}
+			is = append(is, v)
+		}
+	}
+	return b, fs, is
+}
+
+// TestWriteLPClosurePrograms writes the closure programs of the
+// FuzzFormClosure corpus (see lpDataDir): for each input whose generators
+// have rank 6, the program of FormClosure and, with friction, that of
+// ForceClosure, each with the bounds λ ≥ 1 as gonum's lp.Simplex was given
+// them before the closure solver of its own (b = −Σŵⱼ, the most degenerate
+// form) and with the raised bounds of closureBounds.
+func TestWriteLPClosurePrograms(t *testing.T) {
+	if *lpDataDir == "" {
+		t.Skip("writes files only with -lpdata")
+	}
+	paths, _ := filepath.Glob("testdata/fuzz/FuzzFormClosure/*")
+	for _, path := range paths {
+		b, fs, is := lpCorpus(t, path)
+		cs := closureDecode(b)
+		mu, k := fs[0], is[0]
+		if k == 0 {
+			k = closureSides
+		}
+		an, err := Analyze(cs)
+		if err != nil {
+			continue
+		}
+		progs := map[string][]float64{}
+		if an.Rank == 6 && an.Length > 0 {
+			form := make([]float64, 6*len(cs))
+			for j, c := range cs {
+				n, _ := linalg.Unit3(c.Normal)
+				closureColumn(form[6*j:6*j+6], c.Point, n, an.Centre, an.Length)
+			}
+			progs["form"] = form
+		}
+		if mu > 0 {
+			t1s := make([]r3.Vec, len(cs))
+			for i, c := range cs {
+				if t1s[i], err = closureTangent(c, "t"); err != nil {
+					t.Fatal(err)
+				}
+			}
+			progs["force"] = forceGenerators(cs, t1s, an.Centre, an.Length, mu, k)
+		}
+		for kind, a := range progs {
+			if rank, _ := closureRank(a); rank < 6 {
+				continue
+			}
+			n := len(a) / 6
+			ones := make([]float64, n)
+			var b1 [6]float64
+			for j := range n {
+				ones[j] = 1
+				for r := range 6 {
+					b1[r] -= a[6*j+r]
+				}
+			}
+			_, bl := closureBounds(a)
+			src := fmt.Sprintf("kinematic/%s, %d contacts, mu %g, %d sides", filepath.ToSlash(path), len(cs), mu, k)
+			lpWrite(t, kind+"-"+filepath.Base(path)+"-unperturbed", []string{
+				"The " + kind + " closure program of " + src + ":",
+				"minimise Σλ subject to Σλⱼŵⱼ = 0, λ ≥ 1, as x = λ − 1 (b = −Σŵⱼ), written by TestWriteLPClosurePrograms.",
+			}, ones, a, b1[:])
+			lpWrite(t, kind+"-"+filepath.Base(path)+"-perturbed", []string{
+				"The " + kind + " closure program of " + src + ":",
+				"minimise Σλ subject to Σλⱼŵⱼ = 0, λ ≥ l (closureBounds), as x = λ − l, written by TestWriteLPClosurePrograms.",
+			}, ones, a, bl[:])
+		}
 	}
 }

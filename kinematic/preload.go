@@ -1,14 +1,11 @@
 package kinematic
 
 import (
-	"errors"
 	"fmt"
 	"math"
 
-	"gonum.org/v1/gonum/mat"
-	"gonum.org/v1/gonum/optimize/convex/lp"
-
 	"github.com/sixfold-dev/sixfold/internal/linalg"
+	"github.com/sixfold-dev/sixfold/internal/lp"
 )
 
 // Bound names a load case and a contact: where a requirement binds or
@@ -56,8 +53,9 @@ const bindTol = 1e-7
 // eᵢₖ from the rest of case k), so with one element the smallest factor is
 // maxᵢₖ (minForce − eᵢₖ)/aᵢ over the contacts it pushes closed (aᵢ > 0), and
 // with several the smallest total force Σ sⱼ Fⱼ subject to fᵢₖ ≥ minForce,
-// s ≥ 0 is a linear program, solved by gonum's simplex
-// (optimize/convex/lp; Dantzig's method, Strang 1976, ch. 8).
+// s ≥ 0 is a linear program, solved through its dual by the module's
+// two-phase revised simplex (internal/lp: Harris's ratio test, Bland's rule
+// on stalling, an iteration limit; Chvátal, Linear Programming, 1983).
 //
 // The largest common scale uses the load at which each contact reaches its
 // allowable, p₀ ∝ F^(1/3) (hertz.LoadForPressure), so it is exact for the
@@ -214,21 +212,26 @@ func bindings(factors []float64, a, e [][6]float64, minForce float64, bound func
 	return out
 }
 
-// sizeLP solves min Σ sⱼ Fⱼ subject to Σⱼ sⱼ aᵢⱼ + eᵢₖ ≥ minForce, s ≥ 0, in
-// the standard form of lp.Simplex with a slack zᵢₖ ≥ 0 per constraint:
-// Σⱼ sⱼ aᵢⱼ − zᵢₖ = minForce − eᵢₖ. Each row is divided by its largest
-// coefficient, so that the simplex's tolerances act on numbers near 1.
-func (m *Model) sizeLP(a [][6]float64, e [][6]float64, minForce float64) (factors []float64, err error) {
-	// gonum's simplex panics on some degenerate programs (a singular
-	// initial basis); a caller's numbers must not panic, so that becomes
-	// an error.
-	defer func() {
-		if r := recover(); r != nil {
-			factors, err = nil, &InputError{Field: "cases", Err: fmt.Errorf("%w: the preload linear program is degenerate (%v); size the elements one at a time", ErrRange, r)}
-		}
-	}()
-	// An element that pushes no contact has an all-zero column, which the
-	// simplex rejects: it is left out (its factor is 0).
+// sizeLP solves min Σ sⱼ Fⱼ subject to Σⱼ sⱼ aᵢⱼ + eᵢₖ ≥ minForce, s ≥ 0:
+// one row per case and contact (6·len(e)), one column per element. It
+// solves the dual program instead (Chvátal, Linear Programming, 1983, ch. 5,
+// the duality theorem), which has one row per element, so that the basis
+// stays as small as the number of elements however many cases there are:
+// with βᵢₖ = minForce − eᵢₖ,
+//
+//	maximise Σ βᵢₖ yᵢₖ subject to Σᵢₖ aᵢⱼ yᵢₖ ≤ Fⱼ for every element j, y ≥ 0,
+//
+// in the standard form of lp.Solve with a slack tⱼ ≥ 0 per element and
+// each row divided by Fⱼ (sizeDual): minimise −βᵀy subject to
+// Σᵢₖ (aᵢⱼ/Fⱼ) yᵢₖ + tⱼ = 1. Its optimal multipliers π give the factors,
+// sⱼ = −πⱼ/Fⱼ: the reduced costs of the y columns are
+// −βᵢₖ + Σⱼ aᵢⱼ sⱼ ≥ 0 (every contact at minForce), those of the slacks
+// sⱼ ≥ 0, and Σ sⱼ Fⱼ equals the dual optimum. The dual is feasible at
+// y = 0 (F ≥ 0), so it is either optimal or unbounded, and unbounded
+// exactly when the sizing program is infeasible.
+func (m *Model) sizeLP(a [][6]float64, e [][6]float64, minForce float64) ([]float64, error) {
+	// An element that pushes no contact has an all-zero column: it is left
+	// out (its factor is 0).
 	var used []int
 	for j := range a {
 		for i := range 6 {
@@ -238,44 +241,68 @@ func (m *Model) sizeLP(a [][6]float64, e [][6]float64, minForce float64) (factor
 			}
 		}
 	}
-	nu, rows := len(used), 6*len(e)
-	A := mat.NewDense(rows, nu+rows, nil)
-	b := make([]float64, rows)
-	c := make([]float64, nu+rows)
+	out := make([]float64, len(a))
+	if len(used) == 0 {
+		return out, nil // no element pushes: SizePreload checked that none is needed
+	}
+	A, b, c := m.sizeDual(a, e, minForce, used)
+	sol, err := lp.Solve(c, A, b, nil)
+	if err == nil && sol.Status == lp.Unbounded {
+		return nil, &InputError{Field: "cases", Err: fmt.Errorf(
+			"%w: no combination of the %d preload elements keeps every contact at minForce %g N in every case", ErrRange, len(a), minForce)}
+	}
+	if err == nil && sol.Status != lp.Optimal {
+		err = fmt.Errorf("the dual program is %v, though y = 0 is feasible", sol.Status)
+	}
+	if err != nil {
+		return nil, &InputError{Field: "cases", Err: fmt.Errorf("%w: the preload linear program failed: %v", ErrRange, err)}
+	}
+	f := m.sizeWeights(used)
 	for jj, j := range used {
-		c[jj] = linalg.Norm3(m.preloads[j].w.F)
-		if c[jj] == 0 {
-			c[jj] = 1 // a pure couple: count its factor
-		}
+		out[j] = math.Max(0, -sol.Y[jj]/f[jj])
+	}
+	return out, nil
+}
+
+// sizeDual returns the dual program of sizeLP for the elements used, in the
+// form of lp.Solve: the nu×(6·len(e)+nu) column-major matrix (columns y,
+// then the slacks t), the right-hand side and the costs −β. Row j is
+// divided by Fⱼ (sizeWeights): its entries aᵢⱼ/Fⱼ are contact forces per
+// newton of the element's force, dimensionless and near 1 whatever the
+// element's size, and its right-hand side is 1. (Without it a row of
+// tiny forces would be dwarfed by its own slack's 1 and solved only to
+// the tolerance of that 1.) The multipliers are then −Fⱼsⱼ.
+func (m *Model) sizeDual(a [][6]float64, e [][6]float64, minForce float64, used []int) (A, b, c []float64) {
+	f := m.sizeWeights(used)
+	nu, np := len(used), 6*len(e)
+	A = make([]float64, nu*(np+nu))
+	b = make([]float64, nu)
+	c = make([]float64, np+nu)
+	for jj := range used {
+		b[jj] = 1
+		A[nu*(np+jj)+jj] = 1
 	}
 	for k := range e {
 		for i := range 6 {
-			r := 6*k + i
-			big := math.Abs(minForce - e[k][i])
-			for _, j := range used {
-				big = math.Max(big, math.Abs(a[j][i]))
-			}
-			if big == 0 {
-				big = 1
-			}
+			p := 6*k + i
+			c[p] = -(minForce - e[k][i])
 			for jj, j := range used {
-				A.Set(r, jj, a[j][i]/big)
+				A[nu*p+jj] = a[j][i] / f[jj]
 			}
-			A.Set(r, nu+r, -1/big)
-			b[r] = (minForce - e[k][i]) / big
 		}
 	}
-	_, x, err := lp.Simplex(c, A, b, 1e-10, nil)
-	if err != nil {
-		if errors.Is(err, lp.ErrInfeasible) {
-			return nil, &InputError{Field: "cases", Err: fmt.Errorf(
-				"%w: no combination of the %d preload elements keeps every contact at minForce %g N in every case", ErrRange, len(a), minForce)}
-		}
-		return nil, &InputError{Field: "cases", Err: fmt.Errorf("%w: the preload linear program failed: %v", ErrRange, err)}
-	}
-	out := make([]float64, len(a))
+	return A, b, c
+}
+
+// sizeWeights returns the weight Fⱼ of each element used in the total:
+// the magnitude of its force, or 1 for a pure couple (its factor counts).
+func (m *Model) sizeWeights(used []int) []float64 {
+	f := make([]float64, len(used))
 	for jj, j := range used {
-		out[j] = math.Max(0, x[jj])
+		f[jj] = linalg.Norm3(m.preloads[j].w.F)
+		if f[jj] == 0 {
+			f[jj] = 1
+		}
 	}
-	return out, nil
+	return f
 }

@@ -3,11 +3,14 @@ package kinematic
 import (
 	"errors"
 	"math"
+	"path/filepath"
 	"testing"
 
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"github.com/sixfold-dev/sixfold/hertz"
+	"github.com/sixfold-dev/sixfold/internal/fuzzdata"
+	"github.com/sixfold-dev/sixfold/internal/linalg"
 )
 
 // TestSizePreloadClosedForm: equilateral three-vee, one vertical preload
@@ -165,5 +168,185 @@ func TestSizePreloadErrors(t *testing.T) {
 	}
 	if _, err := up.SizePreload([]LoadCase{{Name: "rest"}}, 1); !errors.Is(err, ErrRange) {
 		t.Errorf("upward preload: %v", err)
+	}
+}
+
+// sizingFuzzInput returns the model, load cases and minimum force of the
+// FuzzSizePreload corpus file path, built as the fuzz target builds them.
+func sizingFuzzInput(t *testing.T, path string) (*Model, []LoadCase, float64) {
+	t.Helper()
+	c0, err := BisectorVees(isosceles(), three(vee45))
+	if err != nil {
+		t.Fatal(err)
+	}
+	cs, err := c0.Contacts()
+	if err != nil {
+		t.Fatal(err)
+	}
+	raw, _, _ := lpCorpus(t, path)
+	x := fuzzdata.Floats(raw, 19)[0]
+	var pre []Preload
+	for k := 0; k < 3; k++ {
+		pre = append(pre, Preload{Point: cs[2*k].Centre, Direction: r3.Vec{X: x[4*k], Y: x[4*k+1], Z: x[4*k+2]}, Force: x[4*k+3]})
+	}
+	m, err := NewModel(cs, pre, Payload{Mass: 1, Centre: r3.Vec{Z: 0.02}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	cases := []LoadCase{{Gravity: r3.Vec{X: x[12], Y: x[13], Z: x[14]}}, {Gravity: r3.Vec{X: x[15], Y: x[16], Z: x[17]}}}
+	return m, cases, math.Abs(x[18])
+}
+
+// TestSizePreloadDegenerate: on the inputs of the FuzzSizePreload corpus
+// (the first made gonum's simplex panic: three elements of which one
+// pushes two contacts with forces of 1e-76 N per unit factor, a minimum
+// force of 6e116 N) the sizing succeeds and its factors keep every contact
+// at minForce in every case, to the 1e-9 of the solver's tolerances
+// (internal/lp: residuals of 1e-10 of the data), each force and its terms
+// summed by hand here.
+func TestSizePreloadDegenerate(t *testing.T) {
+	paths, _ := filepath.Glob("testdata/fuzz/FuzzSizePreload/*")
+	if len(paths) == 0 {
+		t.Fatal("no corpus")
+	}
+	for _, path := range paths {
+		m, cases, minForce := sizingFuzzInput(t, path)
+		sz, err := m.SizePreload(cases, minForce)
+		if err != nil {
+			t.Fatalf("%s: %v", path, err)
+		}
+		a := make([][6]float64, len(m.preloads))
+		for j, p := range m.preloads {
+			m.forces(p.w, &a[j])
+		}
+		for k := range cases {
+			w, err := m.wrench(&cases[k])
+			if err != nil {
+				t.Fatal(err)
+			}
+			var e [6]float64
+			m.forces(w, &e)
+			for i := range 6 {
+				f, mag := e[i], math.Abs(e[i])
+				for j, s := range sz.Factors {
+					f += s * a[j][i]
+					mag += math.Abs(s * a[j][i])
+				}
+				if f < minForce-1e-9*max(mag, minForce) {
+					t.Errorf("%s: case %d contact %d at %g N, below minForce %g N", path, k, i, f, minForce)
+				}
+			}
+		}
+	}
+}
+
+// TestWriteLPSizingPrograms writes the sizing programs of the
+// FuzzSizePreload corpus (see lpDataDir): the dual program that sizeLP
+// solves, and the primal program in the form gonum's lp.Simplex was given
+// (a surplus per case and contact, each row divided by its largest
+// coefficient), on which gonum panicked.
+func TestWriteLPSizingPrograms(t *testing.T) {
+	if *lpDataDir == "" {
+		t.Skip("writes files only with -lpdata")
+	}
+	paths, _ := filepath.Glob("testdata/fuzz/FuzzSizePreload/*")
+	for _, path := range paths {
+		m, cases, minForce := sizingFuzzInput(t, path)
+		a := make([][6]float64, len(m.preloads))
+		var used []int
+		for j, p := range m.preloads {
+			m.forces(p.w, &a[j])
+			if a[j] != ([6]float64{}) {
+				used = append(used, j)
+			}
+		}
+		e := make([][6]float64, len(cases))
+		for k := range cases {
+			w, err := m.wrench(&cases[k])
+			if err != nil {
+				t.Fatal(err)
+			}
+			m.forces(w, &e[k])
+		}
+		src := "kinematic/" + filepath.ToSlash(path)
+		A, b, c := m.sizeDual(a, e, minForce, used)
+		lpWrite(t, "sizing-dual-"+filepath.Base(path), []string{
+			"The dual of the preload sizing program of " + src + " (sizeDual), written by TestWriteLPSizingPrograms.",
+		}, c, A, b)
+		// The primal as gonum was given it.
+		nu, rows := len(used), 6*len(e)
+		Ap := make([]float64, rows*(nu+rows))
+		bp := make([]float64, rows)
+		cp := make([]float64, nu+rows)
+		for jj, j := range used {
+			cp[jj] = linalg.Norm3(m.preloads[j].w.F)
+			if cp[jj] == 0 {
+				cp[jj] = 1
+			}
+		}
+		for k := range e {
+			for i := range 6 {
+				r := 6*k + i
+				big := math.Abs(minForce - e[k][i])
+				for _, j := range used {
+					big = math.Max(big, math.Abs(a[j][i]))
+				}
+				if big == 0 {
+					big = 1
+				}
+				for jj, j := range used {
+					Ap[rows*jj+r] = a[j][i] / big
+				}
+				Ap[rows*(nu+r)+r] = -1 / big
+				bp[r] = (minForce - e[k][i]) / big
+			}
+		}
+		lpWrite(t, "sizing-primal-"+filepath.Base(path), []string{
+			"The preload sizing program of " + src + " in the form gonum's lp.Simplex was given (it panicked: a singular initial basis),",
+			"a surplus per case and contact, each row divided by its largest coefficient; written by TestWriteLPSizingPrograms.",
+		}, cp, Ap, bp)
+	}
+}
+
+var sinkSizing PreloadSizing
+
+// BenchmarkSizePreload measures the sizing of one central clamp (closed
+// form) and of three plungers, one over each ball (a linear program), over
+// an upright and a sideways case, and of the three plungers over twelve
+// cases (gravity turned about a cone).
+func BenchmarkSizePreload(b *testing.B) {
+	m, cs := equilateralModel(b, math.Pi/4, 50, 0.8, 0.03)
+	var pre []Preload
+	for k := 0; k < 3; k++ {
+		pre = append(pre, Preload{Name: "plunger", Point: cs[2*k].Centre, Direction: r3.Vec{Z: -1}, Force: 10})
+	}
+	m3, err := NewModel(cs, pre, Payload{Mass: 0.8, Centre: r3.Vec{Z: 0.03}})
+	if err != nil {
+		b.Fatal(err)
+	}
+	two := []LoadCase{
+		{Name: "upright", Gravity: r3.Vec{Z: -StandardGravity}},
+		{Name: "side", Gravity: r3.Vec{X: StandardGravity}},
+	}
+	var twelve []LoadCase
+	for k := range 12 {
+		s, c := math.Sincos(2 * math.Pi * float64(k) / 12)
+		twelve = append(twelve, LoadCase{Gravity: r3.Scale(StandardGravity, r3.Vec{X: 0.5 * c, Y: 0.5 * s, Z: -1})})
+	}
+	for _, bc := range []struct {
+		name  string
+		m     *Model
+		cases []LoadCase
+	}{{"clamp/2cases", m, two}, {"plungers/2cases", m3, two}, {"plungers/12cases", m3, twelve}} {
+		b.Run(bc.name, func(b *testing.B) {
+			b.ReportAllocs()
+			for b.Loop() {
+				sz, err := bc.m.SizePreload(bc.cases, 1)
+				if err != nil {
+					b.Fatal(err)
+				}
+				sinkSizing = sz
+			}
+		})
 	}
 }
