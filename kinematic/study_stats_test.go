@@ -131,9 +131,18 @@ func TestStudyDistributions(t *testing.T) {
 			func(q float64) float64 { return distuv.UnitNormal.Quantile((1+q)/2) * gain * lim },
 			func(x float64) float64 { return 2 * distuv.UnitNormal.Prob(x/(gain*lim)) / (gain * lim) }},
 	} {
-		res, err := a.Study(context.Background(), r3.Vec{}, []Tolerance{{"A.Ball.Radius", lim, tc.dist}}, &StudyOptions{Samples: n, Seed: 5, KeepSamples: true})
+		tols := []Tolerance{{"A.Ball.Radius", lim, tc.dist}}
+		res, err := a.Study(context.Background(), r3.Vec{}, tols, &StudyOptions{Samples: n, Seed: 5, KeepSamples: true})
 		if err != nil {
 			t.Fatal(err)
+		}
+		// The error budget takes the same σ, exactly.
+		b, err := a.Budget(r3.Vec{}, tols)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if math.Abs(b.Sigma-tc.sigma) > 1e-12*tc.sigma {
+			t.Errorf("%s: budget σ %g, want %g", tc.name, b.Sigma, tc.sigma)
 		}
 		z := res.Z
 		if tol := k * tc.sigma / math.Sqrt(n); math.Abs(z.Mean) > tol {
