@@ -120,14 +120,15 @@ func TestStudyDistributions(t *testing.T) {
 		name     string
 		dist     Distribution
 		sigma    float64
+		limit    float64 // the budget's worst-case deviation
 		kurtosis float64
 		quantile func(q float64) float64 // of |z|
 		density  func(x float64) float64 // of |z|
 	}{
-		{"uniform", Uniform, gain * lim / math.Sqrt(3), 9.0 / 5,
+		{"uniform", Uniform, gain * lim / math.Sqrt(3), lim, 9.0 / 5,
 			func(q float64) float64 { return q * gain * lim },
 			func(float64) float64 { return 1 / (gain * lim) }},
-		{"normal", Normal, gain * lim, 3,
+		{"normal", Normal, gain * lim, 3 * lim, 3,
 			func(q float64) float64 { return distuv.UnitNormal.Quantile((1+q)/2) * gain * lim },
 			func(x float64) float64 { return 2 * distuv.UnitNormal.Prob(x/(gain*lim)) / (gain * lim) }},
 	} {
@@ -143,6 +144,12 @@ func TestStudyDistributions(t *testing.T) {
 		}
 		if math.Abs(b.Sigma-tc.sigma) > 1e-12*tc.sigma {
 			t.Errorf("%s: budget σ %g, want %g", tc.name, b.Sigma, tc.sigma)
+		}
+		// Its worst case takes ±a for a uniform tolerance and ±3σ for a
+		// normal one (the documented limits, common practice); with one
+		// tolerance the RSS equals the worst case.
+		if math.Abs(b.WorstCase-gain*tc.limit) > 1e-12*gain*tc.limit || math.Abs(b.RSS-gain*tc.limit) > 1e-12*gain*tc.limit {
+			t.Errorf("%s: budget worst case %g, RSS %g; want both %g", tc.name, b.WorstCase, b.RSS, gain*tc.limit)
 		}
 		z := res.Z
 		if tol := k * tc.sigma / math.Sqrt(n); math.Abs(z.Mean) > tol {
