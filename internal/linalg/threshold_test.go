@@ -66,3 +66,31 @@ func TestCholesky6Threshold(t *testing.T) {
 		}
 	}
 }
+
+// TestSolvePSD3Cutoff: the eigenvalues of diag(4, 1, λ) are its entries
+// (by hand), so with the cut-off tiny = 1e-9 a third eigenvalue λ = 0.5e-9
+// is dropped, and one of 2e-9 kept: for b = (2, 3, 5) the solutions are
+// (1/2, 3, 0) and (1/2, 3, 2.5e9). The fast path's test (determinant
+// against tiny·T²/4) must send the first to the eigen-decomposition.
+func TestSolvePSD3Cutoff(t *testing.T) {
+	b := [3]float64{2, 3, 5}
+	for _, tc := range []struct {
+		lambda float64
+		kept   int
+		x      [3]float64
+	}{
+		{0.5e-9, 2, [3]float64{0.5, 3, 0}},
+		{2e-9, 3, [3]float64{0.5, 3, 2.5e9}},
+	} {
+		x, kept := SolvePSD3([9]float64{4, 0, 0, 0, 1, 0, 0, 0, tc.lambda}, b, 1e-9)
+		if kept != tc.kept {
+			t.Errorf("λ = %g: kept %d directions, want %d", tc.lambda, kept, tc.kept)
+		}
+		for i := range x {
+			if math.Abs(x[i]-tc.x[i]) > 1e-12*math.Max(1, math.Abs(tc.x[i])) {
+				t.Errorf("λ = %g: x = %v, want %v", tc.lambda, x, tc.x)
+				break
+			}
+		}
+	}
+}
