@@ -90,6 +90,29 @@ func TestScoreAgreesWithAPIs(t *testing.T) {
 	if card.Poor {
 		t.Errorf("condition %g flagged poor", card.Condition)
 	}
+
+	// Beside the comparisons with the APIs, outside values: on the
+	// equilateral triangle with the grooves on the bisectors every centre
+	// index is |sin 2θ| (kinematic/doc.go; DEVELOPERS.md, closed forms),
+	// the ideal of a groove of half-angle θ, so the weakest centre index
+	// is |sin 2θ| and the Maxwell ratio 1, for 90° vees (θ = 45°: 1) and
+	// 60° vees (θ = 30°: sin 60° = √3/2).
+	for _, half := range []float64{math.Pi / 4, math.Pi / 6} {
+		v := vee45
+		v.HalfAngle = half
+		bis, err := BisectorVees(equilateral(), three(v))
+		if err != nil {
+			t.Fatal(err)
+		}
+		bc, err := bis.Score(s)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if want := math.Sin(2 * half); math.Abs(bc.WeakestCentreIndex-want) > 1e-12 || math.Abs(bc.MaxwellRatio-1) > 1e-12 {
+			t.Errorf("bisector vees, half-angle %g: weakest centre index %.15g, ratio %.15g; want %.15g and 1",
+				half, bc.WeakestCentreIndex, bc.MaxwellRatio, want)
+		}
+	}
 }
 
 // TestScorePoorLayout: grooves A and B radial and C tangential on an

@@ -80,6 +80,39 @@ func TestStudyLinearMoments(t *testing.T) {
 	if r := res.Z.P50 / math.Sqrt(vz); math.Abs(r-0.6745) > 0.01*0.6745 {
 		t.Errorf("z: P50/σ = %g, want 0.6745", r)
 	}
+
+	// The variances above come from Sensitivities; beside them, one worked
+	// by hand. On the equilateral three-vee with 90° vees on the
+	// bisectors, a ball larger by e rises √2 e in its vee and moves the
+	// centroid of the balls up by (√2/3) e, and not sideways (item 7 of
+	// kinematic/design's evaluate_test.go). Three normal radius tolerances
+	// of σ then give z the variance 3 (√2/3)² σ² = (2/3) σ², tested as
+	// above.
+	bis, err := BisectorVees(equilateral(), three(vee45))
+	if err != nil {
+		t.Fatal(err)
+	}
+	ab, err := bis.Assembly()
+	if err != nil {
+		t.Fatal(err)
+	}
+	const sigma = 1e-6
+	eq, err := ab.Study(context.Background(), r3.Vec{}, []Tolerance{
+		{Dimension: "A.Ball.Radius", Sigma: sigma}, {Dimension: "B.Ball.Radius", Sigma: sigma}, {Dimension: "C.Ball.Radius", Sigma: sigma},
+	}, &StudyOptions{Samples: n, Seed: 7})
+	if err != nil {
+		t.Fatal(err)
+	}
+	vh := 2.0 / 3 * sigma * sigma
+	if math.Abs(eq.Z.Mean) > 4.5*math.Sqrt(vh/n) {
+		t.Errorf("equilateral z: mean %g, want 0 within %g", eq.Z.Mean, 4.5*math.Sqrt(vh/n))
+	}
+	if r := eq.Z.StdDev * eq.Z.StdDev / vh; math.Abs(r-1) > 4.5*math.Sqrt(2.0/(n-1)) {
+		t.Errorf("equilateral z: s²/σ² = %g, want 1 within %g", r, 4.5*math.Sqrt(2.0/(n-1)))
+	}
+	if eq.X.StdDev > 1e-9*math.Sqrt(vh) || eq.Y.StdDev > 1e-9*math.Sqrt(vh) {
+		t.Errorf("equilateral: lateral spread %g, %g m, want none", eq.X.StdDev, eq.Y.StdDev)
+	}
 }
 
 // TestStudyReproducible: the same seed gives identical results on one

@@ -274,6 +274,83 @@ func TestInverse6(t *testing.T) {
 	if Inverse6(&a, 1e-12) {
 		t.Error("Inverse6 inverted a singular matrix")
 	}
+
+	// Singular to within rounding, and just regular: A = s·L·U with L unit
+	// lower triangular (entries ±1/4, ±1/2) and U upper triangular with
+	// small integers, its diagonal powers of two and u₅₅ = 0, so rank 5.
+	// Every entry, every multiplier and every division by a pivot is a
+	// short dyadic number: elimination is exact and, since |lᵢₖ| < 1, takes
+	// the pivots in order without swapping rows (|lᵢₖ uₖₖ| < |uₖₖ|), so
+	// they are s·uₖₖ and the last one is 0. Adding η to A₅₅ makes the last
+	// pivot η to within half an ulp of A₅₅ (the one rounding, by hand).
+	// The documented test is pivot ≤ tiny × (largest |entry| of its
+	// column): η = 1e-14·colMax is below tiny = 1e-12 (singular: false,
+	// a unchanged), η = 1e-10·colMax above it (inverted, and agreeing with
+	// gonum). The scale s = 2^±20 makes the threshold relative.
+	l := [6][6]float64{
+		{1, 0, 0, 0, 0, 0},
+		{0.5, 1, 0, 0, 0, 0},
+		{-0.25, 0.5, 1, 0, 0, 0},
+		{0.5, -0.5, 0.25, 1, 0, 0},
+		{0.25, 0.25, -0.5, 0.5, 1, 0},
+		{-0.5, 0.25, 0.5, -0.25, 0.5, 1},
+	}
+	u := [6][6]float64{
+		{4, 1, -2, 3, 1, 2},
+		{0, 2, 1, -1, 2, 1},
+		{0, 0, -4, 2, 1, 3},
+		{0, 0, 0, 2, -3, 1},
+		{0, 0, 0, 0, 8, -2},
+		{0, 0, 0, 0, 0, 0},
+	}
+	for _, s := range []float64{0x1p20, 0x1p-20} {
+		var lu [36]float64 // column-major
+		for i := 0; i < 6; i++ {
+			for j := 0; j < 6; j++ {
+				for k := 0; k < 6; k++ {
+					lu[6*j+i] += s * l[i][k] * u[k][j]
+				}
+			}
+		}
+		var colMax float64
+		for i := 0; i < 6; i++ {
+			colMax = math.Max(colMax, math.Abs(lu[6*5+i]))
+		}
+		below := lu
+		below[6*5+5] += 1e-14 * colMax
+		kept := below
+		if Inverse6(&below, 1e-12) || below != kept {
+			t.Errorf("s = %g: a matrix singular to 1e-14 of its column inverted with tiny = 1e-12", s)
+		}
+		above := lu
+		above[6*5+5] += 1e-10 * colMax
+		src := above
+		if !Inverse6(&above, 1e-12) {
+			t.Errorf("s = %g: a matrix regular to 1e-10 of its column refused with tiny = 1e-12", s)
+			continue
+		}
+		d := mat.NewDense(6, 6, nil)
+		for i := 0; i < 6; i++ {
+			for j := 0; j < 6; j++ {
+				d.Set(i, j, src[6*j+i])
+			}
+		}
+		var want mat.Dense
+		if err := want.Inverse(d); err != nil {
+			t.Fatalf("s = %g: gonum: %v", s, err)
+		}
+		// Both inverses are accurate to about ε·cond of the largest entry,
+		// as in the random trials above.
+		big := mat.Norm(&want, math.Inf(1))
+		cond := mat.Cond(d, 2)
+		for i := 0; i < 6; i++ {
+			for j := 0; j < 6; j++ {
+				if diff := math.Abs(above[6*j+i] - want.At(i, j)); diff > 1e-14*cond*big {
+					t.Errorf("s = %g: inverse[%d,%d] = %g, gonum %g", s, i, j, above[6*j+i], want.At(i, j))
+				}
+			}
+		}
+	}
 }
 
 // TestNorm3 checks |(3, 4, 12)|·s = 13·s (a Pythagorean quadruple, by
