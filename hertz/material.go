@@ -12,8 +12,8 @@ type Material struct {
 	E         float64 // Young's modulus, Pa; math.Inf(1) for a rigid body
 	Nu        float64 // Poisson's ratio, in (−1, 0.5]
 	Alpha     float64 // linear thermal expansion coefficient near 20 °C, 1/K (not used by Solve; for error budgets)
-	Allowable float64 // allowable static peak contact pressure, Pa, where a published source gives one; 0 means no allowable on file
-	Source    string  // where the values come from
+	Allowable float64 // allowable static peak contact pressure, Pa, where a published figure or a cited strength supports one; 0 means no allowable on file
+	Source    string  // where each value comes from: a document named with its table or clause, or "from memory"
 }
 
 // Reference materials. The values are room-temperature figures for the named
@@ -43,10 +43,11 @@ type Material struct {
 //     eq. 3.45 for the material's ν (on the axis σr = σθ, so Tresca and von
 //     Mises give the same value there): 1.589 Y at ν = 0.28, 1.613 Y at
 //     ν = 0.30, 1.649 Y at ν = 0.33, 1.664 Y at ν = 0.342. The figure is
-//     rounded down to three digits. An elongated contact has a smaller peak
-//     shear per p0, so the circle is the conservative case. First yield is a
-//     stricter criterion than ISO 76's small permanent set: a bearing steel
-//     at 4200 MPa is past first yield.
+//     rounded down to three digits. For ν up to 0.342 the circle has the
+//     largest peak shear per p0 (a line contact has 0.300 p0, Johnson 1985
+//     §4.2, from memory), so the factor holds for elongated contacts too.
+//     First yield is a stricter criterion than ISO 76's small permanent
+//     set: a bearing steel at 4200 MPa is past first yield.
 //
 // The brittle materials (silicon nitride, tungsten carbide, sapphire, fused
 // silica) have no allowable on file: they do not yield but crack at the edge
@@ -69,12 +70,12 @@ var (
 	// Steel440C is hardened martensitic stainless steel AISI 440C
 	// (X105CrMo17, 1.4125).
 	Steel440C = Material{
-		Name: "AISI 440C stainless steel", E: 200e9, Nu: 0.28, Alpha: 10.2e-6,
+		Name: "AISI 440C stainless steel", E: 200e9, Nu: 0.28, Alpha: 10.1e-6,
 		Allowable: 4200e6,
 		Source: "E: 200 GPa, MakeItFrom.com 'Annealed 440C Stainless Steel' and Qinghe Steels '440C stainless " +
-			"steel' (physical properties table); ν: 0.28, MakeItFrom.com 'Annealed 440C Stainless Steel'; α: 10.2e-6/K " +
-			"from memory, unchecked: the sheets read give 10.1e-6/K (Qinghe, 0–100 °C; Rolled Alloys '440C " +
-			"Stainless' data sheet, 5.6e-6/°F from 70 °F); Allowable: 4200 MPa, ISO 76:2006 clause 3 as for " +
+			"steel' (physical properties table); ν: 0.28, MakeItFrom.com 'Annealed 440C Stainless Steel'; α: 10.1e-6/K " +
+			"(0–100 °C), Qinghe Steels (same table; Rolled Alloys '440C Stainless' data sheet: 5.6e-6/°F from " +
+			"70 °F = 10.1e-6/K); Allowable: 4200 MPa, ISO 76:2006 clause 3 as for " +
 			"AISI 52100, whose scope is hardened bearing steel; ISO 683-17:2014 (ball and roller bearing steels) " +
 			"counts stainless bearing steels among its five groups (scope), but whether it lists the 440C grade " +
 			"by name was not checked. Vendors rate 440C bearings about 20 % below chrome steel in load capacity " +
