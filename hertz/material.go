@@ -61,9 +61,10 @@ var (
 		Name: "AISI 52100 bearing steel", E: 208e9, Nu: 0.30, Alpha: 11.9e-6,
 		Allowable: 4200e6,
 		Source: "E: 208 GPa from memory, inside the 190–210 GPa of the 52100 data sheets read (Stindia, " +
-			"'Differences between 52100 & E52100 steel'; a ball maker's 'AISI 52100 Chrome Steel' sheet gives " +
-			"29.5e6 psi = 203 GPa); ν: 0.30 from memory, the top of those sheets' 0.27–0.30; α: 11.9e-6/K from " +
-			"memory, unchecked (no 52100 sheet with an expansion figure was found); Allowable: 4200 MPa, ISO 76:2006 " +
+			"'Differences between 52100 & E52100 steel'; Lucefin '100Cr6 technical card' (EN ISO 683-17, 1.3505): " +
+			"210 GPa; a ball maker's 'AISI 52100 Chrome Steel' sheet: 29.5e6 psi = 203 GPa); ν: 0.30, Lucefin " +
+			"'100Cr6 technical card'; α: 11.9e-6/K from memory, unchecked: the Lucefin card gives 11.4e-6/K, in a " +
+			"temperature column not legible in the copy read; Allowable: 4200 MPa, ISO 76:2006 " +
 			"clause 3, basic static load rating of ball bearings other than self-aligning (calculated contact stress " +
 			"4200 MPa; total permanent deformation about 0.0001 of the ball diameter, per the note there)",
 	}

@@ -132,11 +132,11 @@ func TestMaterialValues(t *testing.T) {
 	}{
 		{
 			m:         Steel52100,
-			e:         within(190*GPa, 210*GPa, "Stindia 52100 sheet: 190–210 GPa; 208 GPa from memory"),
-			nu:        within(0.27, 0.30, "Stindia 52100 sheet: 0.27–0.30; 0.30 from memory"),
-			alpha:     value(11.9*perK, 0, "from memory, unchecked"),
+			e:         within(190*GPa, 210*GPa, "Stindia 52100 sheet: 190–210 GPa; Lucefin 100Cr6 card: 210 GPa; 208 GPa from memory"),
+			nu:        value(0.30, 0.017, "Lucefin '100Cr6 technical card': Poisson number 0.30"),
+			alpha:     within(11.4*perK, 11.9*perK, "Lucefin card: 11.4e-6/K (range not legible); 11.9e-6/K from memory"),
 			allowable: value(4200*MPa, 0, "ISO 76:2006 clause 3: 4200 MPa, ball bearings other than self-aligning"),
-			docs:      []string{"ISO 76:2006", "from memory"},
+			docs:      []string{"ISO 76:2006", "Lucefin '100Cr6 technical card'", "from memory"},
 		},
 		{
 			m:         Steel440C,
