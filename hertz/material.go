@@ -87,7 +87,8 @@ var (
 		Name: "silicon nitride (HIP, bearing grade)", E: 310e9, Nu: 0.27, Alpha: 3.2e-6,
 		Source: "E, ν, α: 310 GPa, 0.27, 3.2e-6/K from memory (ASTM F2094 class material; the standard's " +
 			"property table was not read), inside the ranges read (MakeItFrom.com 'Silicon Nitride (Si3N4)': " +
-			"140–310 GPa over its variants, ν 0.24–0.27, α 2.5–3.2e-6/K); Allowable: none on file. ISO " +
+			"140–310 GPa over its variants, ν 0.24–0.27, α 2.5–3.2e-6/K; Lily Bearing 'Ceramic Materials and " +
+			"Their Properties', bearing-grade Si3N4: 300–315 GPa, but α 2.2–3.0e-6/K); Allowable: none on file. ISO " +
 			"20056-2:2017 (hybrid bearings, Si3N4 rolling elements on steel rings) sets a permissible Hertzian " +
 			"stress slightly above ISO 76's, because the ceramic element does not deform plastically (its abstract, " +
 			"DIN ISO 20056-2:2019); that figure was not at hand and rates the steel raceway, not the ceramic; no " +
