@@ -162,8 +162,8 @@
 // yield is the stricter criterion. The brittle materials and Invar 36 have
 // no allowable on file (0), and the Source says why; a Contact's pressure
 // can then be judged only against the other body's allowable, which says
-// nothing of the brittle body. Allowable is data for the caller: Solve does
-// not read it.
+// nothing of the brittle body. Allowable is data for the caller: Solve
+// checks that it is finite and not negative, and does not otherwise use it.
 //
 // # References
 //
