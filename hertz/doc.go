@@ -138,15 +138,47 @@
 // Input arguments are never modified. Materials returns a fresh slice. A
 // Pair holds no reference to the bodies it was made from.
 //
+// # Materials
+//
+// Materials returns the reference materials: bearing steels (Steel52100,
+// Steel440C), a hardened tool steel (SteelD2), ceramics and crystals for
+// balls and seats (SiliconNitride, TungstenCarbide, Sapphire, FusedSilica)
+// and metals for the flats and bodies of light mounts (Aluminium6061T6,
+// Ti6Al4V, Invar36). Each Source names, value by value, the standard or
+// data sheet a figure was checked against, or says "from memory" and gives
+// the range the documents read do give; a value marked so is not checked
+// and should be replaced by certified data before it is quoted.
+//
+// Allowable, the static peak pressure p0 a contact on the material may
+// carry, comes from one of two criteria, named in each Source: ISO 76:2006
+// clause 3 (4200 MPa at the centre of the most heavily loaded contact of a
+// ball bearing other than self-aligning, where the permanent set of ball and
+// raceway together is about 0.0001 of the ball diameter) for the bearing
+// steels 52100 and 440C; or, derived here, first yield under a circular
+// contact, p0 = Y/max|σz − σr| on the load axis from Johnson (1985)
+// eq. 3.45 with the material's ν and a cited yield strength Y (1.589 Y to
+// 1.664 Y for ν from 0.28 to 0.342), rounded down to three digits, for 6061-T6
+// (397 MPa), Ti-6Al-4V (1310 MPa) and D2 at 60 HRC (3410 MPa). First
+// yield is the stricter criterion. The brittle materials and Invar 36 have
+// no allowable on file (0), and the Source says why; a Contact's pressure
+// can then be judged only against the other body's allowable, which says
+// nothing of the brittle body. Allowable is data for the caller: Solve
+// checks that it is finite and not negative, and does not otherwise use it.
+//
 // # References
 //
-// Cited from memory (volumes and pages included), to be checked before
-// quoting: Hertz (1882), J. reine angew. Math. 92, 156–171; K. L. Johnson, Contact
-// Mechanics, Cambridge University Press, 1985 (chapters 3, 4 and 7; the
-// section and equation numbers quoted in this package are from memory);
-// R. D. Mindlin (1949), J. Appl. Mech. 16, 259–268; Mindlin & Deresiewicz
-// (1953), J. Appl. Mech. 20, 327–344; B. C. Carlson (1995), Numer.
-// Algorithms 10, 13–26; DLMF chapter 19.
+// Hertz (1882), J. reine angew. Math. 92, 156–171 (volume and pages as
+// given in several published reference lists); K. L. Johnson, Contact
+// Mechanics, Cambridge University Press, 1985 (chapters 3, 4, 6 and 7; the
+// section and equation numbers quoted in this package are from memory and
+// were not checked against the book); B. C. Carlson, "Numerical computation
+// of real or complex elliptic integrals" (title checked against its arXiv
+// copy, math/9409227), Numer. Algorithms 10 (1995), 13–26 (volume and pages
+// from memory); from memory, not checked: R. D. Mindlin (1949), J. Appl.
+// Mech. 16, 259–268; Mindlin & Deresiewicz (1953), J. Appl. Mech. 20,
+// 327–344; DLMF chapter 19. ISO 76:2006, Rolling bearings — Static load
+// ratings, clause 3 (checked). The material data sheets are named in each
+// Material's Source.
 //
 // # Scope
 //

@@ -52,6 +52,7 @@ var materials = map[string]hertz.Material{
 	"al6061":   hertz.Aluminium6061T6,
 	"invar":    hertz.Invar36,
 	"ti64":     hertz.Ti6Al4V,
+	"d2":       hertz.SteelD2,
 }
 
 // shapes lists the body shapes and what their radii mean.

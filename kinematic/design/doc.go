@@ -113,6 +113,7 @@
 //	"aluminium-6061-t6"  hertz.Aluminium6061T6
 //	"invar-36"           hertz.Invar36
 //	"ti-6al-4v"          hertz.Ti6Al4V
+//	"steel-d2"           hertz.SteelD2, AISI D2 tool steel at 60 HRC
 //	{"name": string, "e": pressure > 0 (required), "nu": number in (-1, 0.5] (required),
 //	 "alpha": expansion coefficient (default 0), "allowable": pressure ≥ 0 (default 0: none
 //	 on file), "source": string}

@@ -20,6 +20,7 @@ var materialKeys = map[string]string{
 	"aluminium-6061-t6": hertz.Aluminium6061T6.Name,
 	"invar-36":          hertz.Invar36.Name,
 	"ti-6al-4v":         hertz.Ti6Al4V.Name,
+	"steel-d2":          hertz.SteelD2.Name,
 }
 
 // lookupMaterial returns the reference material of the key.
