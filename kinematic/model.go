@@ -355,6 +355,43 @@ func (m *Model) wrench(lc *LoadCase) (screw.Wrench, error) {
 	return w, nil
 }
 
+// check returns an error for a nil Model or the zero Model (one not made
+// by NewModel), whose methods have no contacts to work on.
+func (m *Model) check() error {
+	if m == nil || len(m.lines) == 0 {
+		return &InputError{Field: "m", Err: fmt.Errorf("%w: a Model needs contacts: make one with NewModel", ErrDegenerate)}
+	}
+	return nil
+}
+
+// puller returns the input of the load case that pulls contact i of an
+// exactly constrained model hardest — the most negative part of its rigid
+// force — as the caller wrote it ("preloads[0]", "lc.Gravity",
+// "lc.Acceleration", "lc.Applied[2]"), and that part in N; "" and 0 when
+// no part pulls.
+func (m *Model) puller(i int, lc *LoadCase) (string, float64) {
+	t := m.freed[i]
+	name, pull := "", 0.0
+	take := func(f float64, n string) {
+		if f < pull {
+			name, pull = n, f
+		}
+	}
+	for j, p := range m.preloads {
+		take(contactForce(t, p.w.Scale(lc.Preload)), indexed("preloads", j))
+	}
+	if m.payload.Mass > 0 {
+		g := r3.Scale(m.payload.Mass, lc.Gravity)
+		take(contactForce(t, screw.Wrench{F: g, M: r3.Cross(m.payload.Centre, g)}), "lc.Gravity")
+		a := r3.Scale(-m.payload.Mass, lc.Acceleration)
+		take(contactForce(t, screw.Wrench{F: a, M: r3.Cross(m.payload.Centre, a)}), "lc.Acceleration")
+	}
+	for k, a := range lc.Applied {
+		take(contactForce(t, a.About(m.origin)), indexed("lc.Applied", k))
+	}
+	return name, pull
+}
+
 // errNotExact is returned by the rigid-statics methods of a model whose
 // contacts are not exactly constrained.
 func (m *Model) errNotExact() error {
