@@ -123,8 +123,11 @@ func (a *Assembly) apply(g *geom, k int, v float64) {
 // length or a bad value, and one wrapping [ErrRange] naming the pair when
 // a ball cannot reach its seat: a ball radius that is not positive, a
 // contact that moves more than half its ball's radius across its seat, or
-// no convergence.
+// no convergence; and one naming "a" for a nil or zero Assembly.
 func (a *Assembly) Pose(devs []Deviation, opt *PoseOptions) (Pose, error) {
+	if err := a.check(); err != nil {
+		return Pose{}, err
+	}
 	g := a.nominal()
 	for i, d := range devs {
 		k, ok := a.index[d.Dimension]

@@ -69,6 +69,9 @@ const bindTol = 1e-7
 // element pushes closed but whose case leaves it below minForce, or (with
 // several elements) a linear program that is infeasible.
 func (m *Model) SizePreload(cases []LoadCase, minForce float64) (PreloadSizing, error) {
+	if err := m.check(); err != nil {
+		return PreloadSizing{}, err
+	}
 	if !m.exact {
 		return PreloadSizing{}, m.errNotExact()
 	}
