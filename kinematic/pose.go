@@ -165,7 +165,11 @@ func (a *Assembly) Pose(devs []Deviation, opt *PoseOptions) (Pose, error) {
 	if !(o.Tolerance > 0 && o.Tolerance < 1) || o.MaxIterations < 0 {
 		return Pose{}, &InputError{Field: "opt", Err: fmt.Errorf("%w: Tolerance %g, MaxIterations %d", ErrRange, o.Tolerance, o.MaxIterations)}
 	}
-	return a.seat(&g, &appr, o.Tolerance, o.MaxIterations)
+	pose, err := a.seat(&g, &appr, o.Tolerance, o.MaxIterations)
+	if err == nil && !allFinite3(pose.Rotation, pose.Translation) {
+		return Pose{}, &InputError{Field: "devs", Err: fmt.Errorf("%w: the seated pose overflows", ErrRange)}
+	}
+	return pose, err
 }
 
 // errUnseated reports that the ball of contact i cannot reach its seat.

@@ -205,7 +205,7 @@ func (a *Assembly) newSampler(p r3.Vec, tols []Tolerance, opt *StudyOptions) (*s
 		}
 		bound += linalg.Norm3(s.jd[i]) * lim
 		tbound += linalg.Norm3(s.jw[i]) * lim
-		if !allFinite(linalg.Norm3(s.jd[i])*lim, linalg.Norm3(s.jw[i])*lim) {
+		if d, w := linalg.Norm3(s.jd[i])*lim, linalg.Norm3(s.jw[i])*lim; !allFinite(d*d, w*w) {
 			return nil, &InputError{Field: indexed("tols", i) + "." + tols[i].field(), Err: fmt.Errorf("%w: the displacement of %g on %s can overflow", ErrRange, tols[i].value(), tols[i].Dimension)}
 		}
 		if !allFinite(bound*bound, tbound*tbound) {
