@@ -143,8 +143,9 @@
 // acceleration unloads the contact: a massless payload), a [Limit] scale
 // or [LiftOff] force of +Inf (no load of that kind unloads a contact), a
 // friction limit of +Inf ([HomingContact.Limit]: friction cannot stop
-// it), [Scorecard.PreloadMin] of +Inf (no factor keeps a contact loaded)
-// and [PreloadSizing.MaxScale] as above.
+// it), [Scorecard.PreloadMin] of +Inf (no factor keeps a contact loaded),
+// [Scorecard.PreloadMax] of +Inf (the preload presses no contact) and
+// [PreloadSizing.MaxScale] as above.
 //
 // Finite inputs whose result leaves the floating-point range return an
 // [*InputError] wrapping [ErrRange] naming the input: every result is

@@ -138,7 +138,7 @@ func mustBisector(t testing.TB) Coupling {
 // value meets.
 var unbounded = map[string]bool{
 	"Shock.Unload": true, "ShockContact.Unload": true, "Limit.Scale": true, "LiftOff.Force": true,
-	"Homing.MaxMu": true, "HomingContact.Limit": true, "Scorecard.ShockLevel": true, "Scorecard.PreloadMin": true,
+	"Homing.MaxMu": true, "HomingContact.Limit": true, "Scorecard.ShockLevel": true, "Scorecard.PreloadMin": true, "Scorecard.PreloadMax": true,
 	"Scorecard.MaxwellRatio": true, "PreloadSizing.MaxScale": true,
 }
 

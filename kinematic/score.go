@@ -172,17 +172,18 @@ type Scorecard struct {
 	// ShockLevel is the acceleration of the base, m/s² in the worst
 	// direction, at which the first contact unloads under the preload
 	// and gravity (higher is better; +Inf for a massless payload, which
-	// no acceleration loads: the one unbounded figure, and the only
-	// infinity a scorecard holds besides PreloadMin below).
+	// no acceleration loads; the scorecard's other unbounded figures
+	// are PreloadMin and PreloadMax below).
 	ShockLevel float64
 
 	// PreloadMin and PreloadMax bound a common factor on the preload
 	// elements: at PreloadMin every contact keeps MinForce under gravity
 	// and Shock in the worst direction; at PreloadMax the first contact
 	// reaches its allowable peak pressure under the same. A wider window
-	// is better; PreloadMin > PreloadMax means no preload works, and
+	// is better; PreloadMin > PreloadMax means no preload works.
 	// PreloadMin is +Inf when no factor keeps a contact loaded (the
-	// preload does not press it). PressureRatio is the largest peak
+	// preload does not press it), PreloadMax +Inf when the preload
+	// presses no contact (no factor reaches an allowable). PressureRatio is the largest peak
 	// pressure over allowable under the preload as given with gravity
 	// (lower is better). Each is unavailable without what [Figure] says.
 	PreloadMin, PreloadMax, PressureRatio float64
@@ -224,14 +225,11 @@ func (c Coupling) Score(s Scenario) (Scorecard, error) {
 	if err != nil {
 		return Scorecard{}, err
 	}
-	var card Scorecard
-	if err := sc.score(&card, allFigures); err != nil {
-		return Scorecard{}, err
-	}
 	if err := sc.tension(); err != nil {
 		return Scorecard{}, err
 	}
-	if err := card.finite(); err != nil {
+	var card Scorecard
+	if err := sc.score(&card, allFigures); err != nil {
 		return Scorecard{}, err
 	}
 	return card, nil
@@ -265,8 +263,8 @@ func (sc *scorer) tension() error {
 }
 
 // finite returns an error wrapping [ErrRange] naming the scenario's input
-// whose figures overflowed, or nil when every figure is finite (ShockLevel
-// and PreloadMin may be +Inf, as documented).
+// whose figures overflowed, or nil when every figure is finite (ShockLevel,
+// PreloadMin and PreloadMax may be +Inf, as documented).
 func (card *Scorecard) finite() error {
 	switch {
 	case !allFinite(card.Amplification, card.AmplificationRSS, card.AxisAmplification, card.Tilt, card.TiltRSS,
@@ -274,7 +272,8 @@ func (card *Scorecard) finite() error {
 		return &InputError{Field: "s.Point", Err: fmt.Errorf("%w: a figure at the point of interest overflows: the point is too far from the coupling", ErrRange)}
 	case !allFinite(card.LoadAmplification, card.FirstFrequency) || math.IsNaN(card.ShockLevel):
 		return &InputError{Field: "s.Payload", Err: fmt.Errorf("%w: a load figure of the payload overflows", ErrRange)}
-	case !allFinite(card.PreloadMax, card.PressureRatio) || math.IsNaN(card.PreloadMin) || math.IsInf(card.PreloadMin, -1):
+	case !allFinite(card.PressureRatio) || math.IsNaN(card.PreloadMin) || math.IsInf(card.PreloadMin, -1) ||
+		math.IsNaN(card.PreloadMax) || math.IsInf(card.PreloadMax, -1):
 		return &InputError{Field: "s.Preloads", Err: fmt.Errorf("%w: a preload figure overflows", ErrRange)}
 	case !allFinite(card.WeakestIndex, card.WeakestCentreIndex, card.WeakestAngle, card.MaxwellRatio, card.MinSingular, card.Condition):
 		return &InputError{Field: "Pairs", Err: fmt.Errorf("%w: a figure of the contact geometry overflows", ErrRange)}
@@ -460,7 +459,7 @@ func (sc *scorer) score(card *Scorecard, need figures) error {
 		sc.drift(card, &ts, p)
 	}
 	card.zeroUnavailable()
-	return nil
+	return card.finite()
 }
 
 // zeroUnavailable sets the figures marked unavailable to 0.

@@ -225,6 +225,11 @@ func addOuter(a *[36]float64, k float64, g *[6]float64) {
 // (F in N, M in N·m about that point) per unit small displacement (V in m,
 // the translation of the body point at about, and W in rad), ordered
 // (Vx, Vy, Vz, Wx, Wy, Wz) → (Fx, Fy, Fz, Mx, My, Mz). It is symmetric.
+// The entries about a point at distance r from the contacts grow as r²;
+// about a point so far away that they overflow (r near 1e150 m for a
+// coupling of tens of millimetres) they are ±Inf: Matrix returns no
+// error, so check [Stiffness.Compliance] there, which refuses. The zero
+// Stiffness gives the zero matrix.
 func (s Stiffness) Matrix(about r3.Vec) [6][6]float64 {
 	// Shift: with o the origin of k, r = about − o, a twist with V at
 	// about has V_o = V − W × r, and a wrench about o has M_about =
