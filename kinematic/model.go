@@ -132,7 +132,9 @@ type preloadLine struct {
 // NewModel returns an [*InputError] naming the field: cs as for Analyze;
 // "preloads[i].Direction" for a zero or non-finite direction (when Force is
 // not zero), "preloads[i].Force" for a negative or non-finite force,
-// "preloads[i].Point", ".Rate" or ".Couple" when not finite; "payload.Mass"
+// "preloads[i].Point", ".Rate" or ".Couple" when not finite,
+// "preloads[i].Force" or "preloads" wrapping [ErrRange] when an element's
+// moment or their sum overflows; "payload.Mass"
 // for a negative or non-finite mass, "payload.Centre" when not finite, and
 // "payload.Inertia" for a tensor that is not finite, not symmetric, or
 // neither zero nor positive definite.
@@ -268,8 +270,14 @@ func (m *Model) setPreloads(ps []Preload) error {
 			pl.w = screw.Wrench{F: r3.Scale(p.Force, d), M: r3.Scale(p.Force, r3.Cross(pl.p, d))}
 		}
 		pl.w.M = r3.Add(pl.w.M, p.Couple)
+		if !allFinite3(pl.w.F, pl.w.M) {
+			return &InputError{Field: f + ".Force", Err: fmt.Errorf("%w: the moment of %g N at %v overflows", ErrRange, p.Force, p.Point)}
+		}
 		m.preloads[i] = pl
 		m.preload = m.preload.Add(pl.w)
+		if !allFinite3(m.preload.F, m.preload.M) {
+			return &InputError{Field: "preloads", Err: fmt.Errorf("%w: the sum of the preload elements overflows", ErrRange)}
+		}
 	}
 	return nil
 }

@@ -93,6 +93,10 @@ func TestOverflowNamesTheInput(t *testing.T) {
 	_, err = mp.LiftOff(LoadCase{Preload: 1}, r3.Vec{Z: 1}, []r3.Vec{{}, {X: 1e308, Y: 1e308}})
 	wantField(t, "LiftOff at 1e300 m", err, "points[1]", ErrRange)
 
+	// 1e300 N at 1e300 m: a moment of 1e600 N·m.
+	_, err = NewModel(mustContacts(t, mustBisector(t)), []Preload{{Point: r3.Vec{X: 1e300}, Direction: r3.Vec{Z: -1}, Force: 1e300}}, Payload{})
+	wantField(t, "NewModel with a moment of 1e600 N·m", err, "preloads[0].Force", ErrRange)
+
 	_, err = mp.WrenchLimit(LoadCase{Preload: 1}, screwWrench(5e-324))
 	wantField(t, "WrenchLimit of a subnormal wrench", err, "w", ErrRange)
 }
