@@ -219,7 +219,7 @@ func (m *Model) Shock(base LoadCase, magnitude float64) (Shock, error) {
 			sc.Unload = f[i] / sc.Gain
 			if !allFinite(sc.Unload) {
 				return Shock{}, &InputError{Field: "payload.Mass", Err: fmt.Errorf(
-					"%w: contact %s would unload at an acceleration beyond the floating-point range (%g N over %g N per m/s²): the payload is too light to load it", ErrRange, sc.Label, f[i], sc.Gain)}
+					"%w: contact %s would unload at an acceleration beyond the floating-point range (%.4g N over %.4g N per m/s²): the payload is too light to load it", ErrRange, sc.Label, f[i], sc.Gain)}
 			}
 		}
 		s.Unload = math.Min(s.Unload, sc.Unload)

@@ -90,8 +90,8 @@ func (m *Model) Stiffness(lc LoadCase, opt *StiffnessOptions) (Stiffness, error)
 			if f[i] < 0 {
 				field, pull := m.puller(i, &lc)
 				return Stiffness{}, &InputError{Field: field, Other: "lc", Err: fmt.Errorf(
-					"%w: contact %s is in tension (%.4g N) under case %q; this input alone pulls it with %.4g N: the part lifts off its seats and the contact has no stiffness; reverse or move the preload, add preload, or use Equilibrium",
-					ErrRange, labelOf(m.lines[i].label, i), f[i], lc.Name, -pull)}
+					"%w: contact %s is in tension (%.4g N) under %s; this input alone pulls it with %.4g N: the part lifts off its seats and the contact has no stiffness; reverse or move the preload, add preload, or use Equilibrium",
+					ErrRange, labelOf(m.lines[i].label, i), f[i], caseName(&lc), -pull)}
 			}
 		}
 		copy(forces, f[:])
@@ -176,8 +176,16 @@ func (m *Model) unloaded(forces []float64, lc *LoadCase) error {
 		field, hint = "lc.Preload", "set the case's Preload factor (1 applies the preload as given)"
 	}
 	return &InputError{Field: field, Err: fmt.Errorf(
-		"%w: contacts %s carry no force under case %q, and an unloaded Hertz contact has no stiffness (dF/dδ = 0 at F = 0); %s",
-		ErrDegenerate, strings.Join(open, ", "), lc.Name, hint)}
+		"%w: contacts %s carry no force under %s, and an unloaded Hertz contact has no stiffness (dF/dδ = 0 at F = 0); %s",
+		ErrDegenerate, strings.Join(open, ", "), caseName(lc), hint)}
+}
+
+// caseName returns `case "name"`, or "the load case" when it has no name.
+func caseName(lc *LoadCase) string {
+	if lc.Name == "" {
+		return "the load case"
+	}
+	return fmt.Sprintf("case %q", lc.Name)
 }
 
 // stiffnessOf returns the stiffness of contacts acting as springs in
