@@ -246,6 +246,8 @@ func TestZeroValues(t *testing.T) {
 		wantField(t, name+" Repeatability", err, "m", ErrDegenerate)
 		_, err = m.SizePreload([]LoadCase{lc}, 1)
 		wantField(t, name+" SizePreload", err, "m", ErrDegenerate)
+		_, err = m.Equilibrium(lc, nil)
+		wantField(t, name+" Equilibrium", err, "m", ErrDegenerate)
 	}
 	_, err := Stiffness{}.Compliance(p)
 	wantField(t, "zero Stiffness Compliance", err, "s", ErrDegenerate)
