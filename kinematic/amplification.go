@@ -39,10 +39,17 @@ type Amplification struct {
 
 // Amplification returns the first-order error of the point p of the moving body
 // per unit gap error at each contact. It returns an [*InputError] naming
-// "p" when it is not finite.
+// "p" when it is not finite or so far away that its error overflows
+// ([ErrRange]), and one naming "s" for the zero Stability (not made by
+// [Analysis.Stability]).
 func (s Stability) Amplification(p r3.Vec) (Amplification, error) {
 	if !linalg.Finite3(p) {
 		return Amplification{}, &InputError{Field: "p", Err: fmt.Errorf("%w: %v", ErrNonFinite, p)}
+	}
+	for i, m := range s.Contacts {
+		if m.Freed == (screw.Twist{}) {
+			return Amplification{}, &InputError{Field: indexed("s.Contacts", i) + ".Freed", Err: fmt.Errorf("%w: the zero Stability: make one with Analysis.Stability", ErrDegenerate)}
+		}
 	}
 	pe := Amplification{Point: p}
 	var ts [6]screw.Twist
@@ -51,6 +58,9 @@ func (s Stability) Amplification(p r3.Vec) (Amplification, error) {
 	}
 	var d, w [6]r3.Vec
 	pe.Worst, pe.RSS, pe.WorstTilt, pe.RSSTilt = pointError(&ts, p, &d, &w)
+	if !allFinite(pe.Worst, pe.RSS, pe.WorstTilt, pe.RSSTilt) {
+		return Amplification{}, &InputError{Field: "p", Err: fmt.Errorf("%w: the error at %v overflows: the point is too far from the coupling", ErrRange, p)}
+	}
 	for i, m := range s.Contacts {
 		pe.Contacts[i] = Effect{Name: m.Label, Pose: m.Freed, Displacement: d[i], Tilt: w[i]}
 	}

@@ -116,6 +116,15 @@ func (c Coupling) Assembly() (*Assembly, error) {
 	return a, nil
 }
 
+// check returns an error for a nil Assembly or the zero Assembly (one not
+// made by [Coupling.Assembly]), which has no contacts to seat.
+func (a *Assembly) check() error {
+	if a == nil || len(a.conts) != 6 {
+		return &InputError{Field: "a", Err: fmt.Errorf("%w: the zero Assembly has no geometry: make an Assembly with Coupling.Assembly", ErrDegenerate)}
+	}
+	return nil
+}
+
 func (a *Assembly) add(d dimension) {
 	a.index[d.name] = len(a.dims)
 	a.dims = append(a.dims, d)
@@ -131,8 +140,11 @@ func ballDimensions(name string) []dimension {
 }
 
 // Dimensions returns the names of the assembly's dimensions, pair by
-// pair: the ball's, then the seat's.
+// pair: the ball's, then the seat's; nil for a nil or zero Assembly.
 func (a *Assembly) Dimensions() []string {
+	if a.check() != nil {
+		return nil
+	}
 	out := make([]string, len(a.dims))
 	for i, d := range a.dims {
 		out[i] = d.name
@@ -224,8 +236,13 @@ type Effect struct {
 // moves the body by x = −Σᵢ (∂gᵢ/∂v) Tᵢ, with Tᵢ the twists of power δᵢⱼ
 // with contact j, so that every gap stays closed: moving the body by x
 // opens gap j by Power(x, lⱼ) (the normal velocity of its contact point).
-// It returns an [*InputError] naming "p" when p is not finite.
+// It returns an [*InputError] naming "p" when p is not finite, or
+// wrapping [ErrRange] when it is so far away that its displacement
+// overflows, and one naming "a" for a nil or zero Assembly.
 func (a *Assembly) Sensitivities(p r3.Vec) ([]Effect, error) {
+	if err := a.check(); err != nil {
+		return nil, err
+	}
 	if !linalg.Finite3(p) {
 		return nil, &InputError{Field: "p", Err: fmt.Errorf("%w: %v", ErrNonFinite, p)}
 	}
@@ -234,6 +251,9 @@ func (a *Assembly) Sensitivities(p r3.Vec) ([]Effect, error) {
 	for k := range a.dims {
 		x := a.sensitivity(k)
 		out[k] = Effect{Name: a.dims[k].name, Pose: global(x, a.origin), Displacement: x.At(pl), Tilt: x.W}
+		if !allFinite3(out[k].Displacement) || !finiteTwist(out[k].Pose) {
+			return nil, &InputError{Field: "p", Err: fmt.Errorf("%w: the displacement of %v per unit of %s overflows: the point is too far from the coupling", ErrRange, p, out[k].Name)}
+		}
 	}
 	return out, nil
 }

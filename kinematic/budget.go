@@ -32,6 +32,22 @@ func (t Tolerance) limit() (lim, sigma float64) {
 	return t.HalfWidth, t.HalfWidth / math.Sqrt(3)
 }
 
+// field returns the name of the tolerance's non-zero field ("Sigma" or
+// "HalfWidth"), and value its value.
+func (t Tolerance) field() string {
+	if t.Sigma > 0 {
+		return "Sigma"
+	}
+	return "HalfWidth"
+}
+
+func (t Tolerance) value() float64 {
+	if t.Sigma > 0 {
+		return t.Sigma
+	}
+	return t.HalfWidth
+}
+
 // Contributor is one dimension's part in an error budget.
 type Contributor struct {
 	Dimension string
@@ -69,8 +85,10 @@ type Budget struct {
 // moving body for the tolerances, contributors ranked by their effect.
 // It returns an [*InputError] naming "p" when it is not finite,
 // "tols[i].Dimension" for an unknown or repeated dimension,
-// "tols[i].Value" for a value that is negative or not finite and
-// "tols[i].Distribution" for an unknown distribution.
+// "tols[i].HalfWidth" or "tols[i].Sigma" for a value that is negative or
+// not finite, or whose effect overflows ([ErrRange]; a 1e300 m
+// tolerance), "tols" when the totals overflow, and "a" for a nil or zero
+// Assembly.
 func (a *Assembly) Budget(p r3.Vec, tols []Tolerance) (Budget, error) {
 	sens, err := a.Sensitivities(p)
 	if err != nil {
@@ -92,11 +110,18 @@ func (a *Assembly) Budget(p r3.Vec, tols []Tolerance) (Budget, error) {
 		b.RSS += c.Effect * c.Effect
 		variance += c.Sigma * c.Sigma
 		tn := linalg.Norm3(s.Tilt) * lim
+		if !allFinite(c.Limit, c.Effect, c.Sigma*c.Sigma, tn*tn) {
+			return Budget{}, &InputError{Field: indexed("tols", i) + "." + t.field(), Err: fmt.Errorf(
+				"%w: the effect of %g on %s overflows", ErrRange, t.value(), t.Dimension)}
+		}
 		b.WorstTilt += tn
 		b.RSSTilt += tn * tn
 		b.Contributors[i] = c
 	}
 	b.RSS, b.Sigma, b.RSSTilt = math.Sqrt(b.RSS), math.Sqrt(variance), math.Sqrt(b.RSSTilt)
+	if !allFinite(b.Worst, b.RSS, b.Sigma, b.WorstTilt, b.RSSTilt) {
+		return Budget{}, &InputError{Field: "tols", Err: fmt.Errorf("%w: the budget's totals overflow", ErrRange)}
+	}
 	for i := range b.Contributors {
 		if variance > 0 {
 			b.Contributors[i].Share = b.Contributors[i].Sigma * b.Contributors[i].Sigma / variance

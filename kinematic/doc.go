@@ -104,6 +104,60 @@
 // screen. [Optimize] improves any one of them within windows, ball regions
 // and half-angle lists, with the others as constraints.
 //
+// # Figures that cannot be computed
+//
+// A figure the inputs cannot support is an error naming the missing input
+// or is marked unavailable; it is never a plain zero that reads as a
+// value, nor a NaN. What each result needs beyond the geometry:
+//
+//   - [Statics]: a Hertz model (materials on both bodies, a point contact)
+//     at every compressed contact, else an error naming "cs[i]..."; an
+//     allowable on file for [ContactLoad.PressureRatio], else Allowable and
+//     PressureRatio are both 0 (Allowable 0 is the marker). A contact in
+//     tension is a result: it is listed in Tensile, with the input that
+//     pulls it in [ContactLoad.PulledBy] ("preloads[0]").
+//   - [Shock]: a payload mass, else an error naming "payload.Mass".
+//   - [Stiffness], [Compliance], [Model.Repeatability]: a Hertz model and a
+//     compressive force at every contact of an exactly constrained set
+//     (six loaded contacts otherwise); a contact in tension is an error
+//     naming the input that pulls it ("preloads[0]", "lc.Gravity"), and
+//     contacts with no force an error naming "lc.Preload" (a factor of 0)
+//     or "preloads" (none) and listing them: an unloaded Hertz contact has
+//     no stiffness.
+//   - [Mode]: a payload mass and inertia tensor, else an error naming
+//     "payload.Mass" or "payload.Inertia".
+//   - [PreloadSizing]: a preload element, else an error naming
+//     "preloads"; MaxScale is +Inf, documented, when no compressed contact
+//     has an allowable on file.
+//   - [Scorecard]: each figure that needs more than the geometry says so
+//     in its [Figure] constant (Axis, payload mass and inertia, a preload,
+//     materials, allowables, expansion coefficients); without it the
+//     figure is 0 and its bit is set in [Scorecard.Unavailable], which
+//     costs no allocation. A preload that puts a contact in tension is an
+//     error naming it ("s.Preloads[0]"): the part does not seat.
+//   - [Amplification], [Effect], [Budget], [StudyResult], [Pose], [Limit],
+//     [LiftOff], [Homing]: the geometry and their own arguments only.
+//
+// The only infinities in results are documented unbounded figures, each
+// with its meaning: a shock level or unloading acceleration of +Inf (no
+// acceleration unloads the contact: a massless payload), a [Limit] scale
+// or [LiftOff] force of +Inf (no load of that kind unloads a contact), a
+// friction limit of +Inf ([HomingContact.Limit]: friction cannot stop
+// it), [Scorecard.PreloadMin] of +Inf (no factor keeps a contact loaded),
+// [Scorecard.PreloadMax] of +Inf (the preload presses no contact) and
+// [PreloadSizing.MaxScale] as above.
+//
+// Finite inputs whose result leaves the floating-point range return an
+// [*InputError] wrapping [ErrRange] naming the input: every result is
+// checked finite before it is returned, and the entry point names the
+// input the overflow comes from ("p" for a point of interest 1e300 m
+// away, "payload.Mass" for a payload of 5e-324 kg whose shock level would
+// be 1/mass, "tols[i].Sigma" for a σ of 1e308 whose 3σ overflows, "mu",
+// "magnitude", "w", "s.Point"). Zero values of [Model], [Assembly],
+// [Stiffness] and [Stability], and nil pointers, are refused by their
+// methods with an error wrapping [ErrDegenerate] that says how to make
+// one.
+//
 // # Maxwell's criterion in 3D
 //
 // Six independent contacts hold a body exactly. Removing contact i frees

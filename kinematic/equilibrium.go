@@ -83,6 +83,9 @@ const escapeLimit = 1e-1
 // does not converge or the contacts cannot hold the load (the body leaves
 // its seats).
 func (m *Model) Equilibrium(lc LoadCase, opt *EquilibriumOptions) (Equilibrium, error) {
+	if err := m.check(); err != nil {
+		return Equilibrium{}, err
+	}
 	var o EquilibriumOptions
 	if opt != nil {
 		o = *opt

@@ -1,6 +1,7 @@
 package kinematic
 
 import (
+	"errors"
 	"fmt"
 	"math"
 
@@ -82,6 +83,9 @@ const muMax = 10
 // Homing returns an [*InputError] naming "mu" when it is negative or not
 // finite, and the errors of [Model.Statics] without the Hertz ones.
 func (m *Model) Homing(lc LoadCase, mu float64) (Homing, error) {
+	if err := m.check(); err != nil {
+		return Homing{}, err
+	}
 	if !m.exact {
 		return Homing{}, m.errNotExact()
 	}
@@ -114,6 +118,9 @@ func (m *Model) Homing(lc LoadCase, mu float64) (Homing, error) {
 			s.Home = false
 		}
 		s.MaxMu = math.Min(s.MaxMu, sc.Limit)
+		if !allFinite(sc.Drive, sc.Margin) {
+			return Homing{}, &InputError{Field: "lc", Err: fmt.Errorf("%w: the drive at contact %s overflows", ErrRange, sc.Label)}
+		}
 	}
 	return s, nil
 }
@@ -244,9 +251,14 @@ type SlipContact struct {
 // interchangeability, [Assembly.Study]'s answer.
 //
 // Errors are those of [Model.Stiffness] and [Stiffness.Compliance], and an
-// [*InputError] naming "mu" when it is not finite and positive or "p" when
-// it is not finite.
+// [*InputError] naming "mu" when it is not finite and positive, or so
+// large that a friction force or a displacement overflows ([ErrRange]), or
+// "p" when it is not finite or so far away that the compliance there
+// overflows.
 func (m *Model) Repeatability(lc LoadCase, mu float64, p r3.Vec) (Repeatability, error) {
+	if err := m.check(); err != nil {
+		return Repeatability{}, err
+	}
 	if !linalg.Finite(mu) {
 		return Repeatability{}, &InputError{Field: "mu", Err: fmt.Errorf("%w: %g", ErrNonFinite, mu)}
 	}
@@ -262,6 +274,10 @@ func (m *Model) Repeatability(lc LoadCase, mu float64, p r3.Vec) (Repeatability,
 	}
 	c, err := st.Compliance(p)
 	if err != nil {
+		var ie *InputError
+		if errors.As(err, &ie) && ie.Field == "at" {
+			return Repeatability{}, &InputError{Field: "p", Err: ie.Err}
+		}
 		return Repeatability{}, err
 	}
 	r := Repeatability{Point: p, Mu: mu, Contacts: make([]SlipContact, len(m.lines))}
@@ -298,6 +314,13 @@ func (m *Model) Repeatability(lc LoadCase, mu float64, p r3.Vec) (Repeatability,
 		r.RSSTilt += sc.Tilt * sc.Tilt
 	}
 	r.RSS, r.RSSTilt = math.Sqrt(r.RSS), math.Sqrt(r.RSSTilt)
+	ok := allFinite(r.Worst, r.RSS, r.WorstTilt, r.RSSTilt)
+	for _, sc := range r.Contacts {
+		ok = ok && allFinite(sc.Friction, sc.Displacement, sc.Tilt)
+	}
+	if !ok {
+		return Repeatability{}, &InputError{Field: "mu", Err: fmt.Errorf("%w: the friction forces or their displacements overflow with μ = %g", ErrRange, mu)}
+	}
 	return r, nil
 }
 

@@ -17,6 +17,7 @@ import (
 var fileOrder = []string{
 	"doc.go",
 	"errors.go",
+	"finite.go",
 	"contact.go",
 	"surface.go",
 	"seat.go",

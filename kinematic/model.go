@@ -132,7 +132,9 @@ type preloadLine struct {
 // NewModel returns an [*InputError] naming the field: cs as for Analyze;
 // "preloads[i].Direction" for a zero or non-finite direction (when Force is
 // not zero), "preloads[i].Force" for a negative or non-finite force,
-// "preloads[i].Point", ".Rate" or ".Couple" when not finite; "payload.Mass"
+// "preloads[i].Point", ".Rate" or ".Couple" when not finite,
+// "preloads[i].Force" or "preloads" wrapping [ErrRange] when an element's
+// moment or their sum overflows; "payload.Mass"
 // for a negative or non-finite mass, "payload.Centre" when not finite, and
 // "payload.Inertia" for a tensor that is not finite, not symmetric, or
 // neither zero nor positive definite.
@@ -268,8 +270,14 @@ func (m *Model) setPreloads(ps []Preload) error {
 			pl.w = screw.Wrench{F: r3.Scale(p.Force, d), M: r3.Scale(p.Force, r3.Cross(pl.p, d))}
 		}
 		pl.w.M = r3.Add(pl.w.M, p.Couple)
+		if !allFinite3(pl.w.F, pl.w.M) {
+			return &InputError{Field: f + ".Force", Err: fmt.Errorf("%w: the moment of %g N at %v overflows", ErrRange, p.Force, p.Point)}
+		}
 		m.preloads[i] = pl
 		m.preload = m.preload.Add(pl.w)
+		if !allFinite3(m.preload.F, m.preload.M) {
+			return &InputError{Field: "preloads", Err: fmt.Errorf("%w: the sum of the preload elements overflows", ErrRange)}
+		}
 	}
 	return nil
 }
@@ -353,6 +361,43 @@ func (m *Model) wrench(lc *LoadCase) (screw.Wrench, error) {
 		return screw.Wrench{}, &InputError{Field: "lc", Err: fmt.Errorf("%w: the total load overflows", ErrRange)}
 	}
 	return w, nil
+}
+
+// check returns an error for a nil Model or the zero Model (one not made
+// by NewModel), whose methods have no contacts to work on.
+func (m *Model) check() error {
+	if m == nil || len(m.lines) == 0 {
+		return &InputError{Field: "m", Err: fmt.Errorf("%w: a Model needs contacts: make one with NewModel", ErrDegenerate)}
+	}
+	return nil
+}
+
+// puller returns the input of the load case that pulls contact i of an
+// exactly constrained model hardest — the most negative part of its rigid
+// force — as the caller wrote it ("preloads[0]", "lc.Gravity",
+// "lc.Acceleration", "lc.Applied[2]"), and that part in N; "" and 0 when
+// no part pulls.
+func (m *Model) puller(i int, lc *LoadCase) (string, float64) {
+	t := m.freed[i]
+	name, pull := "", 0.0
+	take := func(f float64, n string) {
+		if f < pull {
+			name, pull = n, f
+		}
+	}
+	for j, p := range m.preloads {
+		take(contactForce(t, p.w.Scale(lc.Preload)), indexed("preloads", j))
+	}
+	if m.payload.Mass > 0 {
+		g := r3.Scale(m.payload.Mass, lc.Gravity)
+		take(contactForce(t, screw.Wrench{F: g, M: r3.Cross(m.payload.Centre, g)}), "lc.Gravity")
+		a := r3.Scale(-m.payload.Mass, lc.Acceleration)
+		take(contactForce(t, screw.Wrench{F: a, M: r3.Cross(m.payload.Centre, a)}), "lc.Acceleration")
+	}
+	for k, a := range lc.Applied {
+		take(contactForce(t, a.About(m.origin)), indexed("lc.Applied", k))
+	}
+	return name, pull
 }
 
 // errNotExact is returned by the rigid-statics methods of a model whose

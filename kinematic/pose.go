@@ -123,8 +123,11 @@ func (a *Assembly) apply(g *geom, k int, v float64) {
 // length or a bad value, and one wrapping [ErrRange] naming the pair when
 // a ball cannot reach its seat: a ball radius that is not positive, a
 // contact that moves more than half its ball's radius across its seat, or
-// no convergence.
+// no convergence; and one naming "a" for a nil or zero Assembly.
 func (a *Assembly) Pose(devs []Deviation, opt *PoseOptions) (Pose, error) {
+	if err := a.check(); err != nil {
+		return Pose{}, err
+	}
 	g := a.nominal()
 	for i, d := range devs {
 		k, ok := a.index[d.Dimension]
@@ -162,7 +165,11 @@ func (a *Assembly) Pose(devs []Deviation, opt *PoseOptions) (Pose, error) {
 	if !(o.Tolerance > 0 && o.Tolerance < 1) || o.MaxIterations < 0 {
 		return Pose{}, &InputError{Field: "opt", Err: fmt.Errorf("%w: Tolerance %g, MaxIterations %d", ErrRange, o.Tolerance, o.MaxIterations)}
 	}
-	return a.seat(&g, &appr, o.Tolerance, o.MaxIterations)
+	pose, err := a.seat(&g, &appr, o.Tolerance, o.MaxIterations)
+	if err == nil && !allFinite3(pose.Rotation, pose.Translation) {
+		return Pose{}, &InputError{Field: "devs", Err: fmt.Errorf("%w: the seated pose overflows", ErrRange)}
+	}
+	return pose, err
 }
 
 // errUnseated reports that the ball of contact i cannot reach its seat.

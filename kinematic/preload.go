@@ -67,8 +67,12 @@ const bindTol = 1e-7
 // [ErrNotExact] as for [Model.Statics]; and [ErrRange] with the case and
 // contact named when the requirement cannot be met: a contact that no
 // element pushes closed but whose case leaves it below minForce, or (with
-// several elements) a linear program that is infeasible.
+// several elements) a linear program that is infeasible; and [ErrRange]
+// naming "preloads" when a factor overflows (an element of 5e-324 N).
 func (m *Model) SizePreload(cases []LoadCase, minForce float64) (PreloadSizing, error) {
+	if err := m.check(); err != nil {
+		return PreloadSizing{}, err
+	}
 	if !m.exact {
 		return PreloadSizing{}, m.errNotExact()
 	}
@@ -108,6 +112,9 @@ func (m *Model) SizePreload(cases []LoadCase, minForce float64) (PreloadSizing, 
 	}
 	for j, s := range sz.Factors {
 		sz.Total += s * linalg.Norm3(m.preloads[j].w.F)
+	}
+	if !allFinite(sz.Total) || !allFinite(sz.Factors...) {
+		return PreloadSizing{}, &InputError{Field: "preloads", Err: fmt.Errorf("%w: the sized preload overflows", ErrRange)}
 	}
 	sz.Binding = bindings(sz.Factors, a, e, minForce, bound)
 	return sz, nil
@@ -158,7 +165,11 @@ func (m *Model) scaleWindow(sz *PreloadSizing, a, e [][6]float64, minForce float
 			need := minForce - e[k][i]
 			switch {
 			case sum[i] > 0:
-				if s := need / sum[i]; s > sz.MinScale {
+				s := need / sum[i]
+				if !allFinite(s) {
+					return errTinyPreload(labelOf(m.lines[i].label, i))
+				}
+				if s > sz.MinScale {
 					sz.MinScale, sz.MinBinding = s, bound(k, i)
 				}
 			case need > 0:
@@ -183,12 +194,23 @@ func (m *Model) scaleWindow(sz *PreloadSizing, a, e [][6]float64, minForce float
 			return fromHertz(err, indexed("cs", i)+".Moving", indexed("cs", i)+".Base", nil)
 		}
 		for k := range e {
-			if v := (fa - e[k][i]) / sum[i]; v < sz.MaxScale {
+			v := (fa - e[k][i]) / sum[i]
+			if !allFinite(v) {
+				return errTinyPreload(labelOf(m.lines[i].label, i))
+			}
+			if v < sz.MaxScale {
 				sz.MaxScale, sz.MaxBinding = v, bound(k, i)
 			}
 		}
 	}
 	return nil
+}
+
+// errTinyPreload reports a preload whose factor at a contact leaves the
+// floating-point range.
+func errTinyPreload(label string) error {
+	return &InputError{Field: "preloads", Err: fmt.Errorf(
+		"%w: the preload pushes contact %s so little that the factor it needs overflows", ErrRange, label)}
 }
 
 // bindings returns the case and contact pairs at minForce, within bindTol,

@@ -1,8 +1,10 @@
 package kinematic
 
 import (
+	"errors"
 	"fmt"
 	"math"
+	"strings"
 
 	"gonum.org/v1/gonum/spatial/r3"
 
@@ -12,8 +14,8 @@ import (
 )
 
 // Scenario is what a layout is judged by: the point that matters and what
-// acts on the coupling. Figures that need a field left zero are reported
-// as zero (see each figure of [Scorecard]).
+// acts on the coupling. A figure that needs a field left zero is marked in
+// [Scorecard.Unavailable] (see each [Figure]).
 type Scenario struct {
 	// Point is the point of interest on the moving body (an optical
 	// axis, a probe tip), m; Axis, when not zero, a direction there that
@@ -52,9 +54,88 @@ type Scenario struct {
 // screw.NearSingularRatio (1e3).
 const DesignCondition = 10
 
+// Figure is a set of [Scorecard] figures, one bit each: the figures that
+// need an input beyond the geometry. [Scorecard.Unavailable] holds those
+// the scenario cannot support; the zero Figure is the empty set. A figure
+// whose bit is set is 0 in the scorecard and means nothing.
+type Figure uint32
+
+// The figures that need more than the geometry, and what each needs (the
+// Maxwell indices, the singular values, Amplification, AmplificationRSS,
+// Tilt, TiltRSS and ShockLevel need nothing more and are always
+// available):
+const (
+	// FigureAxisAmplification needs Scenario.Axis.
+	FigureAxisAmplification Figure = 1 << iota
+	// FigureLoadAmplification needs Payload.Mass.
+	FigureLoadAmplification
+	// FigurePreloadMin needs a preload element with a force or couple.
+	FigurePreloadMin
+	// FigurePreloadMax needs a preload element, and at every contact a
+	// Hertz point contact (materials on both bodies, not a cone's ring)
+	// with an allowable on file.
+	FigurePreloadMax
+	// FigurePressureRatio needs at every contact a Hertz point contact
+	// with an allowable on file.
+	FigurePressureRatio
+	// FigureStiffness needs at every contact a Hertz point contact and a
+	// force in compression under the preload and gravity: an unloaded
+	// Hertz contact has no stiffness.
+	FigureStiffness
+	// FigureAxisCompliance needs what FigureStiffness needs, and Axis.
+	FigureAxisCompliance
+	// FigureFirstFrequency needs what FigureStiffness needs, and
+	// Payload.Mass and Payload.Inertia.
+	FigureFirstFrequency
+	// FigureDrift needs an expansion coefficient: Thermal.Moving,
+	// Thermal.Base, or a ball's or seat's Material.Alpha.
+	FigureDrift
+	// FigureThermalCentreDistance needs what FigureDrift needs, and a
+	// thermal centre (none when the drift is a pure translation).
+	FigureThermalCentreDistance
+
+	figureEnd
+)
+
+var figureNames = [...]string{"AxisAmplification", "LoadAmplification", "PreloadMin", "PreloadMax",
+	"PressureRatio", "Stiffness", "AxisCompliance", "FirstFrequency", "Drift", "ThermalCentreDistance"}
+
+// Has reports whether the set f holds every figure of g.
+func (f Figure) Has(g Figure) bool { return f&g == g }
+
+// Names returns the Scorecard field names of the figures in f, in the
+// order of the constants; nil for the empty set.
+func (f Figure) Names() []string {
+	var out []string
+	for i, n := range figureNames {
+		if f&(1<<i) != 0 {
+			out = append(out, n)
+		}
+	}
+	return out
+}
+
+// String returns the names of the figures in f joined by "|", or "none".
+func (f Figure) String() string {
+	if f == 0 {
+		return "none"
+	}
+	return strings.Join(f.Names(), "|")
+}
+
 // Scorecard holds the design figures of one exactly constrained layout in
 // its scenario. Each figure says its unit and which direction is better.
+//
+// A figure that the scenario cannot support (a stiffness without
+// materials, a pressure ratio without an allowable, a frequency without
+// an inertia) is 0 and its bit is set in Unavailable: test
+// card.Unavailable.Has(FigureStiffness) before reading Stiffness. The
+// record costs no allocation.
 type Scorecard struct {
+	// Unavailable holds the figures that could not be computed for lack
+	// of an input (see [Figure] for what each needs).
+	Unavailable Figure
+
 	// WeakestIndex and WeakestCentreIndex are the smallest Maxwell
 	// indices at the contact points and at the ball centres (0 to 1,
 	// higher is better; see [Maxwell]); WeakestAngle is the angle, rad,
@@ -85,22 +166,26 @@ type Scorecard struct {
 
 	// LoadAmplification is the largest contact force per newton of the
 	// payload's inertial load in its worst direction, N/N (lower is
-	// better); zero without a payload mass.
+	// better); unavailable without a payload mass.
 	LoadAmplification float64
 
 	// ShockLevel is the acceleration of the base, m/s² in the worst
 	// direction, at which the first contact unloads under the preload
-	// and gravity (higher is better; +Inf for a massless payload).
+	// and gravity (higher is better; +Inf for a massless payload, which
+	// no acceleration loads; the scorecard's other unbounded figures
+	// are PreloadMin and PreloadMax below).
 	ShockLevel float64
 
 	// PreloadMin and PreloadMax bound a common factor on the preload
 	// elements: at PreloadMin every contact keeps MinForce under gravity
 	// and Shock in the worst direction; at PreloadMax the first contact
-	// reaches its allowable peak pressure under the same (+Inf when no
-	// contact has an allowable on file). A wider window is better;
-	// PreloadMin > PreloadMax means no preload works. PressureRatio is
-	// the largest peak pressure over allowable under the preload as
-	// given with gravity (lower is better; 0 when none is on file).
+	// reaches its allowable peak pressure under the same. A wider window
+	// is better; PreloadMin > PreloadMax means no preload works.
+	// PreloadMin is +Inf when no factor keeps a contact loaded (the
+	// preload does not press it), PreloadMax +Inf when the preload
+	// presses no contact (no factor reaches an allowable). PressureRatio is the largest peak
+	// pressure over allowable under the preload as given with gravity
+	// (lower is better). Each is unavailable without what [Figure] says.
 	PreloadMin, PreloadMax, PressureRatio float64
 
 	// Stiffness is the smallest translational stiffness at the point of
@@ -108,13 +193,13 @@ type Scorecard struct {
 	// translational block of the compliance there; higher is better);
 	// AxisCompliance the compliance along Axis, m/N (lower is better).
 	// FirstFrequency is the lowest natural frequency of the payload, Hz
-	// (higher is better; zero without a payload inertia).
+	// (higher is better). Each is unavailable without what [Figure] says.
 	Stiffness, AxisCompliance, FirstFrequency float64
 
 	// Drift is the displacement of the point of interest per kelvin of
 	// uniform temperature change, m/K (lower is better), and
 	// ThermalCentreDistance the lateral distance from it to the thermal
-	// centre, m (lower is better; zero when there is none).
+	// centre, m (lower is better; unavailable when there is none).
 	Drift, ThermalCentreDistance float64
 }
 
@@ -124,17 +209,23 @@ type Scorecard struct {
 // summarises ([Stability.Amplification], [Model.Shock], [Model.Stiffness],
 // [Stiffness.Compliance], [Stiffness.Modes], [Assembly.Drift]).
 //
-// The stiffness figures (Stiffness, AxisCompliance, FirstFrequency) need
-// every contact in compression under the preload and gravity, and a Hertz
-// point contact at every contact (not a cone's ring); otherwise they are
-// zero.
+// A figure the scenario cannot support is marked in
+// [Scorecard.Unavailable] (see [Figure]); the others are computed.
 //
 // Score returns the errors of [Coupling.Contacts], [Analyze] and
 // [NewModel], and an [*InputError] wrapping [ErrNotExact] for a set that
-// is not exactly constrained.
+// is not exactly constrained. When the preload and gravity put a contact
+// in tension (the part lifts off its seats), it returns one wrapping
+// [ErrRange] naming the input that pulls that contact hardest, as the
+// caller wrote it ("s.Preloads[0]", "s.Gravity"). When a finite input
+// makes a figure overflow, it returns one wrapping [ErrRange] naming it
+// ("s.Point" for a point of interest 1e300 m away, "s.Payload.Mass").
 func (c Coupling) Score(s Scenario) (Scorecard, error) {
 	sc, err := newScorer(c, s)
 	if err != nil {
+		return Scorecard{}, err
+	}
+	if err := sc.tension(); err != nil {
 		return Scorecard{}, err
 	}
 	var card Scorecard
@@ -142,6 +233,52 @@ func (c Coupling) Score(s Scenario) (Scorecard, error) {
 		return Scorecard{}, err
 	}
 	return card, nil
+}
+
+// tension returns an error naming the scenario's input that pulls hardest
+// at the first contact in tension under the preload and gravity, or nil.
+func (sc *scorer) tension() error {
+	var ts [6]screw.Twist
+	if !freedOf(sc.lines[:], &ts) {
+		return nil
+	}
+	grav := r3.Scale(sc.pay.Mass, sc.s.Gravity)
+	gw := screw.Wrench{F: grav, M: r3.Cross(sc.pay.Centre, grav)}
+	for i, t := range ts {
+		f := contactForce(t, sc.pre) + contactForce(t, gw)
+		if !(f < 0) {
+			continue
+		}
+		name, pull := "s.Gravity", contactForce(t, gw)
+		for j, p := range sc.preloads {
+			if g := contactForce(t, p.w); g < pull {
+				name, pull = indexed("s.Preloads", j), g
+			}
+		}
+		return &InputError{Field: name, Err: fmt.Errorf(
+			"%w: the preload and gravity put contact %s in tension (%.4g N; this input alone pulls it with %.4g N): the part lifts off its seats, and no stiffness, frequency or pressure can be computed; reverse or move the preload",
+			ErrRange, labelOf(sc.lines[i].label, i), f, -pull)}
+	}
+	return nil
+}
+
+// finite returns an error wrapping [ErrRange] naming the scenario's input
+// whose figures overflowed, or nil when every figure is finite (ShockLevel,
+// PreloadMin and PreloadMax may be +Inf, as documented).
+func (card *Scorecard) finite() error {
+	switch {
+	case !allFinite(card.Amplification, card.AmplificationRSS, card.AxisAmplification, card.Tilt, card.TiltRSS,
+		card.Stiffness, card.AxisCompliance, card.Drift, card.ThermalCentreDistance):
+		return &InputError{Field: "s.Point", Err: fmt.Errorf("%w: a figure at the point of interest overflows: the point is too far from the coupling", ErrRange)}
+	case !allFinite(card.LoadAmplification, card.FirstFrequency) || math.IsNaN(card.ShockLevel):
+		return &InputError{Field: "s.Payload", Err: fmt.Errorf("%w: a load figure of the payload overflows", ErrRange)}
+	case !allFinite(card.PressureRatio) || math.IsNaN(card.PreloadMin) || math.IsInf(card.PreloadMin, -1) ||
+		math.IsNaN(card.PreloadMax) || math.IsInf(card.PreloadMax, -1):
+		return &InputError{Field: "s.Preloads", Err: fmt.Errorf("%w: a preload figure overflows", ErrRange)}
+	case !allFinite(card.WeakestIndex, card.WeakestCentreIndex, card.WeakestAngle, card.MaxwellRatio, card.MinSingular, card.Condition):
+		return &InputError{Field: "Pairs", Err: fmt.Errorf("%w: a figure of the contact geometry overflows", ErrRange)}
+	}
+	return nil
 }
 
 // figures selects what scorer.score computes.
@@ -183,6 +320,7 @@ type scorer struct {
 	preloads []preloadLine // the preload elements, for their rates
 	pay      Payload       // Centre about origin
 	L        float64
+	missing  Figure // the figures the scenario's inputs cannot support, whatever the layout
 }
 
 // newScorer prepares the scorer of a coupling: its contacts, their Hertz
@@ -214,6 +352,9 @@ func newScorer(c Coupling, s Scenario) (*scorer, error) {
 			continue
 		}
 		sc.k[i] = sf.k
+		if !(sf.allow > 0) {
+			sc.missing |= FigurePressureRatio | FigurePreloadMax
+		}
 		if sf.allow > 0 {
 			f, err := sf.pair.LoadForPressure(sf.allow)
 			if err != nil {
@@ -222,19 +363,40 @@ func newScorer(c Coupling, s Scenario) (*scorer, error) {
 			sc.fall[i] = f
 		}
 	}
+	if sc.kerr != nil {
+		sc.missing |= FigurePressureRatio | FigurePreloadMax | FigureStiffness | FigureAxisCompliance | FigureFirstFrequency
+	}
+	if s.Axis == (r3.Vec{}) {
+		sc.missing |= FigureAxisAmplification | FigureAxisCompliance
+	}
+	if !(s.Payload.Mass > 0) {
+		sc.missing |= FigureLoadAmplification | FigureFirstFrequency
+	}
+	if s.Payload.Inertia == ([3][3]float64{}) {
+		sc.missing |= FigureFirstFrequency
+	}
+	if sc.pre == (screw.Wrench{}) {
+		sc.missing |= FigurePreloadMin | FigurePreloadMax
+	}
+	thermal := s.Thermal.Moving != 0 || s.Thermal.Base != 0
 	k := 0
 	for _, p := range c.Pairs {
 		n := p.Seat.count()
+		thermal = thermal || p.Ball.Material.Alpha != 0
 		_, _, root, alpha := p.Seat.surfaces(p.Ball, cs[k:k+n])
 		p.Seat.ideals(cs[k:k+n], sc.ideal[k:k+n])
 		for j := 0; j < n; j++ {
 			sc.root[k+j] = r3.Sub(root, m.origin)
 			sc.alpha[k+j] = alpha
+			thermal = thermal || alpha != 0
 			sc.balpha[k+j] = p.Ball.Material.Alpha
 			sc.radius[k+j] = p.Ball.Radius
 			sc.wcen[k+j] = 1 / float64(n*len(c.Pairs))
 		}
 		k += n
+	}
+	if !thermal {
+		sc.missing |= FigureDrift | FigureThermalCentreDistance
 	}
 	return sc, nil
 }
@@ -264,8 +426,10 @@ func checkScenario(s *Scenario) error {
 }
 
 // score fills the figures selected by need for the scorer's current
-// lines.
+// lines, and marks in card.Unavailable those it cannot compute (an
+// unavailable figure is set to 0).
 func (sc *scorer) score(card *Scorecard, need figures) error {
+	card.Unavailable = sc.missing
 	var ts [6]screw.Twist
 	if !freedOf(sc.lines[:], &ts) {
 		return &InputError{Field: "Pairs", Err: fmt.Errorf("%w: the six contacts are singular to working precision", ErrNotExact)}
@@ -287,12 +451,36 @@ func (sc *scorer) score(card *Scorecard, need figures) error {
 		sc.loads(card, &ts, &f0)
 	}
 	if need&(figStiffness|figModes) != 0 {
-		sc.stiffness(card, &f0, need)
+		if err := sc.stiffness(card, &f0, need); err != nil {
+			return err
+		}
 	}
 	if need&figDrift != 0 {
 		sc.drift(card, &ts, p)
 	}
-	return nil
+	card.zeroUnavailable()
+	return card.finite()
+}
+
+// zeroUnavailable sets the figures marked unavailable to 0.
+func (card *Scorecard) zeroUnavailable() {
+	u := card.Unavailable
+	if u == 0 {
+		return
+	}
+	for _, f := range [...]struct {
+		bit Figure
+		v   *float64
+	}{
+		{FigureAxisAmplification, &card.AxisAmplification}, {FigureLoadAmplification, &card.LoadAmplification},
+		{FigurePreloadMin, &card.PreloadMin}, {FigurePreloadMax, &card.PreloadMax}, {FigurePressureRatio, &card.PressureRatio},
+		{FigureStiffness, &card.Stiffness}, {FigureAxisCompliance, &card.AxisCompliance}, {FigureFirstFrequency, &card.FirstFrequency},
+		{FigureDrift, &card.Drift}, {FigureThermalCentreDistance, &card.ThermalCentreDistance},
+	} {
+		if u&f.bit != 0 {
+			*f.v = 0
+		}
+	}
 }
 
 // maxwell fills the Maxwell figures from the freed twists ts.
@@ -384,31 +572,44 @@ func (sc *scorer) loads(card *Scorecard, ts *[6]screw.Twist, f0 *[6]float64) {
 
 // stiffness fills the stiffness figures selected by need at the contact
 // forces f0. The stiffness needs every contact loaded (Hertz stiffness at
-// zero force is zero) and a Hertz model at every contact; without them
-// the figures stay zero.
-func (sc *scorer) stiffness(card *Scorecard, f0 *[6]float64, need figures) {
+// zero force is zero) and a Hertz model at every contact; without them,
+// or when the stiffness is singular (a preload rate that cancels a
+// contact), the figures are marked unavailable. It returns an error
+// naming "s.Point" when the compliance there overflows.
+func (sc *scorer) stiffness(card *Scorecard, f0 *[6]float64, need figures) error {
+	const stiff = FigureStiffness | FigureAxisCompliance | FigureFirstFrequency
 	if sc.kerr != nil {
-		return
+		return nil
 	}
 	var kn [6]float64
 	for i := range f0 {
 		if !(f0[i] > 0) {
-			return
+			card.Unavailable |= stiff
+			return nil
 		}
 		kn[i] = normalStiffness(sc.k[i], f0[i])
 	}
 	st := stiffnessOf(sc.lines[:], kn[:], sc.preloads, sc.origin, sc.L, sc.pay)
 	if need&figStiffness != 0 {
-		if c, err := st.Compliance(sc.s.Point); err == nil {
+		c, err := st.Compliance(sc.s.Point)
+		switch {
+		case err == nil:
 			card.Stiffness = 1 / largestEigen3(&c.Matrix)
 			card.AxisCompliance = c.Along(sc.s.Axis)
+		case errors.Is(err, ErrRange):
+			return &InputError{Field: "s.Point", Err: errors.Unwrap(err)}
+		default:
+			card.Unavailable |= stiff
 		}
 	}
-	if need&figModes != 0 && sc.pay.Mass > 0 && sc.pay.Inertia != ([3][3]float64{}) {
+	if need&figModes != 0 && !sc.missing.Has(FigureFirstFrequency) {
 		if modes, err := st.Modes(); err == nil {
 			card.FirstFrequency = modes[0].Frequency
+		} else {
+			card.Unavailable |= FigureFirstFrequency
 		}
 	}
+	return nil
 }
 
 // drift fills the thermal figures at the point p (about origin).
@@ -427,6 +628,8 @@ func (sc *scorer) drift(card *Scorecard, ts *[6]screw.Twist, p r3.Vec) {
 	card.Drift = linalg.Norm3(r3.Add(x.At(p), r3.Scale(th.Moving, sc.s.Point)))
 	if _, ok, dist := thermalCentre(global(x, sc.origin), th.Moving, r3.Add(cen, sc.origin), up, sc.s.Point); ok {
 		card.ThermalCentreDistance = dist
+	} else {
+		card.Unavailable |= FigureThermalCentreDistance
 	}
 }
 

@@ -31,6 +31,13 @@ type ContactLoad struct {
 	// contact is overloaded.
 	Allowable     float64
 	PressureRatio float64
+
+	// PulledBy is, for a contact in tension, the input of the load case
+	// that pulls it hardest, as the caller wrote it ("preloads[0]" for a
+	// preload whose Direction lifts the part off its seats, "lc.Gravity",
+	// "lc.Acceleration", "lc.Applied[2]"); "" for a contact in
+	// compression.
+	PulledBy string
 }
 
 // Statics is the rigid-statics solution of one load case.
@@ -52,11 +59,20 @@ type Statics struct {
 // exactly constrained set, and at every compressed contact its Hertz
 // contact with stresses against the allowable.
 //
+// A contact in tension is a result, not an error: Statics lists it in
+// Tensile with the input that pulls it in [ContactLoad.PulledBy]; the
+// analyses that need every contact in compression ([Model.Stiffness],
+// [Coupling.Score]) refuse such a case, naming that input.
+//
 // Statics returns an [*InputError] wrapping [ErrNotExact] if the model is
 // not exactly constrained, one naming the load case's field ("lc.Gravity")
-// for bad numbers, and, for a compressed contact without a Hertz model
-// (see [NewModel]), the error that names it.
+// for bad numbers or "lc" for forces that overflow, and, for a compressed
+// contact without a Hertz model (see [NewModel]), the error that names
+// it.
 func (m *Model) Statics(lc LoadCase) (Statics, error) {
+	if err := m.check(); err != nil {
+		return Statics{}, err
+	}
 	if !m.exact {
 		return Statics{}, m.errNotExact()
 	}
@@ -70,8 +86,12 @@ func (m *Model) Statics(lc LoadCase) (Statics, error) {
 	for i := range s.Contacts {
 		cl := &s.Contacts[i]
 		cl.Label, cl.Force = labelOf(m.lines[i].label, i), f[i]
+		if !allFinite(f[i]) {
+			return Statics{}, &InputError{Field: "lc", Err: fmt.Errorf("%w: the force at contact %s overflows", ErrRange, cl.Label)}
+		}
 		if f[i] < 0 {
 			s.Tensile = append(s.Tensile, labelOf(m.lines[i].label, i))
+			cl.PulledBy, _ = m.puller(i, &lc)
 			continue
 		}
 		if err := m.hertzAt(i, f[i], cl); err != nil {
@@ -149,8 +169,14 @@ type ShockContact struct {
 //
 // Shock returns the errors of [Model.Statics] (without the Hertz ones),
 // and an [*InputError] naming "magnitude" when it is negative or not
-// finite, "payload.Mass" when the payload is massless.
+// finite, "payload.Mass" when the payload is massless, and one wrapping
+// [ErrRange] naming "payload.Mass" or "magnitude" when a gain, a least
+// force or an unloading level overflows (a payload of 5e-324 kg unloads
+// no contact at any representable acceleration).
 func (m *Model) Shock(base LoadCase, magnitude float64) (Shock, error) {
+	if err := m.check(); err != nil {
+		return Shock{}, err
+	}
 	if !m.exact {
 		return Shock{}, m.errNotExact()
 	}
@@ -174,10 +200,16 @@ func (m *Model) Shock(base LoadCase, magnitude float64) (Shock, error) {
 		g := r3.Scale(m.payload.Mass, m.freed[i].At(m.payload.Centre))
 		sc := &s.Contacts[i]
 		sc.Label, sc.Base, sc.Gain = labelOf(m.lines[i].label, i), f[i], linalg.Norm3(g)
-		if sc.Gain > 0 {
-			sc.Direction = r3.Scale(-1/sc.Gain, g)
+		if !allFinite(sc.Gain) {
+			return Shock{}, &InputError{Field: "payload.Mass", Err: fmt.Errorf("%w: the force per unit acceleration at contact %s overflows", ErrRange, sc.Label)}
+		}
+		if u, ok := linalg.Unit3(g); ok && sc.Gain > 0 {
+			sc.Direction = r3.Scale(-1, u)
 		}
 		sc.Least = f[i] - magnitude*sc.Gain
+		if !allFinite(sc.Least) {
+			return Shock{}, &InputError{Field: "magnitude", Err: fmt.Errorf("%w: the force at contact %s under %g m/s² overflows", ErrRange, sc.Label, magnitude)}
+		}
 		switch {
 		case f[i] <= 0:
 			sc.Unload = 0
@@ -185,6 +217,10 @@ func (m *Model) Shock(base LoadCase, magnitude float64) (Shock, error) {
 			sc.Unload = math.Inf(1)
 		default:
 			sc.Unload = f[i] / sc.Gain
+			if !allFinite(sc.Unload) {
+				return Shock{}, &InputError{Field: "payload.Mass", Err: fmt.Errorf(
+					"%w: contact %s would unload at an acceleration beyond the floating-point range (%.4g N over %.4g N per m/s²): the payload is too light to load it", ErrRange, sc.Label, f[i], sc.Gain)}
+			}
 		}
 		s.Unload = math.Min(s.Unload, sc.Unload)
 	}
@@ -216,8 +252,12 @@ type Limit struct {
 // before a contact unloads. The contact forces are fᵢ = f₀ᵢ − s·Power(Tᵢ, w)
 // for the scale s, so contact i unloads at s = f₀ᵢ/Power(Tᵢ, w) when that
 // power is positive. Errors are those of [Model.Shock] and an
-// [*InputError] naming "w" when it is not finite.
+// [*InputError] naming "w" when it is not finite, or wrapping [ErrRange]
+// when the scale overflows (a subnormal w).
 func (m *Model) WrenchLimit(base LoadCase, w screw.Wrench) (Limit, error) {
+	if err := m.check(); err != nil {
+		return Limit{}, err
+	}
 	if !m.exact {
 		return Limit{}, m.errNotExact()
 	}
@@ -235,20 +275,30 @@ func (m *Model) WrenchLimit(base LoadCase, w screw.Wrench) (Limit, error) {
 	for i := range rate {
 		rate[i] = screw.Power(m.freed[i], wl)
 	}
-	return m.limit(&f, &rate), nil
+	l, ok := m.limit(&f, &rate)
+	if !ok {
+		return Limit{}, &InputError{Field: "w", Err: fmt.Errorf("%w: the scale at which a contact unloads is outside the floating-point range", ErrRange)}
+	}
+	return l, nil
 }
 
 // limit returns the scale s at which the first force f[i] − s·rate[i]
-// reaches zero, and which contacts do.
-func (m *Model) limit(f, rate *[6]float64) Limit {
+// reaches zero, and which contacts do; ok is false when a rate or a scale
+// is not finite.
+func (m *Model) limit(f, rate *[6]float64) (Limit, bool) {
 	var at [6]float64
 	l := Limit{Scale: math.Inf(1)}
 	for i := range f {
 		switch {
 		case f[i] <= 0:
 			at[i] = 0
+		case !allFinite(rate[i]):
+			return Limit{}, false
 		case rate[i] > 0:
 			at[i] = f[i] / rate[i]
+			if !allFinite(at[i]) {
+				return Limit{}, false
+			}
 		default:
 			at[i] = math.Inf(1)
 		}
@@ -261,7 +311,7 @@ func (m *Model) limit(f, rate *[6]float64) Limit {
 			}
 		}
 	}
-	return l
+	return l, true
 }
 
 // LiftOff is the largest force that can be applied at one point before a
@@ -277,8 +327,12 @@ type LiftOff struct {
 // presses), the largest force before the first contact unloads, added to
 // the load case base; a map a drawing can colour. Errors are those of
 // [Model.WrenchLimit], and an [*InputError] naming "dir" for a zero or
-// non-finite direction and "points[i]" for a point that is not finite.
+// non-finite direction and "points[i]" for a point that is not finite or
+// so far away that its force overflows.
 func (m *Model) LiftOff(base LoadCase, dir r3.Vec, points []r3.Vec) ([]LiftOff, error) {
+	if err := m.check(); err != nil {
+		return nil, err
+	}
 	if !m.exact {
 		return nil, m.errNotExact()
 	}
@@ -303,7 +357,10 @@ func (m *Model) LiftOff(base LoadCase, dir r3.Vec, points []r3.Vec) ([]LiftOff, 
 			// Power of the unit force (d, q × d) on twist i: Tᵢ(q)·d.
 			rate[i] = r3.Dot(m.freed[i].At(ql), d)
 		}
-		l := m.limit(&f, &rate)
+		l, ok := m.limit(&f, &rate)
+		if !ok {
+			return nil, &InputError{Field: indexed("points", k), Err: fmt.Errorf("%w: the force at which a contact unloads is outside the floating-point range", ErrRange)}
+		}
 		out[k] = LiftOff{Point: q, Force: l.Scale}
 		if len(l.First) > 0 {
 			out[k].Contact = l.First[0]

@@ -2,6 +2,7 @@ package kinematic
 
 import (
 	"fmt"
+	"strings"
 
 	"gonum.org/v1/gonum/spatial/r3"
 
@@ -55,10 +56,20 @@ type Stiffness struct {
 // constrained model and from [Model.Equilibrium] otherwise; an open
 // contact adds nothing.
 //
-// Errors are those of [Model.Statics] or [Model.Equilibrium], and an
-// [*InputError] wrapping [ErrRange] naming the case when a contact would be
-// in tension under rigid statics.
+// An unloaded Hertz contact has no stiffness (dF/dδ = (3/2)k^(2/3)F^(1/3)
+// is 0 at F = 0), so an exactly constrained model needs every contact in
+// compression, and any model needs six loaded contacts.
+//
+// Errors are those of [Model.Statics] or [Model.Equilibrium]; an
+// [*InputError] wrapping [ErrRange] naming the input that pulls hardest
+// ("preloads[0]", "lc.Gravity") when a contact would be in tension under
+// rigid statics; and one wrapping [ErrDegenerate] naming "lc.Preload"
+// (a preload factor of 0), "preloads" (a model without preload) or "lc"
+// when contacts carry no force, listing them.
 func (m *Model) Stiffness(lc LoadCase, opt *StiffnessOptions) (Stiffness, error) {
+	if err := m.check(); err != nil {
+		return Stiffness{}, err
+	}
 	var o StiffnessOptions
 	if opt != nil {
 		o = *opt
@@ -73,9 +84,14 @@ func (m *Model) Stiffness(lc LoadCase, opt *StiffnessOptions) (Stiffness, error)
 		var f [6]float64
 		m.forces(w, &f)
 		for i := range f {
+			if !allFinite(f[i]) {
+				return Stiffness{}, &InputError{Field: "lc", Err: fmt.Errorf("%w: the force at contact %s overflows", ErrRange, labelOf(m.lines[i].label, i))}
+			}
 			if f[i] < 0 {
-				return Stiffness{}, &InputError{Field: "lc", Err: fmt.Errorf(
-					"%w: contact %s is in tension (%.4g N) under case %q: add preload, or use Equilibrium", ErrRange, labelOf(m.lines[i].label, i), f[i], lc.Name)}
+				field, pull := m.puller(i, &lc)
+				return Stiffness{}, &InputError{Field: field, Other: "lc", Err: fmt.Errorf(
+					"%w: contact %s is in tension (%.4g N) under %s; this input alone pulls it with %.4g N: the part lifts off its seats and the contact has no stiffness; reverse or move the preload, add preload, or use Equilibrium",
+					ErrRange, labelOf(m.lines[i].label, i), f[i], caseName(&lc), -pull)}
 			}
 		}
 		copy(forces, f[:])
@@ -87,6 +103,9 @@ func (m *Model) Stiffness(lc LoadCase, opt *StiffnessOptions) (Stiffness, error)
 		for i, c := range eq.Contacts {
 			forces[i] = c.Force
 		}
+	}
+	if err := m.unloaded(forces, &lc); err != nil {
+		return Stiffness{}, err
 	}
 	normal := make([]float64, n)
 	for i, l := range m.lines {
@@ -136,6 +155,39 @@ func (m *Model) Stiffness(lc LoadCase, opt *StiffnessOptions) (Stiffness, error)
 	return st, nil
 }
 
+// unloaded returns an error listing the contacts that carry no force when
+// the stiffness needs them: every contact of an exactly constrained
+// model, six contacts of any other.
+func (m *Model) unloaded(forces []float64, lc *LoadCase) error {
+	var open []string
+	for i, f := range forces {
+		if !(f > 0) {
+			open = append(open, labelOf(m.lines[i].label, i))
+		}
+	}
+	if len(open) == 0 || (!m.exact && len(forces)-len(open) >= 6) {
+		return nil
+	}
+	field, hint := "lc", "load the coupling"
+	switch {
+	case len(m.preloads) == 0:
+		field, hint = "preloads", "add a preload element"
+	case lc.Preload == 0:
+		field, hint = "lc.Preload", "set the case's Preload factor (1 applies the preload as given)"
+	}
+	return &InputError{Field: field, Err: fmt.Errorf(
+		"%w: contacts %s carry no force under %s, and an unloaded Hertz contact has no stiffness (dF/dδ = 0 at F = 0); %s",
+		ErrDegenerate, strings.Join(open, ", "), caseName(lc), hint)}
+}
+
+// caseName returns `case "name"`, or "the load case" when it has no name.
+func caseName(lc *LoadCase) string {
+	if lc.Name == "" {
+		return "the load case"
+	}
+	return fmt.Sprintf("case %q", lc.Name)
+}
+
 // stiffnessOf returns the stiffness of contacts acting as springs in
 // parallel with preload elements: K = Σ kᵢ lᵢ lᵢᵀ − Σ rateⱼ pⱼ pⱼᵀ, with
 // kn[i] the normal stiffness of the contact line ls[i] (N/m; 0 adds
@@ -181,6 +233,11 @@ func addOuter(a *[36]float64, k float64, g *[6]float64) {
 // (F in N, M in N·m about that point) per unit small displacement (V in m,
 // the translation of the body point at about, and W in rad), ordered
 // (Vx, Vy, Vz, Wx, Wy, Wz) → (Fx, Fy, Fz, Mx, My, Mz). It is symmetric.
+// The entries about a point at distance r from the contacts grow as r²;
+// about a point so far away that they overflow (r near 1e150 m for a
+// coupling of tens of millimetres) they are ±Inf: Matrix returns no
+// error, so check [Stiffness.Compliance] there, which refuses. The zero
+// Stiffness gives the zero matrix.
 func (s Stiffness) Matrix(about r3.Vec) [6][6]float64 {
 	// Shift: with o the origin of k, r = about − o, a twist with V at
 	// about has V_o = V − W × r, and a wrench about o has M_about =
@@ -268,12 +325,17 @@ func (c Compliance) Along(u r3.Vec) float64 {
 const singularStiffness = 1e-13
 
 // Compliance returns the compliance at the point at of the moving body.
-// It returns an [*InputError] naming "at" when the point is not finite,
-// and one wrapping [ErrDegenerate] when the stiffness is singular or not
+// It returns an [*InputError] naming "at" when the point is not finite or
+// so far away that the compliance there overflows ([ErrRange]), one
+// naming "s" for the zero Stiffness (not made by [Model.Stiffness]), and
+// one wrapping [ErrDegenerate] when the stiffness is singular or not
 // positive definite.
 func (s Stiffness) Compliance(at r3.Vec) (Compliance, error) {
 	if !linalg.Finite3(at) {
 		return Compliance{}, &InputError{Field: "at", Err: fmt.Errorf("%w: %v", ErrNonFinite, at)}
+	}
+	if s.length == 0 {
+		return Compliance{}, errZeroStiffness
 	}
 	// Invert the scaled matrix about its own origin, then shift.
 	l := s.k
@@ -335,5 +397,13 @@ func (s Stiffness) Compliance(at r3.Vec) (Compliance, error) {
 			c.Matrix[b][a] = c.Matrix[a][b]
 		}
 	}
+	for a := range 6 {
+		if !allFinite(c.Matrix[a][:]...) {
+			return Compliance{}, &InputError{Field: "at", Err: fmt.Errorf("%w: the compliance at %v overflows: the point is too far from the coupling", ErrRange, at)}
+		}
+	}
 	return c, nil
 }
+
+// errZeroStiffness is returned by the methods of the zero Stiffness.
+var errZeroStiffness = &InputError{Field: "s", Err: fmt.Errorf("%w: the zero Stiffness: make one with Model.Stiffness", ErrDegenerate)}

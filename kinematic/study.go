@@ -95,8 +95,14 @@ const studyBlock = 4096
 // The study stops early with ctx's error when ctx is cancelled.
 // Errors are those of [Assembly.Budget] and [Assembly.Pose] (for the
 // calibration), and an [*InputError] naming "opt.Samples" out of range or
-// "opt.Workers" negative.
+// "opt.Workers" negative; "tols[i].HalfWidth" or "tols[i].Sigma" (or
+// "tols" for their sum, "opt.Calibration[i].Value", "p") wrapping
+// [ErrRange] when a displacement can overflow: the first-order study
+// bounds every sample by Σ |Sᵢ|·(HalfWidth, or maxNormal·Sigma).
 func (a *Assembly) Study(ctx context.Context, p r3.Vec, tols []Tolerance, opt *StudyOptions) (StudyResult, error) {
+	if err := a.check(); err != nil {
+		return StudyResult{}, err
+	}
 	var o StudyOptions
 	if opt != nil {
 		o = *opt
@@ -122,8 +128,31 @@ func (a *Assembly) Study(ctx context.Context, p r3.Vec, tols []Tolerance, opt *S
 	if err := ctx.Err(); err != nil {
 		return StudyResult{}, err
 	}
-	return summarise(disp, tilt, ok, opt.KeepSamples), nil
+	res := summarise(disp, tilt, ok, opt.KeepSamples)
+	if !res.finite() {
+		return StudyResult{}, &InputError{Field: "tols", Err: fmt.Errorf("%w: a sample's displacement overflows", ErrRange)}
+	}
+	return res, nil
 }
+
+// finite reports whether every statistic of the result is finite.
+func (r *StudyResult) finite() bool {
+	for _, s := range [...]*Stats{&r.X, &r.Y, &r.Z, &r.Radial, &r.Tilt} {
+		if !allFinite(s.Mean, s.StdDev, s.P50, s.P95, s.P99, s.P9973) {
+			return false
+		}
+	}
+	return true
+}
+
+// maxNormal bounds |rand.NormFloat64()|: its ziggurat (Marsaglia & Tsang
+// 2000, "The ziggurat method for generating random variables", J. Stat.
+// Software 5(8); Go's math/rand/v2/normal.go) draws the tail beyond
+// r = 3.442619855899 as r − ln(U₁)/r, with U₁ = k/2⁵³ from Rand.Float64:
+// a non-zero U₁ is ≥ 2⁻⁵³, giving at most 3.44 + 36.7/3.44 ≈ 14.1; U₁ = 0
+// gives +Inf, rejected unless U₂ is 0 too (probability 2⁻¹⁰⁶, caught by
+// the result's finite check). 40 leaves room to spare.
+const maxNormal = 40
 
 // newSampler prepares the sampler of a study: the tolerances' limits and
 // sensitivities, and the calibrated part.
@@ -158,11 +187,30 @@ func (a *Assembly) newSampler(p r3.Vec, tols []Tolerance, opt *StudyOptions) (*s
 		s.d0 = r3.Add(s.d0, r3.Scale(d.Value, x.At(s.pl)))
 		s.w0 = r3.Add(s.w0, r3.Scale(d.Value, x.W))
 	}
+	if !allFinite3(s.d0, s.w0) {
+		return nil, &InputError{Field: "opt.Calibration", Err: fmt.Errorf("%w: the calibrated displacement overflows", ErrRange)}
+	}
 	s.jd = make([]r3.Vec, len(tols))
 	s.jw = make([]r3.Vec, len(tols))
+	bound, tbound := linalg.Norm3(s.d0), linalg.Norm3(s.w0)
 	for i, k := range idx {
 		x := a.sensitivity(k)
 		s.jd[i], s.jw[i] = x.At(s.pl), x.W
+		if !allFinite3(s.jd[i]) {
+			return nil, &InputError{Field: "p", Err: fmt.Errorf("%w: the displacement of %v per unit of %s overflows: the point is too far from the coupling", ErrRange, p, tols[i].Dimension)}
+		}
+		lim := s.lim[i]
+		if s.normal[i] {
+			lim *= maxNormal
+		}
+		bound += linalg.Norm3(s.jd[i]) * lim
+		tbound += linalg.Norm3(s.jw[i]) * lim
+		if d, w := linalg.Norm3(s.jd[i])*lim, linalg.Norm3(s.jw[i])*lim; !allFinite(d*d, w*w) {
+			return nil, &InputError{Field: indexed("tols", i) + "." + tols[i].field(), Err: fmt.Errorf("%w: the displacement of %g on %s can overflow", ErrRange, tols[i].value(), tols[i].Dimension)}
+		}
+		if !allFinite(bound*bound, tbound*tbound) {
+			return nil, &InputError{Field: "tols", Err: fmt.Errorf("%w: the sum of the tolerances' displacements can overflow", ErrRange)}
+		}
 	}
 	if opt.Exact {
 		// The calibrated part itself must seat.

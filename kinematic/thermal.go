@@ -62,6 +62,9 @@ type Drift struct {
 // "th.Base", "th.BaseRef" or "p" for numbers that are not finite, and the
 // errors of [Assembly.Pose].
 func (a *Assembly) Drift(th Thermal, p r3.Vec) (Drift, error) {
+	if err := a.check(); err != nil {
+		return Drift{}, err
+	}
 	for _, f := range []struct {
 		name string
 		v    float64

@@ -33,9 +33,15 @@ type Mode struct {
 // Modes returns an [*InputError] naming "payload.Mass" or
 // "payload.Inertia" when the payload has no mass or no positive-definite
 // inertia, and one wrapping [ErrDegenerate] when the stiffness is not
-// positive definite (an unresisted or unstable motion).
+// positive definite (an unresisted or unstable motion), one naming "s"
+// for the zero Stiffness, and one wrapping [ErrRange] naming
+// "payload.Mass" when a frequency or a mode shape overflows (a payload
+// of 5e-324 kg).
 func (s Stiffness) Modes() ([6]Mode, error) {
 	var modes [6]Mode
+	if s.length == 0 {
+		return modes, errZeroStiffness
+	}
 	p := s.payload
 	if !(p.Mass > 0) {
 		return modes, &InputError{Field: "payload.Mass", Err: fmt.Errorf("%w: natural frequencies need a payload with mass", ErrDegenerate)}
@@ -117,6 +123,9 @@ func (s Stiffness) Modes() ([6]Mode, error) {
 		size := math.Max(linalg.Norm3(t.At(c)), linalg.Norm3(t.W)*L)
 		t = t.Scale(signOfTwist(t, L) / size)
 		modes[j] = Mode{Frequency: math.Sqrt(w[j]) / (2 * math.Pi), Shape: global(t, s.origin)}
+		if !allFinite(modes[j].Frequency) || !finiteTwist(modes[j].Shape) {
+			return [6]Mode{}, &InputError{Field: "payload.Mass", Err: fmt.Errorf("%w: a natural frequency or mode shape overflows", ErrRange)}
+		}
 	}
 	return modes, nil
 }
