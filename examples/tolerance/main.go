@@ -61,42 +61,15 @@ func run(ctx context.Context, args []string, stdin io.Reader, stdout, progress i
 		fs.Usage()
 		return fmt.Errorf("need one design file (or - for standard input), got %d arguments", fs.NArg())
 	}
-	var src []byte
-	var err error
-	if fs.Arg(0) == "-" {
-		src, err = io.ReadAll(io.LimitReader(stdin, design.MaxSize+1))
-	} else {
-		src, err = os.ReadFile(fs.Arg(0))
-	}
+	d, err := readDesign(fs.Arg(0), stdin)
 	if err != nil {
 		return err
-	}
-	d, err := design.Parse(src)
-	if err != nil {
-		return err
-	}
-	if len(d.Tolerances) == 0 {
-		return fmt.Errorf("%s: the design has no tolerances to study", fs.Arg(0))
 	}
 	b, err := d.Build()
 	if err != nil {
 		return err
 	}
-	n, sd := *samples, *seed
-	if d.MonteCarlo != nil {
-		if n == 0 {
-			n = d.MonteCarlo.Samples
-		}
-		if sd == 0 {
-			sd = d.MonteCarlo.Seed
-		}
-	}
-	if n == 0 {
-		n = 100000
-	}
-	if sd == 0 {
-		sd = 1
-	}
+	n, sd := studySize(d, *samples, *seed)
 	if n < 0 {
 		return fmt.Errorf("-samples: must be positive, got %d", n)
 	}
@@ -114,34 +87,9 @@ func run(ctx context.Context, args []string, stdin io.Reader, stdout, progress i
 	if *exact {
 		model = "exact"
 	}
-	fmt.Fprintf(stdout, "%s\n", d.Name)
-	fmt.Fprintf(stdout, "Monte Carlo tolerance study (interchangeability): %d parts, %s model, seed %d, %d toleranced dimensions\n",
-		res.Samples, model, sd, len(d.Tolerances))
-	fmt.Fprintf(stdout, "point of interest (%.1f, %.1f, %.1f) mm\n", d.Point.X*1e3, d.Point.Y*1e3, d.Point.Z*1e3)
-	if res.Failed > 0 {
-		fmt.Fprintf(stdout, "%d parts could not seat and are left out\n", res.Failed)
-	}
-	fmt.Fprintf(stdout, "%-10s %10s %10s %10s %10s %10s %10s\n", "", "mean", "std dev", "|P50|", "|P95|", "|P99|", "|P99.73|")
-	row := func(name string, s kinematic.Stats, scale float64, unit string) {
-		fmt.Fprintf(stdout, "%-10s %10.3f %10.3f %10.3f %10.3f %10.3f %10.3f  %s\n", name,
-			s.Mean*scale, s.StdDev*scale, s.P50*scale, s.P95*scale, s.P99*scale, s.P9973*scale, unit)
-	}
-	row("x", res.X, 1e6, "µm")
-	row("y", res.Y, 1e6, "µm")
-	row("z", res.Z, 1e6, "µm")
-	row("radial", res.Radial, 1e6, "µm")
-	row("tilt", res.Tilt, 1e6, "µrad")
+	report(stdout, d, res, model, sd)
 	if *svg != "" && len(res.Points) > 0 {
-		hopt := &drawing.Options{Notes: []string{fmt.Sprintf("%d samples, %s model, seed %d", len(res.Points), model, sd)}}
-		f, err := os.Create(*svg)
-		if err != nil {
-			return err
-		}
-		err = drawing.Histogram(f, res, hopt)
-		if cerr := f.Close(); err == nil {
-			err = cerr
-		}
-		if err != nil {
+		if err := writeHistogram(*svg, res, model, sd); err != nil {
 			return err
 		}
 		fmt.Fprintf(stdout, "histogram written to %s\n", *svg)
@@ -149,6 +97,87 @@ func run(ctx context.Context, args []string, stdin io.Reader, stdout, progress i
 	fmt.Fprintln(stdout, "These are engineering estimates from idealised models; verify by test, and let the")
 	fmt.Fprintln(stdout, "applicable codes and a qualified engineer decide where hardware or safety depends on them.")
 	return nil
+}
+
+// readDesign reads and parses the design file at path ("-": stdin) and
+// checks that it has tolerances to study.
+func readDesign(path string, stdin io.Reader) (*design.Design, error) {
+	var src []byte
+	var err error
+	if path == "-" {
+		src, err = io.ReadAll(io.LimitReader(stdin, design.MaxSize+1))
+	} else {
+		src, err = os.ReadFile(path)
+	}
+	if err != nil {
+		return nil, err
+	}
+	d, err := design.Parse(src)
+	if err != nil {
+		return nil, err
+	}
+	if len(d.Tolerances) == 0 {
+		return nil, fmt.Errorf("%s: the design has no tolerances to study", path)
+	}
+	return d, nil
+}
+
+// studySize returns the number of samples and the seed of the study: the
+// flags' samples and seed, else the design file's, else 100000 and 1.
+func studySize(d *design.Design, samples int, seed uint64) (n int, sd uint64) {
+	n, sd = samples, seed
+	if d.MonteCarlo != nil {
+		if n == 0 {
+			n = d.MonteCarlo.Samples
+		}
+		if sd == 0 {
+			sd = d.MonteCarlo.Seed
+		}
+	}
+	if n == 0 {
+		n = 100000
+	}
+	if sd == 0 {
+		sd = 1
+	}
+	return n, sd
+}
+
+// report prints the study's result res for the design d to w: lengths in
+// µm, tilts in µrad.
+func report(w io.Writer, d *design.Design, res kinematic.StudyResult, model string, sd uint64) {
+	fmt.Fprintf(w, "%s\n", d.Name)
+	fmt.Fprintf(w, "Monte Carlo tolerance study (interchangeability): %d parts, %s model, seed %d, %d toleranced dimensions\n",
+		res.Samples, model, sd, len(d.Tolerances))
+	fmt.Fprintf(w, "point of interest (%.1f, %.1f, %.1f) mm\n", d.Point.X*1e3, d.Point.Y*1e3, d.Point.Z*1e3)
+	if res.Failed > 0 {
+		fmt.Fprintf(w, "%d parts could not seat and are left out\n", res.Failed)
+	}
+	fmt.Fprintf(w, "%-10s %10s %10s %10s %10s %10s %10s\n", "", "mean", "std dev", "|P50|", "|P95|", "|P99|", "|P99.73|")
+	row := func(name string, s kinematic.Stats, scale float64, unit string) {
+		fmt.Fprintf(w, "%-10s %10.3f %10.3f %10.3f %10.3f %10.3f %10.3f  %s\n", name,
+			s.Mean*scale, s.StdDev*scale, s.P50*scale, s.P95*scale, s.P99*scale, s.P9973*scale, unit)
+	}
+	row("x", res.X, 1e6, "µm")
+	row("y", res.Y, 1e6, "µm")
+	row("z", res.Z, 1e6, "µm")
+	row("radial", res.Radial, 1e6, "µm")
+	row("tilt", res.Tilt, 1e6, "µrad")
+}
+
+// writeHistogram writes the histogram of the error at the point of
+// interest in res to the SVG file at path.
+func writeHistogram(path string, res kinematic.StudyResult, model string, sd uint64) error {
+	hopt := &drawing.Options{Notes: []string{fmt.Sprintf("%d samples, %s model, seed %d", len(res.Points), model, sd)}}
+	f, err := os.Create(path)
+	if err != nil {
+		return err
+	}
+	err = drawing.Histogram(f, res, hopt)
+	if cerr := f.Close(); err == nil {
+		err = cerr
+	}
+	return err
 }
 
 // progressBar draws a bar of the study's progress on one terminal line.

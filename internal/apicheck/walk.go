@@ -277,28 +277,7 @@ func (w *walker) signatureString(sig *types.Signature) string {
 func (w *walker) writeType(b *strings.Builder, t types.Type) {
 	switch t := t.(type) {
 	case *types.Basic:
-		s := t.Name()
-		switch t.Kind() {
-		case types.UnsafePointer:
-			s = "unsafe.Pointer"
-		case types.UntypedBool:
-			s = "ideal-bool"
-		case types.UntypedInt:
-			s = "ideal-int"
-		case types.UntypedRune:
-			s = "ideal-char" // as in $GOROOT/api/go1.txt
-		case types.UntypedFloat:
-			s = "ideal-float"
-		case types.UntypedComplex:
-			s = "ideal-complex"
-		case types.UntypedString:
-			s = "ideal-string"
-		case types.Uint8:
-			s = "uint8"
-		case types.Int32:
-			s = "int32"
-		}
-		b.WriteString(s)
+		b.WriteString(basicName(t))
 	case *types.Array:
 		fmt.Fprintf(b, "[%d]", t.Len())
 		w.writeType(b, t.Elem())
@@ -327,68 +306,111 @@ func (w *walker) writeType(b *strings.Builder, t types.Type) {
 		b.WriteString("func")
 		w.writeSignature(b, t)
 	case *types.Struct:
-		// An unnamed struct: every field, since all of them make its
-		// identity.
-		b.WriteString("struct{")
-		for i := range t.NumFields() {
-			if i > 0 {
-				b.WriteByte(';')
-			}
-			f := t.Field(i)
-			b.WriteByte(' ')
-			if !f.Embedded() {
-				b.WriteString(f.Name())
-				b.WriteByte(' ')
-			}
-			w.writeType(b, f.Type())
-			if i == t.NumFields()-1 {
-				b.WriteByte(' ')
-			}
-		}
-		b.WriteString("}")
+		w.writeStruct(b, t)
 	case *types.Interface:
-		if t.IsImplicit() { // a constraint written as its terms: [T ~int | ~float64]
-			b.WriteString(strings.Join(w.typeTerms(t), " | "))
-			return
-		}
-		var parts []string
-		for i := range t.NumMethods() {
-			m := t.Method(i)
-			parts = append(parts, m.Name()+w.signatureString(m.Signature()))
-		}
-		slices.Sort(parts)
-		parts = append(parts, w.typeTerms(t)...)
-		if len(parts) == 0 {
-			b.WriteString("interface{}")
-			return
-		}
-		b.WriteString("interface{ " + strings.Join(parts, "; ") + " }")
+		w.writeInterface(b, t)
 	case *types.Union:
 		b.WriteString(w.unionString(t))
 	case *types.Alias:
 		w.writeType(b, types.Unalias(t))
 	case *types.Named:
-		obj := t.Obj()
-		if pkg := obj.Pkg(); pkg != nil && pkg != w.pkg {
-			b.WriteString(pkg.Name())
-			b.WriteByte('.')
-		}
-		b.WriteString(obj.Name())
-		if targs := t.TypeArgs(); targs.Len() > 0 {
-			b.WriteByte('[')
-			for i := range targs.Len() {
-				if i > 0 {
-					b.WriteString(", ")
-				}
-				w.writeType(b, targs.At(i))
-			}
-			b.WriteByte(']')
-		}
+		w.writeNamed(b, t)
 	case *types.TypeParam:
 		// Names of type parameters are not API: their positions are.
 		fmt.Fprintf(b, "$%d", t.Index())
 	default:
 		w.fail("unexpected type %T: %v", t, t)
+	}
+}
+
+// basicName returns the name of the basic type t as $GOROOT/api records
+// it: byte and rune as uint8 and int32, untyped constants as ideal-kind.
+func basicName(t *types.Basic) string {
+	switch t.Kind() {
+	case types.UnsafePointer:
+		return "unsafe.Pointer"
+	case types.UntypedBool:
+		return "ideal-bool"
+	case types.UntypedInt:
+		return "ideal-int"
+	case types.UntypedRune:
+		return "ideal-char" // as in $GOROOT/api/go1.txt
+	case types.UntypedFloat:
+		return "ideal-float"
+	case types.UntypedComplex:
+		return "ideal-complex"
+	case types.UntypedString:
+		return "ideal-string"
+	case types.Uint8:
+		return "uint8"
+	case types.Int32:
+		return "int32"
+	}
+	return t.Name()
+}
+
+// writeStruct writes the unnamed struct t with every field, since all of
+// them make its identity.
+func (w *walker) writeStruct(b *strings.Builder, t *types.Struct) {
+	b.WriteString("struct{")
+	for i := range t.NumFields() {
+		if i > 0 {
+			b.WriteByte(';')
+		}
+		f := t.Field(i)
+		b.WriteByte(' ')
+		if !f.Embedded() {
+			b.WriteString(f.Name())
+			b.WriteByte(' ')
+		}
+		w.writeType(b, f.Type())
+		if i == t.NumFields()-1 {
+			b.WriteByte(' ')
+		}
+	}
+	b.WriteString("}")
+}
+
+// writeInterface writes the interface t: its methods sorted, then its
+// type terms; an implicit one (a constraint written as its terms) as the
+// terms alone.
+func (w *walker) writeInterface(b *strings.Builder, t *types.Interface) {
+	if t.IsImplicit() { // a constraint written as its terms: [T ~int | ~float64]
+		b.WriteString(strings.Join(w.typeTerms(t), " | "))
+		return
+	}
+	var parts []string
+	for i := range t.NumMethods() {
+		m := t.Method(i)
+		parts = append(parts, m.Name()+w.signatureString(m.Signature()))
+	}
+	slices.Sort(parts)
+	parts = append(parts, w.typeTerms(t)...)
+	if len(parts) == 0 {
+		b.WriteString("interface{}")
+		return
+	}
+	b.WriteString("interface{ " + strings.Join(parts, "; ") + " }")
+}
+
+// writeNamed writes the named type t, qualified by its package's name
+// when it is not the package walked, with its type arguments.
+func (w *walker) writeNamed(b *strings.Builder, t *types.Named) {
+	obj := t.Obj()
+	if pkg := obj.Pkg(); pkg != nil && pkg != w.pkg {
+		b.WriteString(pkg.Name())
+		b.WriteByte('.')
+	}
+	b.WriteString(obj.Name())
+	if targs := t.TypeArgs(); targs.Len() > 0 {
+		b.WriteByte('[')
+		for i := range targs.Len() {
+			if i > 0 {
+				b.WriteString(", ")
+			}
+			w.writeType(b, targs.At(i))
+		}
+		b.WriteByte(']')
 	}
 }
 

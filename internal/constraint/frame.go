@@ -92,23 +92,57 @@ const farLimit = momentRounding * eps / NearSingularRatio
 //
 // Every scaling is by a power of two, exact.
 func normalise(ws, pre []Wrench, a []float64, exps []int, gain []float64) (frame, error) {
-	n := len(ws)
-	if n == 0 {
+	if len(ws) == 0 {
 		return frame{}, &Error{Index: -1, Err: fmt.Errorf("%w: no wrenches to analyse", errs.ErrDegenerate)}
 	}
+	if err := prescale(ws, pre, exps); err != nil {
+		return frame{}, err
+	}
+	unit, ue, err := lengthUnit(ws, pre, exps)
+	if err != nil {
+		return frame{}, err
+	}
+
+	fr, ok := reference(pre, gain) // gain is free until the columns
+	if !ok {
+		return frame{}, &Error{Index: -1, Err: fmt.Errorf("%w: lines too far from the origin", errs.ErrRange)}
+	}
+	fr.unit, fr.ue = unit, ue
+	if fr.noise > NearSingularRatio {
+		// Beyond the limit of momentRounding: the coordinates do not
+		// carry the precision to tell a near-singular set from a sound
+		// one.
+		return frame{}, &Error{Index: -1, Err: fmt.Errorf(
+			"%w: the lines lie within %.3g m of their reference point but %.3g m from the origin, "+
+				"and their moments about the origin carry rounding of about ε times that distance: "+
+				"too coarse to judge the constraint (size/distance must be at least %.2g); "+
+				"give the wrenches about a point near the lines",
+			errs.ErrRange, fr.length*unit, fr.far*unit, farLimit)}
+	}
+	if err := columns(pre, a, exps, gain, fr.used, ue); err != nil {
+		return frame{}, err
+	}
+	return fr, nil
+}
+
+// prescale validates the non-empty wrenches ws and stores in pre each one
+// scaled by the power of two 2^-exps[i] that brings its largest component
+// into [1, 2). It refuses a set whose magnitudes spread more than
+// maxSpread.
+func prescale(ws, pre []Wrench, exps []int) error {
 	var lo, hi int
 	var mlo, mhi float64
 	for i := range ws {
 		w := &ws[i]
 		if !linalg.Finite3(w.F) {
-			return frame{}, &Error{Index: i, Part: "F", Err: fmt.Errorf("%w: %v", errs.ErrNonFinite, w.F)}
+			return &Error{Index: i, Part: "F", Err: fmt.Errorf("%w: %v", errs.ErrNonFinite, w.F)}
 		}
 		if !linalg.Finite3(w.M) {
-			return frame{}, &Error{Index: i, Part: "M", Err: fmt.Errorf("%w: %v", errs.ErrNonFinite, w.M)}
+			return &Error{Index: i, Part: "M", Err: fmt.Errorf("%w: %v", errs.ErrNonFinite, w.M)}
 		}
 		m := maxAbs(w)
 		if m == 0 {
-			return frame{}, &Error{Index: i, Err: fmt.Errorf("%w: a zero wrench constrains nothing", errs.ErrDegenerate)}
+			return &Error{Index: i, Err: fmt.Errorf("%w: a zero wrench constrains nothing", errs.ErrDegenerate)}
 		}
 		if i == 0 || m < mlo {
 			lo, mlo = i, m
@@ -130,18 +164,24 @@ func normalise(ws, pre []Wrench, a []float64, exps []int, gain []float64) (frame
 		}
 	}
 	if mhi > maxSpread*mlo {
-		return frame{}, &Error{Index: hi, Err: fmt.Errorf(
+		return &Error{Index: hi, Err: fmt.Errorf(
 			"%w: magnitude %g is more than %g times that of wrench %d (%g); only the lines matter, so scale the wrenches",
 			errs.ErrRange, mhi, maxSpread, lo, mlo)}
 	}
+	return nil
+}
 
-	// Lengths in units of a power of two at least the farthest line's
-	// distance from the origin (but no smaller than minUnit), so that
-	// squared distances neither overflow nor underflow at any scale. A
-	// line's wrench (F, M) becomes (F, M/unit) after the scaling above,
-	// applied to the moment as given in one exact step, so that no
-	// intermediate is subnormal; a couple keeps its scaled moment, since
-	// only its direction enters the matrix.
+// lengthUnit returns the unit of length unit = 2^ue for the prescaled
+// wrenches pre of ws and rescales each line's moment in pre to it.
+//
+// Lengths are in units of a power of two at least the farthest line's
+// distance from the origin (but no smaller than minUnit), so that
+// squared distances neither overflow nor underflow at any scale. A
+// line's wrench (F, M) becomes (F, M/unit) after the scaling by
+// 2^-exps[i], applied to the moment as given in one exact step, so that
+// no intermediate is subnormal; a couple keeps its scaled moment, since
+// only its direction enters the matrix.
+func lengthUnit(ws, pre []Wrench, exps []int) (unit float64, ue int, err error) {
 	var far2 float64 // largest squared distance, of lines with a normal |M|²
 	far := minUnit
 	for i := range pre {
@@ -150,7 +190,7 @@ func normalise(ws, pre []Wrench, a []float64, exps []int, gain []float64) (frame
 		}
 		f2 := r3.Norm2(pre[i].F) // |F| ≤ 2√3: no overflow; an underflow is caught below
 		if f2 < minForce*minForce {
-			return frame{}, &Error{Index: i, Err: fmt.Errorf(
+			return 0, 0, &Error{Index: i, Err: fmt.Errorf(
 				"%w: moment more than %g times the force: the line is too far from the origin (a couple has F = 0)", errs.ErrRange, 1/minForce)}
 		}
 		// Squared distances where |M|² is safely normal (the common
@@ -166,33 +206,21 @@ func normalise(ws, pre []Wrench, a []float64, exps []int, gain []float64) (frame
 	if d := math.Sqrt(far2); d > far {
 		far = d
 	}
-	ue := exponent(far) + 1 // unit = 2^ue > far
-	unit := math.Ldexp(1, ue)
+	ue = exponent(far) + 1 // unit = 2^ue > far
+	unit = math.Ldexp(1, ue)
 	for i := range pre {
 		if pre[i].F != (r3.Vec{}) {
 			pre[i].M = scaleVec(ws[i].M, -exps[i]-ue)
 		}
 	}
+	return unit, ue, nil
+}
 
-	fr, ok := reference(pre, gain) // gain is free until the columns
-	if !ok {
-		return frame{}, &Error{Index: -1, Err: fmt.Errorf("%w: lines too far from the origin", errs.ErrRange)}
-	}
-	fr.unit, fr.ue = unit, ue
-	if fr.noise > NearSingularRatio {
-		// Beyond the limit of momentRounding: the coordinates do not
-		// carry the precision to tell a near-singular set from a sound
-		// one.
-		return frame{}, &Error{Index: -1, Err: fmt.Errorf(
-			"%w: the lines lie within %.3g m of their reference point but %.3g m from the origin, "+
-				"and their moments about the origin carry rounding of about ε times that distance: "+
-				"too coarse to judge the constraint (size/distance must be at least %.2g); "+
-				"give the wrenches about a point near the lines",
-			errs.ErrRange, fr.length*unit, fr.far*unit, farLimit)}
-	}
-
-	// Normalised columns: (F, (M − c×F)/used), the moments about c being
-	// in pre already, scaled to unit norm.
+// columns fills the 6×n column-major a with the normalised columns of
+// the wrenches pre, whose moments are about the reference point already:
+// (F, (M − c×F)/used), scaled to unit norm, with the norm in gain[i]. A
+// couple's unit exponent ue joins exps[i].
+func columns(pre []Wrench, a []float64, exps []int, gain []float64, used float64, ue int) error {
 	for i := range pre {
 		w := &pre[i]
 		col := (*[6]float64)(a[6*i : 6*i+6])
@@ -205,10 +233,10 @@ func normalise(ws, pre []Wrench, a []float64, exps []int, gain []float64) (frame
 			col[0], col[1], col[2] = 0, 0, 0
 			col[3], col[4], col[5] = w.M.X*r, w.M.Y*r, w.M.Z*r
 			exps[i] -= ue
-			gain[i] = norm / fr.used
+			gain[i] = norm / used
 			continue
 		}
-		s := 1 / fr.used
+		s := 1 / used
 		col[0], col[1], col[2] = w.F.X, w.F.Y, w.F.Z
 		col[3], col[4], col[5] = w.M.X*s, w.M.Y*s, w.M.Z*s
 		// |F| is in [minForce, 2√3] and each |M − c×F|/used is at most √n
@@ -216,7 +244,7 @@ func normalise(ws, pre []Wrench, a []float64, exps []int, gain []float64) (frame
 		// neither overflow nor underflow.
 		norm := math.Sqrt(dot6(col, col))
 		if !linalg.Finite(norm) {
-			return frame{}, &Error{Index: i, Err: fmt.Errorf("%w: cannot normalise the wrench", errs.ErrRange)}
+			return &Error{Index: i, Err: fmt.Errorf("%w: cannot normalise the wrench", errs.ErrRange)}
 		}
 		r := 1 / norm
 		for j := range col {
@@ -224,7 +252,7 @@ func normalise(ws, pre []Wrench, a []float64, exps []int, gain []float64) (frame
 		}
 		gain[i] = norm
 	}
-	return fr, nil
+	return nil
 }
 
 // reference sets the reference point, the characteristic length, the

@@ -120,31 +120,9 @@ func (m HeatMap) WriteSVG(w io.Writer) error {
 	px := func(q Point) (float64, float64) { return (q.X - r.x0) * k, (r.y1 - q.Y) * k }
 
 	var s scene
-	infLabel := m.InfLabel
-	if infLabel == "" {
-		infLabel = "never"
-	}
 	s.defs = append(s.defs, `<pattern id="never" width="6" height="6" patternUnits="userSpaceOnUse"><rect x="0" y="0" width="6" height="6" fill="#f1f1f1"/><path d="M0 6L6 0M-1 1L1 -1M5 7L7 5" stroke="#8f8f8f" stroke-width="1.2"/></pattern>`)
 	lo, hi := m.Scale.resolve(g.Values)
-	hasInf, hasFinite := false, false
-	for j := range g.NY {
-		for i := range g.NX {
-			v := g.Values[j*g.NX+i]
-			if math.IsNaN(v) {
-				continue
-			}
-			x, y := px(Point{g.X0 + float64(i)*g.DX, g.Y0 + float64(j+1)*g.DY})
-			cw, ch := g.DX*k, g.DY*k
-			if math.IsInf(v, 1) {
-				hasInf = true
-				s.add(rect{x, y, cw, ch, "cell-never", `fill="url(#never)" stroke="none" shape-rendering="crispEdges"`})
-				continue
-			}
-			hasFinite = true
-			c := colour(fraction(v, lo, hi))
-			s.add(rect{x, y, cw, ch, "cell", `fill="` + c + `" stroke="` + c + `" stroke-width="0.3" shape-rendering="crispEdges"`})
-		}
-	}
+	hasInf, hasFinite := m.cells(&s, px, k, lo, hi)
 	if len(m.Outline) > 0 {
 		xy := make([]float64, 0, 2*len(m.Outline))
 		for _, q := range m.Outline {
@@ -177,7 +155,51 @@ func (m HeatMap) WriteSVG(w io.Writer) error {
 	for _, q := range mks {
 		s.label(q.label, q.x, q.y, markerSize*1.3+3, fontSize, "marker-label", inkColour)
 	}
-	// Legend at the right.
+	m.legend(&s, lo, hi, hasFinite, hasInf)
+	// Notes under, title above.
+	ext := s.extent()
+	ny := ext.y1 + 4
+	for _, n := range m.Notes {
+		ny += noteSize * 1.4
+		s.add(text{ext.x0, ny, noteSize, "start", "note", `fill="` + mutedColour + `"`, n})
+	}
+	if m.Title != "" {
+		s.add(text{ext.x0, ext.y0 - 12, titleSize, "start", "title", `font-weight="bold" fill="` + inkColour + `"`, m.Title})
+	}
+	return s.finish(w, m.Title)
+}
+
+// cells draws the grid's cells into s, px placing a point and k px per
+// metre, coloured on the scale from lo to hi; a NaN cell is left empty
+// and a +Inf one hatched. It reports whether there were hatched cells
+// and coloured ones.
+func (m HeatMap) cells(s *scene, px func(Point) (float64, float64), k, lo, hi float64) (hasInf, hasFinite bool) {
+	g := m.Grid
+	for j := range g.NY {
+		for i := range g.NX {
+			v := g.Values[j*g.NX+i]
+			if math.IsNaN(v) {
+				continue
+			}
+			x, y := px(Point{g.X0 + float64(i)*g.DX, g.Y0 + float64(j+1)*g.DY})
+			cw, ch := g.DX*k, g.DY*k
+			if math.IsInf(v, 1) {
+				hasInf = true
+				s.add(rect{x, y, cw, ch, "cell-never", `fill="url(#never)" stroke="none" shape-rendering="crispEdges"`})
+				continue
+			}
+			hasFinite = true
+			c := colour(fraction(v, lo, hi))
+			s.add(rect{x, y, cw, ch, "cell", `fill="` + c + `" stroke="` + c + `" stroke-width="0.3" shape-rendering="crispEdges"`})
+		}
+	}
+	return hasInf, hasFinite
+}
+
+// legend draws the legend at the right of s: the colour bar from lo to
+// hi if there are coloured cells, the hatching if there are hatched
+// ones, and the markers.
+func (m HeatMap) legend(s *scene, lo, hi float64, hasFinite, hasInf bool) {
 	ext := s.extent()
 	lx := ext.x1 + 24
 	ly := 0.0
@@ -185,6 +207,10 @@ func (m HeatMap) WriteSVG(w io.Writer) error {
 		ly = s.colourBar(lx, 0, lo, hi, m.Scale.Name, m.Scale.Unit).y1 + 16
 	}
 	if hasInf {
+		infLabel := m.InfLabel
+		if infLabel == "" {
+			infLabel = "never"
+		}
 		s.add(rect{lx, ly, barWidth, barWidth, "legend-never", `fill="url(#never)" stroke="#444444" stroke-width="0.8"`},
 			text{lx + barWidth + 7, ly + barWidth/2 + 0.35*fontSize, fontSize, "start", "legend", `fill="` + inkColour + `"`, infLabel})
 		ly += keyRow
@@ -199,15 +225,4 @@ func (m HeatMap) WriteSVG(w io.Writer) error {
 		s.keyText(lx, y, fmt.Sprintf("%s (%s, %s) mm", label, sig(q.At.X*1e3), sig(q.At.Y*1e3)))
 		ly += keyRow
 	}
-	// Notes under, title above.
-	ext = s.extent()
-	ny := ext.y1 + 4
-	for _, n := range m.Notes {
-		ny += noteSize * 1.4
-		s.add(text{ext.x0, ny, noteSize, "start", "note", `fill="` + mutedColour + `"`, n})
-	}
-	if m.Title != "" {
-		s.add(text{ext.x0, ext.y0 - 12, titleSize, "start", "title", `font-weight="bold" fill="` + inkColour + `"`, m.Title})
-	}
-	return s.finish(w, m.Title)
 }

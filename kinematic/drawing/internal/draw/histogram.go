@@ -102,27 +102,8 @@ func (h Histogram) WriteSVG(w io.Writer) error {
 	}
 	xs := slices.Clone(h.Samples)
 	slices.Sort(xs)
-	lo, hi := xs[0], xs[len(xs)-1]
-	if hi == lo {
-		// One value: a single bin a tenth of its size wide (or 1 around 0).
-		d := 0.05 * math.Abs(lo)
-		if d == 0 {
-			d = 0.5
-		}
-		lo, hi = lo-d, hi+d
-	}
-	nb := h.Bins
-	if nb == 0 {
-		nb = binCount(xs, hi-lo)
-		if xs[0] == xs[len(xs)-1] {
-			nb = 1
-		}
-	}
-	counts := make([]int, nb)
-	for _, v := range xs {
-		b := int(float64(nb) * (v - lo) / (hi - lo))
-		counts[min(max(b, 0), nb-1)]++
-	}
+	lo, hi, counts := h.bin(xs)
+	nb := len(counts)
 	top := slices.Max(counts)
 	ymax := float64(top) * (1 + headroom)
 	ystep := math.Max(1, niceStep(ymax, 5))
@@ -153,22 +134,75 @@ func (h Histogram) WriteSVG(w io.Writer) error {
 	if ps == nil {
 		ps = DefaultPercentiles
 	}
-	// Percentile labels to the right of their lines, in a staircase:
-	// from the rightmost line leftwards, each label takes the lowest level
-	// where it is clear of the labels placed, above every level whose line
-	// it would reach across; each line runs up to its label. So no line
-	// crosses a label and no label needs a leader.
-	type mark struct {
-		x     float64
-		label string
-		level int
-		b     box
-	}
-	marks := make([]mark, len(ps))
+	marks := make([]percentileMark, len(ps))
 	for i, p := range ps {
 		v := percentile(xs, p)
-		marks[i] = mark{x: px(v), label: percentName(p) + " = " + withUnit(sig(v), h.Unit)}
+		marks[i] = percentileMark{x: px(v), label: percentName(p) + " = " + withUnit(sig(v), h.Unit)}
 	}
+	s.percentiles(marks)
+	ext := s.extent()
+	ny := ext.y1 + 4
+	bins := "bins"
+	if nb == 1 {
+		bins = "bin"
+	}
+	notes := append([]string{fmt.Sprintf("%d samples in %d %s; percentiles by linear interpolation of the order statistics.", len(xs), nb, bins)}, h.Notes...)
+	for _, n := range notes {
+		ny += noteSize * 1.4
+		s.add(text{ext.x0, ny, noteSize, "start", "note", `fill="` + mutedColour + `"`, n})
+	}
+	if h.Title != "" {
+		s.add(text{ext.x0, ext.y0 - 12, titleSize, "start", "title", `font-weight="bold" fill="` + inkColour + `"`, h.Title})
+	}
+	return s.finish(w, h.Title)
+}
+
+// bin returns the span [lo, hi] of the bins and the count of the sorted
+// samples xs in each: h.Bins of them, or binCount's number (one when all
+// the samples are equal).
+func (h Histogram) bin(xs []float64) (lo, hi float64, counts []int) {
+	lo, hi = xs[0], xs[len(xs)-1]
+	if hi == lo {
+		// One value: a single bin a tenth of its size wide (or 1 around 0).
+		d := 0.05 * math.Abs(lo)
+		if d == 0 {
+			d = 0.5
+		}
+		lo, hi = lo-d, hi+d
+	}
+	nb := h.Bins
+	if nb == 0 {
+		nb = binCount(xs, hi-lo)
+		if xs[0] == xs[len(xs)-1] {
+			nb = 1
+		}
+	}
+	counts = make([]int, nb)
+	for _, v := range xs {
+		b := int(float64(nb) * (v - lo) / (hi - lo))
+		counts[min(max(b, 0), nb-1)]++
+	}
+	return lo, hi, counts
+}
+
+// percentileMark is a percentile's vertical line at x, px, and its label,
+// placed at a level of the staircase in box b.
+type percentileMark struct {
+	x     float64
+	label string
+	level int
+	b     box
+}
+
+// percentiles places the labels of the marks and draws them with their
+// lines.
+//
+// Percentile labels go to the right of their lines, in a staircase:
+// from the rightmost line leftwards, each label takes the lowest level
+// where it is clear of the labels placed, above every level whose line
+// it would reach across; each line runs up to its label. So no line
+// crosses a label and no label needs a leader.
+func (s *scene) percentiles(marks []percentileMark) {
 	order := make([]int, len(marks))
 	for i := range order {
 		order[i] = i
@@ -209,19 +243,4 @@ func (h Histogram) WriteSVG(w io.Writer) error {
 			rect{m.b.x0, m.b.y0, m.b.w(), m.b.h(), "halo", `fill="#ffffff" fill-opacity="0.85" stroke="none"`},
 			text{m.b.x0 + 2, m.b.y1 - 1 - descent*fontSize, fontSize, "start", "percentile-label", `fill="#8f3a10"`, m.label})
 	}
-	ext := s.extent()
-	ny := ext.y1 + 4
-	bins := "bins"
-	if nb == 1 {
-		bins = "bin"
-	}
-	notes := append([]string{fmt.Sprintf("%d samples in %d %s; percentiles by linear interpolation of the order statistics.", len(xs), nb, bins)}, h.Notes...)
-	for _, n := range notes {
-		ny += noteSize * 1.4
-		s.add(text{ext.x0, ny, noteSize, "start", "note", `fill="` + mutedColour + `"`, n})
-	}
-	if h.Title != "" {
-		s.add(text{ext.x0, ext.y0 - 12, titleSize, "start", "title", `font-weight="bold" fill="` + inkColour + `"`, h.Title})
-	}
-	return s.finish(w, h.Title)
 }

@@ -208,8 +208,37 @@ func (p Plan) WriteSVG(w io.Writer) error {
 	if err := p.validate(); err != nil {
 		return err
 	}
+	r, near := p.region()
+	if !r.ok() {
+		return &InputError{Field: "Plan", Err: fmt.Errorf("%w: nothing to draw (no outline, seat, ball, value or marker)", ErrDegenerate)}
+	}
+	if err := r.check("Plan"); err != nil {
+		return err
+	}
+	d := newPlanDrawing(r)
+	d.outlines(p)
+	d.lines(p.Grooves, "groove", grooveStyle, "#2b5d8a", "groove axis")
+	d.lines(p.PairAxes, "pair-axis", axisStyle, axisColour, "pair axis")
+	d.bodies(p)
+	lo, hi := d.values(p)
+	d.markers(p, near)
+	d.labels(p)
+	d.legend(p, lo, hi)
+	d.footer(p)
+	// Title above everything.
+	ext := d.s.extent()
+	if p.Title != "" {
+		d.s.add(text{ext.x0, ext.y0 - 12, titleSize, "start", "title", `font-weight="bold" fill="` + inkColour + `"`, p.Title})
+	}
+	return d.s.finish(w, p.Title)
+}
+
+// region returns the extent of the plan's geometry and its markers,
+// and which markers are near enough to it to be drawn in the view
+// (the others get an arrow on the edge of the view).
+func (p Plan) region() (r region, near []bool) {
 	// The geometry's extent, without the markers.
-	r := emptyRegion()
+	r = emptyRegion()
 	for _, q := range p.Outline {
 		r = r.add(q, 0)
 	}
@@ -228,7 +257,7 @@ func (p Plan) WriteSVG(w io.Writer) error {
 		r = r.add(v.At, 0)
 	}
 	base := r
-	near := make([]bool, len(p.Markers))
+	near = make([]bool, len(p.Markers))
 	for i, m := range p.Markers {
 		if base.ok() {
 			cx, cy := (base.x0+base.x1)/2, (base.y0+base.y1)/2
@@ -240,173 +269,220 @@ func (p Plan) WriteSVG(w io.Writer) error {
 		near[i] = true
 		r = r.add(m.At, 0)
 	}
-	if !r.ok() {
-		return &InputError{Field: "Plan", Err: fmt.Errorf("%w: nothing to draw (no outline, seat, ball, value or marker)", ErrDegenerate)}
-	}
-	if err := r.check("Plan"); err != nil {
-		return err
-	}
+	return r, near
+}
+
+// planDrawing is a plan view being drawn: the scene, the mapping from
+// the plan to it, and what is gathered on the way to be drawn later.
+type planDrawing struct {
+	s     scene
+	notes []string
+	view  region  // the plan's region in view, m
+	k     float64 // px per metre
+	vb    box     // the view in px
+
+	lineLabels []lineLabel
+	rings      []ring // lines normal to the plan, drawn over the balls
+	mks        []planMark
+}
+
+// lineLabel is a line's label, placed after the bodies are drawn.
+type lineLabel struct {
+	text, colour string
+	x, y, clear  float64
+}
+
+// ring is a line normal to the plan, drawn as a ring over the balls.
+type ring struct {
+	x, y          float64
+	class, colour string
+}
+
+// planMark is a marker's label and where it goes, in px.
+type planMark struct {
+	x, y  float64
+	label string
+}
+
+// newPlanDrawing returns a drawing whose view is the region r grown by
+// the lines' reach.
+func newPlanDrawing(r region) *planDrawing {
 	size := math.Max(r.x1-r.x0, r.y1-r.y0)
 	// View: the region grown by the lines' reach; px per metre.
 	reach := lineReach * size
 	view := region{r.x0 - reach, r.y0 - reach, r.x1 + reach, r.y1 + reach}
 	k := planSize / size
-	px := func(q Point) (float64, float64) { return (q.X - view.x0) * k, (view.y1 - q.Y) * k }
-	vb := box{0, 0, (view.x1 - view.x0) * k, (view.y1 - view.y0) * k}
+	return &planDrawing{view: view, k: k, vb: box{0, 0, (view.x1 - view.x0) * k, (view.y1 - view.y0) * k}}
+}
 
-	var s scene
-	var notes []string
-	// Outline and seats.
-	polygon := func(pts []Point, class, style string) {
-		xy := make([]float64, 0, 2*len(pts))
-		for _, q := range pts {
-			x, y := px(q)
-			xy = append(xy, x, y)
-		}
-		s.add(poly{xy, true, class, style})
-		for i := range pts {
-			j := (i + 1) % len(pts)
-			s.place.segs = append(s.place.segs, seg{xy[2*i], xy[2*i+1], xy[2*j], xy[2*j+1], 1})
-		}
+// px returns the position of the plan point q in px.
+func (d *planDrawing) px(q Point) (float64, float64) {
+	return (q.X - d.view.x0) * d.k, (d.view.y1 - q.Y) * d.k
+}
+
+// polygon draws the closed polygon pts as an obstacle for labels.
+func (d *planDrawing) polygon(pts []Point, class, style string) {
+	xy := make([]float64, 0, 2*len(pts))
+	for _, q := range pts {
+		x, y := d.px(q)
+		xy = append(xy, x, y)
 	}
+	d.s.add(poly{xy, true, class, style})
+	for i := range pts {
+		j := (i + 1) % len(pts)
+		d.s.place.segs = append(d.s.place.segs, seg{xy[2*i], xy[2*i+1], xy[2*j], xy[2*j+1], 1})
+	}
+}
+
+// outlines draws the outline and the seats' outlines.
+func (d *planDrawing) outlines(p Plan) {
 	if len(p.Outline) > 0 {
-		polygon(p.Outline, "outline", outlineStyle)
+		d.polygon(p.Outline, "outline", outlineStyle)
 	}
 	for _, st := range p.Seats {
 		if len(st.Outline) > 0 {
-			polygon(st.Outline, "seat", seatStyle)
+			d.polygon(st.Outline, "seat", seatStyle)
 		}
 	}
-	// Lines, trimmed to the view.
-	type lineLabel struct {
-		text, colour string
-		x, y, clear  float64
-	}
-	var lineLabels []lineLabel
-	type ring struct {
-		x, y          float64
-		class, colour string
-	}
-	var rings []ring // lines normal to the plan, drawn over the balls
-	drawLines := func(ls []Line, class, style, colour, what string) {
-		for _, l := range ls {
-			x, y := px(l.Through)
-			if l.Direction == (Point{}) {
-				rings = append(rings, ring{x, y, class, colour})
-				s.place.discs = append(s.place.discs, disc{x, y, 6})
-				if l.Label != "" {
-					lineLabels = append(lineLabels, lineLabel{l.Label, colour, x, y, 6 + labelGap})
-				}
-				continue
-			}
-			// Two points far beyond the view on either side (its diagonal
-			// from Through), then clipped to it.
-			d := math.Hypot(l.Direction.X, l.Direction.Y)
-			span := 2 * (math.Hypot(view.x1-view.x0, view.y1-view.y0) + math.Hypot(l.Through.X-(view.x0+view.x1)/2, l.Through.Y-(view.y0+view.y1)/2))
-			a := Point{l.Through.X - span*l.Direction.X/d, l.Through.Y - span*l.Direction.Y/d}
-			b := Point{l.Through.X + span*l.Direction.X/d, l.Through.Y + span*l.Direction.Y/d}
-			ax, ay := px(a)
-			bx, by := px(b)
-			x1, y1, x2, y2, ok := clipSeg(ax, ay, bx, by, vb)
-			if !ok || math.Hypot(x2-x1, y2-y1) < 1 {
-				name := l.Label
-				if name == "" {
-					name = "unnamed"
-				}
-				notes = append(notes, fmt.Sprintf("%s %s passes outside the view.", what, name))
-				continue
-			}
-			s.add(line{x1, y1, x2, y2, class, style})
-			s.place.segs = append(s.place.segs, seg{x1, y1, x2, y2, 1.5})
+}
+
+// lines draws the lines ls trimmed to the view; a line normal to the
+// plan becomes a ring, drawn later over the balls, and a line outside
+// the view a note naming it as what.
+func (d *planDrawing) lines(ls []Line, class, style, colour, what string) {
+	view := d.view
+	for _, l := range ls {
+		x, y := d.px(l.Through)
+		if l.Direction == (Point{}) {
+			d.rings = append(d.rings, ring{x, y, class, colour})
+			d.s.place.discs = append(d.s.place.discs, disc{x, y, 6})
 			if l.Label != "" {
-				// Anchor near the end the line leaves the view by, right or up.
-				ex, ey := x2, y2
-				if x1 > x2 || (x1 == x2 && y1 < y2) {
-					ex, ey = x1, y1
-				}
-				f := 0.06
-				lineLabels = append(lineLabels, lineLabel{l.Label, colour, ex + f*(x1+x2-2*ex), ey + f*(y1+y2-2*ey), 4})
+				d.lineLabels = append(d.lineLabels, lineLabel{l.Label, colour, x, y, 6 + labelGap})
 			}
+			continue
+		}
+		// Two points far beyond the view on either side (its diagonal
+		// from Through), then clipped to it.
+		dl := math.Hypot(l.Direction.X, l.Direction.Y)
+		span := 2 * (math.Hypot(view.x1-view.x0, view.y1-view.y0) + math.Hypot(l.Through.X-(view.x0+view.x1)/2, l.Through.Y-(view.y0+view.y1)/2))
+		a := Point{l.Through.X - span*l.Direction.X/dl, l.Through.Y - span*l.Direction.Y/dl}
+		b := Point{l.Through.X + span*l.Direction.X/dl, l.Through.Y + span*l.Direction.Y/dl}
+		ax, ay := d.px(a)
+		bx, by := d.px(b)
+		x1, y1, x2, y2, ok := clipSeg(ax, ay, bx, by, d.vb)
+		if !ok || math.Hypot(x2-x1, y2-y1) < 1 {
+			name := l.Label
+			if name == "" {
+				name = "unnamed"
+			}
+			d.notes = append(d.notes, fmt.Sprintf("%s %s passes outside the view.", what, name))
+			continue
+		}
+		d.s.add(line{x1, y1, x2, y2, class, style})
+		d.s.place.segs = append(d.s.place.segs, seg{x1, y1, x2, y2, 1.5})
+		if l.Label != "" {
+			// Anchor near the end the line leaves the view by, right or up.
+			ex, ey := x2, y2
+			if x1 > x2 || (x1 == x2 && y1 < y2) {
+				ex, ey = x1, y1
+			}
+			f := 0.06
+			d.lineLabels = append(d.lineLabels, lineLabel{l.Label, colour, ex + f*(x1+x2-2*ex), ey + f*(y1+y2-2*ey), 4})
 		}
 	}
-	drawLines(p.Grooves, "groove", grooveStyle, "#2b5d8a", "groove axis")
-	drawLines(p.PairAxes, "pair-axis", axisStyle, axisColour, "pair axis")
-	// Flanks, balls, value dots.
+}
+
+// bodies draws the seats' flanks, the balls and, over them, the rings.
+func (d *planDrawing) bodies(p Plan) {
 	for _, st := range p.Seats {
 		for _, f := range st.Flanks {
-			x1, y1 := px(f.A)
-			x2, y2 := px(f.B)
-			s.add(line{x1, y1, x2, y2, "flank", flankStyle})
-			s.place.segs = append(s.place.segs, seg{x1, y1, x2, y2, 1.5})
+			x1, y1 := d.px(f.A)
+			x2, y2 := d.px(f.B)
+			d.s.add(line{x1, y1, x2, y2, "flank", flankStyle})
+			d.s.place.segs = append(d.s.place.segs, seg{x1, y1, x2, y2, 1.5})
 		}
 	}
 	for _, b := range p.Balls {
-		x, y := px(b.Centre)
-		s.add(circle{x, y, b.Radius * k, "ball", ballStyle})
-		s.place.discs = append(s.place.discs, disc{x, y, b.Radius*k + 1})
+		x, y := d.px(b.Centre)
+		d.s.add(circle{x, y, b.Radius * d.k, "ball", ballStyle})
+		d.s.place.discs = append(d.s.place.discs, disc{x, y, b.Radius*d.k + 1})
 	}
-	for _, r := range rings {
-		s.add(circle{r.x, r.y, 5, r.class, `fill="#ffffff" stroke="` + r.colour + `" stroke-width="1.4"`},
+	for _, r := range d.rings {
+		d.s.add(circle{r.x, r.y, 5, r.class, `fill="#ffffff" stroke="` + r.colour + `" stroke-width="1.4"`},
 			circle{r.x, r.y, 1.5, r.class + "-detail", `fill="` + r.colour + `"`})
 	}
+}
+
+// values draws the value dots and returns the ends of their colour
+// scale.
+func (d *planDrawing) values(p Plan) (lo, hi float64) {
 	vals := make([]float64, len(p.Values))
 	for i, v := range p.Values {
 		vals[i] = v.Value
 	}
-	lo, hi := p.Scale.resolve(vals)
+	lo, hi = p.Scale.resolve(vals)
 	for _, v := range p.Values {
-		x, y := px(v.At)
-		s.add(circle{x, y, dotRadius, "value", `fill="` + colour(fraction(v.Value, lo, hi)) + `" stroke="#1d1d1d" stroke-width="0.8"`})
-		s.place.discs = append(s.place.discs, disc{x, y, dotRadius + 1.5})
+		x, y := d.px(v.At)
+		d.s.add(circle{x, y, dotRadius, "value", `fill="` + colour(fraction(v.Value, lo, hi)) + `" stroke="#1d1d1d" stroke-width="0.8"`})
+		d.s.place.discs = append(d.s.place.discs, disc{x, y, dotRadius + 1.5})
 	}
-	// Markers: in view, or an arrow on the edge of the view towards them.
-	type mk struct {
-		x, y  float64
-		label string
-	}
-	var mks []mk
-	cx, cy := px(Point{(view.x0 + view.x1) / 2, (view.y0 + view.y1) / 2})
+	return lo, hi
+}
+
+// markers draws the markers in view (near), and for the others an arrow
+// on the edge of the view towards them.
+func (d *planDrawing) markers(p Plan, near []bool) {
+	view := d.view
+	cx, cy := d.px(Point{(view.x0 + view.x1) / 2, (view.y0 + view.y1) / 2})
 	for i, m := range p.Markers {
 		label := m.Label
 		if label == "" {
 			label = m.Kind.name()
 		}
-		x, y := px(m.At)
+		x, y := d.px(m.At)
 		if !near[i] {
 			// Where the ray from the view's centre towards the marker leaves the view.
-			_, _, x2, y2, _ := clipSeg(cx, cy, x, y, vb.grow(-markerSize*1.5))
+			_, _, x2, y2, _ := clipSeg(cx, cy, x, y, d.vb.grow(-markerSize*1.5))
 			th := math.Atan2(y-cy, x-cx)
-			s.place.boxes = append(s.place.boxes, s.arrow(x2, y2, th, m.Kind.colour()))
-			mks = append(mks, mk{x2, y2, label + " (off plan)"})
+			d.s.place.boxes = append(d.s.place.boxes, d.s.arrow(x2, y2, th, m.Kind.colour()))
+			d.mks = append(d.mks, planMark{x2, y2, label + " (off plan)"})
 			continue
 		}
-		s.place.boxes = append(s.place.boxes, s.marker(m.Kind, x, y))
-		mks = append(mks, mk{x, y, label})
+		d.s.place.boxes = append(d.s.place.boxes, d.s.marker(m.Kind, x, y))
+		d.mks = append(d.mks, planMark{x, y, label})
 	}
-	// Labels, the most important first.
+}
+
+// labels places the labels, the most important first.
+func (d *planDrawing) labels(p Plan) {
 	for _, b := range p.Balls {
 		if b.Name != "" {
-			x, y := px(b.Centre)
-			s.label(b.Name, x, y, b.Radius*k+3, fontSize+1, "ball-label", inkColour)
+			x, y := d.px(b.Centre)
+			d.s.label(b.Name, x, y, b.Radius*d.k+3, fontSize+1, "ball-label", inkColour)
 		}
 	}
-	for _, m := range mks {
-		s.label(m.label, m.x, m.y, markerSize*1.3+3, fontSize, "marker-label", inkColour)
+	for _, m := range d.mks {
+		d.s.label(m.label, m.x, m.y, markerSize*1.3+3, fontSize, "marker-label", inkColour)
 	}
 	for _, v := range p.Values {
-		x, y := px(v.At)
+		x, y := d.px(v.At)
 		t := withUnit(sig(v.Value), p.Scale.Unit)
 		if v.Label != "" {
 			t = v.Label + ": " + t
 		}
-		s.label(t, x, y, dotRadius+3, fontSize, "value-label", inkColour)
+		d.s.label(t, x, y, dotRadius+3, fontSize, "value-label", inkColour)
 	}
-	for _, l := range lineLabels {
-		s.label(l.text, l.x, l.y, l.clear, fontSize, "line-label", l.colour)
+	for _, l := range d.lineLabels {
+		d.s.label(l.text, l.x, l.y, l.clear, fontSize, "line-label", l.colour)
 	}
+}
 
-	// Legend to the right of everything drawn so far.
-	ext := s.extent().union(vb)
+// legend draws the legend to the right of everything drawn so far: the
+// colour bar from lo to hi if there are values, then a key row for each
+// kind of thing drawn.
+func (d *planDrawing) legend(p Plan, lo, hi float64) {
+	s := &d.s
+	ext := s.extent().union(d.vb)
 	lx, ly := ext.x1+24, ext.y0
 	if len(p.Values) > 0 {
 		ly = s.colourBar(lx, ly, lo, hi, p.Scale.Name, p.Scale.Unit).y1 + 16
@@ -439,28 +515,26 @@ func (p Plan) WriteSVG(w io.Writer) error {
 		}
 		row(fmt.Sprintf("%s (%s, %s) mm", label, sig(m.At.X*1e3), sig(m.At.Y*1e3)), func(x, y float64) { s.marker(m.Kind, x, y) })
 	}
+}
 
-	// Scale bar under everything, at the left.
-	ext = s.extent()
-	mm := roundBelow(0.25 * (view.x1 - view.x0) * 1e3)
-	L := mm * 1e-3 * k
-	sx, sy := vb.x0, ext.y1+18
+// footer draws the scale bar under everything, at the left, and the
+// notes under it.
+func (d *planDrawing) footer(p Plan) {
+	s := &d.s
+	ext := s.extent()
+	mm := roundBelow(0.25 * (d.view.x1 - d.view.x0) * 1e3)
+	L := mm * 1e-3 * d.k
+	sx, sy := d.vb.x0, ext.y1+18
 	s.add(line{sx, sy, sx + L, sy, "scale-bar", `stroke="` + inkColour + `" stroke-width="2"`},
 		line{sx, sy - 5, sx, sy + 5, "scale-bar", `stroke="` + inkColour + `" stroke-width="1.5"`},
 		line{sx + L/2, sy - 3, sx + L/2, sy + 3, "scale-bar", `stroke="` + inkColour + `" stroke-width="1"`},
 		line{sx + L, sy - 5, sx + L, sy + 5, "scale-bar", `stroke="` + inkColour + `" stroke-width="1.5"`},
 		text{sx + L + 8, sy + 0.35*fontSize, fontSize, "start", "scale-bar", `fill="` + inkColour + `"`, tickText(mm, mm) + " mm"})
 	ny := sy + 12
-	for _, n := range append(append([]string{"Plan view, x right, y up; millimetres."}, notes...), p.Notes...) {
+	for _, n := range append(append([]string{"Plan view, x right, y up; millimetres."}, d.notes...), p.Notes...) {
 		ny += noteSize * 1.4
 		s.add(text{sx, ny, noteSize, "start", "note", `fill="` + mutedColour + `"`, n})
 	}
-	// Title above everything.
-	ext = s.extent()
-	if p.Title != "" {
-		s.add(text{ext.x0, ext.y0 - 12, titleSize, "start", "title", `font-weight="bold" fill="` + inkColour + `"`, p.Title})
-	}
-	return s.finish(w, p.Title)
 }
 
 func hasOutline(ss []Seat) bool {
