@@ -112,7 +112,7 @@
 //
 //   - [Statics]: a Hertz model (materials on both bodies, a point contact)
 //     at every compressed contact, else an error naming "cs[i]..."; an
-//     allowable on file for [ContactLoad.PressureRatio], else Allowable and
+//     allowable on file for both bodies for [ContactLoad.PressureRatio], else Allowable and
 //     PressureRatio are both 0 (Allowable 0 is the marker). A contact in
 //     tension is a result: it is listed in Tensile, with the input that
 //     pulls it in [ContactLoad.PulledBy] ("preloads[0]").

@@ -229,14 +229,10 @@ func newContactLaw(c *Contact, i int) contactLaw {
 	}
 	s.pair = pair
 	s.k = f / (d * math.Sqrt(d))
-	a1, a2 := c.Moving.Material.Allowable, c.Base.Material.Allowable
-	switch {
-	case a1 > 0 && a2 > 0:
+	// A contact is judged only when both bodies have an allowable on file:
+	// a steel ball's figure says nothing of the sapphire flat it presses.
+	if a1, a2 := c.Moving.Material.Allowable, c.Base.Material.Allowable; a1 > 0 && a2 > 0 {
 		s.allow = math.Min(a1, a2)
-	case a1 > 0:
-		s.allow = a1
-	default:
-		s.allow = a2
 	}
 	return s
 }

@@ -25,8 +25,10 @@ type ContactLoad struct {
 	Hertz hertz.Contact
 
 	// Allowable is the allowable peak contact pressure in Pa, the smaller
-	// of the two bodies' Material.Allowable values that are set; 0 means
-	// no allowable on file, and PressureRatio is then 0 too.
+	// of the two bodies' Material.Allowable values; 0 means that at least
+	// one body has no allowable on file (a brittle sapphire or silicon
+	// nitride body is not judged by its steel partner's figure), and
+	// PressureRatio is then 0 too.
 	// PressureRatio is Hertz.PeakPressure / Allowable: above 1 the
 	// contact is overloaded.
 	Allowable     float64
