@@ -46,13 +46,18 @@ type StudyOptions struct {
 	KeepSamples bool
 }
 
-// Stats summarises one quantity over the samples.
+// Stats summarises one quantity over the N samples that seated.
 type Stats struct {
+	// Mean is the sample mean and StdDev the sample standard deviation
+	// (divisor N − 1; 0 for one sample).
 	Mean, StdDev float64
 
 	// P50, P95, P99 and P9973 are percentiles of the quantity's
 	// magnitude (for a coordinate, of its absolute value): the envelope
-	// that holds that fraction of the parts.
+	// that holds that fraction of the parts. Each is a sample itself, by
+	// the nearest-rank method (Hyndman & Fan 1996, The American
+	// Statistician 50(4), definition 1): the ⌈qN⌉-th smallest magnitude
+	// for the fraction q.
 	P50, P95, P99, P9973 float64
 }
 
