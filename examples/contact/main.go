@@ -6,13 +6,21 @@
 //
 // Usage:
 //
-//	go run ./examples/contact -shape1 sphere -radius1 5mm -material1 52100 \
-//	    -shape2 groove -radius2 5.2mm -material2 440c -load 50
+//	go run ./examples/contact -shape1 sphere -radius1 5mm -material1 steel-52100 \
+//	    -shape2 groove -radius2 5.2mm -material2 steel-440c -load 50N
 //
-// Lengths are metres when given as plain numbers ("0.005"), or carry one
-// of the units m, cm, mm, um or µm ("5mm", "5.2 mm", "200um"). The angle is
-// in degrees, or carries deg, ° or rad. The load is in newtons, or carries
-// N or kN. Run with -h for every flag and the materials on file.
+// Every length, angle, force and modulus carries its unit: lengths m, cm,
+// mm, um or µm ("5mm", "5.2 mm", "200um"); angles deg, ° or rad; forces N
+// or kN; moduli and pressures Pa, kPa, MPa or GPa. A bare number other
+// than 0 is an error that suggests the unit ("-radius1 5" could be 5 mm or
+// 5 m). The materials are package hertz's reference materials by their
+// short keys (hertz.MaterialKeys, the names design files use), or a custom
+// material:
+//
+//	-material1 custom -E1 "210 GPa" -nu1 0.3 -allowable1 "2 GPa"
+//
+// The report echoes every input with its unit. Run with -h for every flag
+// and the materials on file.
 //
 // The results are engineering estimates: verify them by test, and defer to
 // the applicable codes and a qualified engineer.
@@ -25,7 +33,6 @@ import (
 	"io"
 	"math"
 	"os"
-	"sort"
 	"strconv"
 	"strings"
 	"unicode"
@@ -40,20 +47,9 @@ func main() {
 	}
 }
 
-// materials maps the short names accepted by -material1 and -material2 to
-// the reference materials of package hertz.
-var materials = map[string]hertz.Material{
-	"52100":    hertz.Steel52100,
-	"440c":     hertz.Steel440C,
-	"si3n4":    hertz.SiliconNitride,
-	"wc":       hertz.TungstenCarbide,
-	"sapphire": hertz.Sapphire,
-	"silica":   hertz.FusedSilica,
-	"al6061":   hertz.Aluminium6061T6,
-	"invar":    hertz.Invar36,
-	"ti64":     hertz.Ti6Al4V,
-	"d2":       hertz.SteelD2,
-}
+// custom is the -materialN value that takes the material from -EN, -nuN
+// and -allowableN.
+const custom = "custom"
 
 // shapes lists the body shapes and what their radii mean.
 var shapes = []struct{ name, radii string }{
@@ -78,15 +74,20 @@ func (e *FlagError) Unwrap() error { return e.Err }
 type bodyFlags struct {
 	n                         string // "1" or "2"
 	shape, radius, radiusB, m *string
+	e, nu, allowable          *string // a custom material's
 }
 
 func newBodyFlags(fs *flag.FlagSet, n, shape, radius, mat string) bodyFlags {
 	return bodyFlags{
 		n:       n,
 		shape:   fs.String("shape"+n, shape, "shape of body "+n+": sphere, flat, cylinder, socket, groove or toroid"),
-		radius:  fs.String("radius"+n, radius, "radius of body "+n+", m or with a unit (5mm); for a toroid the signed radius in the principal plane"),
-		radiusB: fs.String("radius"+n+"b", "", "toroid only: signed radius of body "+n+" across the principal plane, m or with a unit; inf for straight"),
-		m:       fs.String("material"+n, mat, "material of body "+n+", a short name from the list below"),
+		radius:  fs.String("radius"+n, radius, "radius of body "+n+", a length with its unit: m, cm, mm, um or µm (5mm, 5.2 mm); for a toroid the signed radius in the principal plane"),
+		radiusB: fs.String("radius"+n+"b", "", "toroid only: signed radius of body "+n+" across the principal plane, a length with its unit (-6mm); inf for straight"),
+		m:       fs.String("material"+n, mat, "material of body "+n+", a short key from the list below, or "+custom+" with -E"+n+" and -nu"+n),
+		e:       fs.String("E"+n, "", "custom material only: Young's modulus of body "+n+", a pressure with its unit: Pa, kPa, MPa or GPa (210 GPa)"),
+		nu:      fs.String("nu"+n, "", "custom material only: Poisson's ratio of body "+n+", dimensionless, in (-1, 0.5]"),
+		allowable: fs.String("allowable"+n, "", "custom material only, optional: allowable peak contact pressure of body "+n+
+			", a pressure with its unit (2 GPa); left out, none on file"),
 	}
 }
 
@@ -95,12 +96,12 @@ func newBodyFlags(fs *flag.FlagSet, n, shape, radius, mat string) bodyFlags {
 func run(args []string, stdout io.Writer) error {
 	fs := flag.NewFlagSet("contact", flag.ContinueOnError)
 	fs.SetOutput(io.Discard)
-	b1f := newBodyFlags(fs, "1", "sphere", "5mm", "52100")
-	b2f := newBodyFlags(fs, "2", "flat", "", "440c")
-	angleS := fs.String("angle", "0", "angle between the principal planes of the two bodies (the plane of body 2's first radius from body 1's), degrees or with a unit (30deg, 0.5rad)")
-	loadS := fs.String("load", "10", "normal load pressing the bodies together, N or with a unit (50N, 1.2kN)")
+	b1f := newBodyFlags(fs, "1", "sphere", "5mm", "steel-52100")
+	b2f := newBodyFlags(fs, "2", "flat", "", "steel-440c")
+	angleS := fs.String("angle", "0", "angle between the principal planes of the two bodies (the plane of body 2's first radius from body 1's), an angle with its unit: deg, ° or rad (30deg, 0.5rad)")
+	loadS := fs.String("load", "10N", "normal load pressing the bodies together, a force with its unit: N or kN (50N, 1.2kN)")
 	mu := fs.Float64("mu", 0.15, "coefficient of friction for the tangential stiffness and the sliding limit, dimensionless, > 0")
-	qS := fs.String("tangential", "0", "tangential load at which the tangential stiffness is given, N or with a unit; |Q| < mu·load")
+	qS := fs.String("tangential", "0", "tangential load at which the tangential stiffness is given, a force with its unit: N or kN; |Q| < mu·load")
 	if err := fs.Parse(args); err != nil {
 		if errors.Is(err, flag.ErrHelp) {
 			usage(stdout, fs)
@@ -155,16 +156,22 @@ func run(args []string, stdout io.Writer) error {
 	if err != nil {
 		return &FlagError{"-mu", err}
 	}
-	r := report{b1: b1, b2: b2, d1: d1, d2: d2, angle: angle, load: load, mu: *mu, q: q, c: c, kt: kt, slide: slide}
+	inputs := append(b1f.echo(b1), b2f.echo(b2)...)
+	inputs = append(inputs,
+		[2]string{"-angle", num(angle*180/math.Pi) + " °"},
+		[2]string{"-load", num(load) + " N"},
+		[2]string{"-mu", num(*mu) + " dimensionless"},
+		[2]string{"-tangential", num(q) + " N"})
+	r := report{inputs: inputs, b1: b1, b2: b2, d1: d1, d2: d2, angle: angle, load: load, mu: *mu, q: q, c: c, kt: kt, slide: slide}
 	return r.write(stdout)
 }
 
 // body returns the hertz.Body of the flags, its principal plane at angle,
 // and a description for the report.
 func (f bodyFlags) body(angle float64, set map[string]bool) (hertz.Body, string, error) {
-	m, ok := materials[strings.ToLower(*f.m)]
-	if !ok {
-		return hertz.Body{}, "", &FlagError{"-material" + f.n, fmt.Errorf("%q is not on file; use one of %s", *f.m, strings.Join(materialNames(), ", "))}
+	m, err := f.material(set)
+	if err != nil {
+		return hertz.Body{}, "", err
 	}
 	shape := strings.ToLower(*f.shape)
 	needR := shape != "flat"
@@ -176,7 +183,6 @@ func (f bodyFlags) body(angle float64, set map[string]bool) (hertz.Body, string,
 	}
 	var r float64
 	if needR {
-		var err error
 		if r, err = parseLength(*f.radius, shape == "toroid"); err != nil {
 			return hertz.Body{}, "", &FlagError{"-radius" + f.n, err}
 		}
@@ -188,6 +194,9 @@ func (f bodyFlags) body(angle float64, set map[string]bool) (hertz.Body, string,
 		}
 	}
 	mat := fmt.Sprintf("%s (E = %s GPa, Poisson's ratio %s dimensionless)", m.Name, num(m.E/1e9), num(m.Nu))
+	if !(m.E > 0) || math.IsInf(m.E, 0) {
+		mat = m.Name // hertz refuses the modulus below; the report is not written
+	}
 	switch shape {
 	case "sphere":
 		return hertz.Sphere(r, m), fmt.Sprintf("sphere of radius %s mm, %s", num(r*1e3), mat), nil
@@ -249,6 +258,10 @@ func translate(err error, b1, b2 bodyFlags) error {
 		if strings.ToLower(*bf.shape) == "toroid" {
 			flags["b"+bf.n+".R2"] = "-radius" + bf.n + "b"
 		}
+		if strings.ToLower(*bf.m) == custom {
+			b := "b" + bf.n + ".Material."
+			flags[b+"E"], flags[b+"Nu"], flags[b+"Allowable"] = "-E"+bf.n, "-nu"+bf.n, "-allowable"+bf.n
+		}
 	}
 	if f, ok := flags[ie.Field]; ok {
 		return &FlagError{f, ie.Err}
@@ -259,17 +272,70 @@ func translate(err error, b1, b2 bodyFlags) error {
 	return &FlagError{ie.Field, ie.Err}
 }
 
-// lengthUnits are the accepted length suffixes and their size in metres.
-var lengthUnits = []struct {
+// unit is an accepted unit suffix and its size in the SI unit.
+type unit struct {
 	suffix string
-	metres float64
-}{{"µm", 1e-6}, {"um", 1e-6}, {"mm", 1e-3}, {"cm", 1e-2}, {"m", 1}}
+	si     float64
+}
 
-// parseLength reads a length in metres, or with a unit suffix; "inf"
-// (with a sign) is accepted only when straight is allowed.
-func parseLength(s string, straight bool) (float64, error) {
+// The units each kind of input accepts, longest suffix first where one
+// ends another ("mm" before "m", "kN" before "N").
+var (
+	lengthUnits   = []unit{{"µm", 1e-6}, {"um", 1e-6}, {"mm", 1e-3}, {"cm", 1e-2}, {"m", 1}}
+	angleUnits    = []unit{{"deg", math.Pi / 180}, {"°", math.Pi / 180}, {"rad", 1}}
+	forceUnits    = []unit{{"kN", 1e3}, {"N", 1}}
+	pressureUnits = []unit{{"GPa", 1e9}, {"MPa", 1e6}, {"kPa", 1e3}, {"Pa", 1}}
+)
+
+// unitNames returns the suffixes of units, for messages.
+func unitNames(units []unit) string {
+	names := make([]string, len(units))
+	for i, u := range units {
+		names[i] = u.suffix
+	}
+	return strings.Join(names, ", ")
+}
+
+// parseQuantity reads a number followed by one of units ("5mm", "5.2 mm")
+// and returns it in the SI unit. A bare number other than 0 is an error
+// suggesting the units in hints: nothing says whether "5" is millimetres
+// or metres. what names the kind of input ("a length").
+func parseQuantity(s, what string, units []unit, hints ...string) (float64, error) {
 	t := strings.TrimSpace(s)
-	low := strings.ToLower(t)
+	for _, u := range units {
+		if strings.HasSuffix(t, u.suffix) {
+			v, err := number(strings.TrimSpace(strings.TrimSuffix(t, u.suffix)))
+			if err != nil {
+				break
+			}
+			v *= u.si
+			if math.IsInf(v, 0) {
+				return 0, fmt.Errorf("%q is beyond the floating-point range", s)
+			}
+			return v, nil
+		}
+	}
+	v, err := number(t)
+	if err != nil {
+		return 0, fmt.Errorf("%q is not %s (a number and a unit: %s)", s, what, unitNames(units))
+	}
+	if v == 0 {
+		return 0, nil // zero in every unit
+	}
+	q := make([]string, len(hints))
+	for i, h := range hints {
+		q[i] = strconv.Quote(t + " " + h)
+	}
+	return 0, fmt.Errorf("%s has no unit: write %s (%s takes one of %s)", t, strings.Join(q, " or "), what, unitNames(units))
+}
+
+// parseLength reads a length with its unit; "inf" (with a sign, and with
+// or without a unit) is accepted only when straight is allowed.
+func parseLength(s string, straight bool) (float64, error) {
+	low := strings.ToLower(strings.TrimSpace(s))
+	for _, u := range lengthUnits {
+		low = strings.TrimSpace(strings.TrimSuffix(low, u.suffix))
+	}
 	if low == "inf" || low == "+inf" || low == "-inf" {
 		if !straight {
 			return 0, fmt.Errorf("%q: only a toroid's radius may be inf (straight)", s)
@@ -279,55 +345,117 @@ func parseLength(s string, straight bool) (float64, error) {
 		}
 		return math.Inf(1), nil
 	}
-	scale := 1.0
-	for _, u := range lengthUnits {
-		if strings.HasSuffix(t, u.suffix) {
-			t, scale = strings.TrimSpace(strings.TrimSuffix(t, u.suffix)), u.metres
-			break
+	return parseQuantity(s, "a length", lengthUnits, "mm", "m")
+}
+
+// parseAngle reads an angle with its unit and returns it in radians.
+func parseAngle(s string) (float64, error) {
+	return parseQuantity(s, "an angle", angleUnits, "deg", "rad")
+}
+
+// parseForce reads a force with its unit, in newtons.
+func parseForce(s string) (float64, error) {
+	return parseQuantity(s, "a force", forceUnits, "N", "kN")
+}
+
+// parsePressure reads a pressure or modulus with its unit, in pascals.
+func parsePressure(s string) (float64, error) {
+	return parseQuantity(s, "a pressure", pressureUnits, "GPa", "MPa")
+}
+
+// material returns the material of the flags: a reference material by
+// its key, or a custom one from -EN, -nuN and -allowableN.
+func (f bodyFlags) material(set map[string]bool) (hertz.Material, error) {
+	key := strings.ToLower(strings.TrimSpace(*f.m))
+	customFlags := []string{"E" + f.n, "nu" + f.n, "allowable" + f.n}
+	if key != custom {
+		for _, c := range customFlags {
+			if set[c] {
+				return hertz.Material{}, &FlagError{"-" + c, fmt.Errorf("only a custom material takes it; give -material%s %s with -E%s and -nu%s", f.n, custom, f.n, f.n)}
+			}
+		}
+		m, ok := hertz.MaterialByKey(key)
+		if !ok {
+			return hertz.Material{}, &FlagError{"-material" + f.n, fmt.Errorf("%q is not on file%s; use one of %s, or %s with -E%s and -nu%s",
+				*f.m, didYouMean(key), strings.Join(hertz.MaterialKeys(), ", "), custom, f.n, f.n)}
+		}
+		return m, nil
+	}
+	which := map[string]string{"1": "first", "2": "second"}[f.n]
+	m := hertz.Material{Name: "custom material of the " + which + " body", Source: "given on the command line"}
+	for _, req := range customFlags[:2] {
+		if !set[req] {
+			return m, &FlagError{"-" + req, fmt.Errorf("-material%s %s needs -E%s and -nu%s", f.n, custom, f.n, f.n)}
 		}
 	}
-	v, err := number(t)
-	if err != nil {
-		return 0, fmt.Errorf("%q is not a length (metres, or with a unit: m, cm, mm, um, µm)", s)
+	var err error
+	if m.E, err = parsePressure(*f.e); err != nil {
+		return m, &FlagError{"-E" + f.n, err}
 	}
-	return v * scale, nil
+	if m.Nu, err = number(strings.TrimSpace(*f.nu)); err != nil {
+		return m, &FlagError{"-nu" + f.n, fmt.Errorf("%q: Poisson's ratio is a plain number in (-1, 0.5]", *f.nu)}
+	}
+	if set[customFlags[2]] {
+		if m.Allowable, err = parsePressure(*f.allowable); err != nil {
+			return m, &FlagError{"-allowable" + f.n, err}
+		}
+		if m.Allowable < 0 {
+			return m, &FlagError{"-allowable" + f.n, fmt.Errorf("%s: an allowable pressure is ≥ 0", *f.allowable)}
+		}
+	}
+	return m, nil
 }
 
-// parseAngle reads an angle in degrees, or with deg, ° or rad, and
-// returns it in radians.
-func parseAngle(s string) (float64, error) {
-	t := strings.TrimSpace(s)
-	scale := math.Pi / 180
-	switch {
-	case strings.HasSuffix(t, "rad"):
-		t, scale = strings.TrimSuffix(t, "rad"), 1
-	case strings.HasSuffix(t, "deg"):
-		t = strings.TrimSuffix(t, "deg")
-	case strings.HasSuffix(t, "°"):
-		t = strings.TrimSuffix(t, "°")
+// didYouMean returns ` (did you mean "steel-440c"?)` when exactly one
+// material key contains key, or "".
+func didYouMean(key string) string {
+	var found []string
+	for _, k := range hertz.MaterialKeys() {
+		if key != "" && strings.Contains(k, key) {
+			found = append(found, strconv.Quote(k))
+		}
 	}
-	v, err := number(strings.TrimSpace(t))
-	if err != nil {
-		return 0, fmt.Errorf("%q is not an angle (degrees, or with a unit: deg, °, rad)", s)
+	if len(found) == 0 || len(found) > 3 {
+		return ""
 	}
-	return v * scale, nil
+	return " (did you mean " + strings.Join(found, " or ") + "?)"
 }
 
-// parseForce reads a force in newtons, or with N or kN.
-func parseForce(s string) (float64, error) {
-	t := strings.TrimSpace(s)
-	scale := 1.0
-	switch {
-	case strings.HasSuffix(t, "kN"):
-		t, scale = strings.TrimSuffix(t, "kN"), 1e3
-	case strings.HasSuffix(t, "N"):
-		t = strings.TrimSuffix(t, "N")
+// echo returns the body's inputs as read, each with its unit, for the
+// report.
+func (f bodyFlags) echo(b hertz.Body) [][2]string {
+	n := f.n
+	out := [][2]string{{"-shape" + n, strings.ToLower(*f.shape)}}
+	shape := strings.ToLower(*f.shape)
+	switch shape {
+	case "flat":
+	case "toroid":
+		out = append(out, [2]string{"-radius" + n, radiusText(b.R1)}, [2]string{"-radius" + n + "b", radiusText(b.R2)})
+	default:
+		// A cylinder or groove is straight one way: its radius is the
+		// finite one.
+		r := math.Abs(b.R1)
+		if math.IsInf(r, 0) {
+			r = math.Abs(b.R2)
+		}
+		out = append(out, [2]string{"-radius" + n, num(r*1e3) + " mm"})
 	}
-	v, err := number(strings.TrimSpace(t))
-	if err != nil {
-		return 0, fmt.Errorf("%q is not a force (newtons, or with a unit: N, kN)", s)
+	m := b.Material
+	allow, allowable := "no allowable on file", "none on file"
+	if m.Allowable > 0 {
+		allowable = num(m.Allowable/1e6) + " MPa"
+		allow = "allowable " + allowable
 	}
-	return v * scale, nil
+	key := strings.ToLower(strings.TrimSpace(*f.m))
+	out = append(out, [2]string{"-material" + n, fmt.Sprintf("%s: %s", key, m.Name)})
+	desc := fmt.Sprintf("E = %s GPa, Poisson's ratio %s dimensionless, %s", num(m.E/1e9), num(m.Nu), allow)
+	if key == custom {
+		out = append(out, [2]string{"-E" + n, num(m.E/1e9) + " GPa"}, [2]string{"-nu" + n, num(m.Nu) + " dimensionless"},
+			[2]string{"-allowable" + n, allowable})
+	} else {
+		out = append(out, [2]string{"", desc})
+	}
+	return out
 }
 
 // number parses a finite decimal number; strconv's "inf", "nan" and hex
@@ -343,15 +471,6 @@ func number(s string) (float64, error) {
 	return v, nil
 }
 
-func materialNames() []string {
-	names := make([]string, 0, len(materials))
-	for n := range materials {
-		names = append(names, n)
-	}
-	sort.Strings(names)
-	return names
-}
-
 // usage writes the help: what the program does, every flag with its unit,
 // the shapes and the materials on file.
 func usage(w io.Writer, fs *flag.FlagSet) {
@@ -362,9 +481,10 @@ ellipse, peak and mean pressure, approach, normal and tangential stiffness,
 subsurface shear and von Mises stress of each body, and the margin against
 each material's allowable peak pressure.
 
-Units: lengths are metres as plain numbers (0.005) or carry m, cm, mm, um
-or µm (5mm, 5.2 mm); angles are degrees or carry deg, ° or rad; forces are
-newtons or carry N or kN; -mu is dimensionless.
+Units: every length, angle, force and pressure carries its unit: lengths
+m, cm, mm, um or µm (5mm, 5.2 mm); angles deg, ° or rad (30deg); forces N
+or kN (50N); moduli and pressures Pa, kPa, MPa or GPa (210 GPa). A bare
+number other than 0 is refused. -mu and -nuN are dimensionless.
 
 Flags:
 `)
@@ -379,14 +499,15 @@ Flags:
 	for _, s := range shapes {
 		fmt.Fprintf(w, "  %-9s %s\n", s.name, s.radii)
 	}
-	fmt.Fprint(w, "\nMaterials (-material1, -material2), from package hertz:\n")
-	for _, n := range materialNames() {
-		m := materials[n]
+	fmt.Fprint(w, "\nMaterials (-material1, -material2), by their keys in package hertz (the names design files use):\n")
+	for _, n := range hertz.MaterialKeys() {
+		m, _ := hertz.MaterialByKey(n)
 		allow := "no allowable on file"
 		if m.Allowable > 0 {
 			allow = "allowable peak pressure " + num(m.Allowable/1e6) + " MPa"
 		}
-		fmt.Fprintf(w, "  %-9s %s: E = %s GPa, Poisson's ratio %s; %s\n", n, m.Name, num(m.E/1e9), num(m.Nu), allow)
+		fmt.Fprintf(w, "  %-17s %s: E = %s GPa, Poisson's ratio %s; %s\n", n, m.Name, num(m.E/1e9), num(m.Nu), allow)
 	}
+	fmt.Fprintf(w, "  %-17s your own: -EN (pressure), -nuN (dimensionless), -allowableN (pressure, optional)\n", custom)
 	fmt.Fprint(w, "\n"+caution+"\n")
 }

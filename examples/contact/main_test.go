@@ -66,7 +66,7 @@ func estar(m1, m2 hertz.Material) float64 {
 // largest shear under a circular contact with ν = 0.3 is 0.31 p0 at a depth
 // of 0.48a (Johnson 1985, §3.4, fig. 3.9, from memory; two figures).
 func TestBallOnFlat(t *testing.T) {
-	s := out(t, "-shape1", "sphere", "-radius1", "5mm", "-material1", "52100", "-shape2", "flat", "-material2", "440c", "-load", "50")
+	s := out(t, "-shape1", "sphere", "-radius1", "5mm", "-material1", "steel-52100", "-shape2", "flat", "-material2", "steel-440c", "-load", "50 N")
 	const F, R = 50.0, 5e-3
 	m1, m2 := hertz.Steel52100, hertz.Steel440C
 	E := estar(m1, m2)
@@ -119,7 +119,7 @@ func TestBallOnFlat(t *testing.T) {
 // Mechanics, 1985, §4.2, from memory: the relative curvatures are 1/(2R)
 // in both directions), so a and p0 are those of the ball on a flat.
 func TestCrossedCylinders(t *testing.T) {
-	s := out(t, "-shape1", "cylinder", "-radius1", "8 mm", "-material1", "wc", "-shape2", "cylinder", "-radius2", "0.008", "-material2", "wc", "-angle", "90", "-load", "0.2kN")
+	s := out(t, "-shape1", "cylinder", "-radius1", "8 mm", "-material1", "tungsten-carbide", "-shape2", "cylinder", "-radius2", "0.008 m", "-material2", "tungsten-carbide", "-angle", "90 deg", "-load", "0.2kN")
 	const F, R = 200.0, 8e-3
 	E := estar(hertz.TungstenCarbide, hertz.TungstenCarbide)
 	a := math.Cbrt(3 * F * R / (4 * E))
@@ -138,7 +138,7 @@ func TestCrossedCylinders(t *testing.T) {
 // memory). Ball 5 mm, socket 6 mm: R = 30 mm. The radii are given in
 // metres and micrometres.
 func TestSocket(t *testing.T) {
-	s := out(t, "-radius1", "0.005", "-shape2", "socket", "-radius2", "6000um", "-material2", "52100", "-load", "100N")
+	s := out(t, "-radius1", "0.005 m", "-shape2", "socket", "-radius2", "6000um", "-material2", "steel-52100", "-load", "100N")
 	const F, R = 100.0, 0.005 * 0.006 / (0.006 - 0.005)
 	E := estar(hertz.Steel52100, hertz.Steel52100)
 	a := math.Cbrt(3 * F * R / (4 * E))
@@ -152,8 +152,8 @@ func TestSocket(t *testing.T) {
 // TestToroid checks that a toroid given with signed radii equal to a
 // groove's (straight along, concave across) gives the groove's result.
 func TestToroid(t *testing.T) {
-	g := out(t, "-shape2", "groove", "-radius2", "5.3mm", "-load", "20", "-angle", "15deg")
-	tor := out(t, "-shape2", "toroid", "-radius2", "inf", "-radius2b", "-5.3mm", "-load", "20", "-angle", "0.2617993877991494rad")
+	g := out(t, "-shape2", "groove", "-radius2", "5.3mm", "-load", "20 N", "-angle", "15deg")
+	tor := out(t, "-shape2", "toroid", "-radius2", "inf", "-radius2b", "-5.3mm", "-load", "20 N", "-angle", "0.2617993877991494rad")
 	for _, q := range []struct{ label, unit string }{{"semi-major axis a", "mm"}, {"semi-minor axis b", "mm"}, {"peak pressure p0", "MPa"}, {"approach δ", "µm"}} {
 		near(t, q.label, value(t, tor, q.label, q.unit), value(t, g, q.label, q.unit), 1e-12)
 	}
@@ -228,23 +228,24 @@ func TestReportUnits(t *testing.T) {
 	runs := [][]string{
 		{},
 		{"-load", "0"},
-		{"-shape2", "groove", "-radius2", "5.2mm", "-angle", "30", "-tangential", "1"},
-		{"-shape1", "cylinder", "-radius1", "3mm", "-shape2", "cylinder", "-radius2", "4mm", "-angle", "45", "-material2", "sapphire"},
-		{"-shape1", "toroid", "-radius1", "20mm", "-radius1b", "-6mm", "-shape2", "sphere", "-radius2", "5mm", "-material1", "ti64"},
-		{"-shape2", "socket", "-radius2", "5.01mm", "-material2", "silica", "-load", "1kN"}, // too large for Hertz: Valid false
-		{"-material1", "si3n4", "-material2", "al6061", "-load", "1e-6"},
-		{"-material1", "invar", "-material2", "wc", "-load", "2000"},
-		{"-load", "50000"}, // exceeds the allowable
+		{"-shape2", "groove", "-radius2", "5.2mm", "-angle", "30 deg", "-tangential", "1 N"},
+		{"-shape1", "cylinder", "-radius1", "3mm", "-shape2", "cylinder", "-radius2", "4mm", "-angle", "45°", "-material2", "sapphire"},
+		{"-shape1", "toroid", "-radius1", "20mm", "-radius1b", "-6mm", "-shape2", "sphere", "-radius2", "5mm", "-material1", "ti-6al-4v"},
+		{"-shape2", "socket", "-radius2", "5.01mm", "-material2", "fused-silica", "-load", "1kN"}, // too large for Hertz: Valid false
+		{"-material1", "silicon-nitride", "-material2", "aluminium-6061-t6", "-load", "1e-6 N"},
+		{"-material1", "invar-36", "-material2", "tungsten-carbide", "-load", "2 kN"},
+		{"-material1", "custom", "-E1", "210 GPa", "-nu1", "0.3", "-allowable1", "2 GPa", "-material2", "custom", "-E2", "70 GPa", "-nu2", "0.33"},
+		{"-load", "50000 N"}, // exceeds the allowable
 	}
 	for _, args := range runs {
 		if ps := problems(out(t, args...)); len(ps) != 0 {
 			t.Errorf("run(%q): %q", args, ps)
 		}
 	}
-	if s := out(t, "-shape2", "socket", "-radius2", "5.01mm", "-material2", "silica", "-load", "1kN"); !strings.Contains(s, "DOES NOT HOLD") {
+	if s := out(t, "-shape2", "socket", "-radius2", "5.01mm", "-material2", "fused-silica", "-load", "1kN"); !strings.Contains(s, "DOES NOT HOLD") {
 		t.Errorf("a near-conforming socket under 1 kN should fail the half-space check:\n%s", s)
 	}
-	if s := out(t, "-load", "50000"); !strings.Contains(s, "p0 EXCEEDS it, margin -") {
+	if s := out(t, "-load", "50000 N"); !strings.Contains(s, "p0 EXCEEDS it, margin -") {
 		t.Errorf("50 kN on a 5 mm ball should exceed 4200 MPa:\n%s", s)
 	}
 }
@@ -263,13 +264,13 @@ func TestBadFlags(t *testing.T) {
 		{[]string{"-radius1", "0"}, "-radius1"},
 		{[]string{"-shape1", "cube"}, "-shape1"},
 		{[]string{"-material2", "unobtainium"}, "-material2"},
-		{[]string{"-load", "-5"}, "-load"},
+		{[]string{"-load", "-5 N"}, "-load"},
 		{[]string{"-load", "5 tonnes"}, "-load"},
-		{[]string{"-load", "1e400"}, "-load"},
+		{[]string{"-load", "1e400 N"}, "-load"},
 		{[]string{"-angle", "north"}, "-angle"},
 		{[]string{"-mu", "0"}, "-mu"},
 		{[]string{"-mu", "abc"}, "-mu"},
-		{[]string{"-tangential", "100"}, "-tangential"},
+		{[]string{"-tangential", "100 N"}, "-tangential"},
 		{[]string{"-tangential", "x"}, "-tangential"},
 		{[]string{"-shape2", "flat", "-radius2", "3mm"}, "-radius2"},
 		{[]string{"-shape1", "toroid", "-radius1", "5mm"}, "-radius1b"},
@@ -309,10 +310,11 @@ func TestBadFlags(t *testing.T) {
 func TestHelp(t *testing.T) {
 	h := out(t, "-h")
 	want := map[string]string{
-		"-shape1": "sphere, flat, cylinder", "-radius1": "m or with a unit", "-radius1b": "m or with a unit",
-		"-material1": "short name", "-shape2": "toroid", "-radius2": "m or with a unit", "-radius2b": "inf for straight",
-		"-material2": "short name", "-angle": "degrees", "-load": "N or with a unit", "-mu": "dimensionless",
-		"-tangential": "N or with a unit",
+		"-shape1": "sphere, flat, cylinder", "-radius1": "a length with its unit: m, cm, mm, um or µm", "-radius1b": "a length with its unit",
+		"-material1": "short key", "-shape2": "toroid", "-radius2": "a length with its unit", "-radius2b": "inf for straight",
+		"-material2": "short key", "-angle": "an angle with its unit: deg, ° or rad", "-load": "a force with its unit: N or kN", "-mu": "dimensionless",
+		"-tangential": "a force with its unit", "-E1": "a pressure with its unit: Pa, kPa, MPa or GPa", "-nu1": "dimensionless",
+		"-allowable1": "a pressure with its unit", "-E2": "a pressure with its unit", "-nu2": "dimensionless", "-allowable2": "a pressure with its unit",
 	}
 	for f, unit := range want {
 		i := strings.Index(h, "  "+f+"\n")
@@ -326,7 +328,8 @@ func TestHelp(t *testing.T) {
 			t.Errorf("help of %s = %q, want it to say %q", f, entry, unit)
 		}
 	}
-	for name, m := range materials {
+	for _, name := range hertz.MaterialKeys() {
+		m, _ := hertz.MaterialByKey(name)
 		if !strings.Contains(h, name) || !strings.Contains(h, m.Name) {
 			t.Errorf("help does not list material %s (%s)", name, m.Name)
 		}
@@ -339,7 +342,7 @@ func TestHelp(t *testing.T) {
 	if !strings.Contains(h, "qualified engineer") {
 		t.Errorf("help has no caution")
 	}
-	if len(materials) != len(hertz.Materials()) {
-		t.Errorf("%d short names for %d materials on file", len(materials), len(hertz.Materials()))
+	if len(hertz.MaterialKeys()) != len(hertz.Materials()) {
+		t.Errorf("%d short keys for %d materials on file", len(hertz.MaterialKeys()), len(hertz.Materials()))
 	}
 }

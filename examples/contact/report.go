@@ -19,6 +19,7 @@ any decision about a design.`
 
 // report holds what the program prints.
 type report struct {
+	inputs      [][2]string // each flag and its value as read, with its unit
 	b1, b2      hertz.Body
 	d1, d2      string // descriptions of the bodies
 	angle, load float64
@@ -57,6 +58,11 @@ func (r report) write(w io.Writer) error {
 		fmt.Fprintf(&b, "  %-34s %s\n", label+":", fmt.Sprintf(format, args...))
 	}
 	b.WriteString("Hertz contact\n=============\n")
+	b.WriteString("Inputs, as read\n")
+	for _, in := range r.inputs {
+		fmt.Fprintf(&b, "  %-14s %s\n", in[0], in[1])
+	}
+	b.WriteString("\n")
 	fmt.Fprintf(&b, "First body:  %s\n", r.d1)
 	fmt.Fprintf(&b, "Second body: %s\n", r.d2)
 	fmt.Fprintf(&b, "Angle between principal planes: %s °\n", num(r.angle*180/math.Pi))

@@ -9,9 +9,15 @@ import (
 	"github.com/sixfold-dev/sixfold/kinematic"
 )
 
-// Format is the version of the file format that this package reads and
-// writes, the value of a file's "format" member.
-const Format = "sixfold.design/1"
+// Format is the version of the file format that this package writes,
+// the value of a file's "format" member. The package reads it and the
+// previous version, "sixfold.design/1", whose plain numbers are SI.
+const Format = "sixfold.design/2"
+
+// formatV1 is the first version of the format: the same members, every
+// plain number in its SI unit (as a version 2 file that declares
+// "units": "si").
+const formatV1 = "sixfold.design/1"
 
 // Design is a whole coupling design: the Go form of a design file, with
 // every quantity in SI units (m, rad, N, Pa, kg, K, Hz). [Read] and

@@ -21,12 +21,13 @@
 //
 // # The file
 //
-// A design file is one JSON object. Its members, with the unit each
-// quantity is in when written as a plain number and its default when left
-// out ("required" when it has none):
+// A design file is one JSON object of UTF-8 text. Its members, with the
+// kind of each quantity (see Units) and its default when left out
+// ("required" when it has none):
 //
-//	format              string, required: "sixfold.design/1"
-//	name, description   strings, optional
+//	format              string, required: "sixfold.design/2" (or "sixfold.design/1", see Versions)
+//	units               "si", optional: plain numbers are in SI units (see Units)
+//	name, description   strings of UTF-8 text, at most 4096 bytes each, optional
 //	balls               array, 1 to 64, required; balls[i] sits in seats[i]
 //	  name              letters, digits and "_", starting with a letter; default "A", "B", ... by position
 //	  centre            [x, y, z] lengths, required
@@ -69,7 +70,7 @@
 //	  value             length, or angle for Turn, Tilt, Tilt1, Tilt2 and HalfAngle; ≥ 0, required
 //	  distribution      "uniform" (value the half-width, the default) or "normal" (value the standard deviation)
 //	point_of_interest   [x, y, z] lengths, on the moving body; default origin
-//	axis                direction at the point of interest (an optical axis), optional
+//	axis                direction at the point of interest (an optical axis), optional; not [0, 0, 0]
 //	thermal             object, optional: a uniform temperature change
 //	  delta_t           temperature difference, required
 //	  moving_alpha      expansion coefficient of the moving body; default 0
@@ -118,16 +119,33 @@
 //	 "alpha": expansion coefficient (default 0), "allowable": pressure ≥ 0 (default 0: none
 //	 on file), "source": string}
 //
+// The keys are package hertz's (hertz.MaterialByKey), the same names the
+// example programs take on their command lines.
+//
 // # Units
 //
-// A quantity is a plain JSON number in its SI unit, or a string of a
-// number (written as a JSON number) and a unit, with or without a space:
-// "12.7 mm", "0.5 µm", "45 deg", "1.5 kN", "5 g". The product signs "·",
-// "⋅" and "*" may stand for the space in a compound unit, and "²" for
-// "^2". Directions (up, direction, toward, axis, a preload's direction)
-// and pure numbers (nu, mu, preload factors, ratios, indices) are plain
-// numbers only; a direction need not be of unit length. The units each
-// kind of quantity accepts:
+// A quantity is a string of a number (written as a JSON number) and a
+// unit, with or without a space: "12.7 mm", "0.5 µm", "45 deg", "1.5 kN",
+// "5 g". The product signs "·", "⋅" and "*" may stand for the space in a
+// compound unit, and "²" for "^2". A bare JSON number for a quantity is an
+// error naming its path and the units it most likely meant, because
+// nothing in a number says whether 6.35 is millimetres or metres:
+//
+//	design: balls[0].radius: bad unit: 6.35 has no unit: write "6.35 mm" or "6.35 m", or declare
+//	"units": "si" at the top of the file to read plain numbers in SI units (m)
+//
+// except a plain 0, which is zero in every unit, and except in a file that
+// declares once, as a member of its top-level object,
+//
+//	"units": "si"
+//
+// in which every plain number for a quantity is in its SI unit (m, rad,
+// N, Pa, kg, ...; the first unit of each kind below). "si" is the only
+// declaration; quantities with units read the same with or without it.
+// Directions (up, direction, toward, axis, a preload's direction) and
+// pure numbers (nu, mu, preload factors, ratios, indices, samples, seed)
+// are plain numbers always; a direction need not be of unit length, but
+// it may not be [0, 0, 0]. The units each kind of quantity accepts:
 //
 //	length                    m (SI), cm, mm, um, µm, μm, nm
 //	angle                     rad (SI), mrad, urad, µrad, μrad, deg, °, arcmin, arcsec
@@ -152,16 +170,24 @@
 //
 // # Versions
 //
-// The "format" member names the format's version, "sixfold.design/1"
-// ([Format]). A reader rejects a file of any other version with an error
-// wrapping [ErrVersion] before it looks at anything else. Within version 1
-// the format only grows by optional members whose absence means what it
-// meant before, so an old file reads the same in a newer reader; a change
-// that would alter the meaning of an existing file, or add a required
-// member, makes a new version. An older reader rejects a newer file's new
-// members as unknown rather than ignoring them. Version 1 describes
-// exactly constrained couplings (six independent contacts), the case every
-// analysis here needs.
+// The "format" member names the format's version: "sixfold.design/2"
+// ([Format]), which this package writes, or "sixfold.design/1". A reader
+// rejects a file of any other version with an error wrapping [ErrVersion]
+// before it looks at anything else. Within a version the format only
+// grows by optional members whose absence means what it meant before, so
+// an old file reads the same in a newer reader; a change that would alter
+// the meaning of an existing file, or add a required member, makes a new
+// version. An older reader rejects a newer file's new members as unknown
+// rather than ignoring them. Both versions describe exactly constrained
+// couplings (six independent contacts), the case every analysis here
+// needs.
+//
+// Version 2 differs from version 1 in one rule: a bare number for a
+// quantity is refused unless the file declares "units": "si". A version 1
+// file reads as it always did, its plain numbers in SI units, exactly as
+// the same file would as version 2 with "units": "si"; to move a file to
+// version 2, change its format and either add that declaration or give
+// its plain numbers units.
 //
 // # Reading
 //
@@ -177,18 +203,29 @@
 // own up, a tolerance naming no dimension) are translated to the file's
 // paths; an error about two entries (two balls with one centre, a
 // dimension toleranced twice) names the second in [Error.Other]; errors.Is finds kinematic's sentinels (ErrRange, ErrDegenerate,
-// ErrNotExact are the same values here). The reader reads at most
-// [MaxSize] bytes, at most 150 000 JSON values nested at most 16 deep, and
-// the counts given above, so a hostile file cannot make it allocate
-// without limit; the Monte Carlo study's cost grows with samples (at most
+// ErrNotExact are the same values here). A failure of the thermal
+// drift's solve (a ball that cannot reach its expanded seat) is blamed on
+// the thermal input that moves the geometry most, with the seat in
+// [Error.Other]. Bytes that are not UTF-8 are an error wrapping ErrSyntax
+// naming the string that holds them (the JSON decoder would replace them
+// silently). The reader reads at most [MaxSize] bytes, at most 150 000
+// JSON values nested at most 16 deep, names of at most 64 bytes, a name,
+// description, material name or source of at most 4096 bytes, and the
+// counts given above, so a hostile file cannot make it allocate without
+// limit; the Monte Carlo study's cost grows with samples (at most
 // 1e7) and stops when the context of Evaluate is cancelled.
 //
 // # Writing
 //
-// [Design.Write] writes the canonical form: SI numbers, the members in the
-// order above, defaults written out where the reader needs them and
-// optional zero members left out. It differs textually from a file written
-// by hand, but reading it back gives an equal Design.
+// [Design.Write] writes the canonical form: format version 2 with the
+// declaration "units": "si" and plain SI numbers (each the shortest
+// decimal that reads back as the same float64, so the round trip is
+// exact), the members in the order above, defaults written out where the
+// reader needs them and optional zero members left out. It differs
+// textually from a file written by hand, but reading it back gives an
+// equal Design. A file edited by hand after Write keeps the declaration,
+// so its plain numbers stay SI: give a new entry its unit ("6.35 mm"), or
+// remove the declaration to have every bare number refused.
 //
 // # Evaluation
 //

@@ -46,7 +46,9 @@ var (
 	ErrMissing = errors.New("required")
 
 	// ErrUnit reports a quantity string whose number or unit cannot be
-	// read, or whose unit does not measure what the field holds.
+	// read, or whose unit does not measure what the field holds, and a
+	// bare number for a quantity (other than 0) in a version 2 file that
+	// does not declare "units": "si".
 	ErrUnit = errors.New("bad unit")
 
 	// ErrVersion reports a format field naming a version this package

@@ -5,6 +5,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"strings"
 
 	"gonum.org/v1/gonum/spatial/r3"
 
@@ -155,7 +156,7 @@ func (b *Built) Evaluate(ctx context.Context) (Evaluation, error) {
 	if th := d.Thermal; th != nil {
 		dr, err := b.assembly.Drift(*th, d.Point)
 		if err != nil {
-			return Evaluation{}, translator{b: b, fallback: "thermal", params: driftParams}.translate(err)
+			return Evaluation{}, thermalError(b, translator{b: b, fallback: "thermal", params: driftParams}.translate(err))
 		}
 		e.Drift = &dr
 	}
@@ -169,6 +170,57 @@ var (
 	driftParams = map[string]string{"p": "point_of_interest", "th": "thermal",
 		"th.DeltaT": "thermal.delta_t", "th.Moving": "thermal.moving_alpha", "th.Base": "thermal.base_alpha", "th.BaseRef": "thermal.base_ref"}
 )
+
+// thermalError returns the error err of the thermal drift blamed on the
+// thermal input: an error that Drift finds at a seat or a ball (a ball
+// that cannot reach its expanded seat) is the expansion's doing, since
+// the same coupling seats at the reference temperature. The input named
+// is the one that moves the geometry most: the moving body's expansion
+// about the origin (ball centres up to |ΔT·α_moving|·max|c|) or the
+// base's about base_ref (seats up to |ΔT·α_base|·max|c − base_ref|);
+// delta_t when neither moves anything.
+func thermalError(b *Built, err error) error {
+	e, ok := err.(*Error)
+	if !ok || strings.HasPrefix(e.Path, "thermal") || e.Path == "point_of_interest" {
+		return err
+	}
+	th := b.d.Thermal
+	var far, farBase, span float64
+	var centroid r3.Vec
+	for _, ball := range b.d.Balls {
+		centroid = r3.Add(centroid, r3.Scale(1/float64(len(b.d.Balls)), ball.Centre))
+	}
+	for _, ball := range b.d.Balls {
+		far = math.Max(far, r3.Norm(ball.Centre))
+		farBase = math.Max(farBase, r3.Norm(r3.Sub(ball.Centre, th.BaseRef)))
+		span = math.Max(span, r3.Norm(r3.Sub(ball.Centre, centroid)))
+	}
+	moving := math.Abs(th.DeltaT*th.Moving) * far
+	base := math.Abs(th.DeltaT*th.Base) * farBase
+	path := "thermal.delta_t"
+	var why []string
+	if moving > 0 {
+		why = append(why, fmt.Sprintf("moving_alpha %g /K moves the ball centres up to %.3g m (the moving body expands about the origin)", th.Moving, moving))
+	}
+	if base > 0 {
+		why = append(why, fmt.Sprintf("base_alpha %g /K moves the seats up to %.3g m (about base_ref, %.3g m from the farthest ball)", th.Base, base, farBase))
+	}
+	switch {
+	case moving >= base && moving > 0:
+		path = "thermal.moving_alpha"
+	case base > 0 && farBase > 10*span:
+		// Held far from the coupling: the distance, not the coefficient,
+		// makes the motion.
+		path = "thermal.base_ref"
+	case base > 0:
+		path = "thermal.base_alpha"
+	}
+	if len(why) == 0 {
+		why = append(why, "the balls' and seats' own materials expand")
+	}
+	return &Error{Path: path, Other: e.Path, Err: fmt.Errorf("the thermal solve failed: over delta_t %g K, %s; the expanded coupling cannot be seated: %w",
+		th.DeltaT, strings.Join(why, ", and "), e.Err)}
+}
 
 // statics solves every load case.
 func (e *Evaluation) statics(b *Built) error {

@@ -27,6 +27,15 @@ func FuzzRead(f *testing.F) {
 		`{"format": "sixfold.design/1", "balls": [{"centre": [0, 0, 0], "radius": "1e400 mm", "material": "sapphire"}]}`,
 		`{"format": "sixfold.design/1", "description": [[[[[[[[[[[[[[[[[[[[]]]]]]]]]]]]]]]]]]]]}`,
 		`[1, 2, 3]`,
+		// Bare numbers: refused in version 2, SI with the declaration or
+		// in version 1.
+		`{"format": "sixfold.design/2", "balls": [{"centre": [0, 0, 0], "radius": 6.35, "material": "sapphire"}]}`,
+		`{"format": "sixfold.design/2", "units": "si", "balls": [{"centre": [0, 0, 0], "radius": 6.35, "material": "sapphire"}]}`,
+		`{"format": "sixfold.design/2", "units": "mm"}`,
+		`{"format": "sixfold.design/2", "axis": [0, 0, 0]}`,
+		// Bytes that are not UTF-8, in a value and in a member name.
+		"{\"format\": \"sixfold.design/2\", \"description\": \"ab\xffc\"}",
+		"{\"format\": \"sixfold.design/2\", \"na\xe2\x82me\": 1}",
 	} {
 		f.Add([]byte(s))
 	}

@@ -11,12 +11,13 @@ import (
 // hertz's values (one place for the data).
 func TestMaterialKeys(t *testing.T) {
 	table := hertz.Materials()
-	if len(materialKeys) != len(table) {
-		t.Errorf("%d keys for %d reference materials", len(materialKeys), len(table))
+	keys := hertz.MaterialKeys()
+	if len(keys) != len(table) {
+		t.Errorf("%d keys for %d reference materials", len(keys), len(table))
 	}
 	for _, m := range table {
 		n := 0
-		for key := range materialKeys {
+		for _, key := range keys {
 			got, ok := lookupMaterial(key)
 			if ok && got.Name == m.Name {
 				n++

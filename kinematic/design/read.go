@@ -98,10 +98,15 @@ func literal(s, path string) (float64, error) {
 
 // quantity returns the SI value of a quantity: a plain number in k's SI
 // unit, or a string with a unit.
-func quantity(n *node, path string, k *quantityKind) (float64, error) {
+func (r *reader) quantity(n *node, path string, k *quantityKind) (float64, error) {
 	switch n.kind {
 	case numberNode:
-		return literal(n.text, path)
+		v, err := literal(n.text, path)
+		if err != nil || v == 0 || r.plainSI {
+			return v, err
+		}
+		return 0, errorf(path, ErrUnit, "%s has no unit: write %s, or declare \"units\": \"si\" at the top of the file to read plain numbers in SI units (%s)",
+			n.text, k.suggest(n.text), k.si)
 	case stringNode:
 		v, err := parseQuantity(n.text, k)
 		if err != nil {
@@ -114,7 +119,7 @@ func quantity(n *node, path string, k *quantityKind) (float64, error) {
 
 // vector returns a vector of three quantities of kind k, or of three
 // plain numbers when k is nil (a direction).
-func vector(n *node, path string, k *quantityKind) (r3.Vec, error) {
+func (r *reader) vector(n *node, path string, k *quantityKind) (r3.Vec, error) {
 	if n.kind != arrayNode || len(n.vals) != 3 {
 		what := "three numbers"
 		if k != nil {
@@ -132,7 +137,7 @@ func vector(n *node, path string, k *quantityKind) (r3.Vec, error) {
 		if k == nil {
 			c[i], err = number(e, index(path, i))
 		} else {
-			c[i], err = quantity(e, index(path, i), k)
+			c[i], err = r.quantity(e, index(path, i), k)
 		}
 		if err != nil {
 			return r3.Vec{}, err
@@ -173,28 +178,48 @@ func list(n *node, path string, max int) ([]*node, error) {
 
 // The optional-member helpers leave *dst alone when the member is absent.
 
-func optQuantity(o *node, path, key string, k *quantityKind, dst *float64) error {
+func (r *reader) optQuantity(o *node, path, key string, k *quantityKind, dst *float64) error {
 	if n := o.get(key); n != nil {
-		v, err := quantity(n, join(path, key), k)
+		v, err := r.quantity(n, join(path, key), k)
 		*dst = v
 		return err
 	}
 	return nil
 }
 
-func reqQuantity(o *node, path, key string, k *quantityKind, dst *float64) error {
+func (r *reader) reqQuantity(o *node, path, key string, k *quantityKind, dst *float64) error {
 	if o.get(key) == nil {
 		return errorf(join(path, key), ErrMissing, "%s in %s", k.what, k.si)
 	}
-	return optQuantity(o, path, key, k, dst)
+	return r.optQuantity(o, path, key, k, dst)
 }
 
-func optVector(o *node, path, key string, k *quantityKind, dst *r3.Vec) error {
+func (r *reader) optVector(o *node, path, key string, k *quantityKind, dst *r3.Vec) error {
 	if n := o.get(key); n != nil {
-		v, err := vector(n, join(path, key), k)
+		v, err := r.vector(n, join(path, key), k)
 		*dst = v
 		return err
 	}
+	return nil
+}
+
+// optDirection reads the optional direction key of o: three plain
+// numbers, not all zero (a zero direction given in the file is a slip;
+// leaving the member out gives its default).
+func optDirection(o *node, path, key string, dst *r3.Vec) error {
+	n := o.get(key)
+	if n == nil {
+		return nil
+	}
+	p := join(path, key)
+	v, err := (&reader{}).vector(n, p, nil)
+	if err != nil {
+		return err
+	}
+	if v == zeroVec {
+		return errorf(p, ErrDegenerate, "a zero vector is no direction; give a direction of any length, or leave %s out", key)
+	}
+	*dst = v
 	return nil
 }
 
@@ -225,8 +250,42 @@ func positive(v float64, path string) error {
 	return nil
 }
 
-// walk returns the design in the tree.
+// reader reads one design file's tree.
+type reader struct {
+	// plainSI reports whether a plain JSON number for a dimensioned
+	// quantity is read in its SI unit: always in format version 1, and
+	// in version 2 when the file declares "units": "si". Otherwise only
+	// a plain 0 is (it is zero in every unit).
+	plainSI bool
+}
+
+// topFields are the members of a design file, in the documented order.
+var topFields = []string{"format", "units", "name", "description", "balls", "seats",
+	"preloads", "payload", "cases", "tolerances", "point_of_interest", "axis",
+	"thermal", "friction", "monte_carlo", "requirements"}
+
+// walk returns the design in the tree, reading it member by member in
+// the documented order.
 func walk(root *node) (*Design, error) {
+	r, err := header(root)
+	if err != nil {
+		return nil, err
+	}
+	d := &Design{}
+	for _, step := range []func(*node, *Design) error{
+		r.readTexts, r.readCoupling, r.readLoads, r.readTolerances, r.readPoint,
+		r.readEnvironment, r.readRequirementsOf,
+	} {
+		if err := step(root, d); err != nil {
+			return nil, err
+		}
+	}
+	return d, nil
+}
+
+// header checks the root, the format and the units declaration, and
+// returns the reader for the file's version.
+func header(root *node) (*reader, error) {
 	if root.kind != objectNode {
 		return nil, errorf("", ErrType, "a design file is a JSON object, got %s", root.kind)
 	}
@@ -237,132 +296,182 @@ func walk(root *node) (*Design, error) {
 	if f.kind != stringNode {
 		return nil, errorf("format", ErrType, "must be a string such as %q, got %s", Format, f.kind)
 	}
-	if f.text != Format {
-		return nil, errorf("format", ErrVersion, "%q; this package reads %q", f.text, Format)
+	r := &reader{}
+	switch f.text {
+	case Format:
+	case formatV1:
+		r.plainSI = true
+	default:
+		return nil, errorf("format", ErrVersion, "%q; this package reads %q and %q", f.text, Format, formatV1)
 	}
-	if err := fields(root, "", "a design", "format", "name", "description", "balls", "seats",
-		"preloads", "payload", "cases", "tolerances", "point_of_interest", "axis",
-		"thermal", "friction", "monte_carlo", "requirements"); err != nil {
+	if err := fields(root, "", "a design", topFields...); err != nil {
 		return nil, err
 	}
-	d := &Design{}
+	if u := root.get("units"); u != nil {
+		if u.kind != stringNode {
+			return nil, errorf("units", ErrType, "must be the string \"si\", got %s", u.kind)
+		}
+		if u.text != "si" {
+			return nil, errorf("units", ErrRange, "%q; the only declaration is \"si\" (plain numbers in SI units: m, rad, N, Pa, kg, ...); "+
+				"for other units write each quantity with its unit, such as \"6.35 mm\"", u.text)
+		}
+		r.plainSI = true
+	}
+	return r, nil
+}
+
+// readTexts reads the name and the description.
+func (r *reader) readTexts(root *node, d *Design) error {
 	if err := optText(root, "", "name", maxText, &d.Name); err != nil {
-		return nil, err
+		return err
 	}
-	if err := optText(root, "", "description", maxText, &d.Description); err != nil {
-		return nil, err
-	}
+	return optText(root, "", "description", maxText, &d.Description)
+}
+
+// readCoupling reads the balls and their seats.
+func (r *reader) readCoupling(root *node, d *Design) error {
 	bs := root.get("balls")
 	if bs == nil {
-		return nil, errorf("balls", ErrMissing, "a design needs its balls")
+		return errorf("balls", ErrMissing, "a design needs its balls")
 	}
 	elems, err := list(bs, "balls", maxBalls)
 	if err != nil {
-		return nil, err
+		return err
 	}
 	for i, n := range elems {
-		b, err := readBall(n, index("balls", i))
+		b, err := r.readBall(n, index("balls", i))
 		if err != nil {
-			return nil, err
+			return err
 		}
 		d.Balls = append(d.Balls, b)
 	}
 	ss := root.get("seats")
 	if ss == nil {
-		return nil, errorf("seats", ErrMissing, "a design needs a seat for every ball")
+		return errorf("seats", ErrMissing, "a design needs a seat for every ball")
 	}
 	if elems, err = list(ss, "seats", maxBalls); err != nil {
-		return nil, err
+		return err
 	}
 	for i, n := range elems {
-		s, err := readSeat(n, index("seats", i))
+		s, err := r.readSeat(n, index("seats", i))
 		if err != nil {
-			return nil, err
+			return err
 		}
 		d.Seats = append(d.Seats, s)
 	}
+	return nil
+}
+
+// readLoads reads the preloads, the payload and the load cases.
+func (r *reader) readLoads(root *node, d *Design) error {
 	if n := root.get("preloads"); n != nil {
-		if elems, err = list(n, "preloads", maxPreloads); err != nil {
-			return nil, err
+		elems, err := list(n, "preloads", maxPreloads)
+		if err != nil {
+			return err
 		}
 		for i, n := range elems {
-			p, err := readPreload(n, index("preloads", i))
+			p, err := r.readPreload(n, index("preloads", i))
 			if err != nil {
-				return nil, err
+				return err
 			}
 			d.Preloads = append(d.Preloads, p)
 		}
 	}
 	if n := root.get("payload"); n != nil {
-		if d.Payload, err = readPayload(n, "payload"); err != nil {
-			return nil, err
+		var err error
+		if d.Payload, err = r.readPayload(n, "payload"); err != nil {
+			return err
 		}
 	}
 	if n := root.get("cases"); n != nil {
-		if elems, err = list(n, "cases", maxCases); err != nil {
-			return nil, err
+		elems, err := list(n, "cases", maxCases)
+		if err != nil {
+			return err
 		}
 		for i, n := range elems {
-			c, err := readCase(n, index("cases", i))
+			c, err := r.readCase(n, index("cases", i))
 			if err != nil {
-				return nil, err
+				return err
 			}
 			d.Cases = append(d.Cases, c)
 		}
 	}
-	if n := root.get("tolerances"); n != nil {
-		if elems, err = list(n, "tolerances", maxTolerances); err != nil {
-			return nil, err
-		}
-		if len(elems) > 0 {
-			d.Tolerances = make([]kinematic.Tolerance, 0, len(elems))
-		}
-		for i, n := range elems {
-			t, err := readTolerance(n, index("tolerances", i))
-			if err != nil {
-				return nil, err
-			}
-			d.Tolerances = append(d.Tolerances, t)
-		}
+	return nil
+}
+
+// readTolerances reads the tolerances.
+func (r *reader) readTolerances(root *node, d *Design) error {
+	n := root.get("tolerances")
+	if n == nil {
+		return nil
 	}
-	if err := optVector(root, "", "point_of_interest", length, &d.Point); err != nil {
-		return nil, err
+	elems, err := list(n, "tolerances", maxTolerances)
+	if err != nil {
+		return err
 	}
-	if err := optVector(root, "", "axis", nil, &d.Axis); err != nil {
-		return nil, err
+	if len(elems) > 0 {
+		d.Tolerances = make([]kinematic.Tolerance, 0, len(elems))
 	}
+	for i, n := range elems {
+		t, err := r.readTolerance(n, index("tolerances", i))
+		if err != nil {
+			return err
+		}
+		d.Tolerances = append(d.Tolerances, t)
+	}
+	return nil
+}
+
+// readPoint reads the point of interest and its axis.
+func (r *reader) readPoint(root *node, d *Design) error {
+	if err := r.optVector(root, "", "point_of_interest", length, &d.Point); err != nil {
+		return err
+	}
+	return optDirection(root, "", "axis", &d.Axis)
+}
+
+// readEnvironment reads the thermal change, the friction and the Monte
+// Carlo study.
+func (r *reader) readEnvironment(root *node, d *Design) error {
+	var err error
 	if n := root.get("thermal"); n != nil {
-		if d.Thermal, err = readThermal(n, "thermal"); err != nil {
-			return nil, err
+		if d.Thermal, err = r.readThermal(n, "thermal"); err != nil {
+			return err
 		}
 	}
 	if n := root.get("friction"); n != nil {
 		if err := fields(n, "friction", "friction", "mu"); err != nil {
-			return nil, err
+			return err
 		}
 		d.Friction = &Friction{}
 		m := n.get("mu")
 		if m == nil {
-			return nil, errorf("friction.mu", ErrMissing, "the coefficient of friction, a plain number")
+			return errorf("friction.mu", ErrMissing, "the coefficient of friction, a plain number")
 		}
 		if d.Friction.Mu, err = number(m, "friction.mu"); err != nil {
-			return nil, err
+			return err
 		}
 	}
 	if n := root.get("monte_carlo"); n != nil {
 		if d.MonteCarlo, err = readMonteCarlo(n, "monte_carlo"); err != nil {
-			return nil, err
+			return err
 		}
 	}
-	if n := root.get("requirements"); n != nil {
-		if d.Requirements, err = readRequirements(n, "requirements"); err != nil {
-			return nil, err
-		}
-	}
-	return d, nil
+	return nil
 }
 
-func readBall(n *node, path string) (Ball, error) {
+// readRequirementsOf reads the requirements.
+func (r *reader) readRequirementsOf(root *node, d *Design) error {
+	n := root.get("requirements")
+	if n == nil {
+		return nil
+	}
+	var err error
+	d.Requirements, err = r.readRequirements(n, "requirements")
+	return err
+}
+
+func (r *reader) readBall(n *node, path string) (Ball, error) {
 	var b Ball
 	if err := fields(n, path, "a ball", "name", "centre", "radius", "material"); err != nil {
 		return b, err
@@ -373,19 +482,19 @@ func readBall(n *node, path string) (Ball, error) {
 	if n.get("centre") == nil {
 		return b, errorf(join(path, "centre"), ErrMissing, "the ball's centre [x, y, z], lengths")
 	}
-	if err := optVector(n, path, "centre", length, &b.Centre); err != nil {
+	if err := r.optVector(n, path, "centre", length, &b.Centre); err != nil {
 		return b, err
 	}
-	if err := reqQuantity(n, path, "radius", length, &b.Radius); err != nil {
+	if err := r.reqQuantity(n, path, "radius", length, &b.Radius); err != nil {
 		return b, err
 	}
 	var err error
-	b.Material, err = readMaterialOf(n, path)
+	b.Material, err = r.readMaterialOf(n, path)
 	return b, err
 }
 
 // readMaterialOf reads the required member "material" of n.
-func readMaterialOf(n *node, path string) (hertz.Material, error) {
+func (r *reader) readMaterialOf(n *node, path string) (hertz.Material, error) {
 	m := n.get("material")
 	path = join(path, "material")
 	if m == nil {
@@ -406,7 +515,7 @@ func readMaterialOf(n *node, path string) (hertz.Material, error) {
 		if err := optText(m, path, "name", maxText, &mat.Name); err != nil {
 			return mat, err
 		}
-		if err := reqQuantity(m, path, "e", pressure, &mat.E); err != nil {
+		if err := r.reqQuantity(m, path, "e", pressure, &mat.E); err != nil {
 			return mat, err
 		}
 		if m.get("nu") == nil {
@@ -415,10 +524,10 @@ func readMaterialOf(n *node, path string) (hertz.Material, error) {
 		if err := optNumber(m, path, "nu", &mat.Nu); err != nil {
 			return mat, err
 		}
-		if err := optQuantity(m, path, "alpha", expansion, &mat.Alpha); err != nil {
+		if err := r.optQuantity(m, path, "alpha", expansion, &mat.Alpha); err != nil {
 			return mat, err
 		}
-		if err := optQuantity(m, path, "allowable", pressure, &mat.Allowable); err != nil {
+		if err := r.optQuantity(m, path, "allowable", pressure, &mat.Allowable); err != nil {
 			return mat, err
 		}
 		if err := optText(m, path, "source", maxText, &mat.Source); err != nil {
@@ -438,7 +547,7 @@ var seatFields = map[SeatType][]string{
 	Cone:      {"type", "up", "material", "half_angle", "toward"},
 }
 
-func readSeat(n *node, path string) (Seat, error) {
+func (r *reader) readSeat(n *node, path string) (Seat, error) {
 	s := Seat{Up: r3.Vec{Z: 1}}
 	if n.kind != objectNode {
 		return s, errorf(path, ErrType, "a seat is an object, got %s", n.kind)
@@ -462,21 +571,21 @@ func readSeat(n *node, path string) (Seat, error) {
 	if err := fields(n, path, "a "+tv+" seat", seatFields[s.Type]...); err != nil {
 		return s, err
 	}
-	if err := optVector(n, path, "up", nil, &s.Up); err != nil {
+	if err := optDirection(n, path, "up", &s.Up); err != nil {
 		return s, err
 	}
 	if s.Type != Flat {
-		if err := reqQuantity(n, path, "half_angle", angle, &s.HalfAngle); err != nil {
+		if err := r.reqQuantity(n, path, "half_angle", angle, &s.HalfAngle); err != nil {
 			return s, err
 		}
 	}
 	switch s.Type {
 	case Vee:
-		if err := optQuantity(n, path, "flank_radius", length, &s.FlankRadius); err != nil {
+		if err := r.optQuantity(n, path, "flank_radius", length, &s.FlankRadius); err != nil {
 			return s, err
 		}
 	case Rods:
-		if err := reqQuantity(n, path, "rod_radius", length, &s.RodRadius); err != nil {
+		if err := r.reqQuantity(n, path, "rod_radius", length, &s.RodRadius); err != nil {
 			return s, err
 		}
 	case Trihedral:
@@ -485,7 +594,7 @@ func readSeat(n *node, path string) (Seat, error) {
 		}
 		fallthrough
 	case Cone:
-		if err := optVector(n, path, "toward", nil, &s.Toward); err != nil {
+		if err := optDirection(n, path, "toward", &s.Toward); err != nil {
 			return s, err
 		}
 	}
@@ -499,11 +608,11 @@ func readSeat(n *node, path string) (Seat, error) {
 		case dir != nil && ref != nil:
 			return s, errorf(join(path, "reference"), ErrRange, "a reference goes with an azimuth, not with a direction")
 		case dir != nil:
-			if err := optVector(n, path, "direction", nil, &s.Direction); err != nil {
+			if err := optDirection(n, path, "direction", &s.Direction); err != nil {
 				return s, err
 			}
 		default:
-			if err := optQuantity(n, path, "azimuth", angle, &s.Azimuth); err != nil {
+			if err := r.optQuantity(n, path, "azimuth", angle, &s.Azimuth); err != nil {
 				return s, err
 			}
 			if ref != nil {
@@ -522,11 +631,11 @@ func readSeat(n *node, path string) (Seat, error) {
 			}
 		}
 	}
-	s.Material, err = readMaterialOf(n, path)
+	s.Material, err = r.readMaterialOf(n, path)
 	return s, err
 }
 
-func readPreload(n *node, path string) (kinematic.Preload, error) {
+func (r *reader) readPreload(n *node, path string) (kinematic.Preload, error) {
 	var p kinematic.Preload
 	if err := fields(n, path, "a preload", "name", "point", "direction", "force", "rate", "couple"); err != nil {
 		return p, err
@@ -534,32 +643,32 @@ func readPreload(n *node, path string) (kinematic.Preload, error) {
 	if err := optText(n, path, "name", maxName, &p.Name); err != nil {
 		return p, err
 	}
-	if err := optVector(n, path, "point", length, &p.Point); err != nil {
+	if err := r.optVector(n, path, "point", length, &p.Point); err != nil {
 		return p, err
 	}
-	if err := optVector(n, path, "direction", nil, &p.Direction); err != nil {
+	if err := optDirection(n, path, "direction", &p.Direction); err != nil {
 		return p, err
 	}
-	if err := optQuantity(n, path, "force", force, &p.Force); err != nil {
+	if err := r.optQuantity(n, path, "force", force, &p.Force); err != nil {
 		return p, err
 	}
-	if err := optQuantity(n, path, "rate", rate, &p.Rate); err != nil {
+	if err := r.optQuantity(n, path, "rate", rate, &p.Rate); err != nil {
 		return p, err
 	}
-	return p, optVector(n, path, "couple", moment, &p.Couple)
+	return p, r.optVector(n, path, "couple", moment, &p.Couple)
 }
 
 var inertiaKeys = [6]string{"xx", "yy", "zz", "xy", "xz", "yz"}
 
-func readPayload(n *node, path string) (kinematic.Payload, error) {
+func (r *reader) readPayload(n *node, path string) (kinematic.Payload, error) {
 	var p kinematic.Payload
 	if err := fields(n, path, "a payload", "mass", "centre", "inertia"); err != nil {
 		return p, err
 	}
-	if err := optQuantity(n, path, "mass", mass, &p.Mass); err != nil {
+	if err := r.optQuantity(n, path, "mass", mass, &p.Mass); err != nil {
 		return p, err
 	}
-	if err := optVector(n, path, "centre", length, &p.Centre); err != nil {
+	if err := r.optVector(n, path, "centre", length, &p.Centre); err != nil {
 		return p, err
 	}
 	in := n.get("inertia")
@@ -572,7 +681,7 @@ func readPayload(n *node, path string) (kinematic.Payload, error) {
 	}
 	for _, k := range inertiaKeys {
 		var v float64
-		if err := optQuantity(in, ip, k, inertia, &v); err != nil {
+		if err := r.optQuantity(in, ip, k, inertia, &v); err != nil {
 			return p, err
 		}
 		r, c := strings.IndexByte("xyz", k[0]), strings.IndexByte("xyz", k[1])
@@ -581,7 +690,7 @@ func readPayload(n *node, path string) (kinematic.Payload, error) {
 	return p, nil
 }
 
-func readCase(n *node, path string) (kinematic.LoadCase, error) {
+func (r *reader) readCase(n *node, path string) (kinematic.LoadCase, error) {
 	lc := kinematic.LoadCase{Preload: 1}
 	if err := fields(n, path, "a load case", "name", "preload", "gravity", "acceleration", "applied"); err != nil {
 		return lc, err
@@ -595,10 +704,10 @@ func readCase(n *node, path string) (kinematic.LoadCase, error) {
 	if err := optNumber(n, path, "preload", &lc.Preload); err != nil {
 		return lc, err
 	}
-	if err := optVector(n, path, "gravity", acceleration, &lc.Gravity); err != nil {
+	if err := r.optVector(n, path, "gravity", acceleration, &lc.Gravity); err != nil {
 		return lc, err
 	}
-	if err := optVector(n, path, "acceleration", acceleration, &lc.Acceleration); err != nil {
+	if err := r.optVector(n, path, "acceleration", acceleration, &lc.Acceleration); err != nil {
 		return lc, err
 	}
 	an := n.get("applied")
@@ -616,13 +725,13 @@ func readCase(n *node, path string) (kinematic.LoadCase, error) {
 			return lc, err
 		}
 		var f, at, m r3.Vec
-		if err := optVector(e, p, "force", force, &f); err != nil {
+		if err := r.optVector(e, p, "force", force, &f); err != nil {
 			return lc, err
 		}
-		if err := optVector(e, p, "point", length, &at); err != nil {
+		if err := r.optVector(e, p, "point", length, &at); err != nil {
 			return lc, err
 		}
-		if err := optVector(e, p, "moment", moment, &m); err != nil {
+		if err := r.optVector(e, p, "moment", moment, &m); err != nil {
 			return lc, err
 		}
 		// A force f through the point at and a couple m: the wrench
@@ -651,7 +760,7 @@ func dimensionKind(dim string) *quantityKind {
 	return length
 }
 
-func readTolerance(n *node, path string) (kinematic.Tolerance, error) {
+func (r *reader) readTolerance(n *node, path string) (kinematic.Tolerance, error) {
 	var t kinematic.Tolerance
 	if err := fields(n, path, "a tolerance", "dimension", "value", "distribution"); err != nil {
 		return t, err
@@ -669,7 +778,7 @@ func readTolerance(n *node, path string) (kinematic.Tolerance, error) {
 		return t, errorf(join(path, "value"), ErrMissing, "%s of %s in %s", t.Dimension, k.what, k.si)
 	}
 	var value float64
-	if err := optQuantity(n, path, "value", k, &value); err != nil {
+	if err := r.optQuantity(n, path, "value", k, &value); err != nil {
 		var e *Error
 		if errors.As(err, &e) && errors.Is(err, ErrUnit) {
 			e.Err = fmt.Errorf("%w (%s is %s)", e.Err, t.Dimension, k.what)
@@ -693,21 +802,21 @@ func readTolerance(n *node, path string) (kinematic.Tolerance, error) {
 	return t, nil
 }
 
-func readThermal(n *node, path string) (*kinematic.Thermal, error) {
+func (r *reader) readThermal(n *node, path string) (*kinematic.Thermal, error) {
 	th := &kinematic.Thermal{}
 	if err := fields(n, path, "a thermal change", "delta_t", "moving_alpha", "base_alpha", "base_ref"); err != nil {
 		return nil, err
 	}
-	if err := reqQuantity(n, path, "delta_t", temperature, &th.DeltaT); err != nil {
+	if err := r.reqQuantity(n, path, "delta_t", temperature, &th.DeltaT); err != nil {
 		return nil, err
 	}
-	if err := optQuantity(n, path, "moving_alpha", expansion, &th.Moving); err != nil {
+	if err := r.optQuantity(n, path, "moving_alpha", expansion, &th.Moving); err != nil {
 		return nil, err
 	}
-	if err := optQuantity(n, path, "base_alpha", expansion, &th.Base); err != nil {
+	if err := r.optQuantity(n, path, "base_alpha", expansion, &th.Base); err != nil {
 		return nil, err
 	}
-	if err := optVector(n, path, "base_ref", length, &th.BaseRef); err != nil {
+	if err := r.optVector(n, path, "base_ref", length, &th.BaseRef); err != nil {
 		return nil, err
 	}
 	return th, nil
@@ -753,135 +862,157 @@ func caseRef(n *node, path string, dst *string) error {
 	return optText(n, path, "case", maxName, dst)
 }
 
-func readRequirements(n *node, path string) (Requirements, error) {
-	var r Requirements
+// limit is a requirement's number: a quantity of kind, or a plain
+// number when kind is nil.
+type limit struct {
+	key  string
+	kind *quantityKind
+	dst  *float64
+}
+
+// readLimit reads the limit l of the object n at path, if present; it
+// must be > 0.
+func (r *reader) readLimit(n *node, path string, l limit) error {
+	m := n.get(l.key)
+	if m == nil {
+		return nil
+	}
+	p := join(path, l.key)
+	var err error
+	if l.kind == nil {
+		*l.dst, err = number(m, p)
+	} else {
+		*l.dst, err = r.quantity(m, p, l.kind)
+	}
+	if err != nil {
+		return err
+	}
+	return positive(*l.dst, p)
+}
+
+func (r *reader) readRequirements(n *node, path string) (Requirements, error) {
+	var q Requirements
 	if err := fields(n, path, "a requirements object", "min_maxwell_index", "max_pressure_ratio", "min_contact_force",
 		"min_shock", "min_frequency", "max_error", "max_study", "max_thermal_drift", "seating"); err != nil {
-		return r, err
-	}
-	type limit struct {
-		key  string
-		kind *quantityKind // nil: a plain number
-		dst  *float64
+		return q, err
 	}
 	for _, l := range []limit{
-		{"min_maxwell_index", nil, &r.MinMaxwellIndex},
-		{"max_pressure_ratio", nil, &r.MaxPressureRatio},
-		{"min_contact_force", force, &r.MinContactForce},
-		{"max_thermal_drift", length, &r.MaxThermalDrift},
+		{"min_maxwell_index", nil, &q.MinMaxwellIndex},
+		{"max_pressure_ratio", nil, &q.MaxPressureRatio},
+		{"min_contact_force", force, &q.MinContactForce},
+		{"max_thermal_drift", length, &q.MaxThermalDrift},
 	} {
-		m := n.get(l.key)
-		if m == nil {
-			continue
+		if err := r.readLimit(n, path, l); err != nil {
+			return q, err
 		}
-		p := join(path, l.key)
+	}
+	for _, step := range []func(*node, string, *Requirements) error{
+		r.readShock, r.readFrequency, r.readMaxError, r.readMaxStudy, readSeating,
+	} {
+		if err := step(n, path, &q); err != nil {
+			return q, err
+		}
+	}
+	return q, nil
+}
+
+// readLimitCase reads a requirement object {key: limit, "case": name}
+// of the requirements at path.
+func (r *reader) readLimitCase(n *node, path, name, what, key string, k *quantityKind, dst *float64, c *string) error {
+	m := n.get(name)
+	if m == nil {
+		return nil
+	}
+	p := join(path, name)
+	if err := fields(m, p, what, key, "case"); err != nil {
+		return err
+	}
+	if m.get(key) == nil {
+		return errorf(join(p, key), ErrMissing, "%s in %s", k.what, k.si)
+	}
+	if err := r.readLimit(m, p, limit{key, k, dst}); err != nil {
+		return err
+	}
+	return caseRef(m, p, c)
+}
+
+func (r *reader) readShock(n *node, path string, q *Requirements) error {
+	return r.readLimitCase(n, path, "min_shock", "a shock requirement", "level", acceleration, &q.MinShock, &q.ShockCase)
+}
+
+func (r *reader) readFrequency(n *node, path string, q *Requirements) error {
+	return r.readLimitCase(n, path, "min_frequency", "a frequency requirement", "limit", frequency, &q.MinFrequency, &q.FrequencyCase)
+}
+
+func (r *reader) readMaxError(n *node, path string, q *Requirements) error {
+	m := n.get("max_error")
+	if m == nil {
+		return nil
+	}
+	p := join(path, "max_error")
+	if err := fields(m, p, "an error requirement", "worst_case", "rss", "along_axis"); err != nil {
+		return err
+	}
+	if m.get("worst_case") == nil && m.get("rss") == nil {
+		return errorf(join(p, "worst_case"), ErrMissing, "an error requirement needs worst_case, rss or both (lengths)")
+	}
+	for _, l := range []limit{{"worst_case", length, &q.MaxWorst}, {"rss", length, &q.MaxRSS}} {
+		if err := r.readLimit(m, p, l); err != nil {
+			return err
+		}
+	}
+	if a := m.get("along_axis"); a != nil {
 		var err error
-		if l.kind == nil {
-			*l.dst, err = number(m, p)
-		} else {
-			*l.dst, err = quantity(m, p, l.kind)
-		}
-		if err != nil {
-			return r, err
-		}
-		if err := positive(*l.dst, p); err != nil {
-			return r, err
+		if q.AlongAxis, err = boolean(a, join(p, "along_axis")); err != nil {
+			return err
 		}
 	}
-	if m := n.get("min_shock"); m != nil {
-		p := join(path, "min_shock")
-		if err := fields(m, p, "a shock requirement", "level", "case"); err != nil {
-			return r, err
-		}
-		if err := reqQuantity(m, p, "level", acceleration, &r.MinShock); err != nil {
-			return r, err
-		}
-		if err := positive(r.MinShock, join(p, "level")); err != nil {
-			return r, err
-		}
-		if err := caseRef(m, p, &r.ShockCase); err != nil {
-			return r, err
+	return nil
+}
+
+func (r *reader) readMaxStudy(n *node, path string, q *Requirements) error {
+	m := n.get("max_study")
+	if m == nil {
+		return nil
+	}
+	p := join(path, "max_study")
+	if err := fields(m, p, "a Monte Carlo requirement", "limit", "percentile"); err != nil {
+		return err
+	}
+	if m.get("limit") == nil {
+		return errorf(join(p, "limit"), ErrMissing, "%s in %s", length.what, length.si)
+	}
+	if err := r.readLimit(m, p, limit{"limit", length, &q.MaxStudy}); err != nil {
+		return err
+	}
+	pn := m.get("percentile")
+	if pn == nil {
+		return nil
+	}
+	v, err := text(pn, join(p, "percentile"), maxName)
+	if err != nil {
+		return err
+	}
+	for i, name := range percentileNames {
+		if name == v {
+			q.StudyPercentile = Percentile(i)
+			return nil
 		}
 	}
-	if m := n.get("min_frequency"); m != nil {
-		p := join(path, "min_frequency")
-		if err := fields(m, p, "a frequency requirement", "limit", "case"); err != nil {
-			return r, err
-		}
-		if err := reqQuantity(m, p, "limit", frequency, &r.MinFrequency); err != nil {
-			return r, err
-		}
-		if err := positive(r.MinFrequency, join(p, "limit")); err != nil {
-			return r, err
-		}
-		if err := caseRef(m, p, &r.FrequencyCase); err != nil {
-			return r, err
-		}
+	return errorf(join(p, "percentile"), ErrRange, "%q; must be one of \"p50\", \"p95\", \"p99\", \"p99.73\"", v)
+}
+
+func readSeating(n *node, path string, q *Requirements) error {
+	m := n.get("seating")
+	if m == nil {
+		return nil
 	}
-	if m := n.get("max_error"); m != nil {
-		p := join(path, "max_error")
-		if err := fields(m, p, "an error requirement", "worst_case", "rss", "along_axis"); err != nil {
-			return r, err
-		}
-		if m.get("worst_case") == nil && m.get("rss") == nil {
-			return r, errorf(join(p, "worst_case"), ErrMissing, "an error requirement needs worst_case, rss or both (lengths)")
-		}
-		for _, l := range []limit{{"worst_case", length, &r.MaxWorst}, {"rss", length, &r.MaxRSS}} {
-			if m.get(l.key) == nil {
-				continue
-			}
-			if err := optQuantity(m, p, l.key, length, l.dst); err != nil {
-				return r, err
-			}
-			if err := positive(*l.dst, join(p, l.key)); err != nil {
-				return r, err
-			}
-		}
-		if a := m.get("along_axis"); a != nil {
-			var err error
-			if r.AlongAxis, err = boolean(a, join(p, "along_axis")); err != nil {
-				return r, err
-			}
-		}
+	p := join(path, "seating")
+	if err := fields(m, p, "a seating requirement", "case"); err != nil {
+		return err
 	}
-	if m := n.get("max_study"); m != nil {
-		p := join(path, "max_study")
-		if err := fields(m, p, "a Monte Carlo requirement", "limit", "percentile"); err != nil {
-			return r, err
-		}
-		if err := reqQuantity(m, p, "limit", length, &r.MaxStudy); err != nil {
-			return r, err
-		}
-		if err := positive(r.MaxStudy, join(p, "limit")); err != nil {
-			return r, err
-		}
-		if pn := m.get("percentile"); pn != nil {
-			v, err := text(pn, join(p, "percentile"), maxName)
-			if err != nil {
-				return r, err
-			}
-			found := false
-			for i, name := range percentileNames {
-				if name == v {
-					r.StudyPercentile, found = Percentile(i), true
-				}
-			}
-			if !found {
-				return r, errorf(join(p, "percentile"), ErrRange, "%q; must be one of \"p50\", \"p95\", \"p99\", \"p99.73\"", v)
-			}
-		}
-	}
-	if m := n.get("seating"); m != nil {
-		p := join(path, "seating")
-		if err := fields(m, p, "a seating requirement", "case"); err != nil {
-			return r, err
-		}
-		r.Homing = true
-		if err := caseRef(m, p, &r.HomingCase); err != nil {
-			return r, err
-		}
-	}
-	return r, nil
+	q.Homing = true
+	return caseRef(m, p, &q.HomingCase)
 }
 
 // finite reports whether every component of v is finite.

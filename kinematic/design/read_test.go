@@ -36,10 +36,10 @@ func TestMalformed(t *testing.T) {
 		{"bad token", `{"format": "sixfold.design/1",, }`, "", ErrSyntax, "line 1, column"},
 		{"trailing data", baseJSON + "{}", "", ErrSyntax, "more data after"},
 		{"not an object", `[1, 2, 3]`, "", ErrType, "a design file is a JSON object, got an array"},
-		{"no format", edit(t, del("format")), "format", ErrMissing, `"format": "sixfold.design/1"`},
-		{"future format", edit(t, set("format", "sixfold.design/2")), "format", ErrVersion, `"sixfold.design/2"; this package reads "sixfold.design/1"`},
+		{"no format", edit(t, del("format")), "format", ErrMissing, `"format": "sixfold.design/2"`},
+		{"future format", edit(t, set("format", "sixfold.design/3")), "format", ErrVersion, `"sixfold.design/3"; this package reads "sixfold.design/2" and "sixfold.design/1"`},
 		{"format number", edit(t, set("format", 1)), "format", ErrType, "must be a string"},
-		{"unknown member", edit(t, set("colour", "blue")), "colour", ErrUnknownField, "a design has the fields format, name"},
+		{"unknown member", edit(t, set("colour", "blue")), "colour", ErrUnknownField, "a design has the fields format, units, name"},
 		{"too deep", edit(t, set("description", deep(20))), "description[0][0][0][0][0][0][0][0][0][0][0][0][0][0][0][0]", ErrTooLarge, "nested more than 16 deep"},
 
 		// Balls.

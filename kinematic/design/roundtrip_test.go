@@ -76,7 +76,8 @@ func TestCanonicalForm(t *testing.T) {
 	}
 	out := string(roundTrip(t, d))
 	for _, want := range []string{
-		`"format": "sixfold.design/1"`,
+		`"format": "sixfold.design/2"`,
+		`"units": "si"`,
 		`"radius": 0.004`,                  // "4 mm"
 		`"material": "silicon-nitride"`,    // a table entry, by key
 		`"e": 210000000000`,                // "210 GPa", inline

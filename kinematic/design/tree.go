@@ -6,6 +6,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"unicode/utf8"
 )
 
 // The reader first turns the file into a tree of nodes, with its own
@@ -68,6 +69,11 @@ type treeBuilder struct {
 	dec    *json.Decoder
 	data   []byte
 	tokens int
+
+	// badUTF8 reports whether the file holds bytes that are not UTF-8,
+	// which the decoder would silently replace with U+FFFD; the strings
+	// are then checked one by one to name the one at fault.
+	badUTF8 bool
 }
 
 // parseTree returns the tree of the JSON document b.
@@ -77,7 +83,7 @@ func parseTree(b []byte) (*node, error) {
 	}
 	dec := json.NewDecoder(bytes.NewReader(b))
 	dec.UseNumber()
-	t := &treeBuilder{dec: dec, data: b}
+	t := &treeBuilder{dec: dec, data: b, badUTF8: !utf8.Valid(b)}
 	n, err := t.value("", 0)
 	if err != nil {
 		return nil, err
@@ -97,9 +103,13 @@ func (t *treeBuilder) value(path string, depth int) (*node, error) {
 	if t.tokens > maxTokens {
 		return nil, errorf(path, ErrTooLarge, "more than %d JSON values in the file", maxTokens)
 	}
+	start := t.dec.InputOffset()
 	tok, err := t.dec.Token()
 	if err != nil {
 		return nil, t.syntax(err, path)
+	}
+	if err := t.checkUTF8(start, path); err != nil {
+		return nil, err
 	}
 	switch v := tok.(type) {
 	case nil:
@@ -128,9 +138,13 @@ func (t *treeBuilder) object(path string, depth int) (*node, error) {
 		if t.tokens > maxTokens {
 			return nil, errorf(path, ErrTooLarge, "more than %d JSON values in the file", maxTokens)
 		}
+		start := t.dec.InputOffset()
 		tok, err := t.dec.Token()
 		if err != nil {
 			return nil, t.syntax(err, path)
+		}
+		if err := t.checkUTF8(start, path); err != nil {
+			return nil, err
 		}
 		key, _ := tok.(string) // the decoder allows only strings here
 		for _, k := range n.keys {
@@ -167,6 +181,29 @@ func (t *treeBuilder) array(path string, depth int) (*node, error) {
 		return nil, t.syntax(err, path)
 	}
 	return n, nil
+}
+
+// checkUTF8 returns an error at path if the token read from the byte
+// offset start holds bytes that are not UTF-8. A JSON text exchanged
+// between systems is UTF-8 (RFC 8259, §8.1).
+func (t *treeBuilder) checkUTF8(start int64, path string) error {
+	if !t.badUTF8 {
+		return nil
+	}
+	end := min(t.dec.InputOffset(), int64(len(t.data)))
+	tok := t.data[start:end]
+	if utf8.Valid(tok) {
+		return nil
+	}
+	off := start
+	for len(tok) > 0 {
+		r, size := utf8.DecodeRune(tok)
+		if r == utf8.RuneError && size <= 1 {
+			break
+		}
+		tok, off = tok[size:], off+int64(size)
+	}
+	return errorf(path, ErrSyntax, "%s: byte 0x%02x is not UTF-8; a design file is UTF-8 text", t.where(off), t.data[off])
 }
 
 // syntax returns the decoder's error err, met while reading the value at

@@ -32,6 +32,21 @@ type quantityKind struct {
 	what  string // "a length"
 	si    string // "m"
 	units []unit
+	hints []string // the units a bare number most likely meant, for messages
+}
+
+// suggest returns the number num written with the kind's likely units,
+// for a message about a bare number: "\"45 deg\" or \"45 rad\"".
+func (k *quantityKind) suggest(num string) string {
+	hints := k.hints
+	if len(hints) == 0 {
+		hints = []string{k.si}
+	}
+	q := make([]string, len(hints))
+	for i, h := range hints {
+		q[i] = strconv.Quote(num + " " + h)
+	}
+	return strings.Join(q, " or ")
 }
 
 // deg, arcmin and arcsec are in radians: the SI Brochure, 9th ed. (2019),
@@ -46,51 +61,51 @@ const (
 // (2019), Table 7: c 10⁻², m 10⁻³, µ 10⁻⁶ (written u, µ U+00B5 or
 // μ U+03BC), n 10⁻⁹, k 10³, M 10⁶, G 10⁹.
 var (
-	length = &quantityKind{what: "a length", si: "m", units: []unit{
+	length = &quantityKind{what: "a length", si: "m", hints: []string{"mm", "m"}, units: []unit{
 		{name: "m"}, {name: "cm", pow10: -2}, {name: "mm", pow10: -3},
 		{name: "um", pow10: -6}, {name: "µm", pow10: -6}, {name: "μm", pow10: -6},
 		{name: "nm", pow10: -9},
 	}}
-	angle = &quantityKind{what: "an angle", si: "rad", units: []unit{
+	angle = &quantityKind{what: "an angle", si: "rad", hints: []string{"deg", "rad"}, units: []unit{
 		{name: "rad"}, {name: "mrad", pow10: -3},
 		{name: "urad", pow10: -6}, {name: "µrad", pow10: -6}, {name: "μrad", pow10: -6},
 		{name: "deg", factor: radPerDeg}, {name: "°", factor: radPerDeg},
 		{name: "arcmin", factor: radPerArcmin}, {name: "arcsec", factor: radPerArcsec},
 	}}
-	force = &quantityKind{what: "a force", si: "N", units: []unit{
+	force = &quantityKind{what: "a force", si: "N", hints: []string{"N"}, units: []unit{
 		{name: "N"}, {name: "mN", pow10: -3}, {name: "kN", pow10: 3},
 	}}
-	rate = &quantityKind{what: "a spring rate", si: "N/m", units: []unit{
+	rate = &quantityKind{what: "a spring rate", si: "N/m", hints: []string{"N/mm", "N/m"}, units: []unit{
 		{name: "N/m"}, {name: "kN/m", pow10: 3}, {name: "N/mm", pow10: 3},
 		{name: "kN/mm", pow10: 6}, {name: "N/um", pow10: 6}, {name: "N/µm", pow10: 6}, {name: "N/μm", pow10: 6},
 	}}
-	moment = &quantityKind{what: "a moment", si: "N m", units: []unit{
+	moment = &quantityKind{what: "a moment", si: "N m", hints: []string{"N mm", "N m"}, units: []unit{
 		{name: "N m"}, {name: "N mm", pow10: -3}, {name: "kN m", pow10: 3},
 	}}
-	pressure = &quantityKind{what: "a pressure or modulus", si: "Pa", units: []unit{
+	pressure = &quantityKind{what: "a pressure or modulus", si: "Pa", hints: []string{"MPa", "GPa"}, units: []unit{
 		{name: "Pa"}, {name: "kPa", pow10: 3}, {name: "MPa", pow10: 6}, {name: "GPa", pow10: 9},
 	}}
-	mass = &quantityKind{what: "a mass", si: "kg", units: []unit{
+	mass = &quantityKind{what: "a mass", si: "kg", hints: []string{"g", "kg"}, units: []unit{
 		{name: "kg"}, {name: "g", pow10: -3}, {name: "mg", pow10: -6},
 	}}
-	inertia = &quantityKind{what: "a moment of inertia", si: "kg m^2", units: []unit{
+	inertia = &quantityKind{what: "a moment of inertia", si: "kg m^2", hints: []string{"kg mm^2", "kg m^2"}, units: []unit{
 		{name: "kg m^2"}, {name: "kg cm^2", pow10: -4}, {name: "kg mm^2", pow10: -6},
 		{name: "g cm^2", pow10: -7}, {name: "g mm^2", pow10: -9},
 	}}
 	// The standard acceleration of free fall, g = 9.80665 m/s² exactly,
 	// was declared by the 3rd CGPM (1901); kinematic.StandardGravity.
-	acceleration = &quantityKind{what: "an acceleration", si: "m/s^2", units: []unit{
+	acceleration = &quantityKind{what: "an acceleration", si: "m/s^2", hints: []string{"g", "m/s^2"}, units: []unit{
 		{name: "m/s^2"}, {name: "mm/s^2", pow10: -3}, {name: "g", factor: kinematic.StandardGravity},
 	}}
-	temperature = &quantityKind{what: "a temperature difference", si: "K", units: []unit{
+	temperature = &quantityKind{what: "a temperature difference", si: "K", hints: []string{"K"}, units: []unit{
 		{name: "K"}, {name: "mK", pow10: -3},
 	}}
 	// ppm/K is 10⁻⁶/K; the SI Brochure (9th ed., §5.4.7) advises against
 	// "ppm", but data sheets give expansion coefficients in it.
-	expansion = &quantityKind{what: "an expansion coefficient", si: "1/K", units: []unit{
+	expansion = &quantityKind{what: "an expansion coefficient", si: "1/K", hints: []string{"ppm/K", "1/K"}, units: []unit{
 		{name: "1/K"}, {name: "/K"}, {name: "ppm/K", pow10: -6},
 	}}
-	frequency = &quantityKind{what: "a frequency", si: "Hz", units: []unit{
+	frequency = &quantityKind{what: "a frequency", si: "Hz", hints: []string{"Hz"}, units: []unit{
 		{name: "Hz"}, {name: "kHz", pow10: 3},
 	}}
 )

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"strings"
+	"unicode/utf8"
 
 	"gonum.org/v1/gonum/spatial/r3"
 
@@ -269,9 +270,13 @@ func checkLength(v float64, path string) error {
 	return nil
 }
 
+// checkText checks a text of at most max bytes of UTF-8.
 func checkText(s, path string, max int) error {
 	if len(s) > max {
 		return errorf(path, ErrTooLarge, "%d bytes; at most %d", len(s), max)
+	}
+	if !utf8.ValidString(s) {
+		return errorf(path, ErrRange, "not valid UTF-8 text")
 	}
 	return nil
 }
@@ -377,10 +382,29 @@ func (s Seat) check(path string, r float64) error {
 	return checkMaterial(s.Material, join(path, "material"))
 }
 
-// checkPayload checks what the file cannot express: an inertia tensor
-// that is not exactly symmetric (the file holds six entries). The rest is
-// kinematic.NewModel's to check.
+// checkPayload checks the mass and the numbers of the payload, which the
+// requirements rely on, and what the file cannot express: an inertia
+// tensor that is not exactly symmetric (the file holds six entries). The
+// rest (a positive definite tensor) is kinematic.NewModel's to check.
 func checkPayload(p kinematic.Payload) error {
+	// The requirements check whether the payload has a mass; a negative
+	// or non-finite mass must be blamed on payload.mass first.
+	if math.IsNaN(p.Mass) || math.IsInf(p.Mass, 0) {
+		return errorf("payload.mass", ErrNonFinite, "%g", p.Mass)
+	}
+	if p.Mass < 0 {
+		return errorf("payload.mass", ErrRange, "must be a mass ≥ 0, got %g kg", p.Mass)
+	}
+	if !finite(p.Centre) {
+		return errorf("payload.centre", ErrNonFinite, "%v", p.Centre)
+	}
+	for r := range 3 {
+		for c := r; c < 3; c++ {
+			if v := p.Inertia[r][c]; math.IsNaN(v) || math.IsInf(v, 0) {
+				return errorf(join("payload.inertia", inertiaKey(r, c)), ErrNonFinite, "%g", v)
+			}
+		}
+	}
 	for r := range 3 {
 		for c := r + 1; c < 3; c++ {
 			if p.Inertia[r][c] != p.Inertia[c][r] && !(math.IsNaN(p.Inertia[r][c]) && math.IsNaN(p.Inertia[c][r])) {
@@ -401,8 +425,9 @@ func (d *Design) checkCases() error {
 		switch {
 		case lc.Name == "":
 			return errorf(join(p, "name"), ErrMissing, "a load case needs a name")
-		case len(lc.Name) > maxName:
-			return errorf(join(p, "name"), ErrTooLarge, "%d bytes; at most %d", len(lc.Name), maxName)
+		}
+		if err := checkText(lc.Name, join(p, "name"), maxName); err != nil {
+			return err
 		}
 		if j, dup := names[lc.Name]; dup {
 			return errorf(join(p, "name"), ErrRange, "%q is also the name of cases[%d]", lc.Name, j)
@@ -446,9 +471,28 @@ func (d *Design) caseIndex(name string) int {
 	return -1
 }
 
+// checkRequirements checks the requirements' limits and that the design
+// holds what each requirement needs. The design's own entries are checked
+// before (check), so a prerequisite that is missing here is the
+// requirement's fault, not a bad value elsewhere.
 func (d *Design) checkRequirements() error {
-	r := d.Requirements
-	const p = "requirements"
+	if err := d.Requirements.checkLimits(); err != nil {
+		return err
+	}
+	for _, step := range []func() error{d.needLoads, d.needPayload, d.needStudies} {
+		if err := step(); err != nil {
+			return err
+		}
+	}
+	return nil
+}
+
+// reqPath is the path of the requirements object.
+const reqPath = "requirements"
+
+// checkLimits checks that every limit is finite and ≥ 0 (0: not set),
+// and that no part of a requirement is set without its limit.
+func (r Requirements) checkLimits() error {
 	for _, l := range []struct {
 		path string
 		v    float64
@@ -464,11 +508,11 @@ func (d *Design) checkRequirements() error {
 		{"max_thermal_drift", r.MaxThermalDrift},
 	} {
 		if !(l.v >= 0) || math.IsInf(l.v, 0) {
-			return errorf(join(p, l.path), ErrRange, "a limit must be finite and > 0 (0: not set), got %g", l.v)
+			return errorf(join(reqPath, l.path), ErrRange, "a limit must be finite and > 0 (0: not set), got %g", l.v)
 		}
 	}
 	if r.MinMaxwellIndex > 1 {
-		return errorf(join(p, "min_maxwell_index"), ErrRange, "a Maxwell index lies in [0, 1], got %g", r.MinMaxwellIndex)
+		return errorf(join(reqPath, "min_maxwell_index"), ErrRange, "a Maxwell index lies in [0, 1], got %g", r.MinMaxwellIndex)
 	}
 	// A case named without its requirement, or a percentile without its
 	// limit, has no place in the file.
@@ -484,76 +528,100 @@ func (d *Design) checkRequirements() error {
 		{"max_error.along_axis", r.AlongAxis, r.MaxWorst > 0 || r.MaxRSS > 0},
 	} {
 		if o.set && !o.parent {
-			return errorf(join(p, o.path), ErrRange, "set without the requirement's limit")
+			return errorf(join(reqPath, o.path), ErrRange, "set without the requirement's limit")
 		}
 	}
 	if r.StudyPercentile < P99 || r.StudyPercentile > P9973 {
-		return errorf(join(p, "max_study.percentile"), ErrRange, "unknown percentile %d", int(r.StudyPercentile))
+		return errorf(join(reqPath, "max_study.percentile"), ErrRange, "unknown percentile %d", int(r.StudyPercentile))
 	}
-	needCase := func(path, name string) error {
-		if len(d.Cases) == 0 {
-			return errorf(join(p, path), ErrMissing, "the requirement needs a load case; the design has none")
-		}
-		if d.caseIndex(name) < 0 {
-			return errorf(join(p, path), ErrRange, "no load case named %q", name)
-		}
-		return nil
+	return nil
+}
+
+// needCase returns an error at the requirement's path unless the design
+// has the load case name ("" the first).
+func (d *Design) needCase(path, name string) error {
+	if len(d.Cases) == 0 {
+		return errorf(join(reqPath, path), ErrMissing, "the requirement needs a load case; the design has none")
 	}
+	if d.caseIndex(name) < 0 {
+		return errorf(join(reqPath, path), ErrRange, "no load case named %q", name)
+	}
+	return nil
+}
+
+// needLoads checks the prerequisites of the requirements on the load
+// cases: a case, and an allowable for the pressure ratio.
+func (d *Design) needLoads() error {
+	r := d.Requirements
 	if r.MaxPressureRatio > 0 {
-		if err := needCase("max_pressure_ratio", ""); err != nil {
+		if err := d.needCase("max_pressure_ratio", ""); err != nil {
 			return err
 		}
 		for i, b := range d.Balls {
 			if b.Material.Allowable == 0 && d.Seats[i].Material.Allowable == 0 {
-				return errorf(join(p, "max_pressure_ratio"), ErrMissing, "neither balls[%d].material nor seats[%d].material has an allowable pressure", i, i)
+				return errorf(join(reqPath, "max_pressure_ratio"), ErrMissing, "neither balls[%d].material nor seats[%d].material has an allowable pressure", i, i)
 			}
 		}
 	}
 	if r.MinContactForce > 0 {
-		if err := needCase("min_contact_force", ""); err != nil {
+		if err := d.needCase("min_contact_force", ""); err != nil {
 			return err
 		}
-	}
-	if r.MinShock > 0 {
-		if err := needCase("min_shock.case", r.ShockCase); err != nil {
-			return err
-		}
-		if !(d.Payload.Mass > 0) {
-			return errorf(join(p, "min_shock"), ErrMissing, "a shock level needs the payload's mass")
-		}
-	}
-	if r.MinFrequency > 0 {
-		if err := needCase("min_frequency.case", r.FrequencyCase); err != nil {
-			return err
-		}
-		if !(d.Payload.Mass > 0) || d.Payload.Inertia == ([3][3]float64{}) {
-			return errorf(join(p, "min_frequency"), ErrMissing, "natural frequencies need the payload's mass and inertia")
-		}
-	}
-	if (r.MaxWorst > 0 || r.MaxRSS > 0) && len(d.Tolerances) == 0 {
-		return errorf(join(p, "max_error"), ErrMissing, "an error budget needs tolerances")
-	}
-	if r.AlongAxis && d.Axis == zeroVec {
-		return errorf(join(p, "max_error.along_axis"), ErrMissing, "the design has no axis")
-	}
-	if r.MaxStudy > 0 {
-		if len(d.Tolerances) == 0 {
-			return errorf(join(p, "max_study"), ErrMissing, "a Monte Carlo study needs tolerances")
-		}
-		if d.MonteCarlo == nil {
-			return errorf(join(p, "max_study"), ErrMissing, "a Monte Carlo study needs monte_carlo (samples)")
-		}
-	}
-	if r.MaxThermalDrift > 0 && d.Thermal == nil {
-		return errorf(join(p, "max_thermal_drift"), ErrMissing, "a thermal drift needs thermal (delta_t)")
 	}
 	if r.Homing {
-		if err := needCase("seating.case", r.HomingCase); err != nil {
+		if err := d.needCase("seating.case", r.HomingCase); err != nil {
 			return err
 		}
 		if d.Friction == nil {
-			return errorf(join(p, "seating"), ErrMissing, "seating needs friction (mu)")
+			return errorf(join(reqPath, "seating"), ErrMissing, "seating needs friction (mu)")
 		}
+	}
+	return nil
+}
+
+// needPayload checks the prerequisites of the shock and frequency
+// requirements: a case and the payload's mass (and inertia).
+func (d *Design) needPayload() error {
+	r := d.Requirements
+	if r.MinShock > 0 {
+		if err := d.needCase("min_shock.case", r.ShockCase); err != nil {
+			return err
+		}
+		if !(d.Payload.Mass > 0) {
+			return errorf(join(reqPath, "min_shock"), ErrMissing, "a shock level needs the payload's mass (payload.mass is 0)")
+		}
+	}
+	if r.MinFrequency > 0 {
+		if err := d.needCase("min_frequency.case", r.FrequencyCase); err != nil {
+			return err
+		}
+		if !(d.Payload.Mass > 0) || d.Payload.Inertia == ([3][3]float64{}) {
+			return errorf(join(reqPath, "min_frequency"), ErrMissing, "natural frequencies need the payload's mass and inertia")
+		}
+	}
+	return nil
+}
+
+// needStudies checks the prerequisites of the error, study and drift
+// requirements.
+func (d *Design) needStudies() error {
+	r := d.Requirements
+	if (r.MaxWorst > 0 || r.MaxRSS > 0) && len(d.Tolerances) == 0 {
+		return errorf(join(reqPath, "max_error"), ErrMissing, "an error budget needs tolerances")
+	}
+	if r.AlongAxis && d.Axis == zeroVec {
+		return errorf(join(reqPath, "max_error.along_axis"), ErrMissing, "the design has no axis")
+	}
+	if r.MaxStudy > 0 {
+		if len(d.Tolerances) == 0 {
+			return errorf(join(reqPath, "max_study"), ErrMissing, "a Monte Carlo study needs tolerances")
+		}
+		if d.MonteCarlo == nil {
+			return errorf(join(reqPath, "max_study"), ErrMissing, "a Monte Carlo study needs monte_carlo (samples)")
+		}
+	}
+	if r.MaxThermalDrift > 0 && d.Thermal == nil {
+		return errorf(join(reqPath, "max_thermal_drift"), ErrMissing, "a thermal drift needs thermal (delta_t)")
 	}
 	return nil
 }

@@ -12,9 +12,9 @@ import (
 	"github.com/sixfold-dev/sixfold/kinematic"
 )
 
-// Write writes the design in the canonical form of the format: plain SI
-// numbers (each the shortest decimal that reads back as the same
-// float64), members in the order of the format's documentation, material
+// Write writes the design in the canonical form of the format: the
+// current version with the declaration "units": "si" and plain SI numbers
+// (each the shortest decimal that reads back as the same float64), members in the order of the format's documentation, material
 // keys for materials equal to a table entry, optional members left out
 // when they are zero, two-space indentation with short objects and
 // vectors on one line. Reading what Write wrote
@@ -60,6 +60,7 @@ func optVec(v r3.Vec) *vec {
 
 type wireDesign struct {
 	Format       string            `json:"format"`
+	Units        string            `json:"units"`
 	Name         string            `json:"name,omitempty"`
 	Description  string            `json:"description,omitempty"`
 	Balls        []wireBall        `json:"balls"`
@@ -211,7 +212,7 @@ func ptr(v float64) *float64 { return &v }
 
 // wire returns the canonical file of a valid design.
 func (d *Design) wire() wireDesign {
-	w := wireDesign{Format: Format, Name: d.Name, Description: d.Description, Point: wireVec(d.Point), Axis: optVec(d.Axis)}
+	w := wireDesign{Format: Format, Units: "si", Name: d.Name, Description: d.Description, Point: wireVec(d.Point), Axis: optVec(d.Axis)}
 	for _, b := range d.Balls {
 		w.Balls = append(w.Balls, wireBall{Name: b.Name, Centre: wireVec(b.Centre), Radius: b.Radius, Material: wireMat(b.Material)})
 	}
