@@ -14,7 +14,9 @@ import (
 func TestImpossibleGeometry(t *testing.T) {
 	vee := func(dx, dy float64) Vee { return Vee{Direction: r3.Vec{X: dx, Y: dy}, Up: up, HalfAngle: math.Pi / 4} }
 	at := func(x, y, z, r float64) Ball { return Ball{Centre: r3.Vec{X: x, Y: y, Z: z}, Radius: r} }
-	rods := func(rr float64) Rods { return Rods{Direction: r3.Vec{X: 1}, Up: up, HalfAngle: math.Pi / 4, RodRadius: rr} }
+	rods := func(rr float64) Rods {
+		return Rods{Direction: r3.Vec{X: 1}, Up: up, HalfAngle: math.Pi / 4, RodRadius: rr}
+	}
 	for _, tc := range []struct {
 		name         string
 		c            Coupling
