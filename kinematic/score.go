@@ -111,8 +111,10 @@ type Scorecard struct {
 	// (higher is better; zero without a payload inertia).
 	Stiffness, AxisCompliance, FirstFrequency float64
 
-	// Drift is the displacement of the point of interest per kelvin of
-	// uniform temperature change, m/K (lower is better), and
+	// Drift is the displacement of the point of interest relative to the
+	// base per kelvin of uniform temperature change, m/K (lower is
+	// better; [Drift.Linear] per kelvin, independent of where the base is
+	// held), and
 	// ThermalCentreDistance the lateral distance from it to the thermal
 	// centre, m (lower is better; zero when there is none).
 	Drift, ThermalCentreDistance float64
@@ -444,8 +446,9 @@ func (sc *scorer) drift(card *Scorecard, ts *[6]screw.Twist, p r3.Vec) {
 		cen = r3.Add(cen, r3.Scale(sc.wcen[i], l.centre))
 		up = r3.Add(up, l.n)
 	}
-	card.Drift = linalg.Norm3(r3.Add(x.At(p), r3.Scale(th.Moving, sc.s.Point)))
-	if _, ok, dist := thermalCentre(global(x, sc.origin), th.Moving, r3.Add(cen, sc.origin), up, sc.s.Point); ok {
+	xg := global(x, sc.origin)
+	card.Drift = linalg.Norm3(relativeMotion(xg, th.Moving, th.Base, th.BaseRef, sc.s.Point))
+	if _, ok, dist := thermalCentre(xg, th.Moving, th.Base, th.BaseRef, r3.Add(cen, sc.origin), up, sc.s.Point); ok {
 		card.ThermalCentreDistance = dist
 	}
 }

@@ -388,8 +388,10 @@ func (s *study) budget(ctx context.Context, d *design.Design, a *kinematic.Assem
 			if err != nil {
 				return nil, err
 			}
-			s.printf("thermal %+.0f K: the detector centre moves (%.2f, %.2f, %.2f) µm exactly (first order (%.2f, %.2f, %.2f) µm)\n",
+			s.printf("thermal %+.0f K: the detector centre moves (%.2f, %.2f, %.2f) µm relative to the base exactly (first order (%.2f, %.2f, %.2f) µm)\n",
 				dt, dr.Exact.X*1e6, dr.Exact.Y*1e6, dr.Exact.Z*1e6, dr.Linear.X*1e6, dr.Linear.Y*1e6, dr.Linear.Z*1e6)
+			s.printf("  in the frame, the base held at (%.1f, %.1f, %.1f) mm: (%.2f, %.2f, %.2f) µm\n",
+				th.BaseRef.X*1e3, th.BaseRef.Y*1e3, th.BaseRef.Z*1e3, dr.World.X*1e6, dr.World.Y*1e6, dr.World.Z*1e6)
 			if dt > 0 && dr.HasCentre {
 				s.printf("  thermal centre at (%.1f, %.1f) mm, %.1f mm from the detector centre\n", dr.Centre.X*1e3, dr.Centre.Y*1e3, dr.Distance*1e3)
 			}

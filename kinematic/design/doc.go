@@ -74,7 +74,7 @@
 //	  delta_t           temperature difference, required
 //	  moving_alpha      expansion coefficient of the moving body; default 0
 //	  base_alpha        expansion coefficient of the base; default 0
-//	  base_ref          [x, y, z] lengths, where the base is held; default origin
+//	  base_ref          [x, y, z] lengths, where the base is held; default origin (changes only the drift in the frame)
 //	friction            object, optional: {"mu": number ≥ 0, required}
 //	monte_carlo         object, optional
 //	  samples           whole number in [1, 1e7], required
@@ -91,7 +91,7 @@
 //	                      first-order error budget of the point of interest (at least one limit)
 //	  max_study           {"limit": length, "percentile": "p50", "p95", "p99" (default) or
 //	                      "p99.73"}: the Monte Carlo study's radial displacement
-//	  max_thermal_drift   length: the exact drift of the point of interest over delta_t
+//	  max_thermal_drift   length: the exact drift of the point of interest relative to the base over delta_t
 //	  seating             {"case": name}: the body must seat against friction mu
 //
 // A requirement's "case" names a load case; left out, it is the first.

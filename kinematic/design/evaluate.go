@@ -330,7 +330,7 @@ func (e Evaluation) Verdicts() Verdicts {
 		add("max_study", r.StudyPercentile.of(e.Study.Radial), r.MaxStudy, "m", false, note)
 	}
 	if r.MaxThermalDrift > 0 && e.Drift != nil {
-		add("max_thermal_drift", r3.Norm(e.Drift.Exact), r.MaxThermalDrift, "m", false, "exact seat of the expanded geometry")
+		add("max_thermal_drift", r3.Norm(e.Drift.Exact), r.MaxThermalDrift, "m", false, "exact seat of the expanded geometry, relative to the base")
 	}
 	if r.Homing && e.Homing != nil {
 		v := Verdict{Requirement: "requirements.seating", Value: e.Homing.MaxMu, Limit: e.mu, Min: true,
