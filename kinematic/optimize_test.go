@@ -60,7 +60,7 @@ func TestOptimizeAgainstGrid(t *testing.T) {
 		t.Fatal(err)
 	}
 	s := scenario()
-	for _, obj := range []Objective{MinAmplification, MinDrift, MaxShockLevel, MaxFirstFrequency, MaxMaxwell, MinCompliance} {
+	for _, obj := range []Objective{MinAmplification, MinDrift, MaxShockLevel, MaxFirstFrequency, MaxContactIndex, MinCompliance} {
 		res, err := Optimize(c, s, &OptimizeOptions{Objective: obj})
 		if err != nil {
 			t.Fatal(err)
@@ -152,13 +152,13 @@ func TestOptimizeBinding(t *testing.T) {
 	}
 	floor := math.Min(0.999, free.Score.WeakestCentreIndex+0.5*(1-free.Score.WeakestCentreIndex))
 	if free.Score.WeakestCentreIndex < 0.999 {
-		res, err = Optimize(c, s, &OptimizeOptions{MinMaxwell: floor})
+		res, err = Optimize(c, s, &OptimizeOptions{MinCentreIndex: floor})
 		if err != nil {
 			t.Fatal(err)
 		}
 		found = false
 		for _, bd := range res.Binding {
-			found = found || bd == "MinMaxwell"
+			found = found || bd == "MinCentreIndex"
 		}
 		if !found || res.Score.WeakestCentreIndex < floor*(1-1e-9) {
 			t.Errorf("Maxwell floor %g: binding %v, weakest centre index %g", floor, res.Binding, res.Score.WeakestCentreIndex)
@@ -251,7 +251,7 @@ func TestOptimizeErrors(t *testing.T) {
 		{"NaN window", bare, &OptimizeOptions{Windows: []Window{{}, {Min: math.NaN()}, {}}}, "opt.Windows[1]"},
 		{"negative region", bare, &OptimizeOptions{Regions: []Region{{}, {Radius: -1}, {}}}, "opt.Regions[1]"},
 		{"half-angle 95°", bare, &OptimizeOptions{HalfAngles: []float64{math.Pi / 4, 95 * math.Pi / 180}}, "opt.HalfAngles[1]"},
-		{"Maxwell floor 1", bare, &OptimizeOptions{MinMaxwell: 1}, "opt.MinMaxwell"},
+		{"Maxwell floor 1", bare, &OptimizeOptions{MinCentreIndex: 1}, "opt.MinCentreIndex"},
 		{"one trade-off point", bare, &OptimizeOptions{TradeOff: &TradeOff{Points: 1}}, "opt.TradeOff.Points"},
 	} {
 		if _, err := Optimize(c, tc.s, tc.opt); !errors.As(err, &ie) || ie.Field != tc.field {

@@ -55,7 +55,7 @@ const DesignCondition = 10
 // Scorecard holds the design figures of one exactly constrained layout in
 // its scenario. Each figure says its unit and which direction is better.
 type Scorecard struct {
-	// WeakestIndex and WeakestCentreIndex are the smallest Maxwell
+	// WeakestContactIndex and WeakestCentreIndex are the smallest Maxwell
 	// indices at the contact points and at the ball centres (0 to 1,
 	// higher is better; see [Maxwell]); WeakestAngle is the angle, rad,
 	// between the freed motion of the ball centre and the normal at the
@@ -65,7 +65,7 @@ type Scorecard struct {
 	// θ, 1 for a flat, the exact value for a socket's own contacts): 1
 	// means the layout spends nothing of what the seats allow, whatever
 	// their angle (higher is better).
-	WeakestIndex, WeakestCentreIndex, WeakestAngle, MaxwellRatio float64
+	WeakestContactIndex, WeakestCentreIndex, WeakestAngle, MaxwellRatio float64
 
 	// MinSingular is the smallest singular value of the normalised
 	// contact matrix (dimensionless, higher is better), Condition the
@@ -319,11 +319,11 @@ func (sc *scorer) score(card *Scorecard, need figures) error {
 
 // maxwell fills the Maxwell figures from the freed twists ts.
 func (sc *scorer) maxwell(card *Scorecard, ts *[6]screw.Twist) {
-	card.WeakestIndex, card.WeakestCentreIndex, card.MaxwellRatio = 1, 1, math.Inf(1)
+	card.WeakestContactIndex, card.WeakestCentreIndex, card.MaxwellRatio = 1, 1, math.Inf(1)
 	for i, t := range ts {
 		l := &sc.lines[i]
 		freed, idx, ci := maxwell(t, l)
-		card.WeakestIndex = math.Min(card.WeakestIndex, idx)
+		card.WeakestContactIndex = math.Min(card.WeakestContactIndex, idx)
 		if ci <= card.WeakestCentreIndex {
 			card.WeakestCentreIndex = ci
 			vc := freed.At(l.p)

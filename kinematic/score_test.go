@@ -48,7 +48,7 @@ func TestScoreAgreesWithAPIs(t *testing.T) {
 	for _, m := range st.Contacts {
 		weak, weakC = math.Min(weak, m.Index), math.Min(weakC, m.CentreIndex)
 	}
-	near("weakest index", card.WeakestIndex, weak, 1e-9)
+	near("weakest index", card.WeakestContactIndex, weak, 1e-9)
 	near("weakest centre index", card.WeakestCentreIndex, weakC, 1e-9)
 	// Every vee is 90°: the ideal is |sin 90°| = 1.
 	near("Maxwell ratio", card.MaxwellRatio, weakC, 1e-9)

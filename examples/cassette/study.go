@@ -81,16 +81,16 @@ func (s *study) run(ctx context.Context, src []byte) error {
 	if err != nil {
 		return err
 	}
-	floor := d.Requirements.MinMaxwellIndex
+	floor := d.Requirements.MinCentreIndex
 	if floor == 0 {
 		floor = 0.9
 	}
-	opt := &kinematic.OptimizeOptions{Objective: kinematic.MinAmplification, Windows: wins, MinMaxwell: floor, MaxPressureRatio: d.Requirements.MaxPressureRatio}
+	opt := &kinematic.OptimizeOptions{Objective: kinematic.MinAmplification, Windows: wins, MinCentreIndex: floor, MaxPressureRatio: d.Requirements.MaxPressureRatio}
 	best, err := kinematic.Optimize(c0, scen, opt)
 	if err != nil {
 		return fmt.Errorf("choosing the grooves: %w", err)
 	}
-	mx, err := kinematic.Optimize(c0, scen, &kinematic.OptimizeOptions{Objective: kinematic.MaxMaxwell, Windows: wins})
+	mx, err := kinematic.Optimize(c0, scen, &kinematic.OptimizeOptions{Objective: kinematic.MaxContactIndex, Windows: wins})
 	if err != nil {
 		return fmt.Errorf("the Maxwell optimum: %w", err)
 	}
@@ -208,7 +208,8 @@ func bisectorsOf(c kinematic.Coupling) (kinematic.Coupling, error) {
 func (s *study) choice(best kinematic.Optimum, cands []candidate, floor float64) {
 	s.section("2. Choosing the grooves by the error at the detector")
 	s.printf("Objective: the least worst-case displacement of the detector centre per µm of seat error,\n")
-	s.printf("inside the windows, with every Maxwell centre index at least %.2f (a screen, not the aim).\n", floor)
+	s.printf("inside the windows, with the Maxwell index at every ball centre at least %.2f (a screen, not the aim)\n", floor)
+	s.printf("and a condition number of at most %.0f (the optimiser's default screen).\n", float64(kinematic.DesignCondition))
 	s.printf("%-32s", "figure")
 	for _, c := range cands {
 		s.printf(" %12s", c.name)
@@ -228,7 +229,8 @@ func (s *study) choice(best kinematic.Optimum, cands []candidate, floor float64)
 	row("first frequency, Hz", func(k *kinematic.Scorecard) float64 { return k.FirstFrequency }, "%12.0f")
 	row("shock level, g", func(k *kinematic.Scorecard) float64 { return k.ShockLevel / g0 }, "%12.2f")
 	row("thermal drift, µm/K", func(k *kinematic.Scorecard) float64 { return k.Drift * 1e6 }, "%12.3f")
-	row("weakest Maxwell index (0-1)", func(k *kinematic.Scorecard) float64 { return k.WeakestIndex }, "%12.4f")
+	row("Maxwell index, ball centre", func(k *kinematic.Scorecard) float64 { return k.WeakestCentreIndex }, "%12.4f")
+	row("Maxwell index, contact point", func(k *kinematic.Scorecard) float64 { return k.WeakestContactIndex }, "%12.4f")
 	row("condition number (1 = ideal)", func(k *kinematic.Scorecard) float64 { return k.Condition }, "%12.2f")
 	s.printf("Chosen grooves (frame azimuth):")
 	for _, p := range best.Coupling.Pairs {
@@ -240,7 +242,8 @@ func (s *study) choice(best kinematic.Optimum, cands []candidate, floor float64)
 	if len(best.Binding) > 0 {
 		s.printf("Held back by: %s\n", strings.Join(best.Binding, ", "))
 	}
-	s.printf("The layout with the highest Maxwell index is not the one that keeps the detector still:\n")
+	s.printf("(Each Maxwell row is the weakest contact's index, 0-1.)\n")
+	s.printf("The layout with the highest Maxwell index at the contact points is not the one that keeps the detector still:\n")
 	s.printf("the Maxwell index is nearly flat among sensible layouts and screens out the poor ones only.\n")
 	s.printf("(%d layouts evaluated.)\n", best.Evaluations)
 }

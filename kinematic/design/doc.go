@@ -81,7 +81,9 @@
 //	  seed              whole number in [0, 2^64); default 0
 //	  exact             boolean: seat every sample exactly; default false (first order)
 //	requirements        object, optional; every requirement is optional, every limit > 0
-//	  min_maxwell_index   number in (0, 1]: the weakest Maxwell centre index
+//	  min_centre_index    number in (0, 1): the weakest Maxwell index at the ball centres
+//	                      (min_maxwell_index, its first name, is still read)
+//	  min_contact_index   number in (0, 1): the weakest Maxwell index at the contact points
 //	  max_pressure_ratio  number: peak Hertz pressure / allowable, any contact, any case
 //	  min_contact_force   force: the smallest contact force, any contact, any case
 //	  min_shock           {"level": acceleration, "case": name}: shock in the worst direction

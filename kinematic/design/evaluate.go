@@ -286,9 +286,19 @@ func (e Evaluation) Verdicts() Verdicts {
 		}
 		vs = append(vs, v)
 	}
-	if r.MinMaxwellIndex > 0 {
+	if r.MinCentreIndex > 0 {
 		c := e.Stability.Contacts[e.Weakest]
-		add("min_maxwell_index", c.CentreIndex, r.MinMaxwellIndex, "", true, "weakest at contact "+c.Label)
+		add("min_centre_index", c.CentreIndex, r.MinCentreIndex, "", true, "Maxwell index at the ball centre, weakest at contact "+c.Label)
+	}
+	if r.MinContactIndex > 0 {
+		w := 0
+		for i, m := range e.Stability.Contacts {
+			if m.Index < e.Stability.Contacts[w].Index {
+				w = i
+			}
+		}
+		c := e.Stability.Contacts[w]
+		add("min_contact_index", c.Index, r.MinContactIndex, "", true, "Maxwell index at the contact point, weakest at contact "+c.Label)
 	}
 	if r.MaxPressureRatio > 0 {
 		add("max_pressure_ratio", e.MaxPressureRatio, r.MaxPressureRatio, "", false, where(e.MaxPressureAt))

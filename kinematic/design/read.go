@@ -755,9 +755,19 @@ func caseRef(n *node, path string, dst *string) error {
 
 func readRequirements(n *node, path string) (Requirements, error) {
 	var r Requirements
-	if err := fields(n, path, "a requirements object", "min_maxwell_index", "max_pressure_ratio", "min_contact_force",
+	if err := fields(n, path, "a requirements object", "min_centre_index", "min_contact_index", "min_maxwell_index", "max_pressure_ratio", "min_contact_force",
 		"min_shock", "min_frequency", "max_error", "max_study", "max_thermal_drift", "seating"); err != nil {
 		return r, err
+	}
+	// "min_maxwell_index" is the first name of "min_centre_index" (the
+	// index at the ball centres), still read in this format version.
+	if n.get("min_maxwell_index") != nil && n.get("min_centre_index") != nil {
+		return r, errorf(join(path, "min_maxwell_index"), ErrRange, "the old name of min_centre_index, which is given too")
+	}
+	if m := n.get("min_maxwell_index"); m != nil {
+		if v, err := number(m, join(path, "min_maxwell_index")); err == nil && v >= 1 {
+			return r, errorf(join(path, "min_maxwell_index"), ErrRange, "%s", indexFloor(v))
+		}
 	}
 	type limit struct {
 		key  string
@@ -765,7 +775,9 @@ func readRequirements(n *node, path string) (Requirements, error) {
 		dst  *float64
 	}
 	for _, l := range []limit{
-		{"min_maxwell_index", nil, &r.MinMaxwellIndex},
+		{"min_centre_index", nil, &r.MinCentreIndex},
+		{"min_contact_index", nil, &r.MinContactIndex},
+		{"min_maxwell_index", nil, &r.MinCentreIndex}, // the old name of min_centre_index
 		{"max_pressure_ratio", nil, &r.MaxPressureRatio},
 		{"min_contact_force", force, &r.MinContactForce},
 		{"max_thermal_drift", length, &r.MaxThermalDrift},

@@ -453,7 +453,8 @@ func (d *Design) checkRequirements() error {
 		path string
 		v    float64
 	}{
-		{"min_maxwell_index", r.MinMaxwellIndex},
+		{"min_centre_index", r.MinCentreIndex},
+		{"min_contact_index", r.MinContactIndex},
 		{"max_pressure_ratio", r.MaxPressureRatio},
 		{"min_contact_force", r.MinContactForce},
 		{"min_shock.level", r.MinShock},
@@ -467,8 +468,13 @@ func (d *Design) checkRequirements() error {
 			return errorf(join(p, l.path), ErrRange, "a limit must be finite and > 0 (0: not set), got %g", l.v)
 		}
 	}
-	if r.MinMaxwellIndex > 1 {
-		return errorf(join(p, "min_maxwell_index"), ErrRange, "a Maxwell index lies in [0, 1], got %g", r.MinMaxwellIndex)
+	for _, l := range []struct {
+		key string
+		v   float64
+	}{{"min_centre_index", r.MinCentreIndex}, {"min_contact_index", r.MinContactIndex}} {
+		if l.v >= 1 {
+			return errorf(join(p, l.key), ErrRange, "%s", indexFloor(l.v))
+		}
 	}
 	// A case named without its requirement, or a percentile without its
 	// limit, has no place in the file.
@@ -556,4 +562,12 @@ func (d *Design) checkRequirements() error {
 		}
 	}
 	return nil
+}
+
+// indexFloor returns why a floor on a Maxwell index is out of range: the
+// index lies in [0, 1], and a floor of 1 asks for an exact value that
+// rounding cannot give, so a floor lies in (0, 1) (kinematic.Optimize
+// takes the same range, with 0 for none).
+func indexFloor(v float64) string {
+	return fmt.Sprintf("a Maxwell index lies in [0, 1] and a floor on it below 1, got %g", v)
 }

@@ -166,7 +166,8 @@ type wireMonteCarlo struct {
 }
 
 type wireRequirements struct {
-	MinMaxwellIndex  float64        `json:"min_maxwell_index,omitempty"`
+	MinCentreIndex   float64        `json:"min_centre_index,omitempty"`
+	MinContactIndex  float64        `json:"min_contact_index,omitempty"`
 	MaxPressureRatio float64        `json:"max_pressure_ratio,omitempty"`
 	MinContactForce  float64        `json:"min_contact_force,omitempty"`
 	MinShock         *wireLimitCase `json:"min_shock,omitempty"`
@@ -271,7 +272,7 @@ func (d *Design) wire() wireDesign {
 		w.MonteCarlo = &wireMonteCarlo{Samples: mc.Samples, Seed: mc.Seed, Exact: mc.Exact}
 	}
 	if r := d.Requirements; r != (Requirements{}) {
-		wr := &wireRequirements{MinMaxwellIndex: r.MinMaxwellIndex, MaxPressureRatio: r.MaxPressureRatio,
+		wr := &wireRequirements{MinCentreIndex: r.MinCentreIndex, MinContactIndex: r.MinContactIndex, MaxPressureRatio: r.MaxPressureRatio,
 			MinContactForce: r.MinContactForce, MaxThermalDrift: r.MaxThermalDrift}
 		if r.MinShock > 0 {
 			wr.MinShock = &wireLimitCase{Level: r.MinShock, Case: r.ShockCase}
