@@ -96,6 +96,12 @@ func TestErrorsNameCallerFields(t *testing.T) {
 			_, err := far.Contacts()
 			return err
 		}},
+		// Expanding the body by 50 % (0.05/K over 10 K) leaves no seat: the
+		// thermal solve fails, named on the thermal input.
+		{"Drift thermal solve", "th", ErrRange, func() error {
+			_, err := a.Drift(Thermal{DeltaT: 10, Moving: 0.05}, r3.Vec{})
+			return err
+		}},
 		{"Drift thermal input", "th.Moving", ErrNonFinite, func() error {
 			_, err := a.Drift(Thermal{DeltaT: 1, Moving: math.Inf(1)}, r3.Vec{})
 			return err

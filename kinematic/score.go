@@ -244,21 +244,9 @@ func newScorer(c Coupling, s Scenario) (*scorer, error) {
 // scenarioErr returns an error of NewModel, called by the scorer on the
 // contacts cs of coupling c, in the vocabulary of the caller of Score and
 // Optimize: "s.Preloads[0]" and "s.Payload" for NewModel's parameters,
-// the pair's ball ("Pairs[1].Ball.Material.E") for a contact's moving
-// surface and its seat for the base surface.
+// and the pairs' fields for the contacts' (see Coupling.inPairTerms).
 func scenarioErr(err error, c Coupling, cs []Contact) error {
-	rs := []rename{{"preloads", "s.Preloads"}, {"payload", "s.Payload"}}
-	k := 0
-	for i, p := range c.Pairs {
-		for j := 0; j < p.Seat.count() && k < len(cs); j++ {
-			rs = append(rs,
-				rename{indexed("cs", k) + ".Moving", pairField(i) + ".Ball"},
-				rename{indexed("cs", k) + ".Base", pairField(i) + ".Seat"},
-				rename{indexed("cs", k), pairField(i)})
-			k++
-		}
-	}
-	return renamed(err, append(rs, rename{"cs", "Pairs"})...)
+	return renamed(c.inPairTerms(err, cs), rename{"preloads", "s.Preloads"}, rename{"payload", "s.Payload"})
 }
 
 // checkScenario validates the fields of a scenario that NewModel does not.

@@ -314,3 +314,22 @@ func grooveIdeal(h float64) float64 {
 func rootBelow(c, up r3.Vec, r, s float64) r3.Vec {
 	return r3.Sub(c, r3.Scale(r/s, up))
 }
+
+// inPairTerms returns an error about the contacts cs of the coupling (as
+// Contacts returned them) in the coupling's own terms: "cs[k].Moving…"
+// becomes the pair's ball ("Pairs[1].Ball…"), "cs[k].Base…" its seat,
+// any other "cs[k]…" the pair, and "cs" "Pairs".
+func (c Coupling) inPairTerms(err error, cs []Contact) error {
+	var rs []rename
+	k := 0
+	for i, p := range c.Pairs {
+		for j := 0; p.Seat != nil && j < p.Seat.count() && k < len(cs); j++ {
+			rs = append(rs,
+				rename{indexed("cs", k) + ".Moving", pairField(i) + ".Ball"},
+				rename{indexed("cs", k) + ".Base", pairField(i) + ".Seat"},
+				rename{indexed("cs", k), pairField(i)})
+			k++
+		}
+	}
+	return renamed(err, append(rs, rename{"cs", "Pairs"})...)
+}

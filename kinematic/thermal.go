@@ -1,6 +1,7 @@
 package kinematic
 
 import (
+	"errors"
 	"fmt"
 	"math"
 
@@ -132,9 +133,14 @@ func (a *Assembly) Drift(th Thermal, p r3.Vec) (Drift, error) {
 	var zero [6]float64
 	pose, err := a.seat(&g, &zero, 1e-13, 50)
 	if err != nil {
+		why := err // the reason without the pair's field path, which is not the caller's input here
+		var ie *InputError
+		if errors.As(err, &ie) {
+			why = ie.Err
+		}
 		return Drift{}, &InputError{Field: "th", Err: fmt.Errorf(
-			"%w: the thermal solve failed: the geometry expanded by ΔT %g K (moving %g, base %g 1/K and the balls' and seats' own) cannot be seated: %v",
-			ErrRange, dt, th.Moving, th.Base, err)}
+			"%w: the thermal solve failed: the geometry expanded by ΔT %g K (moving %g, base %g 1/K and the balls' and seats' own) cannot be seated (%v)",
+			ErrRange, dt, th.Moving, th.Base, why)}
 	}
 	d.World = r3.Sub(pose.Apply(r3.Scale(1+th.Moving*dt, p)), p)
 	d.Exact = r3.Sub(d.World, baseAt)
