@@ -60,6 +60,11 @@ type Ball struct {
 	Centre   r3.Vec  // m
 	Radius   float64 // m, > 0
 	Material hertz.Material
+
+	// Canoe marks a canoe ball (kinematic.Ball.Canoe): Radius and Centre
+	// are those of the spherical segment's sphere, which may reach
+	// through other balls.
+	Canoe bool
 }
 
 // SeatType is the kind of a [Seat].

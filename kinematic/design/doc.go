@@ -31,6 +31,7 @@
 //	  name              letters, digits and "_", starting with a letter; default "A", "B", ... by position
 //	  centre            [x, y, z] lengths, required
 //	  radius            length > 0, required
+//	  canoe             boolean: a canoe ball (centre and radius of its segment's sphere); default false
 //	  material          material, required
 //	seats               array, one per ball, required
 //	  type              "vee", "rods", "flat", "trihedral" or "cone", required

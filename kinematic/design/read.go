@@ -364,7 +364,7 @@ func walk(root *node) (*Design, error) {
 
 func readBall(n *node, path string) (Ball, error) {
 	var b Ball
-	if err := fields(n, path, "a ball", "name", "centre", "radius", "material"); err != nil {
+	if err := fields(n, path, "a ball", "name", "centre", "radius", "material", "canoe"); err != nil {
 		return b, err
 	}
 	if err := optText(n, path, "name", maxName, &b.Name); err != nil {
@@ -380,6 +380,11 @@ func readBall(n *node, path string) (Ball, error) {
 		return b, err
 	}
 	var err error
+	if c := n.get("canoe"); c != nil {
+		if b.Canoe, err = boolean(c, join(path, "canoe")); err != nil {
+			return b, err
+		}
+	}
 	b.Material, err = readMaterialOf(n, path)
 	return b, err
 }

@@ -50,7 +50,7 @@ func (b *Built) buildCoupling() error {
 	for i, ball := range d.Balls {
 		c.Pairs[i] = kinematic.Pair{
 			Name: ball.Name,
-			Ball: kinematic.Ball{Centre: ball.Centre, Radius: ball.Radius, Material: ball.Material},
+			Ball: kinematic.Ball{Centre: ball.Centre, Radius: ball.Radius, Material: ball.Material, Canoe: ball.Canoe},
 			Seat: d.Seats[i].kinematic(),
 		}
 	}

@@ -80,6 +80,7 @@ type wireBall struct {
 	Name     string  `json:"name,omitempty"`
 	Centre   vec     `json:"centre"`
 	Radius   float64 `json:"radius"`
+	Canoe    bool    `json:"canoe,omitempty"`
 	Material any     `json:"material"`
 }
 
@@ -214,7 +215,7 @@ func ptr(v float64) *float64 { return &v }
 func (d *Design) wire() wireDesign {
 	w := wireDesign{Format: Format, Name: d.Name, Description: d.Description, Point: wireVec(d.Point), Axis: optVec(d.Axis)}
 	for _, b := range d.Balls {
-		w.Balls = append(w.Balls, wireBall{Name: b.Name, Centre: wireVec(b.Centre), Radius: b.Radius, Material: wireMat(b.Material)})
+		w.Balls = append(w.Balls, wireBall{Name: b.Name, Centre: wireVec(b.Centre), Radius: b.Radius, Canoe: b.Canoe, Material: wireMat(b.Material)})
 	}
 	for _, s := range d.Seats {
 		ws := wireSeat{Type: s.Type.String(), Up: wireVec(s.Up), FlankRadius: s.FlankRadius, Toward: optVec(s.Toward), Material: wireMat(s.Material)}
