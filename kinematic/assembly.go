@@ -77,7 +77,7 @@ func (c Coupling) Assembly() (*Assembly, error) {
 	}
 	an, err := Analyze(cs)
 	if err != nil {
-		return nil, err
+		return nil, c.inPairTerms(err, cs)
 	}
 	if len(cs) != 6 || an.Rank != 6 {
 		return nil, &InputError{Field: "Pairs", Err: fmt.Errorf(

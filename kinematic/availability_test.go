@@ -81,7 +81,7 @@ func TestScoreAvailability(t *testing.T) {
 				}
 			}
 			// The geometric figures need nothing more.
-			if !(card.Amplification > 0 && card.WeakestIndex > 0 && card.Condition >= 1) {
+			if !(card.Amplification > 0 && card.WeakestContactIndex > 0 && card.Condition >= 1) {
 				t.Errorf("geometric figures %+v", card)
 			}
 		})

@@ -17,8 +17,10 @@
 // instantaneous axis of each pair of vees, the coupling centre, for three
 // balls the incentre and each groove's angle off the bisector, and for a
 // coupling with a socket each groove's angle off the socket.
-// [Optimize] turns the vee grooves to maximise the weakest Maxwell
-// index within allowed azimuth windows.
+// [Optimize] turns the vee grooves (and moves balls, chooses half-angles)
+// for a design figure within allowed azimuth windows, screened by floors
+// on the Maxwell indices at the contact points and at the ball centres
+// and, by default, by a condition number of at most [DesignCondition].
 //
 // For forces, a [Model] holds the contacts with their [Preload] elements
 // and [Payload]; a [LoadCase] combines preload, gravity, the base's
@@ -89,8 +91,9 @@
 // their effect ([Assembly.Budget]); a Monte Carlo study draws parts made to
 // the drawing ([Assembly.Study]: interchangeability, how far a different
 // part sits); [Model.Repeatability] estimates how well the same part comes
-// back, limited by friction; [Assembly.Drift] gives the thermal drift and
-// the thermal centre. The models are rigid apart from an optional Hertz
+// back, limited by friction; [Assembly.Drift] gives the thermal drift
+// relative to the base (and in the frame, with the base held at a point)
+// and the thermal centre, a property of the coupling. The models are rigid apart from an optional Hertz
 // approach, and ignore form errors of the surfaces, wear and
 // contamination.
 //

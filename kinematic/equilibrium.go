@@ -204,21 +204,13 @@ func newSolver(m *Model, e []float64, w screw.Wrench, preload bool) *solver {
 	return s
 }
 
-// ranked reports whether the contact lines span all six directions.
+// ranked reports whether the contact lines span all six directions, by
+// the rank Analyze gave the model (screw.Analyze's SVD with its threshold
+// RankTol). A Cholesky factorisation of their Gram matrix cannot decide
+// it: the Gram matrix of five lines has a last pivot of rounding size,
+// about ε times its largest entry, not zero.
 func (s *solver) ranked() bool {
-	var h [36]float64
-	for _, g := range s.g {
-		for r := range 6 {
-			for c := range 6 {
-				h[6*r+c] += g[r] * g[c]
-			}
-		}
-	}
-	// Every line has |g|² between 1 and about 1 + (distance/L)², so the
-	// Gram matrix's largest diagonal is of order n; a pivot below 1e-12
-	// of it is rank loss to working precision (the same criterion as
-	// singularTol, squared through the Gram matrix).
-	return linalg.Cholesky6(&h, 1e-24)
+	return s.m.rank == 6
 }
 
 // approach returns contact i's approach at the current y, m.

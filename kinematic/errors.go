@@ -96,3 +96,37 @@ func joinField(head, rest string) string {
 	}
 	return head + "." + rest
 }
+
+// rename is one rewriting of a field path: a path that is From, or starts
+// with From followed by ".", "[" or " ", gets To in its place.
+type rename struct{ From, To string }
+
+// renamed returns err with the field paths of its [*InputError] (Field and
+// Other, each a list separated by ", ") rewritten by the first matching
+// rule of rs, so that a public function passes on the errors of the
+// functions it calls in its own caller's vocabulary ("preloads[0]" from
+// NewModel becomes "s.Preloads[0]" in Score). Other errors are returned
+// as they are.
+func renamed(err error, rs ...rename) error {
+	var ie *InputError
+	if !errors.As(err, &ie) {
+		return err
+	}
+	return &InputError{Field: renameList(ie.Field, rs), Other: renameList(ie.Other, rs), Err: ie.Err}
+}
+
+func renameList(list string, rs []rename) string {
+	if list == "" {
+		return ""
+	}
+	parts := strings.Split(list, ", ")
+	for i, p := range parts {
+		for _, r := range rs {
+			if p == r.From || strings.HasPrefix(p, r.From+".") || strings.HasPrefix(p, r.From+"[") || strings.HasPrefix(p, r.From+" ") {
+				parts[i] = r.To + p[len(r.From):]
+				break
+			}
+		}
+	}
+	return strings.Join(parts, ", ")
+}

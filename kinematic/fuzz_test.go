@@ -153,6 +153,18 @@ func FuzzGeometry(f *testing.F) {
 	f.Add(seed(bs, sub))
 	line := [3]Ball{ball(-50, 0, 0), ball(0, 0, 0), ball(50, 0, 0)}
 	f.Add(seed(line, vs))
+	// A millimetre design read as metres: radius 6.35 "m", centres 0.1 m
+	// apart (refused: the balls overlap).
+	slip := [3]Ball{{Centre: r3.Vec{X: 0.1}, Radius: 6.35}, {Centre: r3.Vec{Y: 0.1}, Radius: 6.35}, {Centre: r3.Vec{X: -0.1}, Radius: 6.35}}
+	f.Add(seed(slip, vs))
+	// Touching balls (accepted) and the coupling 1e300 m away (refused).
+	touch := [3]Ball{{Centre: r3.Vec{X: -0.05}, Radius: 0.025}, {Centre: r3.Vec{}, Radius: 0.025}, {Centre: r3.Vec{Y: 0.05}, Radius: 0.025}}
+	f.Add(seed(touch, vs))
+	far := bs
+	for i := range far {
+		far[i].Centre.X += 1e300
+	}
+	f.Add(seed(far, vs))
 	f.Fuzz(func(t *testing.T, b []byte) {
 		xs := fuzzdata.Floats(b, 11)
 		if len(xs) != 3 {
@@ -174,6 +186,17 @@ func FuzzGeometry(f *testing.F) {
 		for _, ct := range cs {
 			if !linalgFinite(ct.Point) || math.Abs(r3.Norm(ct.Normal)-1) > 1e-12 {
 				t.Fatalf("contact %s: point %v, normal %v", ct.Label, ct.Point, ct.Normal)
+			}
+		}
+		// Accepted geometry can exist: no two balls overlap, and no
+		// contact lies inside another ball (slack 2e-6 beyond overlapTol
+		// for rounding).
+		for i, p := range c.Pairs {
+			for j := 0; j < i; j++ {
+				q := c.Pairs[j].Ball
+				if d := r3.Norm(r3.Sub(p.Ball.Centre, q.Centre)); d < (p.Ball.Radius+q.Radius)*(1-2e-6) {
+					t.Fatalf("balls %d and %d overlap: %g apart, radii %g %g", i, j, d, p.Ball.Radius, q.Radius)
+				}
 			}
 		}
 		g, err := c.Geometry()

@@ -94,6 +94,7 @@ type Model struct {
 	lines  []line // contact lines about origin
 	origin r3.Vec // the contacts' centroid; everything is held relative to it
 	exact  bool
+	rank   int            // of the contact lines, as Analyze decides it
 	freed  [6]screw.Twist // when exact: power δᵢⱼ with contact j, about origin
 	size   float64        // RMS distance of the contacts from origin, m
 
@@ -143,7 +144,7 @@ func NewModel(cs []Contact, preloads []Preload, payload Payload) (*Model, error)
 	if err != nil {
 		return nil, err
 	}
-	m := &Model{lines: an.lines, origin: an.origin}
+	m := &Model{lines: an.lines, origin: an.origin, rank: an.Rank}
 	var s2 float64
 	for _, l := range m.lines {
 		s2 += r3.Norm2(l.p)

@@ -41,9 +41,13 @@ const (
 	MaxShockLevel
 	// MaxFirstFrequency maximises Scorecard.FirstFrequency.
 	MaxFirstFrequency
-	// MaxMaxwell maximises Scorecard.WeakestIndex, the weakest Maxwell
-	// index: a screen, not a design figure (see package documentation).
-	MaxMaxwell
+	// MaxContactIndex maximises Scorecard.WeakestContactIndex, the
+	// weakest Maxwell index at the contact points: a screen, not a design
+	// figure (see package documentation).
+	MaxContactIndex
+	// MaxCentreIndex maximises Scorecard.WeakestCentreIndex, the weakest
+	// Maxwell index at the ball centres: a screen too.
+	MaxCentreIndex
 )
 
 // String returns the objective's name.
@@ -59,14 +63,17 @@ func (o Objective) String() string {
 		return "MaxShockLevel"
 	case MaxFirstFrequency:
 		return "MaxFirstFrequency"
-	case MaxMaxwell:
-		return "MaxMaxwell"
+	case MaxContactIndex:
+		return "MaxContactIndex"
+	case MaxCentreIndex:
+		return "MaxCentreIndex"
 	}
 	return fmt.Sprintf("Objective(%d)", int(o))
 }
 
 // OptimizeOptions holds options for [Optimize]; the zero value and a nil
-// pointer mean defaults: MinAmplification over every groove azimuth.
+// pointer mean defaults: MinAmplification over every groove azimuth,
+// screened by a condition number of at most [DesignCondition].
 type OptimizeOptions struct {
 	Objective Objective
 
@@ -84,10 +91,24 @@ type OptimizeOptions struct {
 	// groove seat may take (each chooses one); nil keeps them as drawn.
 	HalfAngles []float64
 
-	// MinMaxwell is a floor on Scorecard.WeakestCentreIndex, and
-	// MaxPressureRatio a ceiling on Scorecard.PressureRatio; zero means
-	// no constraint.
-	MinMaxwell, MaxPressureRatio float64
+	// MinCentreIndex is a floor on Scorecard.WeakestCentreIndex, the
+	// Maxwell index at the ball centres, and MinContactIndex one on
+	// Scorecard.WeakestContactIndex, the index at the contact points:
+	// each in [0, 1) (a floor of 1 would ask for an exact value that
+	// rounding cannot give), zero meaning no floor. MaxPressureRatio is a
+	// ceiling on Scorecard.PressureRatio; zero means none.
+	MinCentreIndex, MinContactIndex, MaxPressureRatio float64
+
+	// MaxCondition is a ceiling on Scorecard.Condition, the condition
+	// number of the normalised contact matrix, ≥ 1: zero means
+	// DesignCondition (10), +Inf no ceiling. It is on by default because
+	// an objective alone can prefer a near-mechanism: the error at a
+	// point whose loose motion pivots about that point is small however
+	// loose the coupling is (on a canted layout MinAmplification alone
+	// turned every groove tangential, to a condition of 38.7, and with
+	// the point below the balls to 2.2e4). Optimum.Binding names it
+	// when it holds the optimum back.
+	MaxCondition float64
 
 	// TradeOff, when set, asks for the trade-off curve between the
 	// objective and a second one: Points layouts (at least 2) on the
@@ -127,8 +148,9 @@ type Optimum struct {
 	HasBisector, BisectorFeasible bool
 
 	// Binding names the constraints that hold the optimum back:
-	// "Windows[i].Min", "Windows[i].Max", "Regions[i]", "MinMaxwell",
-	// "MaxPressureRatio".
+	// "Windows[i].Min", "Windows[i].Max", "Regions[i]", "MinCentreIndex",
+	// "MinContactIndex", "MaxPressureRatio", "MaxCondition" (the default
+	// screen included).
 	Binding []string
 
 	// Front is the trade-off curve when one was asked for: layouts on
@@ -215,7 +237,8 @@ type FrontPoint struct {
 // MaxShockLevel without preload); "opt.Windows" or "opt.Regions" of the
 // wrong length, "opt.Windows[i]" inverted or not finite, "opt.Regions[i]"
 // negative or not finite; "opt.HalfAngles[i]" outside (0, π/2);
-// "opt.MinMaxwell" outside [0, 1), "opt.MaxPressureRatio" negative;
+// "opt.MinCentreIndex" or "opt.MinContactIndex" outside [0, 1),
+// "opt.MaxPressureRatio" negative, "opt.MaxCondition" below 1;
 // "opt.TradeOff" with fewer than two points; and one wrapping ErrRange
 // naming the constraints when no layout seen meets them.
 func Optimize(c Coupling, s Scenario, opt *OptimizeOptions) (Optimum, error) {
@@ -244,8 +267,8 @@ func Optimize(c Coupling, s Scenario, opt *OptimizeOptions) (Optimum, error) {
 	}
 	best, ok := p.search(o.Objective, nil)
 	if !ok {
-		return Optimum{}, &InputError{Field: "opt", Err: fmt.Errorf("%w: no layout seen meets the constraints (MinMaxwell %g, MaxPressureRatio %g) within the windows and regions",
-			ErrRange, o.MinMaxwell, o.MaxPressureRatio)}
+		return Optimum{}, &InputError{Field: "opt", Err: fmt.Errorf("%w: no layout seen meets the constraints (MinCentreIndex %g, MinContactIndex %g, MaxPressureRatio %g, MaxCondition %g) within the windows and regions",
+			ErrRange, o.MinCentreIndex, o.MinContactIndex, o.MaxPressureRatio, p.o.MaxCondition)}
 	}
 	res.Coupling, res.Azimuths = p.coupling(best.x, best.combo)
 	p.set(best.x, best.combo)
@@ -294,15 +317,17 @@ func figure(obj Objective, c *Scorecard) float64 {
 		return c.ShockLevel
 	case MaxFirstFrequency:
 		return c.FirstFrequency
-	case MaxMaxwell:
-		return c.WeakestIndex
+	case MaxContactIndex:
+		return c.WeakestContactIndex
+	case MaxCentreIndex:
+		return c.WeakestCentreIndex
 	}
 	return c.Amplification
 }
 
 func cost(obj Objective, c *Scorecard) float64 {
 	switch obj {
-	case MaxShockLevel, MaxFirstFrequency, MaxMaxwell:
+	case MaxShockLevel, MaxFirstFrequency, MaxContactIndex, MaxCentreIndex:
 		return -figure(obj, c)
 	}
 	return figure(obj, c)
@@ -310,7 +335,7 @@ func cost(obj Objective, c *Scorecard) float64 {
 
 // need returns the figures an objective and the constraints use.
 func (p *optProblem) need(obj Objective) figures {
-	f := figMaxwell // for the Maxwell floor and the binding report
+	f := figMaxwell | figSingular // for the Maxwell floors, the condition screen and the binding report
 	switch obj {
 	case MinAmplification:
 		f |= figError
@@ -332,7 +357,7 @@ func (p *optProblem) need(obj Objective) figures {
 // checkObjective reports an objective the scenario cannot give.
 func (p *optProblem) checkObjective(obj Objective, start *Scorecard, field string) error {
 	switch obj {
-	case MinAmplification, MinDrift, MaxMaxwell:
+	case MinAmplification, MinDrift, MaxContactIndex, MaxCentreIndex:
 	case MinCompliance:
 		if len(p.sc.s.Preloads) == 0 {
 			return &InputError{Field: field, Err: fmt.Errorf("%w: %v needs preload elements (Scenario.Preloads) to set the contact stiffness", ErrDegenerate, obj)}
@@ -405,8 +430,19 @@ func newOptProblem(c Coupling, s Scenario, o *OptimizeOptions) (*optProblem, err
 			return nil, err
 		}
 	}
-	if math.IsNaN(o.MinMaxwell) || !(o.MinMaxwell >= 0 && o.MinMaxwell < 1) {
-		return nil, &InputError{Field: "opt.MinMaxwell", Err: fmt.Errorf("%w: must be in [0, 1), got %g", ErrRange, o.MinMaxwell)}
+	for _, f := range []struct {
+		name string
+		v    float64
+	}{{"opt.MinCentreIndex", o.MinCentreIndex}, {"opt.MinContactIndex", o.MinContactIndex}} {
+		if !(f.v >= 0 && f.v < 1) {
+			return nil, &InputError{Field: f.name, Err: fmt.Errorf("%w: a floor on a Maxwell index must be in [0, 1), got %g", ErrRange, f.v)}
+		}
+	}
+	if o.MaxCondition == 0 {
+		o.MaxCondition = DesignCondition
+	}
+	if !(o.MaxCondition >= 1) {
+		return nil, &InputError{Field: "opt.MaxCondition", Err: fmt.Errorf("%w: must be ≥ 1 (or 0 for DesignCondition), got %g", ErrRange, o.MaxCondition)}
 	}
 	if !linalg.Finite(o.MaxPressureRatio) || o.MaxPressureRatio < 0 {
 		return nil, &InputError{Field: "opt.MaxPressureRatio", Err: fmt.Errorf("%w: must be finite and ≥ 0, got %g", ErrRange, o.MaxPressureRatio)}
@@ -546,8 +582,14 @@ func (p *optProblem) setCombos(own []float64, ng int) error {
 // violation returns the constraints' total violation, dimensionless.
 func (p *optProblem) violation(c *Scorecard) float64 {
 	var v float64
-	if p.o.MinMaxwell > 0 && c.WeakestCentreIndex < p.o.MinMaxwell {
-		v += p.o.MinMaxwell - c.WeakestCentreIndex
+	if p.o.MinCentreIndex > 0 && c.WeakestCentreIndex < p.o.MinCentreIndex {
+		v += p.o.MinCentreIndex - c.WeakestCentreIndex
+	}
+	if p.o.MinContactIndex > 0 && c.WeakestContactIndex < p.o.MinContactIndex {
+		v += p.o.MinContactIndex - c.WeakestContactIndex
+	}
+	if c.Condition > p.o.MaxCondition {
+		v += c.Condition/p.o.MaxCondition - 1
 	}
 	if p.o.MaxPressureRatio > 0 && c.PressureRatio > p.o.MaxPressureRatio {
 		v += c.PressureRatio/p.o.MaxPressureRatio - 1
@@ -924,8 +966,14 @@ func (p *optProblem) binding(x []float64, card *Scorecard) []string {
 			}
 		}
 	}
-	if p.o.MinMaxwell > 0 && card.WeakestCentreIndex <= p.o.MinMaxwell*(1+1e-6) {
-		out = append(out, "MinMaxwell")
+	if p.o.MinCentreIndex > 0 && card.WeakestCentreIndex <= p.o.MinCentreIndex*(1+1e-6) {
+		out = append(out, "MinCentreIndex")
+	}
+	if p.o.MinContactIndex > 0 && card.WeakestContactIndex <= p.o.MinContactIndex*(1+1e-6) {
+		out = append(out, "MinContactIndex")
+	}
+	if card.Condition >= p.o.MaxCondition*(1-1e-6) {
+		out = append(out, "MaxCondition")
 	}
 	if p.o.MaxPressureRatio > 0 && card.PressureRatio >= p.o.MaxPressureRatio*(1-1e-6) {
 		out = append(out, "MaxPressureRatio")

@@ -11,7 +11,7 @@ import (
 // outside value: on the equilateral triangle with the grooves on the
 // bisectors every centre index is |sin 2θ| (kinematic/doc.go, derived in
 // kinematic's tests), the ideal of a groove of half-angle θ, so the best
-// layout for MaxMaxwell has WeakestCentreIndex = |sin 2θ| and
+// layout for MaxCentreIndex has WeakestCentreIndex = |sin 2θ| and
 // MaxwellRatio = 1 (no contact can exceed its ideal, and the bisector
 // layout, one of the optimiser's starts, reaches it). The vees are drawn
 // at 45° and the optimiser may only use 30°, so an ideal taken from the
@@ -24,7 +24,7 @@ func TestOptimizeMaxwellRatio(t *testing.T) {
 	}
 	s := scenario()
 	const half = math.Pi / 6
-	res, err := Optimize(c, s, &OptimizeOptions{Objective: MaxMaxwell, HalfAngles: []float64{half}})
+	res, err := Optimize(c, s, &OptimizeOptions{Objective: MaxCentreIndex, HalfAngles: []float64{half}})
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -3,6 +3,7 @@ package kinematic
 import (
 	"errors"
 	"math"
+	"slices"
 	"testing"
 
 	"gonum.org/v1/gonum/spatial/r3"
@@ -60,7 +61,7 @@ func TestOptimizeAgainstGrid(t *testing.T) {
 		t.Fatal(err)
 	}
 	s := scenario()
-	for _, obj := range []Objective{MinAmplification, MinDrift, MaxShockLevel, MaxFirstFrequency, MaxMaxwell, MinCompliance} {
+	for _, obj := range []Objective{MinAmplification, MinDrift, MaxShockLevel, MaxFirstFrequency, MaxContactIndex, MinCompliance} {
 		res, err := Optimize(c, s, &OptimizeOptions{Objective: obj})
 		if err != nil {
 			t.Fatal(err)
@@ -152,13 +153,13 @@ func TestOptimizeBinding(t *testing.T) {
 	}
 	floor := math.Min(0.999, free.Score.WeakestCentreIndex+0.5*(1-free.Score.WeakestCentreIndex))
 	if free.Score.WeakestCentreIndex < 0.999 {
-		res, err = Optimize(c, s, &OptimizeOptions{MinMaxwell: floor})
+		res, err = Optimize(c, s, &OptimizeOptions{MinCentreIndex: floor})
 		if err != nil {
 			t.Fatal(err)
 		}
 		found = false
 		for _, bd := range res.Binding {
-			found = found || bd == "MinMaxwell"
+			found = found || bd == "MinCentreIndex"
 		}
 		if !found || res.Score.WeakestCentreIndex < floor*(1-1e-9) {
 			t.Errorf("Maxwell floor %g: binding %v, weakest centre index %g", floor, res.Binding, res.Score.WeakestCentreIndex)
@@ -251,7 +252,10 @@ func TestOptimizeErrors(t *testing.T) {
 		{"NaN window", bare, &OptimizeOptions{Windows: []Window{{}, {Min: math.NaN()}, {}}}, "opt.Windows[1]"},
 		{"negative region", bare, &OptimizeOptions{Regions: []Region{{}, {Radius: -1}, {}}}, "opt.Regions[1]"},
 		{"half-angle 95°", bare, &OptimizeOptions{HalfAngles: []float64{math.Pi / 4, 95 * math.Pi / 180}}, "opt.HalfAngles[1]"},
-		{"Maxwell floor 1", bare, &OptimizeOptions{MinMaxwell: 1}, "opt.MinMaxwell"},
+		{"Maxwell floor 1", bare, &OptimizeOptions{MinCentreIndex: 1}, "opt.MinCentreIndex"},
+		{"contact floor 1", bare, &OptimizeOptions{MinContactIndex: 1}, "opt.MinContactIndex"},
+		{"NaN contact floor", bare, &OptimizeOptions{MinContactIndex: math.NaN()}, "opt.MinContactIndex"},
+		{"condition ceiling below 1", bare, &OptimizeOptions{MaxCondition: 0.5}, "opt.MaxCondition"},
 		{"one trade-off point", bare, &OptimizeOptions{TradeOff: &TradeOff{Points: 1}}, "opt.TradeOff.Points"},
 	} {
 		if _, err := Optimize(c, tc.s, tc.opt); !errors.As(err, &ie) || ie.Field != tc.field {
@@ -265,5 +269,55 @@ func TestOptimizeErrors(t *testing.T) {
 	}
 	if _, err := Optimize(Coupling{Pairs: c.Pairs[:2]}, s, nil); !errors.Is(err, ErrNotExact) {
 		t.Errorf("four contacts: %v", err)
+	}
+}
+
+// cantedVees returns the equilateral balls in 90° vees whose Up leans
+// tilt towards the triangle's centre, grooves radial.
+func cantedVees(tilt float64) Coupling {
+	var c Coupling
+	for _, b := range equilateral() {
+		in := r3.Unit(r3.Scale(-1, r3.Vec{X: b.Centre.X, Y: b.Centre.Y}))
+		v := vee45
+		v.Up = r3.Add(r3.Scale(math.Cos(tilt), up), r3.Scale(math.Sin(tilt), in))
+		v.Direction = in
+		c.Pairs = append(c.Pairs, Pair{Ball: b, Seat: v})
+	}
+	return c
+}
+
+// TestOptimizeDefaultScreen: on vees canted 30° inwards with the point of
+// interest 20 mm below the balls, MinAmplification alone finds layouts
+// whose loose motion pivots about the point (the error there stays small
+// however loose the coupling is), so without a screen it returns a
+// near-mechanism: a condition far above DesignCondition. The default
+// screen holds the condition at DesignCondition and says so (Binding
+// "MaxCondition", Status Constrained); the radial start (condition below
+// 10, so feasible) bounds the objective.
+func TestOptimizeDefaultScreen(t *testing.T) {
+	c := cantedVees(30 * math.Pi / 180)
+	s := Scenario{Point: r3.Vec{Z: -0.02}}
+	free, err := Optimize(c, s, &OptimizeOptions{MaxCondition: math.Inf(1)})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if free.Score.Condition <= 10*DesignCondition || slices.Contains(free.Binding, "MaxCondition") {
+		t.Fatalf("unscreened: condition %g, binding %v; want a near-mechanism (condition above %g) and no screen", free.Score.Condition, free.Binding, 10.0*DesignCondition)
+	}
+	res, err := Optimize(c, s, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if res.Start.Condition > DesignCondition {
+		t.Fatalf("start condition %g: the radial start should pass the screen", res.Start.Condition)
+	}
+	if res.Score.Condition > DesignCondition*(1+1e-9) || res.Score.Poor {
+		t.Errorf("default: condition %g (poor %v), want at most %d", res.Score.Condition, res.Score.Poor, DesignCondition)
+	}
+	if !slices.Contains(res.Binding, "MaxCondition") || res.Status != Constrained {
+		t.Errorf("default: binding %v, status %v; want MaxCondition, Constrained", res.Binding, res.Status)
+	}
+	if res.Score.Amplification > res.Start.Amplification*(1+1e-12) {
+		t.Errorf("default: amplification %g worse than the start's %g", res.Score.Amplification, res.Start.Amplification)
 	}
 }

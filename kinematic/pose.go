@@ -120,7 +120,8 @@ func (a *Assembly) apply(g *geom, k int, v float64) {
 //
 // Pose returns an [*InputError] naming "devs[i]" for an unknown dimension
 // or a value that is not finite, "opt.Approach" for a list of the wrong
-// length or a bad value, and one wrapping [ErrRange] naming the pair when
+// length or a bad value, "opt.Tolerance" outside (0, 1) and
+// "opt.MaxIterations" negative, and one wrapping [ErrRange] naming the pair when
 // a ball cannot reach its seat: a ball radius that is not positive, a
 // contact that moves more than half its ball's radius across its seat, or
 // no convergence; and one naming "a" for a nil or zero Assembly.
@@ -162,8 +163,11 @@ func (a *Assembly) Pose(devs []Deviation, opt *PoseOptions) (Pose, error) {
 	if o.MaxIterations == 0 {
 		o.MaxIterations = 50
 	}
-	if !(o.Tolerance > 0 && o.Tolerance < 1) || o.MaxIterations < 0 {
-		return Pose{}, &InputError{Field: "opt", Err: fmt.Errorf("%w: Tolerance %g, MaxIterations %d", ErrRange, o.Tolerance, o.MaxIterations)}
+	if !(o.Tolerance > 0 && o.Tolerance < 1) {
+		return Pose{}, &InputError{Field: "opt.Tolerance", Err: fmt.Errorf("%w: must be in (0, 1), got %g", ErrRange, o.Tolerance)}
+	}
+	if o.MaxIterations < 0 {
+		return Pose{}, &InputError{Field: "opt.MaxIterations", Err: fmt.Errorf("%w: must be ≥ 0, got %d", ErrRange, o.MaxIterations)}
 	}
 	pose, err := a.seat(&g, &appr, o.Tolerance, o.MaxIterations)
 	if err == nil && !allFinite3(pose.Rotation, pose.Translation) {

@@ -56,6 +56,13 @@ func (r Rods) appendContacts(dst []Contact, b Ball, name, field string) ([]Conta
 	if !(r.RodRadius > 0) {
 		return nil, &InputError{Field: field + ".RodRadius", Err: fmt.Errorf("%w: must be positive, got %g", ErrRange, r.RodRadius)}
 	}
+	// The rod axes lie (r + R)·cos HalfAngle either side of the groove
+	// axis; two rods of radius R whose axes are closer than 2R overlap.
+	if gap := (b.Radius + r.RodRadius) * math.Cos(r.HalfAngle); gap < r.RodRadius*(1-overlapTol) {
+		return nil, &InputError{Field: field + ".RodRadius", Err: fmt.Errorf(
+			"%w: the rods overlap: radius %.6g m, axes %.6g m apart (less than a diameter) for a ball of radius %.6g m at half-angle %.6g rad",
+			ErrRange, r.RodRadius, 2*gap, b.Radius, r.HalfAngle)}
+	}
 	// A convex cylinder with its axis along the groove: Tangent is the
 	// groove direction, so the axis angle is 0.
 	base := hertz.Cylinder(r.RodRadius, 0, r.Material)

@@ -136,7 +136,7 @@ type Scorecard struct {
 	// of an input (see [Figure] for what each needs).
 	Unavailable Figure
 
-	// WeakestIndex and WeakestCentreIndex are the smallest Maxwell
+	// WeakestContactIndex and WeakestCentreIndex are the smallest Maxwell
 	// indices at the contact points and at the ball centres (0 to 1,
 	// higher is better; see [Maxwell]); WeakestAngle is the angle, rad,
 	// between the freed motion of the ball centre and the normal at the
@@ -146,7 +146,7 @@ type Scorecard struct {
 	// θ, 1 for a flat, the exact value for a socket's own contacts): 1
 	// means the layout spends nothing of what the seats allow, whatever
 	// their angle (higher is better).
-	WeakestIndex, WeakestCentreIndex, WeakestAngle, MaxwellRatio float64
+	WeakestContactIndex, WeakestCentreIndex, WeakestAngle, MaxwellRatio float64
 
 	// MinSingular is the smallest singular value of the normalised
 	// contact matrix (dimensionless, higher is better), Condition the
@@ -196,8 +196,10 @@ type Scorecard struct {
 	// (higher is better). Each is unavailable without what [Figure] says.
 	Stiffness, AxisCompliance, FirstFrequency float64
 
-	// Drift is the displacement of the point of interest per kelvin of
-	// uniform temperature change, m/K (lower is better), and
+	// Drift is the displacement of the point of interest relative to the
+	// base per kelvin of uniform temperature change, m/K (lower is
+	// better; [Drift.Linear] per kelvin, independent of where the base is
+	// held), and
 	// ThermalCentreDistance the lateral distance from it to the thermal
 	// centre, m (lower is better; unavailable when there is none).
 	Drift, ThermalCentreDistance float64
@@ -275,7 +277,7 @@ func (card *Scorecard) finite() error {
 	case !allFinite(card.PressureRatio) || math.IsNaN(card.PreloadMin) || math.IsInf(card.PreloadMin, -1) ||
 		math.IsNaN(card.PreloadMax) || math.IsInf(card.PreloadMax, -1):
 		return &InputError{Field: "s.Preloads", Err: fmt.Errorf("%w: a preload figure overflows", ErrRange)}
-	case !allFinite(card.WeakestIndex, card.WeakestCentreIndex, card.WeakestAngle, card.MaxwellRatio, card.MinSingular, card.Condition):
+	case !allFinite(card.WeakestContactIndex, card.WeakestCentreIndex, card.WeakestAngle, card.MaxwellRatio, card.MinSingular, card.Condition):
 		return &InputError{Field: "Pairs", Err: fmt.Errorf("%w: a figure of the contact geometry overflows", ErrRange)}
 	}
 	return nil
@@ -332,7 +334,7 @@ func newScorer(c Coupling, s Scenario) (*scorer, error) {
 	}
 	m, err := NewModel(cs, s.Preloads, s.Payload)
 	if err != nil {
-		return nil, err
+		return nil, scenarioErr(err, c, cs)
 	}
 	if !m.exact {
 		an, _ := Analyze(cs)
@@ -399,6 +401,14 @@ func newScorer(c Coupling, s Scenario) (*scorer, error) {
 		sc.missing |= FigureDrift | FigureThermalCentreDistance
 	}
 	return sc, nil
+}
+
+// scenarioErr returns an error of NewModel, called by the scorer on the
+// contacts cs of coupling c, in the vocabulary of the caller of Score and
+// Optimize: "s.Preloads[0]" and "s.Payload" for NewModel's parameters,
+// and the pairs' fields for the contacts' (see Coupling.inPairTerms).
+func scenarioErr(err error, c Coupling, cs []Contact) error {
+	return renamed(c.inPairTerms(err, cs), rename{"preloads", "s.Preloads"}, rename{"payload", "s.Payload"})
 }
 
 // checkScenario validates the fields of a scenario that NewModel does not.
@@ -485,11 +495,11 @@ func (card *Scorecard) zeroUnavailable() {
 
 // maxwell fills the Maxwell figures from the freed twists ts.
 func (sc *scorer) maxwell(card *Scorecard, ts *[6]screw.Twist) {
-	card.WeakestIndex, card.WeakestCentreIndex, card.MaxwellRatio = 1, 1, math.Inf(1)
+	card.WeakestContactIndex, card.WeakestCentreIndex, card.MaxwellRatio = 1, 1, math.Inf(1)
 	for i, t := range ts {
 		l := &sc.lines[i]
 		freed, idx, ci := maxwell(t, l)
-		card.WeakestIndex = math.Min(card.WeakestIndex, idx)
+		card.WeakestContactIndex = math.Min(card.WeakestContactIndex, idx)
 		if ci <= card.WeakestCentreIndex {
 			card.WeakestCentreIndex = ci
 			vc := freed.At(l.p)
@@ -625,8 +635,9 @@ func (sc *scorer) drift(card *Scorecard, ts *[6]screw.Twist, p r3.Vec) {
 		cen = r3.Add(cen, r3.Scale(sc.wcen[i], l.centre))
 		up = r3.Add(up, l.n)
 	}
-	card.Drift = linalg.Norm3(r3.Add(x.At(p), r3.Scale(th.Moving, sc.s.Point)))
-	if _, ok, dist := thermalCentre(global(x, sc.origin), th.Moving, r3.Add(cen, sc.origin), up, sc.s.Point); ok {
+	xg := global(x, sc.origin)
+	card.Drift = linalg.Norm3(relativeMotion(xg, th.Moving, th.Base, th.BaseRef, sc.s.Point))
+	if _, ok, dist := thermalCentre(xg, th.Moving, th.Base, th.BaseRef, r3.Add(cen, sc.origin), up, sc.s.Point); ok {
 		card.ThermalCentreDistance = dist
 	} else {
 		card.Unavailable |= FigureThermalCentreDistance

@@ -48,7 +48,7 @@ func TestScoreAgreesWithAPIs(t *testing.T) {
 	for _, m := range st.Contacts {
 		weak, weakC = math.Min(weak, m.Index), math.Min(weakC, m.CentreIndex)
 	}
-	near("weakest index", card.WeakestIndex, weak, 1e-9)
+	near("weakest index", card.WeakestContactIndex, weak, 1e-9)
 	near("weakest centre index", card.WeakestCentreIndex, weakC, 1e-9)
 	// Every vee is 90°: the ideal is |sin 90°| = 1.
 	near("Maxwell ratio", card.MaxwellRatio, weakC, 1e-9)
@@ -85,7 +85,7 @@ func TestScoreAgreesWithAPIs(t *testing.T) {
 	th := s.Thermal
 	th.DeltaT = 1
 	dr, _ := a.Drift(th, s.Point)
-	near("drift", card.Drift, r3.Norm(dr.Linear), 1e-9)
+	near("drift", card.Drift, r3.Norm(dr.RelativeLinear), 1e-9)
 	near("thermal centre distance", card.ThermalCentreDistance, dr.Distance, 1e-9)
 	if card.Poor {
 		t.Errorf("condition %g flagged poor", card.Condition)
@@ -272,7 +272,7 @@ func TestScoreThermalCentreSocketVeeFlat(t *testing.T) {
 	if got, want := card.ThermalCentreDistance, dr.Distance; math.Abs(got-want) > 1e-9*want {
 		t.Errorf("thermal centre distance: scorecard %.12g m, Drift %.12g m", got, want)
 	}
-	if got, want := card.Drift, r3.Norm(dr.Linear); math.Abs(got-want) > 1e-9*want {
+	if got, want := card.Drift, r3.Norm(dr.RelativeLinear); math.Abs(got-want) > 1e-9*want {
 		t.Errorf("drift: scorecard %.12g m/K, Drift %.12g m/K", got, want)
 	}
 }

@@ -18,11 +18,18 @@ import (
 // Ball whose Radius is the segment's radius and whose Centre is that
 // sphere's centre, often far outside the part; each contact of its seat
 // then lies a Radius from it along the normal, as for a ball. The segment
-// must be large enough to hold every contact of its seat.
+// must be large enough to hold every contact of its seat. Set Canoe for
+// such a ball: only the segment near its contacts is solid, so its sphere
+// may reach through other balls, and [Coupling.Contacts] checks only the
+// segment's contacts against other balls.
 type Ball struct {
 	Centre   r3.Vec  // m
 	Radius   float64 // m, > 0
 	Material hertz.Material
+
+	// Canoe reports that the ball is a spherical segment of its sphere
+	// (a canoe ball), not a whole sphere; false: a whole ball.
+	Canoe bool
 }
 
 // Seat is the feature of the base that receives one ball: a [Vee], [Rods],
@@ -98,8 +105,18 @@ const coincidentTol = 1e-9
 //
 // Contacts returns an [*InputError] naming the pair and field for a
 // missing seat, a ball radius that is not positive, a zero or non-finite
-// direction, a half-angle outside (0, π/2), a flank radius not larger than
-// the ball's, a groove that runs along its own Up, or two coincident balls.
+// direction, a half-angle outside (0, π/2), a groove that runs along its
+// own Up, or two coincident balls (wrapping [ErrDegenerate]); for balls
+// so far from the origin that float64 cannot resolve their spacing
+// (wrapping [ErrRange]); and for geometry that cannot exist, wrapping
+// [ErrRange]: two whole balls that overlap (|cᵢ − cⱼ| < rᵢ + rⱼ, named
+// with [InputError.Other] for the second ball), a contact that lies
+// inside another whole ball, a gothic-arch flank radius not larger than
+// the ball's (the ball could not touch the flank), and two rods that
+// overlap each other. A design in millimetres read as metres is caught
+// by the overlap: balls of radius 6.35 "m" a tenth of a metre apart.
+// Solids must interpenetrate by more than [overlapTol] of their size to
+// be refused, so touching balls pass.
 func (c Coupling) Contacts() ([]Contact, error) {
 	if len(c.Pairs) == 0 {
 		return nil, &InputError{Field: "Pairs", Err: fmt.Errorf("%w: no pairs", ErrDegenerate)}
@@ -115,29 +132,97 @@ func (c Coupling) Contacts() ([]Contact, error) {
 		n += p.Seat.count()
 	}
 	cs := make([]Contact, 0, n)
+	owner := make([]int, 0, n) // owner[k]: the pair of contact k
 	for i, p := range c.Pairs {
 		var err error
 		cs, err = p.Seat.appendContacts(cs, p.Ball, pairName(p.Name, i), pairField(i)+".Seat")
 		if err != nil {
 			return nil, err
 		}
+		for len(owner) < len(cs) {
+			owner = append(owner, i)
+		}
+	}
+	if err := checkSolids(c.Pairs, cs, owner); err != nil {
+		return nil, err
 	}
 	return cs, nil
+}
+
+// overlapTol is the fraction of their size by which two solids must
+// interpenetrate before [Coupling.Contacts] refuses them as impossible:
+// drawings carry dimensions to six or seven significant digits, so
+// touching balls given to that precision may overlap by about 1e-6 of
+// their size through rounding alone, and are not refused.
+const overlapTol = 1e-6
+
+// checkSolids refuses geometry that cannot exist: two whole balls that
+// overlap, and a contact (of any ball, canoe or whole) inside another
+// whole ball. The contacts' owner[k] is the pair of cs[k].
+func checkSolids(ps []Pair, cs []Contact, owner []int) error {
+	for i, p := range ps {
+		if p.Ball.Canoe {
+			continue
+		}
+		for j := 0; j < i; j++ {
+			q := ps[j]
+			if q.Ball.Canoe {
+				continue
+			}
+			d := linalg.Norm3(r3.Sub(p.Ball.Centre, q.Ball.Centre))
+			if sum := p.Ball.Radius + q.Ball.Radius; d < sum*(1-overlapTol) {
+				return &InputError{Field: pairField(i) + ".Ball", Other: pairField(j) + ".Ball", Err: fmt.Errorf(
+					"%w: balls %s and %s overlap: radii %.6g m and %.6g m, centres %.6g m apart (less than %.6g m); lengths are in metres",
+					ErrRange, pairName(p.Name, i), pairName(q.Name, j), p.Ball.Radius, q.Ball.Radius, d, sum)}
+			}
+		}
+	}
+	for k, ct := range cs {
+		for j, q := range ps {
+			if j == owner[k] || q.Ball.Canoe {
+				continue
+			}
+			if d := linalg.Norm3(r3.Sub(ct.Point, q.Ball.Centre)); d < q.Ball.Radius*(1-overlapTol) {
+				return &InputError{Field: pairField(owner[k]) + ".Seat", Other: pairField(j) + ".Ball", Err: fmt.Errorf(
+					"%w: contact %s lies inside ball %s: %.6g m from its centre, radius %.6g m",
+					ErrRange, ct.Label, pairName(q.Name, j), d, q.Ball.Radius)}
+			}
+		}
+	}
+	return nil
 }
 
 // pairField returns "Pairs[i]".
 func pairField(i int) string { return indexed("Pairs", i) }
 
-// checkBalls validates every ball and rejects coincident ones.
+// farTol is the smallest ratio of a coupling's ball spacing to its
+// distance from the origin that Contacts accepts: below it the contact
+// lines cannot be told apart in float64 coordinates, and screw.Analyze
+// refuses them with ErrRange (its cutoff Length/far ≈ 7.1e-12, the rank
+// threshold 32ε·far/Length reaching RankTol = 1e-9). Refusing here names
+// the ball instead of reporting balls in a line or coincident.
+const farTol = 7.1e-12
+
+// checkBalls validates every ball and rejects coincident ones, and balls
+// so far from the origin that their spacing is lost in rounding.
 func checkBalls(ps []Pair) error {
-	var span float64
+	var span, far float64
+	farthest := 0
 	for i, p := range ps {
 		if err := checkBall(p.Ball, pairField(i)+".Ball"); err != nil {
 			return err
 		}
+		if d := linalg.Norm3(p.Ball.Centre); d > far {
+			far, farthest = d, i
+		}
 		for j := 0; j < i; j++ {
 			span = math.Max(span, linalg.Norm3(r3.Sub(p.Ball.Centre, ps[j].Ball.Centre)))
 		}
+	}
+	if len(ps) > 1 && far > 0 && span <= farTol*far {
+		return &InputError{Field: pairField(farthest) + ".Ball.Centre", Err: fmt.Errorf(
+			"%w: the balls lie %.6g m from the origin and %.6g m apart: float64 coordinates cannot resolve a spacing below %.2g of the distance; place the origin near the coupling",
+			ErrRange, far, span, farTol)}
 	}
 	for i, p := range ps {
 		for j := 0; j < i; j++ {
@@ -228,4 +313,23 @@ func grooveIdeal(h float64) float64 {
 // up, where a vee's flanks or a socket's faces meet.
 func rootBelow(c, up r3.Vec, r, s float64) r3.Vec {
 	return r3.Sub(c, r3.Scale(r/s, up))
+}
+
+// inPairTerms returns an error about the contacts cs of the coupling (as
+// Contacts returned them) in the coupling's own terms: "cs[k].Moving…"
+// becomes the pair's ball ("Pairs[1].Ball…"), "cs[k].Base…" its seat,
+// any other "cs[k]…" the pair, and "cs" "Pairs".
+func (c Coupling) inPairTerms(err error, cs []Contact) error {
+	var rs []rename
+	k := 0
+	for i, p := range c.Pairs {
+		for j := 0; p.Seat != nil && j < p.Seat.count() && k < len(cs); j++ {
+			rs = append(rs,
+				rename{indexed("cs", k) + ".Moving", pairField(i) + ".Ball"},
+				rename{indexed("cs", k) + ".Base", pairField(i) + ".Seat"},
+				rename{indexed("cs", k), pairField(i)})
+			k++
+		}
+	}
+	return renamed(err, append(rs, rename{"cs", "Pairs"})...)
 }

@@ -98,7 +98,7 @@ func (m *Model) Stiffness(lc LoadCase, opt *StiffnessOptions) (Stiffness, error)
 	} else {
 		eq, err := m.Equilibrium(lc, o.Equilibrium)
 		if err != nil {
-			return Stiffness{}, err
+			return Stiffness{}, renamed(err, rename{"opt", "opt.Equilibrium"})
 		}
 		for i, c := range eq.Contacts {
 			forces[i] = c.Force

@@ -1,6 +1,7 @@
 package kinematic
 
 import (
+	"errors"
 	"fmt"
 	"math"
 
@@ -19,48 +20,71 @@ type Thermal struct {
 
 	// Moving is the expansion coefficient of the moving body, 1/K: the
 	// ball centres and the point of interest move apart with it. Base is
-	// that of the base, 1/K: the seats' positions move apart with it,
-	// about BaseRef, the point where the base is held in the frame
-	// (zero: the origin). A seat's own material expands about the seat's
-	// root (a plane seat's geometry does not change; a rod or a
-	// gothic-arch flank grows).
+	// that of the base, 1/K: the seats' positions move apart with it. A
+	// seat's own material expands about the seat's root (a plane seat's
+	// geometry does not change; a rod or a gothic-arch flank grows).
 	Moving, Base float64
-	BaseRef      r3.Vec
+
+	// BaseRef is the point where the base is held in the frame, m (zero:
+	// the origin): the base expands about it. It changes only the
+	// world-frame figures ([Drift.World]); the drift relative to the base
+	// and the thermal centre do not depend on it.
+	BaseRef r3.Vec
 }
 
 // Drift is the motion of a point of interest of the moving body under a
-// uniform temperature change, relative to the frame.
+// uniform temperature change: relative to the base, which is what a
+// coupling determines, and in the frame with the base held at
+// [Thermal.BaseRef].
 type Drift struct {
 	Point r3.Vec
 
-	// Exact is the point's displacement, in m, from the exact seat of the
-	// expanded geometry, and ExactTilt the body's rotation vector, rad;
-	// Linear and LinearTilt the same from the first-order model.
-	Exact, ExactTilt   r3.Vec
-	Linear, LinearTilt r3.Vec
+	// Relative is the point's displacement relative to the base, m: its
+	// motion less that of the base's material point that coincided with
+	// it, from the exact seat of the expanded geometry; Tilt is the
+	// body's rotation vector, rad (the base does not turn).
+	// RelativeLinear and LinearTilt are the same from the first-order
+	// model. None depends on BaseRef.
+	Relative, Tilt             r3.Vec
+	RelativeLinear, LinearTilt r3.Vec
 
-	// Centre is the thermal centre: the point of the moving body, in the
-	// plane through the ball centres' centroid normal to the seats' mean
-	// Up, that does not move in that plane (first order; for three vees,
-	// where the groove lines meet). HasCentre is false when no such point
-	// exists (a pure lateral translation). Distance is the lateral distance
-	// from the point of interest to Centre, m.
+	// World and WorldLinear are the point's displacement in the frame,
+	// m, with the base held at BaseRef (it expands about that point),
+	// exact and first order: Relative (RelativeLinear) plus
+	// α_base ΔT (p − BaseRef).
+	World, WorldLinear r3.Vec
+
+	// Centre is the thermal centre, a property of the coupling: the
+	// point of the moving body, in the plane through the ball centres'
+	// centroid normal to the seats' mean Up, that does not move in that
+	// plane relative to the base (first order). For three vees it is
+	// where the groove lines meet; for a socket, a vee aimed at it and a
+	// flat, the socket's ball centre. It does not depend on BaseRef.
+	// HasCentre is false when no such point exists (the body and the
+	// base expand alike and the lateral relative motion is a pure
+	// translation or none). Distance is the lateral distance from the
+	// point of interest to Centre, m.
 	Centre    r3.Vec
 	HasCentre bool
 	Distance  float64
 }
 
 // Drift returns the motion of the point p of the moving body under the
-// uniform temperature change th, by the exact seat of the expanded
-// geometry and by the first-order model, with the thermal centre. The
-// first-order model changes each gap by ∂gᵢ/∂ΔT =
+// uniform temperature change th, relative to the base and in the frame,
+// by the exact seat of the expanded geometry and by the first-order
+// model, with the thermal centre. The first-order model changes each gap
+// by ∂gᵢ/∂ΔT =
 // −α_ball r + α_moving n·c − α_base n·(root − BaseRef) − α_seat n·(p − root)
 // (ball centre c, contact point p, normal n), moves the body by
-// x = −ΔT Σ (∂gᵢ/∂ΔT) Tᵢ, and adds the point's own expansion α_moving ΔT p.
+// x = −ΔT Σ (∂gᵢ/∂ΔT) Tᵢ, and adds the point's own expansion α_moving ΔT p
+// (World); relative to the base it subtracts the base's expansion at p,
+// α_base ΔT (p − BaseRef), which removes BaseRef.
 //
 // Drift returns an [*InputError] naming "th.DeltaT", "th.Moving",
-// "th.Base", "th.BaseRef" or "p" for numbers that are not finite, and the
-// errors of [Assembly.Pose].
+// "th.Base", "th.BaseRef" or "p" for numbers that are not finite, and one
+// naming "th" wrapping [ErrRange] when the expanded geometry cannot be
+// seated (the thermal solve fails: a temperature change or expansion
+// coefficient so large that the balls leave their seats).
 func (a *Assembly) Drift(th Thermal, p r3.Vec) (Drift, error) {
 	if err := a.check(); err != nil {
 		return Drift{}, err
@@ -81,6 +105,7 @@ func (a *Assembly) Drift(th Thermal, p r3.Vec) (Drift, error) {
 	}
 	dt := th.DeltaT
 	d := Drift{Point: p}
+	baseAt := r3.Scale(th.Base*dt, r3.Sub(p, th.BaseRef)) // the base's own motion at p
 
 	// First order.
 	var x screw.Twist // about origin
@@ -90,8 +115,9 @@ func (a *Assembly) Drift(th Thermal, p r3.Vec) (Drift, error) {
 		e := thermalGap(&th, pr.ball.Material.Alpha, pr.ball.Radius, pr.alpha, r3.Add(l.centre, a.origin), r3.Add(l.p, a.origin), l.n, pr.root)
 		x = x.Add(a.freed[i].Scale(-e * dt))
 	}
-	pl := r3.Sub(p, a.origin)
-	d.Linear = r3.Add(x.At(pl), r3.Scale(th.Moving*dt, p))
+	xg := global(x, a.origin)
+	d.RelativeLinear = relativeMotion(xg, th.Moving*dt, th.Base*dt, th.BaseRef, p)
+	d.WorldLinear = r3.Add(d.RelativeLinear, baseAt)
 	d.LinearTilt = x.W
 
 	// Exact: the expanded geometry, seated.
@@ -111,10 +137,19 @@ func (a *Assembly) Drift(th Thermal, p r3.Vec) (Drift, error) {
 	var zero [6]float64
 	pose, err := a.seat(&g, &zero, 1e-13, 50)
 	if err != nil {
-		return Drift{}, err
+		why := err // the reason without the pair's field path, which is not the caller's input here
+		var ie *InputError
+		other := ""
+		if errors.As(err, &ie) {
+			why, other = ie.Err, ie.Field
+		}
+		return Drift{}, &InputError{Field: "th", Other: other, Err: fmt.Errorf(
+			"%w: the thermal solve failed: the geometry expanded by ΔT %g K (moving %g, base %g 1/K and the balls' and seats' own) cannot be seated (%v)",
+			ErrRange, dt, th.Moving, th.Base, why)}
 	}
-	d.Exact = r3.Sub(pose.Apply(r3.Scale(1+th.Moving*dt, p)), p)
-	d.ExactTilt = pose.Rotation
+	d.World = r3.Sub(pose.Apply(r3.Scale(1+th.Moving*dt, p)), p)
+	d.Relative = r3.Sub(d.World, baseAt)
+	d.Tilt = pose.Rotation
 
 	var cen, upSum r3.Vec
 	for _, pr := range a.pairs {
@@ -124,8 +159,20 @@ func (a *Assembly) Drift(th Thermal, p r3.Vec) (Drift, error) {
 	for i := range a.lines {
 		upSum = r3.Add(upSum, a.lines[i].n)
 	}
-	d.Centre, d.HasCentre, d.Distance = thermalCentre(global(x, a.origin), th.Moving*dt, cen, upSum, p)
+	d.Centre, d.HasCentre, d.Distance = thermalCentre(xg, th.Moving*dt, th.Base*dt, th.BaseRef, cen, upSum, p)
 	return d, nil
+}
+
+// relativeMotion returns the first-order displacement of the body point
+// q relative to the base, m: the body's small motion x (a twist with V at
+// the origin, in the frame with the base held at baseRef) plus the body's
+// own expansion am·q, less the base's expansion about baseRef,
+// ab·(q − baseRef). Moving baseRef by δ moves the seats, and so the body,
+// by −ab·δ, which the last term cancels: the result does not depend on
+// baseRef. It is the one kernel of the thermal figures: [Assembly.Drift]
+// and the scorecard call it, through thermalCentre too.
+func relativeMotion(x screw.Twist, am, ab float64, baseRef, q r3.Vec) r3.Vec {
+	return r3.Sub(r3.Add(x.At(q), r3.Scale(am, q)), r3.Scale(ab, r3.Sub(q, baseRef)))
 }
 
 // thermalGap returns ∂g/∂ΔT, m/K: how fast the gap of a contact opens
@@ -144,20 +191,20 @@ func thermalGap(th *Thermal, ballAlpha, r, seatAlpha float64, c, p, n, root r3.V
 		th.Base*r3.Dot(n, r3.Sub(root, th.BaseRef)) - seatAlpha*r3.Dot(n, r3.Sub(p, root))
 }
 
-// thermalCentre returns the point q, in the plane through cen normal to
-// up, at which the lateral part of the displacement field
-// v(q) = x(q) + am·q vanishes (x the body's small displacement twist, V at
-// the origin, and am the moving body's own expansion, α_moving ΔT), and
-// the lateral distance from p to it; ok is false when the lateral motion
-// does not vary across the plane (a pure translation: no centre).
-func thermalCentre(x screw.Twist, am float64, cen, up, p r3.Vec) (centre r3.Vec, ok bool, dist float64) {
+// thermalCentre returns the thermal centre: the point q, in the plane
+// through cen normal to up, at which the lateral part of the motion
+// relative to the base, relativeMotion(x, am, ab, baseRef, q), vanishes;
+// and the lateral distance from p to it. ok is false when that lateral
+// motion does not vary across the plane (a pure translation, or none: no
+// centre).
+func thermalCentre(x screw.Twist, am, ab float64, baseRef, cen, up, p r3.Vec) (centre r3.Vec, ok bool, dist float64) {
 	upv, ok := linalg.Unit3(up)
 	if !ok {
 		return r3.Vec{}, false, 0
 	}
 	e1 := linalg.AnyNormal(upv)
 	e2 := r3.Cross(upv, e1)
-	vel := func(q r3.Vec) r3.Vec { return r3.Add(x.At(q), r3.Scale(am, q)) }
+	vel := func(q r3.Vec) r3.Vec { return relativeMotion(x, am, ab, baseRef, q) }
 	v0 := vel(cen)
 	a1 := r3.Sub(vel(r3.Add(cen, e1)), v0) // the linear part along e1 and e2
 	a2 := r3.Sub(vel(r3.Add(cen, e2)), v0)

@@ -97,14 +97,14 @@ func TestDriftCurvedSeats(t *testing.T) {
 			if err != nil {
 				t.Fatal(err)
 			}
-			if !near(d.Exact, r3.Vec{Z: tc.rise}, 1e-14) {
-				t.Errorf("%s at %v: exact drift %.6g, want (0, 0, %.6g)", tc.name, p, d.Exact, tc.rise)
+			if !near(d.Relative, r3.Vec{Z: tc.rise}, 1e-14) {
+				t.Errorf("%s at %v: exact drift %.6g, want (0, 0, %.6g)", tc.name, p, d.Relative, tc.rise)
 			}
-			if !near(d.Linear, r3.Vec{Z: linRise}, 1e-12*linRise) {
-				t.Errorf("%s at %v: linear drift %.6g, want (0, 0, %.6g)", tc.name, p, d.Linear, linRise)
+			if !near(d.RelativeLinear, r3.Vec{Z: linRise}, 1e-12*linRise) {
+				t.Errorf("%s at %v: linear drift %.6g, want (0, 0, %.6g)", tc.name, p, d.RelativeLinear, linRise)
 			}
-			if r3.Norm(d.ExactTilt) > 1e-15 || r3.Norm(d.LinearTilt) > 1e-15 {
-				t.Errorf("%s: tilt %v / %v, want none", tc.name, d.ExactTilt, d.LinearTilt)
+			if r3.Norm(d.Tilt) > 1e-15 || r3.Norm(d.LinearTilt) > 1e-15 {
+				t.Errorf("%s: tilt %v / %v, want none", tc.name, d.Tilt, d.LinearTilt)
 			}
 		}
 	}

@@ -40,16 +40,25 @@ func TestDriftThermalCentre(t *testing.T) {
 				t.Fatal(err)
 			}
 			want := r3.Scale(th.Moving*th.DeltaT, lateral(r3.Sub(p, g)))
-			for _, got := range []r3.Vec{d.Linear, d.Exact} {
+			for _, got := range []r3.Vec{d.WorldLinear, d.World} {
 				if e := r3.Norm(r3.Sub(lateral(got), want)); e > 1e-12*0.05 {
-					t.Errorf("%s, point %v: lateral drift %v, want %v", name, p, lateral(got), want)
+					t.Errorf("%s, point %v: lateral drift in the frame %v, want %v", name, p, lateral(got), want)
+				}
+			}
+			// Relative to the base, whose point at p moves by
+			// α_base ΔT (p − g): (α_moving − α_base) ΔT (p − g) laterally,
+			// (23.6 − 11.9)e-6 · 10 · 0.04 = 4.68e-6 m at the second point.
+			wantRel := r3.Scale((th.Moving-th.Base)*th.DeltaT, lateral(r3.Sub(p, g)))
+			for _, got := range []r3.Vec{d.RelativeLinear, d.Relative} {
+				if e := r3.Norm(r3.Sub(lateral(got), wantRel)); e > 1e-12*0.05 {
+					t.Errorf("%s, point %v: lateral drift relative to the base %v, want %v", name, p, lateral(got), wantRel)
 				}
 			}
 			if !d.HasCentre || r3.Norm(lateral(r3.Sub(d.Centre, g))) > 1e-9 {
 				t.Errorf("%s: thermal centre %v (has %v), want where the grooves meet, %v", name, d.Centre, d.HasCentre, g)
 			}
-			if r3.Norm(d.ExactTilt) > 1e-15 || r3.Norm(d.LinearTilt) > 1e-15 {
-				t.Errorf("%s: tilt %v / %v, want none", name, d.ExactTilt, d.LinearTilt)
+			if r3.Norm(d.Tilt) > 1e-15 || r3.Norm(d.LinearTilt) > 1e-15 {
+				t.Errorf("%s: tilt %v / %v, want none", name, d.Tilt, d.LinearTilt)
 			}
 		}
 	}
@@ -71,8 +80,8 @@ func TestDriftSocketVeeFlat(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if r3.Norm(d.ExactTilt) > 1e-14 || r3.Norm(d.LinearTilt) > 1e-14 {
-		t.Errorf("vee at the socket: tilt %v, %v; want none", d.ExactTilt, d.LinearTilt)
+	if r3.Norm(d.Tilt) > 1e-14 || r3.Norm(d.LinearTilt) > 1e-14 {
+		t.Errorf("vee at the socket: tilt %v, %v; want none", d.Tilt, d.LinearTilt)
 	}
 	off, err := c.WithGroove(1, 0.3, FrameX)
 	if err != nil {
@@ -89,7 +98,7 @@ func TestDriftSocketVeeFlat(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		return r3.Norm(r3.Sub(d.Exact, d.Linear)), d.LinearTilt
+		return r3.Norm(r3.Sub(d.Relative, d.RelativeLinear)), d.LinearTilt
 	}
 	d10, tilt := diff(10)
 	d20, _ := diff(20)
@@ -101,5 +110,76 @@ func TestDriftSocketVeeFlat(t *testing.T) {
 	}
 	if _, err := ao.Drift(Thermal{DeltaT: math.NaN()}, r3.Vec{}); !errors.Is(err, ErrNonFinite) {
 		t.Errorf("NaN ΔT: %v", err)
+	}
+}
+
+// TestThermalCentreIndependentOfBaseRef: the thermal centre is a property
+// of the coupling. Three radial vees on the equilateral triangle (groove
+// lines meeting at the origin, by symmetry) with the base held 100 mm
+// away, at (100, 0, 0) mm, as before at the origin: the centre stays where
+// the groove lines meet (the closed form of TestDriftThermalCentre), the
+// drift relative to the base does not change, and the drift in the frame
+// changes by exactly α_base ΔT times the 100 mm shift (the seats, and so
+// the body, translate by −α_base ΔT δ): 11.9e-6 · 10 · 0.1 = 1.19e-5 m.
+func TestThermalCentreIndependentOfBaseRef(t *testing.T) {
+	c, err := BisectorVees(equilateral(), three(vee45))
+	if err != nil {
+		t.Fatal(err)
+	}
+	a, err := c.Assembly()
+	if err != nil {
+		t.Fatal(err)
+	}
+	p := r3.Vec{X: 0.02, Y: -0.01, Z: 0.03}
+	th := Thermal{DeltaT: 10, Moving: 23.6e-6, Base: 11.9e-6}
+	d0, err := a.Drift(th, p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	th.BaseRef = r3.Vec{X: 0.1}
+	d1, err := a.Drift(th, p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, d := range []Drift{d0, d1} {
+		if !d.HasCentre || r3.Norm(lateral(d.Centre)) > 1e-12 {
+			t.Errorf("BaseRef %v: thermal centre %v (has %v), want the origin", th.BaseRef, d.Centre, d.HasCentre)
+		}
+	}
+	if e := r3.Norm(r3.Sub(d1.Relative, d0.Relative)); e > 1e-15 {
+		t.Errorf("exact drift relative to the base: %v then %v, want the same", d0.Relative, d1.Relative)
+	}
+	if e := r3.Norm(r3.Sub(d1.RelativeLinear, d0.RelativeLinear)); e > 1e-17 {
+		t.Errorf("linear drift relative to the base: %v then %v, want the same", d0.RelativeLinear, d1.RelativeLinear)
+	}
+	shift := r3.Vec{X: -11.9e-6 * 10 * 0.1}
+	for _, got := range []r3.Vec{r3.Sub(d1.World, d0.World), r3.Sub(d1.WorldLinear, d0.WorldLinear)} {
+		if e := r3.Norm(r3.Sub(got, shift)); e > 1e-15 {
+			t.Errorf("world drift changed by %v, want %v", got, shift)
+		}
+	}
+}
+
+// TestThermalCentreSocket: a socket holds its ball's centre laterally
+// fixed to the base (its three faces expand symmetrically about the
+// socket axis), and a vee aimed at the socket lets the body grow along the
+// groove line without turning, so the thermal centre of a
+// socket–vee–flat is the socket's ball centre (closed form), wherever the
+// base is held.
+func TestThermalCentreSocket(t *testing.T) {
+	c := mustSVF(t)
+	a, err := c.Assembly()
+	if err != nil {
+		t.Fatal(err)
+	}
+	s := c.Pairs[0].Ball.Centre
+	for _, ref := range []r3.Vec{{}, s, {X: 0.1, Y: -0.05}} {
+		d, err := a.Drift(Thermal{DeltaT: 10, Moving: 23.6e-6, Base: 11.9e-6, BaseRef: ref}, r3.Vec{Z: 0.03})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if !d.HasCentre || r3.Norm(lateral(r3.Sub(d.Centre, s))) > 1e-12 {
+			t.Errorf("BaseRef %v: thermal centre %v (has %v), want the socket's ball centre %v", ref, d.Centre, d.HasCentre, s)
+		}
 	}
 }

@@ -81,16 +81,16 @@ func (s *study) run(ctx context.Context, src []byte) error {
 	if err != nil {
 		return err
 	}
-	floor := d.Requirements.MinMaxwellIndex
+	floor := d.Requirements.MinCentreIndex
 	if floor == 0 {
 		floor = 0.9
 	}
-	opt := &kinematic.OptimizeOptions{Objective: kinematic.MinAmplification, Windows: wins, MinMaxwell: floor, MaxPressureRatio: d.Requirements.MaxPressureRatio}
+	opt := &kinematic.OptimizeOptions{Objective: kinematic.MinAmplification, Windows: wins, MinCentreIndex: floor, MaxPressureRatio: d.Requirements.MaxPressureRatio}
 	best, err := kinematic.Optimize(c0, scen, opt)
 	if err != nil {
 		return fmt.Errorf("choosing the grooves: %w", err)
 	}
-	mx, err := kinematic.Optimize(c0, scen, &kinematic.OptimizeOptions{Objective: kinematic.MaxMaxwell, Windows: wins})
+	mx, err := kinematic.Optimize(c0, scen, &kinematic.OptimizeOptions{Objective: kinematic.MaxContactIndex, Windows: wins})
 	if err != nil {
 		return fmt.Errorf("the Maxwell optimum: %w", err)
 	}
@@ -208,7 +208,8 @@ func bisectorsOf(c kinematic.Coupling) (kinematic.Coupling, error) {
 func (s *study) choice(best kinematic.Optimum, cands []candidate, floor float64) {
 	s.section("2. Choosing the grooves by the error at the detector")
 	s.printf("Objective: the least worst-case displacement of the detector centre per µm of seat error,\n")
-	s.printf("inside the windows, with every Maxwell centre index at least %.2f (a screen, not the aim).\n", floor)
+	s.printf("inside the windows, with the Maxwell index at every ball centre at least %.2f (a screen, not the aim)\n", floor)
+	s.printf("and a condition number of at most %.0f (the optimiser's default screen).\n", float64(kinematic.DesignCondition))
 	s.printf("%-32s", "figure")
 	for _, c := range cands {
 		s.printf(" %12s", c.name)
@@ -228,7 +229,8 @@ func (s *study) choice(best kinematic.Optimum, cands []candidate, floor float64)
 	row("first frequency, Hz", func(k *kinematic.Scorecard) float64 { return k.FirstFrequency }, "%12.0f")
 	row("shock level, g", func(k *kinematic.Scorecard) float64 { return k.ShockLevel / g0 }, "%12.2f")
 	row("thermal drift, µm/K", func(k *kinematic.Scorecard) float64 { return k.Drift * 1e6 }, "%12.3f")
-	row("weakest Maxwell index (0-1)", func(k *kinematic.Scorecard) float64 { return k.WeakestIndex }, "%12.4f")
+	row("Maxwell index, ball centre", func(k *kinematic.Scorecard) float64 { return k.WeakestCentreIndex }, "%12.4f")
+	row("Maxwell index, contact point", func(k *kinematic.Scorecard) float64 { return k.WeakestContactIndex }, "%12.4f")
 	row("condition number (1 = ideal)", func(k *kinematic.Scorecard) float64 { return k.Condition }, "%12.2f")
 	s.printf("Chosen grooves (frame azimuth):")
 	for _, p := range best.Coupling.Pairs {
@@ -240,7 +242,8 @@ func (s *study) choice(best kinematic.Optimum, cands []candidate, floor float64)
 	if len(best.Binding) > 0 {
 		s.printf("Held back by: %s\n", strings.Join(best.Binding, ", "))
 	}
-	s.printf("The layout with the highest Maxwell index is not the one that keeps the detector still:\n")
+	s.printf("(Each Maxwell row is the weakest contact's index, 0-1.)\n")
+	s.printf("The layout with the highest Maxwell index at the contact points is not the one that keeps the detector still:\n")
 	s.printf("the Maxwell index is nearly flat among sensible layouts and screens out the poor ones only.\n")
 	s.printf("(%d layouts evaluated.)\n", best.Evaluations)
 }
@@ -388,8 +391,10 @@ func (s *study) budget(ctx context.Context, d *design.Design, a *kinematic.Assem
 			if err != nil {
 				return nil, err
 			}
-			s.printf("thermal %+.0f K: the detector centre moves (%.2f, %.2f, %.2f) µm exactly (first order (%.2f, %.2f, %.2f) µm)\n",
-				dt, dr.Exact.X*1e6, dr.Exact.Y*1e6, dr.Exact.Z*1e6, dr.Linear.X*1e6, dr.Linear.Y*1e6, dr.Linear.Z*1e6)
+			s.printf("thermal %+.0f K: the detector centre moves (%.2f, %.2f, %.2f) µm relative to the base exactly (first order (%.2f, %.2f, %.2f) µm)\n",
+				dt, dr.Relative.X*1e6, dr.Relative.Y*1e6, dr.Relative.Z*1e6, dr.RelativeLinear.X*1e6, dr.RelativeLinear.Y*1e6, dr.RelativeLinear.Z*1e6)
+			s.printf("  in the frame, the base held at (%.1f, %.1f, %.1f) mm: (%.2f, %.2f, %.2f) µm\n",
+				th.BaseRef.X*1e3, th.BaseRef.Y*1e3, th.BaseRef.Z*1e3, dr.World.X*1e6, dr.World.Y*1e6, dr.World.Z*1e6)
 			if dt > 0 && dr.HasCentre {
 				s.printf("  thermal centre at (%.1f, %.1f) mm, %.1f mm from the detector centre\n", dr.Centre.X*1e3, dr.Centre.Y*1e3, dr.Distance*1e3)
 			}

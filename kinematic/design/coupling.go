@@ -22,7 +22,7 @@ func (d *Design) WithCoupling(c kinematic.Coupling) (*Design, error) {
 	}
 	out := d.clone()
 	for i, p := range c.Pairs {
-		out.Balls[i].Centre, out.Balls[i].Radius = p.Ball.Centre, p.Ball.Radius
+		out.Balls[i].Centre, out.Balls[i].Radius, out.Balls[i].Canoe = p.Ball.Centre, p.Ball.Radius, p.Ball.Canoe
 		s := &out.Seats[i]
 		ok := false
 		switch k := p.Seat.(type) {

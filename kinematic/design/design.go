@@ -66,6 +66,11 @@ type Ball struct {
 	Centre   r3.Vec  // m
 	Radius   float64 // m, > 0
 	Material hertz.Material
+
+	// Canoe marks a canoe ball (kinematic.Ball.Canoe): Radius and Centre
+	// are those of the spherical segment's sphere, which may reach
+	// through other balls.
+	Canoe bool
 }
 
 // SeatType is the kind of a [Seat].
@@ -178,9 +183,12 @@ func (p Percentile) of(s kinematic.Stats) float64 {
 // [Evaluation.Verdicts]. A zero limit means that requirement is not set;
 // a case name "" means the first load case.
 type Requirements struct {
-	// MinMaxwellIndex is the least allowed Maxwell centre index of the
-	// weakest contact (kinematic.Maxwell.CentreIndex), in (0, 1].
-	MinMaxwellIndex float64
+	// MinCentreIndex is the least allowed Maxwell index at the ball
+	// centres (kinematic.Maxwell.CentreIndex of the weakest contact,
+	// kinematic.Scorecard.WeakestCentreIndex), and MinContactIndex the
+	// least allowed index at the contact points (kinematic.Maxwell.Index,
+	// Scorecard.WeakestContactIndex); each in (0, 1), 0 not set.
+	MinCentreIndex, MinContactIndex float64
 
 	// MaxPressureRatio is the largest allowed ratio of peak Hertz
 	// pressure to allowable pressure at any contact in any case.

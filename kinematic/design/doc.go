@@ -32,6 +32,7 @@
 //	  name              letters, digits and "_", starting with a letter; default "A", "B", ... by position
 //	  centre            [x, y, z] lengths, required
 //	  radius            length > 0, required
+//	  canoe             boolean: a canoe ball (centre and radius of its segment's sphere); default false
 //	  material          material, required
 //	seats               array, one per ball, required
 //	  type              "vee", "rods", "flat", "trihedral" or "cone", required
@@ -75,14 +76,16 @@
 //	  delta_t           temperature difference, required
 //	  moving_alpha      expansion coefficient of the moving body; default 0
 //	  base_alpha        expansion coefficient of the base; default 0
-//	  base_ref          [x, y, z] lengths, where the base is held; default origin
+//	  base_ref          [x, y, z] lengths, where the base is held; default origin (changes only the drift in the frame)
 //	friction            object, optional: {"mu": number ≥ 0, required}
 //	monte_carlo         object, optional
 //	  samples           whole number in [1, 1e7], required
 //	  seed              whole number in [0, 2^64); default 0
 //	  exact             boolean: seat every sample exactly; default false (first order)
 //	requirements        object, optional; every requirement is optional, every limit > 0
-//	  min_maxwell_index   number in (0, 1]: the weakest Maxwell centre index
+//	  min_centre_index    number in (0, 1): the weakest Maxwell index at the ball centres
+//	                      (min_maxwell_index, its first name, is still read)
+//	  min_contact_index   number in (0, 1): the weakest Maxwell index at the contact points
 //	  max_pressure_ratio  number: peak Hertz pressure / allowable, any contact, any case
 //	  min_contact_force   force: the smallest contact force, any contact, any case
 //	  min_shock           {"level": acceleration, "case": name}: shock in the worst direction
@@ -92,7 +95,7 @@
 //	                      first-order error budget of the point of interest (at least one limit)
 //	  max_study           {"limit": length, "percentile": "p50", "p95", "p99" (default) or
 //	                      "p99.73"}: the Monte Carlo study's radial displacement
-//	  max_thermal_drift   length: the exact drift of the point of interest over delta_t
+//	  max_thermal_drift   length: the exact drift of the point of interest relative to the base over delta_t
 //	  seating             {"case": name}: the body must seat against friction mu
 //
 // A requirement's "case" names a load case; left out, it is the first.

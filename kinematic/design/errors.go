@@ -230,6 +230,9 @@ func (t translator) pairField(i int, rest string) string {
 	case "":
 		return index("seats", i)
 	case "Ball":
+		if sub == "" {
+			return index("balls", i)
+		}
 		if strings.HasPrefix(sub, "Material") {
 			return join(index("balls", i), "material")
 		}

@@ -181,9 +181,10 @@ var (
 // delta_t when neither moves anything.
 func thermalError(b *Built, err error) error {
 	e, ok := err.(*Error)
-	if !ok || strings.HasPrefix(e.Path, "thermal") || e.Path == "point_of_interest" {
+	if !ok || (strings.HasPrefix(e.Path, "thermal") && e.Path != "thermal") || e.Path == "point_of_interest" {
 		return err
 	}
+	whole := e.Path == "thermal" // kinematic's own "the thermal solve failed", with the seat as Other
 	th := b.d.Thermal
 	var far, farBase, span float64
 	var centroid r3.Vec
@@ -217,6 +218,10 @@ func thermalError(b *Built, err error) error {
 	}
 	if len(why) == 0 {
 		why = append(why, "the balls' and seats' own materials expand")
+	}
+	if whole {
+		return &Error{Path: path, Other: e.Other, Err: fmt.Errorf("%w; over delta_t %g K, %s",
+			e.Err, th.DeltaT, strings.Join(why, ", and "))}
 	}
 	return &Error{Path: path, Other: e.Path, Err: fmt.Errorf("the thermal solve failed: over delta_t %g K, %s; the expanded coupling cannot be seated: %w",
 		th.DeltaT, strings.Join(why, ", and "), e.Err)}
@@ -338,9 +343,19 @@ func (e Evaluation) Verdicts() Verdicts {
 		}
 		vs = append(vs, v)
 	}
-	if r.MinMaxwellIndex > 0 {
+	if r.MinCentreIndex > 0 {
 		c := e.Stability.Contacts[e.Weakest]
-		add("min_maxwell_index", c.CentreIndex, r.MinMaxwellIndex, "", true, "weakest at contact "+c.Label)
+		add("min_centre_index", c.CentreIndex, r.MinCentreIndex, "", true, "Maxwell index at the ball centre, weakest at contact "+c.Label)
+	}
+	if r.MinContactIndex > 0 {
+		w := 0
+		for i, m := range e.Stability.Contacts {
+			if m.Index < e.Stability.Contacts[w].Index {
+				w = i
+			}
+		}
+		c := e.Stability.Contacts[w]
+		add("min_contact_index", c.Index, r.MinContactIndex, "", true, "Maxwell index at the contact point, weakest at contact "+c.Label)
 	}
 	if r.MaxPressureRatio > 0 {
 		add("max_pressure_ratio", e.MaxPressureRatio, r.MaxPressureRatio, "", false, where(e.MaxPressureAt))
@@ -382,7 +397,7 @@ func (e Evaluation) Verdicts() Verdicts {
 		add("max_study", r.StudyPercentile.of(e.Study.Radial), r.MaxStudy, "m", false, note)
 	}
 	if r.MaxThermalDrift > 0 && e.Drift != nil {
-		add("max_thermal_drift", r3.Norm(e.Drift.Exact), r.MaxThermalDrift, "m", false, "exact seat of the expanded geometry")
+		add("max_thermal_drift", r3.Norm(e.Drift.Relative), r.MaxThermalDrift, "m", false, "exact seat of the expanded geometry, relative to the base")
 	}
 	if r.Homing && e.Homing != nil {
 		v := Verdict{Requirement: "requirements.seating", Value: e.Homing.MaxMu, Limit: e.mu, Min: true,

@@ -473,7 +473,7 @@ func (r *reader) readRequirementsOf(root *node, d *Design) error {
 
 func (r *reader) readBall(n *node, path string) (Ball, error) {
 	var b Ball
-	if err := fields(n, path, "a ball", "name", "centre", "radius", "material"); err != nil {
+	if err := fields(n, path, "a ball", "name", "centre", "radius", "material", "canoe"); err != nil {
 		return b, err
 	}
 	if err := optText(n, path, "name", maxName, &b.Name); err != nil {
@@ -489,6 +489,11 @@ func (r *reader) readBall(n *node, path string) (Ball, error) {
 		return b, err
 	}
 	var err error
+	if c := n.get("canoe"); c != nil {
+		if b.Canoe, err = boolean(c, join(path, "canoe")); err != nil {
+			return b, err
+		}
+	}
 	b.Material, err = r.readMaterialOf(n, path)
 	return b, err
 }
@@ -892,12 +897,24 @@ func (r *reader) readLimit(n *node, path string, l limit) error {
 
 func (r *reader) readRequirements(n *node, path string) (Requirements, error) {
 	var q Requirements
-	if err := fields(n, path, "a requirements object", "min_maxwell_index", "max_pressure_ratio", "min_contact_force",
+	if err := fields(n, path, "a requirements object", "min_centre_index", "min_contact_index", "min_maxwell_index", "max_pressure_ratio", "min_contact_force",
 		"min_shock", "min_frequency", "max_error", "max_study", "max_thermal_drift", "seating"); err != nil {
 		return q, err
 	}
+	// "min_maxwell_index" is the first name of "min_centre_index" (the
+	// index at the ball centres), still read in this format version.
+	if n.get("min_maxwell_index") != nil && n.get("min_centre_index") != nil {
+		return q, errorf(join(path, "min_maxwell_index"), ErrRange, "the old name of min_centre_index, which is given too")
+	}
+	if m := n.get("min_maxwell_index"); m != nil {
+		if v, err := number(m, join(path, "min_maxwell_index")); err == nil && v >= 1 {
+			return q, errorf(join(path, "min_maxwell_index"), ErrRange, "%s", indexFloor(v))
+		}
+	}
 	for _, l := range []limit{
-		{"min_maxwell_index", nil, &q.MinMaxwellIndex},
+		{"min_centre_index", nil, &q.MinCentreIndex},
+		{"min_contact_index", nil, &q.MinContactIndex},
+		{"min_maxwell_index", nil, &q.MinCentreIndex}, // the old name of min_centre_index
 		{"max_pressure_ratio", nil, &q.MaxPressureRatio},
 		{"min_contact_force", force, &q.MinContactForce},
 		{"max_thermal_drift", length, &q.MaxThermalDrift},

@@ -51,7 +51,7 @@ func (b *Built) buildCoupling() error {
 	for i, ball := range d.Balls {
 		c.Pairs[i] = kinematic.Pair{
 			Name: ball.Name,
-			Ball: kinematic.Ball{Centre: ball.Centre, Radius: ball.Radius, Material: ball.Material},
+			Ball: kinematic.Ball{Centre: ball.Centre, Radius: ball.Radius, Material: ball.Material, Canoe: ball.Canoe},
 			Seat: d.Seats[i].kinematic(),
 		}
 	}
@@ -497,7 +497,8 @@ func (r Requirements) checkLimits() error {
 		path string
 		v    float64
 	}{
-		{"min_maxwell_index", r.MinMaxwellIndex},
+		{"min_centre_index", r.MinCentreIndex},
+		{"min_contact_index", r.MinContactIndex},
 		{"max_pressure_ratio", r.MaxPressureRatio},
 		{"min_contact_force", r.MinContactForce},
 		{"min_shock.level", r.MinShock},
@@ -511,8 +512,13 @@ func (r Requirements) checkLimits() error {
 			return errorf(join(reqPath, l.path), ErrRange, "a limit must be finite and > 0 (0: not set), got %g", l.v)
 		}
 	}
-	if r.MinMaxwellIndex > 1 {
-		return errorf(join(reqPath, "min_maxwell_index"), ErrRange, "a Maxwell index lies in [0, 1], got %g", r.MinMaxwellIndex)
+	for _, l := range []struct {
+		key string
+		v   float64
+	}{{"min_centre_index", r.MinCentreIndex}, {"min_contact_index", r.MinContactIndex}} {
+		if l.v >= 1 {
+			return errorf(join(reqPath, l.key), ErrRange, "%s", indexFloor(l.v))
+		}
 	}
 	// A case named without its requirement, or a percentile without its
 	// limit, has no place in the file.
@@ -624,4 +630,12 @@ func (d *Design) needStudies() error {
 		return errorf(join(reqPath, "max_thermal_drift"), ErrMissing, "a thermal drift needs thermal (delta_t)")
 	}
 	return nil
+}
+
+// indexFloor returns why a floor on a Maxwell index is out of range: the
+// index lies in [0, 1], and a floor of 1 asks for an exact value that
+// rounding cannot give, so a floor lies in (0, 1) (kinematic.Optimize
+// takes the same range, with 0 for none).
+func indexFloor(v float64) string {
+	return fmt.Sprintf("a Maxwell index lies in [0, 1] and a floor on it below 1, got %g", v)
 }

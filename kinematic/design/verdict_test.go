@@ -38,7 +38,7 @@ func TestVerdictsPassFail(t *testing.T) {
 		"requirements.min_frequency":        true,
 		"requirements.max_error.rss":        true,
 		"requirements.max_error.worst_case": false,
-		"requirements.min_maxwell_index":    false,
+		"requirements.min_centre_index":     false,
 		"requirements.max_pressure_ratio":   false,
 		"requirements.min_contact_force":    false,
 		"requirements.max_thermal_drift":    false,

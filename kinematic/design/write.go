@@ -81,6 +81,7 @@ type wireBall struct {
 	Name     string  `json:"name,omitempty"`
 	Centre   vec     `json:"centre"`
 	Radius   float64 `json:"radius"`
+	Canoe    bool    `json:"canoe,omitempty"`
 	Material any     `json:"material"`
 }
 
@@ -167,7 +168,8 @@ type wireMonteCarlo struct {
 }
 
 type wireRequirements struct {
-	MinMaxwellIndex  float64        `json:"min_maxwell_index,omitempty"`
+	MinCentreIndex   float64        `json:"min_centre_index,omitempty"`
+	MinContactIndex  float64        `json:"min_contact_index,omitempty"`
 	MaxPressureRatio float64        `json:"max_pressure_ratio,omitempty"`
 	MinContactForce  float64        `json:"min_contact_force,omitempty"`
 	MinShock         *wireLimitCase `json:"min_shock,omitempty"`
@@ -214,7 +216,7 @@ func ptr(v float64) *float64 { return &v }
 func (d *Design) wire() wireDesign {
 	w := wireDesign{Format: Format, Units: "si", Name: d.Name, Description: d.Description, Point: wireVec(d.Point), Axis: optVec(d.Axis)}
 	for _, b := range d.Balls {
-		w.Balls = append(w.Balls, wireBall{Name: b.Name, Centre: wireVec(b.Centre), Radius: b.Radius, Material: wireMat(b.Material)})
+		w.Balls = append(w.Balls, wireBall{Name: b.Name, Centre: wireVec(b.Centre), Radius: b.Radius, Canoe: b.Canoe, Material: wireMat(b.Material)})
 	}
 	for _, s := range d.Seats {
 		ws := wireSeat{Type: s.Type.String(), Up: wireVec(s.Up), FlankRadius: s.FlankRadius, Toward: optVec(s.Toward), Material: wireMat(s.Material)}
@@ -272,7 +274,7 @@ func (d *Design) wire() wireDesign {
 		w.MonteCarlo = &wireMonteCarlo{Samples: mc.Samples, Seed: mc.Seed, Exact: mc.Exact}
 	}
 	if r := d.Requirements; r != (Requirements{}) {
-		wr := &wireRequirements{MinMaxwellIndex: r.MinMaxwellIndex, MaxPressureRatio: r.MaxPressureRatio,
+		wr := &wireRequirements{MinCentreIndex: r.MinCentreIndex, MinContactIndex: r.MinContactIndex, MaxPressureRatio: r.MaxPressureRatio,
 			MinContactForce: r.MinContactForce, MaxThermalDrift: r.MaxThermalDrift}
 		if r.MinShock > 0 {
 			wr.MinShock = &wireLimitCase{Level: r.MinShock, Case: r.ShockCase}

@@ -13,7 +13,8 @@ import (
 // to w, each figure relative to its best candidate so that taller is
 // better: the error at the point of interest (µm/µm), the stiffness
 // there (N/µm), the first natural frequency (Hz), the shock level (g),
-// the thermal drift (µm/K) and the weakest Maxwell index. names[i] names
+// the thermal drift (µm/K) and the weakest Maxwell index at the contact
+// points (Scorecard.WeakestContactIndex). names[i] names
 // cards[i]. Every figure drawn must be finite and greater than zero (a
 // scorecard of a payload without inertia has no frequency): the error
 // names the card's field, for example "cards[1].FirstFrequency".
@@ -37,7 +38,7 @@ func Scorecards(w io.Writer, names []string, cards []kinematic.Scorecard, opt *O
 		{"first frequency", "Hz", "FirstFrequency", false, func(k *kinematic.Scorecard) float64 { return k.FirstFrequency }},
 		{"shock level", "g", "ShockLevel", false, func(k *kinematic.Scorecard) float64 { return k.ShockLevel / kinematic.StandardGravity }},
 		{"thermal drift", "µm/K", "Drift", true, func(k *kinematic.Scorecard) float64 { return k.Drift * 1e6 }},
-		{"Maxwell index", "", "WeakestIndex", false, func(k *kinematic.Scorecard) float64 { return k.WeakestIndex }},
+		{"Maxwell index at the contact points", "", "WeakestContactIndex", false, func(k *kinematic.Scorecard) float64 { return k.WeakestContactIndex }},
 	} {
 		fig := draw.Figure{Name: f.name, Unit: f.unit, LowerIsBetter: f.lower}
 		for i := range cards {

@@ -1,0 +1,94 @@
+package kinematic
+
+import (
+	"errors"
+	"math"
+	"testing"
+
+	"gonum.org/v1/gonum/spatial/r3"
+)
+
+// TestImpossibleGeometry checks that Contacts refuses geometry that cannot
+// exist and accepts the limiting cases that can. Every threshold is worked
+// by hand in the case's comment.
+func TestImpossibleGeometry(t *testing.T) {
+	vee := func(dx, dy float64) Vee { return Vee{Direction: r3.Vec{X: dx, Y: dy}, Up: up, HalfAngle: math.Pi / 4} }
+	at := func(x, y, z, r float64) Ball { return Ball{Centre: r3.Vec{X: x, Y: y, Z: z}, Radius: r} }
+	rods := func(rr float64) Rods {
+		return Rods{Direction: r3.Vec{X: 1}, Up: up, HalfAngle: math.Pi / 4, RodRadius: rr}
+	}
+	for _, tc := range []struct {
+		name         string
+		c            Coupling
+		field, other string // "" field: accepted
+		sentinel     error
+	}{
+		// A millimetre design read as metres: radius 6.35 (meant mm)
+		// and centres 0.1 apart (meant 100 mm): 0.1 < 6.35 + 6.35.
+		{"mm read as m", Coupling{Pairs: []Pair{
+			{Ball: at(0, 0, 0, 6.35), Seat: vee(1, 0)},
+			{Ball: at(0.1, 0, 0, 6.35), Seat: vee(0, 1)},
+			{Ball: at(0, 0.1, 0, 6.35), Seat: vee(1, 1)}}},
+			"Pairs[1].Ball", "Pairs[0].Ball", ErrRange},
+		// The same in metres: 0.1 ≥ 0.00635 + 0.00635.
+		{"the same in metres", Coupling{Pairs: []Pair{
+			{Ball: at(0, 0, 0, 6.35e-3), Seat: vee(1, 0)},
+			{Ball: at(0.1, 0, 0, 6.35e-3), Seat: vee(0, 1)},
+			{Ball: at(0, 0.1, 0, 6.35e-3), Seat: vee(1, 1)}}}, "", "", nil},
+		// Touching balls: |c₀ − c₁| = 0.05 = 0.025 + 0.025 exactly.
+		{"touching", Coupling{Pairs: []Pair{
+			{Ball: at(0, 0, 0, 0.025), Seat: vee(1, 0)},
+			{Ball: at(0.05, 0, 0, 0.025), Seat: vee(0, 1)},
+			{Ball: at(0, 0.05, 0, 0.025), Seat: vee(1, 1)}}}, "", "", nil},
+		// Overlap by 1 %: radii 0.02525, 2·0.02525 = 0.0505 > 0.05;
+		// balls 0 and 2 overlap first in the order checked (pair 2
+		// against 0: 0.05 apart too), but 1 against 0 comes first.
+		{"overlap 1 %", Coupling{Pairs: []Pair{
+			{Ball: at(0, 0, 0, 0.02525), Seat: vee(1, 0)},
+			{Ball: at(0.05, 0, 0, 0.02525), Seat: vee(0, 1)},
+			{Ball: at(0, 0.05, 0, 0.02525), Seat: vee(1, 1)}}},
+			"Pairs[1].Ball", "Pairs[0].Ball", ErrRange},
+		// Canoe balls of radius 0.25 m on a 0.1 m spacing: the spheres
+		// overlap (0.1 < 0.5) but only the segments are solid.
+		{"canoe balls", Coupling{Pairs: []Pair{
+			{Ball: Ball{Centre: r3.Vec{Z: 0.25}, Radius: 0.25, Canoe: true}, Seat: vee(1, 0)},
+			{Ball: Ball{Centre: r3.Vec{X: 0.1, Z: 0.25}, Radius: 0.25, Canoe: true}, Seat: vee(0, 1)},
+			{Ball: Ball{Centre: r3.Vec{Y: 0.1, Z: 0.25}, Radius: 0.25, Canoe: true}, Seat: vee(1, 1)}}}, "", "", nil},
+		// A canoe ball on a flat touches at (0, 0, 0), 0.005 m from the
+		// centre of a whole ball of radius 0.01 m: inside it.
+		{"contact inside a ball", Coupling{Pairs: []Pair{
+			{Ball: Ball{Centre: r3.Vec{Z: 0.25}, Radius: 0.25, Canoe: true}, Seat: Flat{Up: up}},
+			{Ball: at(0.005, 0, 0, 0.01), Seat: vee(0, 1)},
+			{Ball: at(0, 0.1, 0, 0.01), Seat: vee(1, 1)}}},
+			"Pairs[0].Seat", "Pairs[1].Ball", ErrRange},
+		// Rods at 45° under a ball of radius 5 mm: the axes lie
+		// 2(r + R)cos 45° apart. R = 20 mm: 2·25·0.7071 = 35.4 mm < 40 mm,
+		// the rods overlap. R = 10 mm: 2·15·0.7071 = 21.2 mm > 20 mm.
+		{"rods overlap", Coupling{Pairs: []Pair{{Ball: at(0, 0, 0, 5e-3), Seat: rods(20e-3)}}},
+			"Pairs[0].Seat.RodRadius", "", ErrRange},
+		{"rods clear", Coupling{Pairs: []Pair{{Ball: at(0, 0, 0, 5e-3), Seat: rods(10e-3)}}}, "", "", nil},
+		// A gothic-arch flank no larger than the ball cannot touch it.
+		{"flank radius", Coupling{Pairs: []Pair{{Ball: at(0, 0, 0, 5e-3),
+			Seat: Vee{Direction: r3.Vec{X: 1}, Up: up, HalfAngle: math.Pi / 4, FlankRadius: 5e-3}}}},
+			"Pairs[0].Seat.FlankRadius", "", ErrRange},
+		// A 0.1 m coupling 1e300 m from the origin: 0.1/1e300 is far
+		// below farTol, and the centres round to the same number.
+		{"far away", Coupling{Pairs: []Pair{
+			{Ball: at(1e300, 0, 0, 6.35e-3), Seat: vee(1, 0)},
+			{Ball: at(1e300+0.1, 0, 0, 6.35e-3), Seat: vee(0, 1)},
+			{Ball: at(1e300, 0.1, 0, 6.35e-3), Seat: vee(1, 1)}}},
+			"Pairs[0].Ball.Centre", "", ErrRange},
+	} {
+		_, err := tc.c.Contacts()
+		if tc.field == "" {
+			if err != nil {
+				t.Errorf("%s: %v, want accepted", tc.name, err)
+			}
+			continue
+		}
+		var ie *InputError
+		if !errors.As(err, &ie) || ie.Field != tc.field || ie.Other != tc.other || !errors.Is(err, tc.sentinel) {
+			t.Errorf("%s: %v, want an InputError on %q (other %q) wrapping %v", tc.name, err, tc.field, tc.other, tc.sentinel)
+		}
+	}
+}
