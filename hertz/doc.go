@@ -160,9 +160,10 @@
 // 1.664 Y for ν from 0.28 to 0.342), rounded down to three digits, for 6061-T6
 // (397 MPa), Ti-6Al-4V (1310 MPa) and D2 at 60 HRC (3410 MPa). First
 // yield is the stricter criterion. The brittle materials and Invar 36 have
-// no allowable on file (0), and the Source says why; a Contact's pressure
-// can then be judged only against the other body's allowable, which says
-// nothing of the brittle body. Allowable is data for the caller: Solve
+// no allowable on file (0), and the Source says why; a contact with such a
+// body is not judged against the other body's allowable, which says
+// nothing of the brittle body (package kinematic reports no pressure ratio
+// for it). Allowable is data for the caller: Solve
 // checks that it is finite and not negative, and does not otherwise use it.
 //
 // # References

@@ -53,8 +53,8 @@ type Material struct {
 // silica) have no allowable on file: they do not yield but crack at the edge
 // of the contact under the radial tension there, and no standard or
 // handbook figure for a static contact pressure was found; each Source says
-// what was found. A pair's allowable is then that of the other body, if it
-// has one, which says nothing of the brittle body.
+// what was found. The other body's allowable says nothing of the brittle
+// one, so a pair with such a body has no allowable to be judged by.
 var (
 	// Steel52100 is through-hardened bearing steel AISI 52100 (100Cr6).
 	Steel52100 = Material{

@@ -331,7 +331,7 @@ func TestResultNeeds(t *testing.T) {
 	}
 	_, err = mb.Stiffness(lc, nil)
 	var ie *InputError
-	if !errors.As(err, &ie) || ie.Field != "cs[0].Base.Material.E" {
+	if !errors.As(err, &ie) || ie.Field != "cs[0].Base.Material" || !errors.Is(err, ErrDegenerate) {
 		t.Errorf("Stiffness without seat material: %v", err)
 	}
 	if _, err := mb.WrenchLimit(lc, screwWrench(1)); err != nil {

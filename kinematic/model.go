@@ -208,6 +208,17 @@ func newContactLaw(c *Contact, i int) contactLaw {
 			"%w: contact %s has no Hertz surfaces (given by hand?)", ErrDegenerate, labelOf(c.Label, i))}
 		return s
 	}
+	for _, b := range [...]struct {
+		field, what string
+		m           hertz.Material
+	}{{moving, "ball's (the moving body's)", c.Moving.Material}, {base, "seat's (the base's)", c.Base.Material}} {
+		if b.m == (hertz.Material{}) {
+			s.err = &InputError{Field: b.field + ".Material", Err: fmt.Errorf(
+				"%w: contact %s has no material on its %s side: set the Material of that ball or seat (a hertz.Material such as hertz.Steel440C)",
+				ErrDegenerate, labelOf(c.Label, i), b.what)}
+			return s
+		}
+	}
 	r := math.Min(math.Min(math.Abs(c.Moving.R1), math.Abs(c.Moving.R2)), math.Min(math.Abs(c.Base.R1), math.Abs(c.Base.R2)))
 	if math.IsInf(r, 1) || r == 0 {
 		r = 1

@@ -235,7 +235,8 @@ type FrontPoint struct {
 // scenario cannot give (MaxShockLevel without a payload mass,
 // MaxFirstFrequency without a payload inertia, MinCompliance or
 // MaxShockLevel without preload); "opt.Windows" or "opt.Regions" of the
-// wrong length, "opt.Windows[i]" inverted or not finite, "opt.Regions[i]"
+// wrong length, "opt.Windows[i]" inverted or not finite,
+// "opt.Windows[i].Min" or ".Max" beyond ±2π rad, "opt.Regions[i]"
 // negative or not finite; "opt.HalfAngles[i]" outside (0, π/2);
 // "opt.MinCentreIndex" or "opt.MinContactIndex" outside [0, 1),
 // "opt.MaxPressureRatio" negative, "opt.MaxCondition" below 1;
@@ -256,6 +257,10 @@ func Optimize(c Coupling, s Scenario, opt *OptimizeOptions) (Optimum, error) {
 	}
 	if err := p.checkObjective(o.Objective, &res.Start, "opt.Objective"); err != nil {
 		return Optimum{}, err
+	}
+	if o.MaxPressureRatio > 0 && res.Start.Unavailable.Has(FigurePressureRatio) {
+		return Optimum{}, &InputError{Field: "opt.MaxPressureRatio", Err: fmt.Errorf(
+			"%w: the pressure ratio cannot be computed for the coupling as given (a contact without both materials' allowables, or without preload), so the ceiling cannot be held", ErrDegenerate)}
 	}
 	if o.TradeOff != nil {
 		if o.TradeOff.Points < 2 {
@@ -372,6 +377,21 @@ func (p *optProblem) checkObjective(obj Objective, start *Scorecard, field strin
 		}
 	default:
 		return &InputError{Field: field, Err: fmt.Errorf("%w: unknown objective %d", ErrRange, int(obj))}
+	}
+	var need Figure
+	switch obj {
+	case MinDrift:
+		need = FigureDrift
+	case MinCompliance:
+		need = FigureStiffness
+		if p.sc.s.Axis != (r3.Vec{}) {
+			need = FigureAxisCompliance
+		}
+	case MaxFirstFrequency:
+		need = FigureFirstFrequency
+	}
+	if need != 0 && start.Unavailable.Has(need) {
+		return &InputError{Field: field, Err: fmt.Errorf("%w: %v needs Scorecard's %v, which the scenario cannot give for the coupling as given (see Figure)", ErrDegenerate, obj, need)}
 	}
 	return nil
 }
@@ -499,6 +519,18 @@ func (p *optProblem) addGroove(op *optPair, i int, g grooveSeat) error {
 		field := indexed("opt.Windows", i)
 		if !linalg.Finite(w.Min) || !linalg.Finite(w.Max) {
 			return &InputError{Field: field, Err: fmt.Errorf("%w: %+v", ErrNonFinite, w)}
+		}
+		for _, e := range [...]struct {
+			name string
+			v    float64
+		}{{"Min", w.Min}, {"Max", w.Max}} {
+			// An azimuth is an angle in radians: one turn each way
+			// holds every window; a limit beyond it is a slip (degrees
+			// for radians), not a window.
+			if math.Abs(e.v) > 2*math.Pi {
+				return &InputError{Field: field + "." + e.name, Err: fmt.Errorf(
+					"%w: an azimuth in radians must lie within ±2π, got %g (if that is degrees, it is %.4g rad)", ErrRange, e.v, e.v*math.Pi/180)}
+			}
 		}
 		if w.Min > w.Max {
 			return &InputError{Field: field, Err: fmt.Errorf("%w: Min %g > Max %g", ErrRange, w.Min, w.Max)}

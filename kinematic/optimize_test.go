@@ -7,6 +7,8 @@ import (
 	"testing"
 
 	"gonum.org/v1/gonum/spatial/r3"
+
+	"github.com/sixfold-dev/sixfold/hertz"
 )
 
 // bruteForce returns the best cost over a grid of m azimuths per groove
@@ -319,5 +321,55 @@ func TestOptimizeDefaultScreen(t *testing.T) {
 	}
 	if res.Score.Amplification > res.Start.Amplification*(1+1e-12) {
 		t.Errorf("default: amplification %g worse than the start's %g", res.Score.Amplification, res.Start.Amplification)
+	}
+}
+
+// TestOptimizeRefusesUnavailableFigures: a ceiling on the pressure ratio,
+// or an objective, that the scenario cannot compute for the coupling is an
+// error naming the option, not a constraint silently dropped. Silicon
+// nitride has no contact allowable on file (hertz.SiliconNitride.Source),
+// so no contact of a silicon nitride ball can be judged; without
+// materials no stiffness can be computed.
+func TestOptimizeRefusesUnavailableFigures(t *testing.T) {
+	bs := equilateral()
+	for i := range bs {
+		bs[i].Material = hertz.SiliconNitride
+	}
+	c, err := BisectorVees(bs, three(vee45))
+	if err != nil {
+		t.Fatal(err)
+	}
+	var ie *InputError
+	_, err = Optimize(c, scenario(), &OptimizeOptions{MaxPressureRatio: 0.5})
+	if !errors.As(err, &ie) || ie.Field != "opt.MaxPressureRatio" || !errors.Is(err, ErrDegenerate) {
+		t.Errorf("pressure ceiling without allowables: %v", err)
+	}
+	bare := vee45
+	bare.Material = hertz.Material{}
+	c, err = BisectorVees(equilateral(), three(bare))
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, obj := range []Objective{MaxFirstFrequency, MinCompliance} {
+		_, err = Optimize(c, scenario(), &OptimizeOptions{Objective: obj})
+		if !errors.As(err, &ie) || ie.Field != "opt.Objective" || !errors.Is(err, ErrDegenerate) {
+			t.Errorf("%v without seat materials: %v", obj, err)
+		}
+	}
+}
+
+// TestOptimizeWindowInDegrees: a window written in degrees (20 to 160,
+// meant as 20° to 160°) is wider than π radians, which would allow every
+// azimuth; a limit beyond one turn is refused as the slip it is.
+func TestOptimizeWindowInDegrees(t *testing.T) {
+	c, err := BisectorVees(equilateral(), three(vee45))
+	if err != nil {
+		t.Fatal(err)
+	}
+	all := Window{Min: -math.Pi / 2, Max: math.Pi / 2}
+	_, err = Optimize(c, scenario(), &OptimizeOptions{Windows: []Window{all, {Min: 20, Max: 160, From: FrameX}, all}})
+	var ie *InputError
+	if !errors.As(err, &ie) || ie.Field != "opt.Windows[1].Min" || !errors.Is(err, ErrRange) {
+		t.Errorf("window in degrees: %v", err)
 	}
 }

@@ -114,7 +114,7 @@ func (r *reader) quantity(n *node, path string, k *quantityKind) (float64, error
 		}
 		return v, nil
 	}
-	return 0, errorf(path, ErrType, "must be %s: a number in %s or a string such as \"12.7 %s\", got %s", k.what, k.si, exampleUnit(k), n.kind)
+	return 0, errorf(path, ErrType, "must be %s: a number in %s or a string such as \"12.7 %s\", got %s", k.what, k.si, exampleUnit(k).name, n.kind)
 }
 
 // vector returns a vector of three quantities of kind k, or of three

@@ -121,7 +121,7 @@ func TestMalformed(t *testing.T) {
 		{"frequency without inertia", edit(t, both(del("payload.inertia"), set("requirements.min_frequency", map[string]any{"limit": "100 Hz"}))), "requirements.min_frequency", ErrMissing, "mass and inertia"},
 		{"pressure without allowable", edit(t, both(
 			set("balls[1].material", "tungsten-carbide"), set("seats[1].material", "sapphire"),
-			set("requirements.max_pressure_ratio", 0.5))), "requirements.max_pressure_ratio", ErrMissing, "neither balls[1].material nor seats[1].material"},
+			set("requirements.max_pressure_ratio", 0.5))), "requirements.max_pressure_ratio", ErrMissing, "balls[1].material (tungsten carbide (WC–6%Co)) has no allowable contact pressure on file"},
 		{"percentile", edit(t, both(set("monte_carlo", map[string]any{"samples": 10}),
 			set("requirements.max_study", map[string]any{"limit": "1 um", "percentile": "p90"}))), "requirements.max_study.percentile", ErrRange, `"p90"; must be one of`},
 	}

@@ -131,7 +131,8 @@ const maxExponent = 10000
 func parseQuantity(s string, k *quantityKind) (float64, error) {
 	mant, exp, rest, ok := scanNumber(s)
 	if !ok {
-		return 0, fmt.Errorf("%w: %q does not start with a number (write, for example, \"12.7 %s\" or the plain number 0.0127 in %s)", ErrUnit, s, exampleUnit(k), k.si)
+		u := exampleUnit(k)
+		return 0, fmt.Errorf("%w: %q does not start with a number (write, for example, \"12.7 %s\", which is %.6g %s)", ErrUnit, s, u.name, u.si(12.7), k.si)
 	}
 	name := normaliseUnit(rest)
 	if name == "" {
@@ -163,11 +164,29 @@ func parseQuantity(s string, k *quantityKind) (float64, error) {
 }
 
 // exampleUnit returns a typical unit of the kind, for messages.
-func exampleUnit(k *quantityKind) string {
-	if len(k.units) > 2 {
-		return k.units[2].name
+func exampleUnit(k *quantityKind) unit {
+	for _, u := range k.units {
+		if len(k.hints) > 0 && u.name == normaliseUnit(k.hints[0]) {
+			return u
+		}
 	}
-	return k.units[0].name
+	if len(k.units) > 2 {
+		return k.units[2]
+	}
+	return k.units[0]
+}
+
+// si returns the value v of the unit in SI units (for messages).
+func (u unit) si(v float64) float64 {
+	f := u.factor
+	if f == 0 {
+		f = 1
+	}
+	v *= f
+	// Scale by the power of ten through a decimal string, so that 12.7 mm
+	// prints as 0.0127 m and not 0.012700000000000001 m.
+	x, _ := strconv.ParseFloat(fmt.Sprintf("%se%d", strconv.FormatFloat(v, 'g', -1, 64), u.pow10), 64)
+	return x
 }
 
 // scanNumber splits s into the number it starts with, written as a JSON

@@ -564,8 +564,17 @@ func (d *Design) needLoads() error {
 			return err
 		}
 		for i, b := range d.Balls {
-			if b.Material.Allowable == 0 && d.Seats[i].Material.Allowable == 0 {
-				return errorf(join(reqPath, "max_pressure_ratio"), ErrMissing, "neither balls[%d].material nor seats[%d].material has an allowable pressure", i, i)
+			// A contact is judged only when both bodies have an
+			// allowable on file (kinematic.ContactLoad.Allowable): a
+			// steel seat's figure says nothing of a ceramic ball.
+			for _, m := range []struct {
+				path string
+				mat  hertz.Material
+			}{{index("balls", i) + ".material", b.Material}, {index("seats", i) + ".material", d.Seats[i].Material}} {
+				if m.mat.Allowable == 0 {
+					return errorf(join(reqPath, "max_pressure_ratio"), ErrMissing,
+						"%s (%s) has no allowable contact pressure on file, so its contacts cannot be judged; give it an \"allowable\" or drop the requirement", m.path, m.mat.Name)
+				}
 			}
 		}
 	}
