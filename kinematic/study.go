@@ -64,8 +64,7 @@ type Stats struct {
 // StudyResult is the outcome of a Monte Carlo tolerance study: the
 // interchangeability of parts made to the drawing.
 type StudyResult struct {
-	Samples int // drawn
-	Failed  int // that could not seat (exact model only); left out of the statistics
+	Samples int // drawn; every one seated (a study in which a part cannot seat is an error)
 
 	// X, Y and Z are the point of interest's displacement along the
 	// frame's axes, m; Radial its magnitude, m; Tilt the magnitude of the
@@ -133,7 +132,12 @@ func (a *Assembly) Study(ctx context.Context, p r3.Vec, tols []Tolerance, opt *S
 	if err := ctx.Err(); err != nil {
 		return StudyResult{}, err
 	}
-	res := summarise(disp, tilt, ok, opt.KeepSamples)
+	res, failed := summarise(disp, tilt, ok, opt.KeepSamples)
+	if failed > 0 {
+		return StudyResult{}, &InputError{Field: "tols", Err: fmt.Errorf(
+			"%w: %d of %d sampled parts cannot seat (a ball would leave its seat, exact model): the tolerances are too wide for the coupling, and statistics of the parts that do seat would understate the spread",
+			ErrRange, failed, res.Samples)}
+	}
 	if !res.finite() {
 		return StudyResult{}, &InputError{Field: "tols", Err: fmt.Errorf("%w: a sample's displacement overflows", ErrRange)}
 	}
@@ -334,13 +338,14 @@ func (s *sampler) sample(dev []float64) (r3.Vec, float64, bool) {
 	return r3.Sub(pose.Apply(s.p), s.p), linalg.Norm3(pose.Rotation), true
 }
 
-// summarise returns the statistics of the seated samples.
-func summarise(disp []r3.Vec, tilt []float64, ok []bool, keep bool) StudyResult {
-	res := StudyResult{Samples: len(disp)}
+// summarise returns the statistics of the seated samples and the number
+// of samples that could not seat.
+func summarise(disp []r3.Vec, tilt []float64, ok []bool, keep bool) (res StudyResult, failed int) {
+	res.Samples = len(disp)
 	var xs, ys, zs, rs, ts []float64
 	for i := range disp {
 		if !ok[i] {
-			res.Failed++
+			failed++
 			continue
 		}
 		d := disp[i]
@@ -352,7 +357,7 @@ func summarise(disp []r3.Vec, tilt []float64, ok []bool, keep bool) StudyResult 
 	}
 	res.X, res.Y, res.Z = stats(xs), stats(ys), stats(zs)
 	res.Radial, res.Tilt = stats(rs), stats(ts)
-	return res
+	return res, failed
 }
 
 // stats returns the mean and standard deviation of x (Welford's update,

