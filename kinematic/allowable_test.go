@@ -15,7 +15,7 @@ import (
 // scorecard marks the pressure ratio unavailable.
 func TestAllowableNeedsBothBodies(t *testing.T) {
 	clamp := []Preload{{Point: r3.Vec{Z: 0.02}, Direction: r3.Vec{Z: -1}, Force: 40}}
-	lc := LoadCase{Preload: 1}
+	lc := LoadCase{PreloadFactor: 1}
 	for _, tc := range []struct {
 		name string
 		seat hertz.Material

@@ -31,7 +31,7 @@ func TestAmplificationAgainstEquilibrium(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	lc := LoadCase{Preload: 1}
+	lc := LoadCase{PreloadFactor: 1}
 	e0, err := m.Equilibrium(lc, nil)
 	if err != nil {
 		t.Fatal(err)

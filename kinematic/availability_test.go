@@ -153,7 +153,7 @@ func TestStaticsAndStiffnessNameThePull(t *testing.T) {
 	const P = 60.0
 	m, _ := equilateralModel(t, math.Pi/4, P, 0, 0)
 	// The preload factor −1 reverses the clamp.
-	lc := LoadCase{Name: "reversed", Preload: -1}
+	lc := LoadCase{Name: "reversed", PreloadFactor: -1}
 	s, err := m.Statics(lc)
 	if err != nil {
 		t.Fatal(err)
@@ -172,7 +172,7 @@ func TestStaticsAndStiffnessNameThePull(t *testing.T) {
 
 	// Gravity pulling a coupling hung upside down without preload.
 	m2, _ := equilateralModel(t, math.Pi/4, P, 0.8, 0.03)
-	s, err = m2.Statics(LoadCase{Gravity: r3.Vec{Z: StandardGravity}})
+	s, err = m2.Statics(LoadCase{Gravity: r3.Vec{Z: StandardGravity}, NoPreload: true})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -187,8 +187,8 @@ func TestStaticsAndStiffnessNameThePull(t *testing.T) {
 // is missing, at Stiffness rather than later in Compliance.
 func TestStiffnessOfUnloadedContacts(t *testing.T) {
 	m, cs := equilateralModel(t, math.Pi/4, 60, 0, 0)
-	_, err := m.Stiffness(LoadCase{Name: "idle"}, nil)
-	wantField(t, "factor 0", err, "lc.Preload", ErrDegenerate)
+	_, err := m.Stiffness(LoadCase{Name: "idle", NoPreload: true}, nil)
+	wantField(t, "no preload", err, "lc.NoPreload", ErrDegenerate)
 	if err != nil {
 		for _, c := range cs {
 			if !strings.Contains(err.Error(), c.Label) {
@@ -203,7 +203,7 @@ func TestStiffnessOfUnloadedContacts(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	_, err = bare.Stiffness(LoadCase{Preload: 1}, nil)
+	_, err = bare.Stiffness(LoadCase{PreloadFactor: 1}, nil)
 	wantField(t, "no preload element", err, "preloads", ErrDegenerate)
 }
 
@@ -229,7 +229,7 @@ func TestZeroValues(t *testing.T) {
 		wantField(t, name+" Study", err, "a", ErrDegenerate)
 	}
 	for name, m := range map[string]*Model{"zero": {}, "nil": nil} {
-		lc := LoadCase{Preload: 1}
+		lc := LoadCase{PreloadFactor: 1}
 		_, err := m.Statics(lc)
 		wantField(t, name+" Statics", err, "m", ErrDegenerate)
 		_, err = m.Shock(lc, 1)
@@ -284,7 +284,7 @@ func TestResultNeeds(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	lc := LoadCase{Preload: 1}
+	lc := LoadCase{PreloadFactor: 1}
 	s, err := m.Statics(lc)
 	if err != nil {
 		t.Fatal(err)

@@ -124,7 +124,7 @@ func BenchmarkStatics(b *testing.B) {
 		if err != nil {
 			b.Fatal(err)
 		}
-		lc := LoadCase{Preload: 1, Gravity: r3.Vec{Z: -StandardGravity}}
+		lc := LoadCase{PreloadFactor: 1, Gravity: r3.Vec{Z: -StandardGravity}}
 		b.Run(bc.name, func(b *testing.B) {
 			b.ReportAllocs()
 			for b.Loop() {
@@ -141,7 +141,7 @@ func BenchmarkStatics(b *testing.B) {
 // BenchmarkShock measures the worst-direction shock check.
 func BenchmarkShock(b *testing.B) {
 	m, _ := equilateralModel(b, math.Pi/4, 60, 0.8, 0.03)
-	lc := LoadCase{Preload: 1, Gravity: r3.Vec{Z: -StandardGravity}}
+	lc := LoadCase{PreloadFactor: 1, Gravity: r3.Vec{Z: -StandardGravity}}
 	b.ReportAllocs()
 	for b.Loop() {
 		s, err := m.Shock(lc, 5*StandardGravity)
@@ -175,7 +175,7 @@ func BenchmarkEquilibrium(b *testing.B) {
 		b.Run(bc.name, func(b *testing.B) {
 			b.ReportAllocs()
 			for b.Loop() {
-				e, err := m.Equilibrium(LoadCase{Preload: 1}, bc.opt)
+				e, err := m.Equilibrium(LoadCase{PreloadFactor: 1}, bc.opt)
 				if err != nil {
 					b.Fatal(err)
 				}
@@ -189,7 +189,7 @@ func BenchmarkEquilibrium(b *testing.B) {
 // and the six natural frequencies of its payload.
 func BenchmarkStiffnessModes(b *testing.B) {
 	m, _ := equilateralModel(b, math.Pi/4, 60, 0.8, 0.03)
-	lc := LoadCase{Preload: 1, Gravity: r3.Vec{Z: -StandardGravity}}
+	lc := LoadCase{PreloadFactor: 1, Gravity: r3.Vec{Z: -StandardGravity}}
 	b.ReportAllocs()
 	for b.Loop() {
 		st, err := m.Stiffness(lc, nil)

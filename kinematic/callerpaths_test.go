@@ -35,7 +35,7 @@ func TestErrorsNameCallerFields(t *testing.T) {
 		t.Fatal(err)
 	}
 	badPre := []Preload{{Point: r3.Vec{X: math.NaN()}, Direction: r3.Vec{Z: -1}, Force: 10}}
-	lc := LoadCase{Preload: 1}
+	lc := LoadCase{PreloadFactor: 1}
 	far := c
 	far.Pairs = append([]Pair(nil), c.Pairs...)
 	for i := range far.Pairs {
@@ -84,7 +84,7 @@ func TestErrorsNameCallerFields(t *testing.T) {
 		// was reported as the body leaving its seats, ErrRange; no load
 		// gave a nil error).
 		{"Equilibrium five contacts", "cs", ErrNotExact, func() error {
-			for _, l := range []LoadCase{{}, lc, {Preload: 1, Gravity: r3.Vec{X: -9.8}}} {
+			for _, l := range []LoadCase{{}, lc, {PreloadFactor: 1, Gravity: r3.Vec{X: -9.8}}} {
 				if _, err := five.Equilibrium(l, nil); !errors.Is(err, ErrNotExact) {
 					return err
 				}

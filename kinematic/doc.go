@@ -58,9 +58,9 @@
 // inverses; frequencies in Hz.
 //
 // A load case is linear in its parts: the preload elements times the
-// case's Preload factor, the payload's weight Mass·Gravity and its
-// inertial load −Mass·Acceleration at its centre of mass, and the applied
-// wrenches. The zero value of every part means nothing applied.
+// case's PreloadFactor (zero means 1; NoPreload switches them off), the
+// payload's weight Mass·Gravity and its inertial load −Mass·Acceleration
+// at its centre of mass, and the applied wrenches (zero: none).
 //
 // The load analyses assume rigid bodies apart from the contacts,
 // frictionless point contacts following Hertz's force–approach law (the
@@ -124,7 +124,7 @@
 //     compressive force at every contact of an exactly constrained set
 //     (six loaded contacts otherwise); a contact in tension is an error
 //     naming the input that pulls it ("preloads[0]", "lc.Gravity"), and
-//     contacts with no force an error naming "lc.Preload" (a factor of 0)
+//     contacts with no force an error naming "lc.NoPreload" (the preload switched off)
 //     or "preloads" (none) and listing them: an unloaded Hertz contact has
 //     no stiffness.
 //   - [Mode]: a payload mass and inertia tensor, else an error naming

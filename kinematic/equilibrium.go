@@ -136,7 +136,7 @@ func (m *Model) Equilibrium(lc LoadCase, opt *EquilibriumOptions) (Equilibrium, 
 	if err != nil {
 		return Equilibrium{}, err
 	}
-	s := newSolver(m, e, w, lc.Preload != 0)
+	s := newSolver(m, e, w, lc.factor() != 0)
 	if !s.ranked() {
 		return Equilibrium{}, &InputError{Field: "cs", Err: fmt.Errorf(
 			"%w: the contacts leave the body free to move; an equilibrium needs six independent contacts or more", ErrNotExact)}

@@ -23,7 +23,7 @@ func TestEquilibriumEqualsRigid(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	lc := LoadCase{Name: "tilted", Preload: 1, Gravity: r3.Vec{X: 2, Y: -1, Z: -9.5}}
+	lc := LoadCase{Name: "tilted", PreloadFactor: 1, Gravity: r3.Vec{X: 2, Y: -1, Z: -9.5}}
 	rig, err := m.Statics(lc)
 	if err != nil {
 		t.Fatal(err)
@@ -80,7 +80,7 @@ func TestEquilibriumSevenContacts(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	lc := LoadCase{Preload: 1}
+	lc := LoadCase{PreloadFactor: 1}
 	eq, err := m.Equilibrium(lc, nil)
 	if err != nil {
 		t.Fatal(err)
@@ -123,7 +123,7 @@ func TestEquilibriumSevenContacts(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if _, err := m6.Equilibrium(LoadCase{Applied: []screw.Wrench{{F: r3.Vec{Z: 5}}}}, nil); !errors.Is(err, ErrRange) {
+	if _, err := m6.Equilibrium(LoadCase{NoPreload: true, Applied: []screw.Wrench{{F: r3.Vec{Z: 5}}}}, nil); !errors.Is(err, ErrRange) {
 		t.Errorf("pulled off its seats: %v", err)
 	}
 }

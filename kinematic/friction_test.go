@@ -62,7 +62,7 @@ func TestSeatingIncline(t *testing.T) {
 		{35 * math.Pi / 180, 4},
 	} {
 		m := inclineBlock(t, tc.beta, mass, tc.q)
-		lc := LoadCase{Preload: 1, Gravity: r3.Vec{Z: -g}}
+		lc := LoadCase{PreloadFactor: 1, Gravity: r3.Vec{Z: -g}}
 		s, c := math.Sincos(tc.beta)
 		limit := mass * g * s / (mass*g*c + tc.q)
 		for _, mu := range []float64{0, 0.5 * limit, 0.9 * limit, 1.1 * limit} {
@@ -92,7 +92,7 @@ func TestSeatingIncline(t *testing.T) {
 // adds resistance).
 func TestSeatingCoupling(t *testing.T) {
 	m, _ := equilateralModel(t, math.Pi/4, 60, 0, 0)
-	lc := LoadCase{Preload: 1}
+	lc := LoadCase{PreloadFactor: 1}
 	st, err := m.Homing(lc, 0)
 	if err != nil {
 		t.Fatal(err)
@@ -127,7 +127,7 @@ func TestSeatingCoupling(t *testing.T) {
 // the point; and the estimate is linear in μ.
 func TestRepeatability(t *testing.T) {
 	m, cs := equilateralModel(t, math.Pi/4, 60, 0, 0)
-	lc := LoadCase{Preload: 1}
+	lc := LoadCase{PreloadFactor: 1}
 	p := r3.Vec{X: 0.01, Z: 0.04}
 	r, err := m.Repeatability(lc, 0.15, p)
 	if err != nil {

@@ -65,7 +65,7 @@ func TestLiftOffTilted(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	base := LoadCase{Preload: 1}
+	base := LoadCase{PreloadFactor: 1}
 	for _, tc := range []struct {
 		dir, q  r3.Vec
 		force   float64

@@ -50,14 +50,20 @@ type Payload struct {
 	Inertia [3][3]float64
 }
 
-// LoadCase is one combination of what acts on the moving body. Zero values
-// mean nothing applied: a case with Preload 0 has no preload.
+// LoadCase is one combination of what acts on the moving body. The zero
+// LoadCase is the preload as given and nothing else: the preload elements
+// apply unless NoPreload is set (as in a design file, whose cases apply
+// the preload unless they say "preload": 0); zero gravity, acceleration
+// and applied loads mean none.
 type LoadCase struct {
 	Name string
 
-	// Preload is the factor on every preload element's Force (and
-	// Couple): 1 applies them as given.
-	Preload float64
+	// PreloadFactor is the factor on every preload element's Force (and
+	// Couple); zero means 1, the preload as given (the default of a
+	// design file's case too), and a negative factor reverses it. NoPreload switches the preload elements
+	// off (an unclamped part, a case that studies gravity alone).
+	PreloadFactor float64
+	NoPreload     bool
 
 	// Gravity is the acceleration of free fall in m/s², for example
 	// {Z: −StandardGravity} with z up; the payload's weight is
@@ -342,11 +348,23 @@ func spd3(j [3][3]float64) bool {
 	return d1 > 0 && d2 > 0 && d3 > 0
 }
 
+// factor returns the factor on the preload elements: 0 with NoPreload,
+// 1 for a zero PreloadFactor, else PreloadFactor.
+func (lc *LoadCase) factor() float64 {
+	switch {
+	case lc.NoPreload:
+		return 0
+	case lc.PreloadFactor == 0:
+		return 1
+	}
+	return lc.PreloadFactor
+}
+
 // wrench returns the total load of the case on the moving body, about
 // the model's origin.
 func (m *Model) wrench(lc *LoadCase) (screw.Wrench, error) {
-	if !linalg.Finite(lc.Preload) {
-		return screw.Wrench{}, &InputError{Field: "lc.Preload", Err: fmt.Errorf("%w: %g", ErrNonFinite, lc.Preload)}
+	if !linalg.Finite(lc.PreloadFactor) {
+		return screw.Wrench{}, &InputError{Field: "lc.PreloadFactor", Err: fmt.Errorf("%w: %g", ErrNonFinite, lc.PreloadFactor)}
 	}
 	if !linalg.Finite3(lc.Gravity) {
 		return screw.Wrench{}, &InputError{Field: "lc.Gravity", Err: fmt.Errorf("%w: %v", ErrNonFinite, lc.Gravity)}
@@ -354,7 +372,7 @@ func (m *Model) wrench(lc *LoadCase) (screw.Wrench, error) {
 	if !linalg.Finite3(lc.Acceleration) {
 		return screw.Wrench{}, &InputError{Field: "lc.Acceleration", Err: fmt.Errorf("%w: %v", ErrNonFinite, lc.Acceleration)}
 	}
-	w := m.preload.Scale(lc.Preload)
+	w := m.preload.Scale(lc.factor())
 	if m.payload.Mass > 0 {
 		f := r3.Scale(m.payload.Mass, r3.Sub(lc.Gravity, lc.Acceleration))
 		w = w.Add(screw.Wrench{F: f, M: r3.Cross(m.payload.Centre, f)})
@@ -394,7 +412,7 @@ func (m *Model) puller(i int, lc *LoadCase) (string, float64) {
 		}
 	}
 	for j, p := range m.preloads {
-		take(contactForce(t, p.w.Scale(lc.Preload)), indexed("preloads", j))
+		take(contactForce(t, p.w.Scale(lc.factor())), indexed("preloads", j))
 	}
 	if m.payload.Mass > 0 {
 		g := r3.Scale(m.payload.Mass, lc.Gravity)

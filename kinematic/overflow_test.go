@@ -40,11 +40,11 @@ func TestOverflowNamesTheInput(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	_, err = m.Shock(LoadCase{Preload: 1}, 9.8)
+	_, err = m.Shock(LoadCase{PreloadFactor: 1}, 9.8)
 	wantField(t, "Shock with 5e-324 kg", err, "payload.Mass", ErrRange)
 
 	mp, _ := equilateralModel(t, math.Pi/4, 60, 0.8, 0.03)
-	st, err := mp.Stiffness(LoadCase{Preload: 1}, nil)
+	st, err := mp.Stiffness(LoadCase{PreloadFactor: 1}, nil)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -69,7 +69,7 @@ func TestOverflowNamesTheInput(t *testing.T) {
 	// μ = 1e300 times a contact force of about 14 N, times a compliance
 	// of about 1e-8 m/N: the friction force is finite (1.4e301), its
 	// square in the displacement's norm is not.
-	_, err = mp.Repeatability(LoadCase{Preload: 1}, 1e300, r3.Vec{Z: 0.05})
+	_, err = mp.Repeatability(LoadCase{PreloadFactor: 1}, 1e300, r3.Vec{Z: 0.05})
 	wantField(t, "Repeatability with μ = 1e300", err, "mu", ErrRange)
 
 	// A tolerance of 1e300 m on a ball radius moves the point by about
@@ -90,14 +90,14 @@ func TestOverflowNamesTheInput(t *testing.T) {
 	_, err = mustBisector(t).Score(s)
 	wantField(t, "Score with Point.X = 1e300", err, "s.Point", ErrRange)
 
-	_, err = mp.LiftOff(LoadCase{Preload: 1}, r3.Vec{Z: 1}, []r3.Vec{{}, {X: 1e308, Y: 1e308}})
+	_, err = mp.LiftOff(LoadCase{PreloadFactor: 1}, r3.Vec{Z: 1}, []r3.Vec{{}, {X: 1e308, Y: 1e308}})
 	wantField(t, "LiftOff at 1e300 m", err, "points[1]", ErrRange)
 
 	// 1e300 N at 1e300 m: a moment of 1e600 N·m.
 	_, err = NewModel(mustContacts(t, mustBisector(t)), []Preload{{Point: r3.Vec{X: 1e300}, Direction: r3.Vec{Z: -1}, Force: 1e300}}, Payload{})
 	wantField(t, "NewModel with a moment of 1e600 N·m", err, "preloads[0].Force", ErrRange)
 
-	_, err = mp.WrenchLimit(LoadCase{Preload: 1}, screwWrench(5e-324))
+	_, err = mp.WrenchLimit(LoadCase{PreloadFactor: 1}, screwWrench(5e-324))
 	wantField(t, "WrenchLimit of a subnormal wrench", err, "w", ErrRange)
 }
 
@@ -109,12 +109,12 @@ func TestShockDirectionOfALightPayload(t *testing.T) {
 	pre := []Preload{{Point: r3.Vec{Z: 0.02}, Direction: r3.Vec{Z: -1}, Force: 60}}
 	heavy, _ := NewModel(cs, pre, Payload{Mass: 1, Centre: r3.Vec{Z: 0.03}})
 	light, _ := NewModel(cs, pre, Payload{Mass: 1e-310, Centre: r3.Vec{Z: 0.03}})
-	sh, err := heavy.Shock(LoadCase{}, 1)
+	sh, err := heavy.Shock(LoadCase{NoPreload: true}, 1)
 	if err != nil {
 		t.Fatal(err)
 	}
 	// With no base load every contact is open (Unload 0), which is finite.
-	sl, err := light.Shock(LoadCase{}, 1)
+	sl, err := light.Shock(LoadCase{NoPreload: true}, 1)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -238,7 +238,7 @@ func FuzzExtremes(f *testing.F) {
 		mass, mu, tol, force, mag, wscale := x[3], x[4], x[5], x[6], x[7], x[8]
 		pre := []Preload{{Point: r3.Vec{Z: 0.02}, Direction: r3.Vec{Z: -1}, Force: force}}
 		pay := Payload{Mass: mass, Centre: r3.Vec{Z: 0.03}, Inertia: [3][3]float64{{2e-3, 0, 0}, {0, 2e-3, 0}, {0, 0, 3e-3}}}
-		lc := LoadCase{Preload: 1, Gravity: r3.Vec{Z: -StandardGravity}}
+		lc := LoadCase{PreloadFactor: 1, Gravity: r3.Vec{Z: -StandardGravity}}
 
 		amp, err := stab.Amplification(p)
 		checkResult(t, "Amplification", amp, err)

@@ -47,7 +47,7 @@ const bindTol = 1e-7
 // SizePreload returns the preload window for the load cases: the
 // smallest preload that keeps every contact's force at or above minForce
 // (N, ≥ 0) in every case, and the largest that keeps every peak pressure at
-// or below its allowable. The cases' own Preload factors are ignored: the
+// or below its allowable. The cases' own PreloadFactor and NoPreload are ignored: the
 // sizing chooses them. Rigid statics: the forces are linear in each
 // element's factor, fᵢₖ = Σⱼ sⱼ aᵢⱼ + eᵢₖ (aᵢⱼ from element j at factor 1,
 // eᵢₖ from the rest of case k), so with one element the smallest factor is
@@ -132,7 +132,7 @@ func (m *Model) sizingForces(cases []LoadCase) (a, e [][6]float64, names []strin
 	names = make([]string, len(cases))
 	for k := range cases {
 		lc := cases[k]
-		lc.Preload = 0
+		lc.NoPreload = true
 		w, err := m.wrench(&lc)
 		if err != nil {
 			if ie, ok := err.(*InputError); ok {

@@ -36,7 +36,7 @@ func ExampleModel_SizePreload() {
 	if err != nil {
 		log.Fatal(err)
 	}
-	s, err := m.Statics(kinematic.LoadCase{Name: "clamped", Preload: 1})
+	s, err := m.Statics(kinematic.LoadCase{Name: "clamped", PreloadFactor: 1})
 	if err != nil {
 		log.Fatal(err)
 	}

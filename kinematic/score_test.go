@@ -63,7 +63,7 @@ func TestScoreAgreesWithAPIs(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	base := LoadCase{Preload: 1, Gravity: s.Gravity}
+	base := LoadCase{PreloadFactor: 1, Gravity: s.Gravity}
 	sh, _ := m.Shock(base, 0)
 	near("shock level", card.ShockLevel, sh.Unload, 1e-9)
 	stat, _ := m.Statics(base)
@@ -202,7 +202,7 @@ func TestScoreStiffnessWithPreloadRate(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	st, err := m.Stiffness(LoadCase{Preload: 1, Gravity: s.Gravity}, nil)
+	st, err := m.Stiffness(LoadCase{PreloadFactor: 1, Gravity: s.Gravity}, nil)
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -48,7 +48,7 @@ func TestStaticsEquilateral(t *testing.T) {
 		th := deg * math.Pi / 180
 		const P = 60.0
 		m, _ := equilateralModel(t, th, P, 0, 0)
-		s, err := m.Statics(LoadCase{Name: "preload", Preload: 1})
+		s, err := m.Statics(LoadCase{Name: "preload", PreloadFactor: 1})
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -118,7 +118,7 @@ func TestStaticsDuality(t *testing.T) {
 // contact in tension; they are listed and rigid statics says so.
 func TestTensileListed(t *testing.T) {
 	m, _ := equilateralModel(t, math.Pi/4, 10, 0, 0)
-	s, err := m.Statics(LoadCase{Applied: []screw.Wrench{{F: r3.Vec{Z: 5}}}})
+	s, err := m.Statics(LoadCase{NoPreload: true, Applied: []screw.Wrench{{F: r3.Vec{Z: 5}}}})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -135,7 +135,7 @@ func TestTensileListed(t *testing.T) {
 // contact, applied along Direction, leaves it at zero force.
 func TestShockClosedForm(t *testing.T) {
 	m, _ := equilateralModel(t, math.Pi/4, 60, 0.8, 0.03)
-	base := LoadCase{Name: "seated", Preload: 1, Gravity: r3.Vec{Z: -StandardGravity}}
+	base := LoadCase{Name: "seated", PreloadFactor: 1, Gravity: r3.Vec{Z: -StandardGravity}}
 	const a = 3 * StandardGravity
 	sh, err := m.Shock(base, a)
 	if err != nil {
@@ -195,7 +195,7 @@ func TestShockClosedForm(t *testing.T) {
 // below the limit every contact is in compression, just above one is not.
 func TestWrenchLimitAndLiftOff(t *testing.T) {
 	m, _ := equilateralModel(t, math.Pi/4, 60, 0.8, 0.03)
-	base := LoadCase{Preload: 1, Gravity: r3.Vec{Z: -StandardGravity}}
+	base := LoadCase{PreloadFactor: 1, Gravity: r3.Vec{Z: -StandardGravity}}
 	check := func(name string, w screw.Wrench, scale float64) {
 		t.Helper()
 		minForce := func(s float64) float64 {
@@ -277,7 +277,7 @@ func TestLoadErrors(t *testing.T) {
 		lc    LoadCase
 		field string
 	}{
-		{"NaN factor", LoadCase{Preload: nan}, "lc.Preload"},
+		{"NaN factor", LoadCase{PreloadFactor: nan}, "lc.PreloadFactor"},
 		{"Inf gravity", LoadCase{Gravity: r3.Vec{Z: math.Inf(-1)}}, "lc.Gravity"},
 		{"NaN acceleration", LoadCase{Acceleration: r3.Vec{Y: nan}}, "lc.Acceleration"},
 		{"NaN applied", LoadCase{Applied: []screw.Wrench{{}, {M: r3.Vec{X: nan}}}}, "lc.Applied[1]"},
@@ -310,10 +310,10 @@ func TestLoadErrors(t *testing.T) {
 		t.Fatal(err)
 	}
 	var ie *InputError
-	if _, err := mb.Statics(LoadCase{Preload: 1}); !errors.As(err, &ie) || ie.Field != "cs[3].Moving, cs[3].Base" {
+	if _, err := mb.Statics(LoadCase{PreloadFactor: 1}); !errors.As(err, &ie) || ie.Field != "cs[3].Moving, cs[3].Base" {
 		t.Errorf("contact without surfaces: err = %v", err)
 	}
-	if _, err := mb.WrenchLimit(LoadCase{Preload: 1}, screw.Wrench{F: up}); err != nil {
+	if _, err := mb.WrenchLimit(LoadCase{PreloadFactor: 1}, screw.Wrench{F: up}); err != nil {
 		t.Errorf("forces without surfaces: %v", err)
 	}
 	// A cone's ring is not a Hertz point contact: named, not a number.
@@ -326,7 +326,7 @@ func TestLoadErrors(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if _, err := mc.Statics(LoadCase{Preload: 1}); !errors.As(err, &ie) || ie.Field != "cs[0].Moving, cs[0].Base" || !errors.Is(err, hertz.ErrLineContact) {
+	if _, err := mc.Statics(LoadCase{PreloadFactor: 1}); !errors.As(err, &ie) || ie.Field != "cs[0].Moving, cs[0].Base" || !errors.Is(err, hertz.ErrLineContact) {
 		t.Errorf("cone contact: err = %v, want the line-contact error naming cs[0]", err)
 	}
 }

@@ -63,8 +63,8 @@ type Stiffness struct {
 // Errors are those of [Model.Statics] or [Model.Equilibrium]; an
 // [*InputError] wrapping [ErrRange] naming the input that pulls hardest
 // ("preloads[0]", "lc.Gravity") when a contact would be in tension under
-// rigid statics; and one wrapping [ErrDegenerate] naming "lc.Preload"
-// (a preload factor of 0), "preloads" (a model without preload) or "lc"
+// rigid statics; and one wrapping [ErrDegenerate] naming "lc.NoPreload"
+// (the preload switched off), "preloads" (a model without preload) or "lc"
 // when contacts carry no force, listing them.
 func (m *Model) Stiffness(lc LoadCase, opt *StiffnessOptions) (Stiffness, error) {
 	if err := m.check(); err != nil {
@@ -123,7 +123,7 @@ func (m *Model) Stiffness(lc LoadCase, opt *StiffnessOptions) (Stiffness, error)
 		}
 	}
 	var rates []preloadLine
-	if lc.Preload != 0 {
+	if lc.factor() != 0 {
 		rates = m.preloads
 	}
 	st := stiffnessOf(m.lines, normal, rates, m.origin, m.size, m.payload)
@@ -172,8 +172,8 @@ func (m *Model) unloaded(forces []float64, lc *LoadCase) error {
 	switch {
 	case len(m.preloads) == 0:
 		field, hint = "preloads", "add a preload element"
-	case lc.Preload == 0:
-		field, hint = "lc.Preload", "set the case's Preload factor (1 applies the preload as given)"
+	case lc.NoPreload:
+		field, hint = "lc.NoPreload", "apply the preload (NoPreload false)"
 	}
 	return &InputError{Field: field, Err: fmt.Errorf(
 		"%w: contacts %s carry no force under %s, and an unloaded Hertz contact has no stiffness (dF/dδ = 0 at F = 0); %s",

@@ -30,7 +30,7 @@ func TestStiffnessEquilateral(t *testing.T) {
 	th := math.Pi / 4
 	const P, mass = 60.0, 0.8
 	m, _ := equilateralModel(t, th, P, mass, 0)
-	st, err := m.Stiffness(LoadCase{Preload: 1}, nil)
+	st, err := m.Stiffness(LoadCase{PreloadFactor: 1}, nil)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -98,7 +98,7 @@ func TestStiffnessProperties(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	lc := LoadCase{Preload: 1, Gravity: r3.Vec{Z: -StandardGravity}}
+	lc := LoadCase{PreloadFactor: 1, Gravity: r3.Vec{Z: -StandardGravity}}
 	st, err := m.Stiffness(lc, nil)
 	if err != nil {
 		t.Fatal(err)
@@ -232,7 +232,7 @@ func sortFloats(x []float64) {
 // second-order term of the Hertz law (relative 1e-3).
 func TestStiffnessAgainstEquilibrium(t *testing.T) {
 	m, _ := equilateralModel(t, math.Pi/4, 60, 0, 0)
-	lc := LoadCase{Preload: 1}
+	lc := LoadCase{PreloadFactor: 1}
 	st, err := m.Stiffness(lc, nil)
 	if err != nil {
 		t.Fatal(err)
@@ -305,8 +305,8 @@ func TestLoadsScaleInvariance(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	lcSI := LoadCase{Preload: 1, Gravity: r3.Vec{Z: -StandardGravity}}
-	lcMM := LoadCase{Preload: 1, Gravity: r3.Vec{Z: -StandardGravity * 1000}}
+	lcSI := LoadCase{PreloadFactor: 1, Gravity: r3.Vec{Z: -StandardGravity}}
+	lcMM := LoadCase{PreloadFactor: 1, Gravity: r3.Vec{Z: -StandardGravity * 1000}}
 	a, _ := si.Statics(lcSI)
 	b, err := mmModel.Statics(lcMM)
 	if err != nil {

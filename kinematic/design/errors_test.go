@@ -87,7 +87,7 @@ func TestConeHasNoHertz(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	d.Cases = []kinematic.LoadCase{{Name: "g", Preload: 1, Gravity: r3.Vec{Z: -9.80665}}}
+	d.Cases = []kinematic.LoadCase{{Name: "g", PreloadFactor: 1, Gravity: r3.Vec{Z: -9.80665}}}
 	d.Payload.Mass = 0.2
 	_, err = d.Evaluate(t.Context())
 	var e *Error

@@ -221,7 +221,7 @@ func TestCassette(t *testing.T) {
 		// The load: preload, weight at the centre of mass, applied wrenches.
 		var f, mo r3.Vec
 		for _, p := range d.Preloads {
-			pf := r3.Scale(lc.Preload*p.Force/r3.Norm(p.Direction), p.Direction)
+			pf := r3.Scale(lc.PreloadFactor*p.Force/r3.Norm(p.Direction), p.Direction)
 			f, mo = r3.Add(f, pf), r3.Add(mo, r3.Cross(p.Point, pf))
 		}
 		wf := r3.Scale(d.Payload.Mass, r3.Sub(lc.Gravity, lc.Acceleration))

@@ -696,7 +696,7 @@ func (r *reader) readPayload(n *node, path string) (kinematic.Payload, error) {
 }
 
 func (r *reader) readCase(n *node, path string) (kinematic.LoadCase, error) {
-	lc := kinematic.LoadCase{Preload: 1}
+	lc := kinematic.LoadCase{PreloadFactor: 1}
 	if err := fields(n, path, "a load case", "name", "preload", "gravity", "acceleration", "applied"); err != nil {
 		return lc, err
 	}
@@ -706,8 +706,11 @@ func (r *reader) readCase(n *node, path string) (kinematic.LoadCase, error) {
 	if err := optText(n, path, "name", maxName, &lc.Name); err != nil {
 		return lc, err
 	}
-	if err := optNumber(n, path, "preload", &lc.Preload); err != nil {
+	if err := optNumber(n, path, "preload", &lc.PreloadFactor); err != nil {
 		return lc, err
+	}
+	if lc.PreloadFactor == 0 {
+		lc.NoPreload = true // "preload": 0 switches the preload off
 	}
 	if err := r.optVector(n, path, "gravity", acceleration, &lc.Gravity); err != nil {
 		return lc, err

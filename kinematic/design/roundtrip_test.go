@@ -117,7 +117,7 @@ func TestGoDesign(t *testing.T) {
 			{Type: Rods, Up: up, HalfAngle: math.Pi / 4, RodRadius: 2e-3, Direction: r3.Vec{X: 1, Y: 2}, Material: hertz.Steel440C},
 			{Type: Vee, Up: up, HalfAngle: math.Pi / 4, Material: mat},
 		},
-		Cases:      []kinematic.LoadCase{{Name: "g", Preload: 0, Gravity: r3.Vec{Z: -9.80665}}},
+		Cases:      []kinematic.LoadCase{{Name: "g", NoPreload: true, Gravity: r3.Vec{Z: -9.80665}}},
 		Payload:    kinematic.Payload{Mass: 0.1},
 		Tolerances: []kinematic.Tolerance{{Dimension: "P.Seat.Rod+", Sigma: 1e-6}},
 		Point:      r3.Vec{Z: 0.01},

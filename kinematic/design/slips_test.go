@@ -76,8 +76,8 @@ func TestBareNumbers(t *testing.T) {
 	if err != nil {
 		t.Fatalf("plain zeros and dimensionless numbers must read in version 2: %v", err)
 	}
-	if d.Balls[0].Centre.X != 0 || d.Cases[0].Preload != 1.5 || d.Friction.Mu != 0.15 || d.Balls[1].Material.Nu != 0.3 {
-		t.Errorf("plain numbers read as %v, %g, %g, %g", d.Balls[0].Centre, d.Cases[0].Preload, d.Friction.Mu, d.Balls[1].Material.Nu)
+	if d.Balls[0].Centre.X != 0 || d.Cases[0].PreloadFactor != 1.5 || d.Friction.Mu != 0.15 || d.Balls[1].Material.Nu != 0.3 {
+		t.Errorf("plain numbers read as %v, %g, %g, %g", d.Balls[0].Centre, d.Cases[0].PreloadFactor, d.Friction.Mu, d.Balls[1].Material.Nu)
 	}
 }
 

@@ -433,8 +433,8 @@ func (d *Design) checkCases() error {
 			return errorf(join(p, "name"), ErrRange, "%q is also the name of cases[%d]", lc.Name, j)
 		}
 		names[lc.Name] = i
-		if !(lc.Preload >= 0) || math.IsInf(lc.Preload, 0) {
-			return errorf(join(p, "preload"), ErrRange, "the factor on the preloads must be a finite number ≥ 0, got %g", lc.Preload)
+		if !(lc.PreloadFactor >= 0) || math.IsInf(lc.PreloadFactor, 0) {
+			return errorf(join(p, "preload"), ErrRange, "the factor on the preloads must be a finite number ≥ 0, got %g", lc.PreloadFactor)
 		}
 		if !finite(lc.Gravity) {
 			return errorf(join(p, "gravity"), ErrNonFinite, "%v", lc.Gravity)

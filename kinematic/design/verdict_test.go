@@ -98,7 +98,7 @@ func TestVerdictsOpenContact(t *testing.T) {
 	d.Requirements.MaxStudy = 0
 	d.Requirements.MinShock = 0
 	d.Requirements.ShockCase = ""
-	d.Cases = append(d.Cases, kinematic.LoadCase{Name: "dropped", Preload: 1, Acceleration: r3.Vec{Z: -20 * kinematic.StandardGravity}})
+	d.Cases = append(d.Cases, kinematic.LoadCase{Name: "dropped", PreloadFactor: 1, Acceleration: r3.Vec{Z: -20 * kinematic.StandardGravity}})
 	d.Requirements.FrequencyCase = "dropped"
 	d.Requirements.HomingCase = "dropped"
 	d.Friction.Mu = 0

@@ -251,7 +251,14 @@ func (d *Design) wire() wireDesign {
 		w.Payload = wp
 	}
 	for _, lc := range d.Cases {
-		wc := wireCase{Name: lc.Name, Preload: lc.Preload, Gravity: wireVec(lc.Gravity), Acceleration: optVec(lc.Acceleration)}
+		factor := lc.PreloadFactor
+		switch {
+		case lc.NoPreload:
+			factor = 0
+		case factor == 0:
+			factor = 1
+		}
+		wc := wireCase{Name: lc.Name, Preload: factor, Gravity: wireVec(lc.Gravity), Acceleration: optVec(lc.Acceleration)}
 		for _, a := range lc.Applied {
 			wc.Applied = append(wc.Applied, wireApplied{Force: wireVec(a.F), Moment: optVec(a.M)})
 		}
