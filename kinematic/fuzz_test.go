@@ -251,10 +251,10 @@ func FuzzLoads(f *testing.F) {
 		}
 		x := xs[0]
 		lc := LoadCase{
-			PreloadFactor:      x[0],
-			Gravity:      r3.Vec{X: x[1], Y: x[2], Z: x[3]},
-			Acceleration: r3.Vec{X: x[4], Y: x[5], Z: x[6]},
-			Applied:      []screw.Wrench{{F: r3.Vec{X: x[7], Y: x[8], Z: x[9]}, M: r3.Vec{X: x[10], Y: x[11], Z: x[12]}}},
+			PreloadFactor: x[0],
+			Gravity:       r3.Vec{X: x[1], Y: x[2], Z: x[3]},
+			Acceleration:  r3.Vec{X: x[4], Y: x[5], Z: x[6]},
+			Applied:       []screw.Wrench{{F: r3.Vec{X: x[7], Y: x[8], Z: x[9]}, M: r3.Vec{X: x[10], Y: x[11], Z: x[12]}}},
 		}
 		m, err := NewModel(cs, pre, Payload{Mass: x[13], Centre: r3.Vec{X: x[14], Y: x[15], Z: x[16]}})
 		if err != nil {
