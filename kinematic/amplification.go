@@ -117,11 +117,13 @@ func zonotopeNorm(v *[6]r3.Vec) float64 {
 // Along returns the worst and RSS error amplification of the point along
 // the direction u (an optical axis, say), in m per m: Σ|u·Tᵢ(p)| and
 // √Σ(u·Tᵢ(p))²; and across it, the same for the part of each Tᵢ(p)
-// normal to u, worst over sign patterns. A zero u gives zeros.
-func (pe Amplification) Along(u r3.Vec) (worst, rss, worstAcross, rssAcross float64) {
-	d, ok := linalg.Unit3(u)
-	if !ok {
-		return 0, 0, 0, 0
+// normal to u, worst over sign patterns. It returns an [*InputError]
+// naming "u" when u is zero or not finite: there is no figure along no
+// direction.
+func (pe Amplification) Along(u r3.Vec) (worst, rss, worstAcross, rssAcross float64, err error) {
+	d, err := unitOf(u, "u")
+	if err != nil {
+		return 0, 0, 0, 0, err
 	}
 	var disp, across [6]r3.Vec
 	for i, c := range pe.Contacts {
@@ -130,5 +132,5 @@ func (pe Amplification) Along(u r3.Vec) (worst, rss, worstAcross, rssAcross floa
 		rssAcross += r3.Norm2(across[i])
 	}
 	worst, rss = alongAxis(&disp, d)
-	return worst, rss, zonotopeNorm(&across), math.Sqrt(rssAcross)
+	return worst, rss, zonotopeNorm(&across), math.Sqrt(rssAcross), nil
 }

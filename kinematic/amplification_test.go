@@ -1,6 +1,7 @@
 package kinematic
 
 import (
+	"errors"
 	"math"
 	"testing"
 
@@ -62,7 +63,10 @@ func TestAmplificationAgainstEquilibrium(t *testing.T) {
 	if pe.Worst < pe.RSS*(1-1e-12) || pe.Worst > sum*(1+1e-12) {
 		t.Errorf("worst %g outside [RSS %g, Σ|vᵢ| %g]", pe.Worst, pe.RSS, sum)
 	}
-	w, rss, wa, ra := pe.Along(r3.Vec{Z: 1})
+	w, rss, wa, ra, err := pe.Along(r3.Vec{Z: 1})
+	if err != nil {
+		t.Fatal(err)
+	}
 	if w < rss || wa < ra*(1-1e-12) || math.Abs(rss*rss+ra*ra-pe.RSS*pe.RSS) > 1e-12*pe.RSS*pe.RSS {
 		t.Errorf("along z: worst %g, rss %g; across: %g, %g; total RSS %g", w, rss, wa, ra, pe.RSS)
 	}
@@ -99,6 +103,36 @@ func TestAmplificationEquilateral(t *testing.T) {
 		a, b := r3.Norm(pe.Contacts[i].Displacement), r3.Norm(pe.Contacts[i+2].Displacement)
 		if math.Abs(a-b) > 1e-12*a {
 			t.Errorf("contacts %d and %d: |Tᵢ(p)| %g and %g; want equal by symmetry", i, i+2, a, b)
+		}
+	}
+}
+
+// TestAlongNeedsADirection: a figure along a zero or non-finite direction
+// does not exist; Along says so instead of returning zeros that read as a
+// perfect result.
+func TestAlongNeedsADirection(t *testing.T) {
+	c, err := BisectorVees(equilateral(), three(vee45))
+	if err != nil {
+		t.Fatal(err)
+	}
+	st := mustStability(t, c)
+	pe, err := st.Amplification(r3.Vec{Z: 0.03})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, tc := range []struct {
+		u    r3.Vec
+		want error
+	}{{r3.Vec{}, ErrDegenerate}, {r3.Vec{Z: math.NaN()}, ErrNonFinite}} {
+		var ie *InputError
+		if _, _, _, _, err := pe.Along(tc.u); !errors.As(err, &ie) || ie.Field != "u" || !errors.Is(err, tc.want) {
+			t.Errorf("Amplification.Along(%v): %v", tc.u, err)
+		}
+		if _, _, err := (Budget{}).Along(tc.u); !errors.As(err, &ie) || ie.Field != "u" || !errors.Is(err, tc.want) {
+			t.Errorf("Budget.Along(%v): %v", tc.u, err)
+		}
+		if _, err := (Compliance{}).Along(tc.u); !errors.As(err, &ie) || ie.Field != "u" || !errors.Is(err, tc.want) {
+			t.Errorf("Compliance.Along(%v): %v", tc.u, err)
 		}
 	}
 }

@@ -132,18 +132,19 @@ func (a *Assembly) Budget(p r3.Vec, tols []Tolerance) (Budget, error) {
 }
 
 // Along returns the budget's worst case and RSS along the direction u, m:
-// Σ |u·Sᵢ|·Limitᵢ and √Σ (u·Sᵢ·Limitᵢ)². A zero u gives zeros.
-func (b Budget) Along(u r3.Vec) (worst, rss float64) {
-	d, ok := linalg.Unit3(u)
-	if !ok {
-		return 0, 0
+// Σ |u·Sᵢ|·Limitᵢ and √Σ (u·Sᵢ·Limitᵢ)². It returns an [*InputError]
+// naming "u" when u is zero or not finite.
+func (b Budget) Along(u r3.Vec) (worst, rss float64, err error) {
+	d, err := unitOf(u, "u")
+	if err != nil {
+		return 0, 0, err
 	}
 	for _, c := range b.Contributors {
 		e := math.Abs(r3.Dot(d, c.Sensitivity)) * c.Limit
 		worst += e
 		rss += e * e
 	}
-	return worst, math.Sqrt(rss)
+	return worst, math.Sqrt(rss), nil
 }
 
 // checkTolerances validates tolerances and returns their dimensions'

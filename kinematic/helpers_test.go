@@ -102,3 +102,12 @@ func near(a, b r3.Vec, tol float64) bool { return r3.Norm(r3.Sub(a, b)) <= tol }
 
 // three returns v three times, for the three-vee layouts.
 func three(v Vee) [3]Vee { return [3]Vee{v, v, v} }
+
+// must1 returns v, for a call whose error the test has no use for beyond
+// failing loudly.
+func must1(v float64, err error) float64 {
+	if err != nil {
+		panic(err)
+	}
+	return v
+}

@@ -605,7 +605,9 @@ func (sc *scorer) stiffness(card *Scorecard, f0 *[6]float64, need figures) error
 		switch {
 		case err == nil:
 			card.Stiffness = 1 / largestEigen3(&c.Matrix)
-			card.AxisCompliance = c.Along(sc.s.Axis)
+			// A zero Axis marks AxisCompliance unavailable (the
+			// scenario's availability); Along's error says the same.
+			card.AxisCompliance, _ = c.Along(sc.s.Axis)
 		case errors.Is(err, ErrRange):
 			return &InputError{Field: "s.Point", Err: errors.Unwrap(err)}
 		default:

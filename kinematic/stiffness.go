@@ -302,11 +302,12 @@ type Compliance struct {
 }
 
 // Along returns the displacement of the point, in m, along the unit
-// direction of u per newton applied there along u: uᵀ C_VF u.
-func (c Compliance) Along(u r3.Vec) float64 {
-	d, ok := linalg.Unit3(u)
-	if !ok {
-		return 0
+// direction of u per newton applied there along u: uᵀ C_VF u. It returns
+// an [*InputError] naming "u" when u is zero or not finite.
+func (c Compliance) Along(u r3.Vec) (float64, error) {
+	d, err := unitOf(u, "u")
+	if err != nil {
+		return 0, err
 	}
 	v := [3]float64{d.X, d.Y, d.Z}
 	var s float64
@@ -315,7 +316,7 @@ func (c Compliance) Along(u r3.Vec) float64 {
 			s += v[a] * c.Matrix[a][b] * v[b]
 		}
 	}
-	return s
+	return s, nil
 }
 
 // singularStiffness is the pivot, relative to the largest diagonal entry

@@ -49,7 +49,7 @@ func TestStiffnessEquilateral(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if got := c.Along(r3.Vec{Z: 1}); math.Abs(got-1/kz) > 1e-10/kz {
+	if got, err := c.Along(r3.Vec{Z: 1}); err != nil || math.Abs(got-1/kz) > 1e-10/kz {
 		t.Errorf("vertical compliance %g m/N, want 1/kz = %g", got, 1/kz)
 	}
 	modes, err := st.Modes()

@@ -334,7 +334,9 @@ func newtons(f float64) string {
 func (s *study) vibration(ev design.Evaluation) {
 	s.section("5. Stiffness and natural frequencies")
 	if ev.Compliance != nil {
-		s.printf("compliance of the detector centre along the axis: %.4f µm/N (%.1f N/µm)\n", ev.Compliance.Along(r3.Vec{Z: 1})*1e6, 1/ev.Compliance.Along(r3.Vec{Z: 1})*1e-6)
+		if c, err := ev.Compliance.Along(r3.Vec{Z: 1}); err == nil {
+			s.printf("compliance of the detector centre along the axis: %.4f µm/N (%.1f N/µm)\n", c*1e6, 1/c*1e-6)
+		}
 	}
 	if ev.Modes != nil {
 		s.printf("natural frequencies of the cassette on its coupling:")

@@ -138,7 +138,9 @@ func (b *Built) Evaluate(ctx context.Context) (Evaluation, error) {
 	if b.budget != nil {
 		e.Budget = b.budget
 		if d.Axis != zeroVec {
-			e.AxisWorst, e.AxisRSS = b.budget.Along(d.Axis)
+			if e.AxisWorst, e.AxisRSS, err = b.budget.Along(d.Axis); err != nil {
+				return Evaluation{}, &Error{Path: "axis", Err: errors.Unwrap(err)}
+			}
 		}
 		if mc := d.MonteCarlo; mc != nil {
 			res, err := b.assembly.Study(ctx, d.Point, d.Tolerances, &kinematic.StudyOptions{
