@@ -111,6 +111,13 @@ func (a *Assembly) Budget(p r3.Vec, tols []Tolerance) (Budget, error) {
 		variance += c.Sigma * c.Sigma
 		tn := linalg.Norm3(s.Tilt) * lim
 		if !allFinite(c.Limit, c.Effect, c.Sigma*c.Sigma, tn*tn) {
+			if !allFinite(n * n) {
+				// The point's own sensitivity per unit deviation
+				// overflows when squared: the point, not the tolerance,
+				// is out of range.
+				return Budget{}, &InputError{Field: "p", Err: fmt.Errorf(
+					"%w: the point %v is too far from the coupling: its displacement per unit of %s (%.3g) overflows when squared", ErrRange, p, t.Dimension, n)}
+			}
 			return Budget{}, &InputError{Field: indexed("tols", i) + "." + t.field(), Err: fmt.Errorf(
 				"%w: the effect of %g on %s overflows", ErrRange, t.value(), t.Dimension)}
 		}

@@ -286,3 +286,20 @@ func FuzzExtremes(f *testing.F) {
 		checkResult(t, "Score", card, err)
 	})
 }
+
+// TestFarPointBlamedNotTolerance: a micrometre tolerance is not out of
+// range because the point of interest is 1e300 m away; the point is. At
+// that distance the displacement per unit deviation is of the order of
+// the distance over the coupling's size, and its square overflows.
+func TestFarPointBlamedNotTolerance(t *testing.T) {
+	a := generalAssemblies(t)["socket-vee-flat"]
+	tols := []Tolerance{{Dimension: "A.Ball.Radius", HalfWidth: 1e-6}}
+	far := r3.Vec{X: 1e300}
+	var ie *InputError
+	if _, err := a.Budget(far, tols); !errors.As(err, &ie) || ie.Field != "p" || !errors.Is(err, ErrRange) {
+		t.Errorf("Budget at 1e300 m: %v", err)
+	}
+	if _, err := a.Study(context.Background(), far, tols, &StudyOptions{Samples: 10}); !errors.As(err, &ie) || ie.Field != "p" || !errors.Is(err, ErrRange) {
+		t.Errorf("Study at 1e300 m: %v", err)
+	}
+}

@@ -205,7 +205,7 @@ func (a *Assembly) newSampler(p r3.Vec, tols []Tolerance, opt *StudyOptions) (*s
 	for i, k := range idx {
 		x := a.sensitivity(k)
 		s.jd[i], s.jw[i] = x.At(s.pl), x.W
-		if !allFinite3(s.jd[i]) {
+		if n := linalg.Norm3(s.jd[i]); !allFinite(n * n) {
 			return nil, &InputError{Field: "p", Err: fmt.Errorf("%w: the displacement of %v per unit of %s overflows: the point is too far from the coupling", ErrRange, p, tols[i].Dimension)}
 		}
 		lim := s.lim[i]
