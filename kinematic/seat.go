@@ -279,7 +279,11 @@ func checkHalfAngle(a float64, field string) error {
 		return &InputError{Field: field, Err: fmt.Errorf("%w: %g", ErrNonFinite, a)}
 	}
 	if !(a > 0 && a < math.Pi/2) {
-		return &InputError{Field: field, Err: fmt.Errorf("%w: must be in (0, π/2) rad, got %g", ErrRange, a)}
+		hint := ""
+		if a > 1 && a < 90 {
+			hint = fmt.Sprintf(" (if that is degrees, it is %.4g rad)", a*math.Pi/180)
+		}
+		return &InputError{Field: field, Err: fmt.Errorf("%w: must be in (0, π/2) rad, got %g%s", ErrRange, a, hint)}
 	}
 	return nil
 }
