@@ -385,10 +385,10 @@ func newScorer(c Coupling, s Scenario) (*scorer, error) {
 	for _, p := range c.Pairs {
 		n := p.Seat.count()
 		thermal = thermal || p.Ball.Material.Alpha != 0
-		_, _, root, alpha := p.Seat.surfaces(p.Ball, cs[k:k+n])
+		surfs, _, root, alpha := p.Seat.surfaces(p.Ball, cs[k:k+n])
 		p.Seat.ideals(cs[k:k+n], sc.ideal[k:k+n])
 		for j := 0; j < n; j++ {
-			sc.root[k+j] = r3.Sub(root, m.origin)
+			sc.root[k+j] = r3.Sub(surfs[j].anchor(root), m.origin)
 			sc.alpha[k+j] = alpha
 			thermal = thermal || alpha != 0
 			sc.balpha[k+j] = p.Ball.Material.Alpha

@@ -99,3 +99,16 @@ func translations(n int) []dimension {
 	}
 	return ds
 }
+
+// anchor returns the point about which the surface expands with its seat's
+// own material, root being the seat's reference point. A rod (a convex
+// cylinder) is a part of its own, located by the base: it expands about its
+// own axis (the point q, where its radius meets the contact), and the base
+// carries that axis; every other surface is machined in one seat and
+// expands with it about the seat's root.
+func (s *seatSurface) anchor(root r3.Vec) r3.Vec {
+	if s.kind == convexCylinder {
+		return s.q
+	}
+	return root
+}

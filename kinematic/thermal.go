@@ -21,8 +21,12 @@ type Thermal struct {
 	// Moving is the expansion coefficient of the moving body, 1/K: the
 	// ball centres and the point of interest move apart with it. Base is
 	// that of the base, 1/K: the seats' positions move apart with it. A
-	// seat's own material expands about the seat's root (a plane seat's
-	// geometry does not change; a rod or a gothic-arch flank grows).
+	// machined seat's own material expands about the seat's root (a vee's
+	// flat or gothic-arch flanks keep their tangent planes through the
+	// root, so to first order only the ball's growth and the bodies'
+	// expansion move the part); a rod is a part of its own whose axis the
+	// base holds, and it grows about that axis, pushing the ball out by
+	// α_rod·RodRadius·ΔT along the contact normal.
 	Moving, Base float64
 
 	// BaseRef is the point where the base is held in the frame, m (zero:
@@ -112,7 +116,8 @@ func (a *Assembly) Drift(th Thermal, p r3.Vec) (Drift, error) {
 	for i, c := range a.conts {
 		pr := &a.pairs[c.pair]
 		l := &a.lines[i]
-		e := thermalGap(&th, pr.ball.Material.Alpha, pr.ball.Radius, pr.alpha, r3.Add(l.centre, a.origin), r3.Add(l.p, a.origin), l.n, pr.root)
+		anchor := pr.surfs[c.surf].anchor(pr.root)
+		e := thermalGap(&th, pr.ball.Material.Alpha, pr.ball.Radius, pr.alpha, r3.Add(l.centre, a.origin), r3.Add(l.p, a.origin), l.n, anchor)
 		x = x.Add(a.freed[i].Scale(-e * dt))
 	}
 	xg := global(x, a.origin)
@@ -127,7 +132,7 @@ func (a *Assembly) Drift(th Thermal, p r3.Vec) (Drift, error) {
 		g.c[i] = r3.Sub(r3.Scale(1+th.Moving*dt, r3.Add(g.c[i], a.origin)), a.origin)
 		g.r[i] *= 1 + pr.ball.Material.Alpha*dt
 		s := &g.surfs[i]
-		root := pr.root
+		root := r3.Add(s.anchor(r3.Sub(pr.root, a.origin)), a.origin) // the nominal surface's, in the frame
 		newRoot := r3.Add(th.BaseRef, r3.Scale(1+th.Base*dt, r3.Sub(root, th.BaseRef)))
 		q := r3.Add(s.q, a.origin)
 		q = r3.Add(newRoot, r3.Scale(1+pr.alpha*dt, r3.Sub(q, root)))
@@ -182,8 +187,9 @@ func relativeMotion(x screw.Twist, am, ab float64, baseRef, q r3.Vec) r3.Vec {
 // the contact point p and normal n, and the seat of expansion coefficient
 // seatAlpha and reference point root (all in the global frame): the ball
 // grows into the seat, the moving body carries the ball centre with it,
-// the base carries the seat's root about BaseRef, and the seat's own
-// material carries the contact point about its root. It is the one
+// the base carries the seat's anchor about BaseRef, and the seat's own
+// material carries the contact point about that anchor (the seat's root
+// for a machined seat, the rod's axis for a rod: seatSurface.anchor). It is the one
 // definition of the thermal gap: [Assembly.Drift] and the scorecard call
 // it.
 func thermalGap(th *Thermal, ballAlpha, r, seatAlpha float64, c, p, n, root r3.Vec) float64 {
