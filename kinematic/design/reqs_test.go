@@ -94,7 +94,9 @@ func TestShockAndFrequencyPerCase(t *testing.T) {
 			t.Errorf("%v: Pass %v", v, v.Pass)
 		}
 	}
-	freq := func(F float64) float64 { return math.Sqrt(3*eqK(F)*math.Cos(eqTheta)*math.Cos(eqTheta)/eqM) / (2 * math.Pi) }
+	freq := func(F float64) float64 {
+		return math.Sqrt(3*eqK(F)*math.Cos(eqTheta)*math.Cos(eqTheta)/eqM) / (2 * math.Pi)
+	}
 	fs := byRequirement(ev, "requirements.min_frequency")
 	if len(fs) != 2 || !strings.Contains(fs[0].Note, `"preload only"`) || !strings.Contains(fs[1].Note, `"seated"`) {
 		t.Fatalf("frequency verdicts %v, want preload only then seated", fs)
