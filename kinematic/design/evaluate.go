@@ -41,9 +41,11 @@ type Evaluation struct {
 	MinForceAt       kinematic.Bound
 
 	// Shock is the worst shock added to the case ShockCase (the
-	// requirement's case, else the first): its Unload is the level in
-	// m/s² at which the first contact unloads. Nil without payload mass
-	// or load cases.
+	// requirement's single case, else the first) with that case's
+	// gravity as given: its Unload is the level in m/s² at which the
+	// first contact unloads. Nil without payload mass or load cases. The
+	// verdicts of a requirement on several cases, or with gravity in any
+	// orientation, are made case by case (see Verdicts).
 	Shock     *kinematic.Shock
 	ShockCase string
 
@@ -344,7 +346,10 @@ func unwrapKinematic(err error) error {
 
 // Verdicts returns, for every requirement the design sets, what the
 // design achieves against its limit, in the order of the requirements'
-// documentation (see [Requirements]).
+// documentation (see [Requirements] and the package documentation): one
+// verdict per load case for a requirement checked in several cases, each
+// verdict's Note stating its conditions (the case, the gravity turned,
+// the temperature change, the samples, the axis).
 func (e Evaluation) Verdicts() Verdicts {
 	r := e.req
 	var vs Verdicts
@@ -467,6 +472,10 @@ func quantityString(v float64, unit string) string {
 		s += fmt.Sprintf(" (%.3g g)", v/kinematic.StandardGravity)
 	case unit == "m" && v != 0 && math.Abs(v) < 1e-3:
 		s += fmt.Sprintf(" (%.4g µm)", v*1e6)
+	case unit == "rad" && v != 0 && math.Abs(v) < 1e-3:
+		s += fmt.Sprintf(" (%.4g µrad)", v*1e6)
+	case unit == "N/m" && math.Abs(v) >= 1e3:
+		s += fmt.Sprintf(" (%.4g N/µm)", v*1e-6)
 	}
 	return s
 }

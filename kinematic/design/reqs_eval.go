@@ -21,9 +21,16 @@ func caseTranslator(b *Built, k int, params map[string]string) translator {
 	return translator{b: b, lc: p, fallback: p, params: params}
 }
 
-// vecString formats a unit direction.
+// vecString formats a unit direction, components below 1e-12 (rounding
+// of a zero) as 0.
 func vecString(v r3.Vec) string {
-	return fmt.Sprintf("(%.3g, %.3g, %.3g)", v.X, v.Y, v.Z)
+	c := [3]float64{v.X, v.Y, v.Z}
+	for i := range c {
+		if math.Abs(c[i]) < 1e-12 {
+			c[i] = 0
+		}
+	}
+	return fmt.Sprintf("(%.3g, %.3g, %.3g)", c[0], c[1], c[2])
 }
 
 // gravityNote returns how a case's gravity of magnitude g was turned.
@@ -315,7 +322,7 @@ func marginVerdict(b *Built, e *Evaluation) (Verdict, error) {
 	return v, nil
 }
 
-// moreVerdicts returns the verdicts of the tilt requirements, which need
+// tiltVerdicts returns the verdicts of the tilt requirements, which need
 // no analysis beyond the budget and the study.
 func (e Evaluation) tiltVerdicts() Verdicts {
 	r := e.req

@@ -119,7 +119,7 @@ func TestShockAndFrequencyPerCase(t *testing.T) {
 // over the sphere of gravity directions is P/(6 sin θ) − m g √10/6 =
 // 60.37 N (worst with gravity pulling the body out of its seats, along
 // +z up to the tangential part) and the shock level is P/(6 sin θ)/(m
-// |T(O)|) − g = 57.27 m/s²; fixed, they are 70.71 N (case "preload
+// |T(O)|) − g = 57.28 m/s²; fixed, they are 70.71 N (case "preload
 // only") and 71.47 m/s² (case "seated").
 func TestGravityAnyOrientationClosedForm(t *testing.T) {
 	d := editFixture(t, "testdata/equilateral.json", both(
