@@ -291,7 +291,7 @@ func marginVerdict(b *Built, e *Evaluation) (Verdict, error) {
 			if errors.As(err, &ke) && strings.HasPrefix(ke.Field, "cases[") {
 				// SizePreload indexes its own list; name the design's case.
 				var i int
-				if _, scanErr := fmt.Sscanf(ke.Field, "cases[%d]", &i); scanErr == nil && i < len(ks) {
+				if _, scanErr := fmt.Sscanf(ke.Field, "cases[%d]", &i); scanErr == nil && i >= 0 && i < len(ks) && strings.HasPrefix(ke.Field, index("cases", i)) {
 					ke.Field = index("cases", ks[i]) + ke.Field[len(index("cases", i)):]
 				}
 			}

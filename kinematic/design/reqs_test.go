@@ -305,6 +305,38 @@ func TestStiffnessAtPoint(t *testing.T) {
 	if !a[0].Pass || c[0].Pass || !strings.Contains(a[0].Note, `under case "seated"`) {
 		t.Errorf("verdicts %v, %v: want along passing, across failing, naming the case", a[0], c[0])
 	}
+	if err := ev.Verdicts().Err(); err == nil || !strings.Contains(err.Error(), "requirements.min_stiffness.across_axis:") ||
+		strings.Contains(err.Error(), "requirements.min_stiffness.along_axis:") {
+		t.Errorf("Err() = %v: want the across-axis stiffness named, and only it", err)
+	}
+}
+
+// TestSeatingPerCase checks seating in two cases: "seated" (every contact
+// pushed closed: the fixture's own seating requirement passes there) and
+// "dropped", where the base accelerating down at 20 g lifts the payload
+// with 392 N against the 300 N preload, leaving every contact force at
+// (300 − 392.3)/(6 sin 45°) = −21.8 N (TestVerdictsOpenContact): a body
+// held only by pulling contacts cannot slide home, so that case fails
+// and Err names it.
+func TestSeatingPerCase(t *testing.T) {
+	d := editFixture(t, "testdata/equilateral.json", both(
+		set("monte_carlo.samples", 1000),
+		func(m map[string]any) {
+			m["cases"] = append(m["cases"].([]any), map[string]any{"name": "dropped", "acceleration": []any{0, 0, "-20 g"}})
+		},
+		set("requirements.seating", map[string]any{"cases": []any{"seated", "dropped"}}),
+	))
+	ev, err := d.Evaluate(t.Context())
+	if err != nil {
+		t.Fatal(err)
+	}
+	vs := byRequirement(ev, "requirements.seating")
+	if len(vs) != 2 || !vs[0].Pass || vs[1].Pass || !strings.Contains(vs[1].Note, `under case "dropped"`) {
+		t.Fatalf("seating verdicts %v: want seated passing, dropped failing", vs)
+	}
+	if err := ev.Verdicts().Err(); err == nil || !strings.Contains(err.Error(), `(under case "dropped"): fails`) {
+		t.Errorf("Err() = %v", err)
+	}
 }
 
 // TestPreloadMargin: one preload element, so the window is the closed
