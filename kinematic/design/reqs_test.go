@@ -498,3 +498,51 @@ func editSocket(t *testing.T, change func(m map[string]any)) string {
 	}
 	return string(b)
 }
+
+// TestMirrorFixture evaluates testdata/mirror.json, which sets every new
+// requirement: it meets them, gives one verdict per case where it names
+// cases, and turning gravity can only make things worse than the
+// gravity as written (the written direction is one of the sphere's):
+// the least contact force and each case's shock level with gravity
+// turned are at most their values with gravity fixed.
+func TestMirrorFixture(t *testing.T) {
+	d, err := Parse(readFile(t, "testdata/mirror.json"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	ev, err := d.Evaluate(t.Context())
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := ev.Verdicts().Err(); err != nil {
+		t.Error(err)
+	}
+	for req, n := range map[string]int{
+		"requirements.min_contact_force": 1, "requirements.min_shock": 2, "requirements.min_frequency": 2,
+		"requirements.seating": 2, "requirements.max_tilt.worst_case": 1, "requirements.max_tilt.rss": 1,
+		"requirements.max_tilt.study": 1, "requirements.min_stiffness.along_axis": 1,
+		"requirements.min_stiffness.across_axis": 1, "requirements.min_preload_margin": 1,
+		"requirements.max_repeatability.worst_case": 2, "requirements.max_repeatability.rss": 2,
+		"requirements.max_thermal_drift": 1,
+	} {
+		if got := len(byRequirement(ev, req)); got != n {
+			t.Errorf("%s: %d verdicts, want %d", req, got, n)
+		}
+	}
+	if v := byRequirement(ev, "requirements.min_contact_force")[0]; !(v.Value <= ev.MinForce) {
+		t.Errorf("least force with gravity turned %g N > with gravity fixed %g N", v.Value, ev.MinForce)
+	}
+	b, err := d.Build()
+	if err != nil {
+		t.Fatal(err)
+	}
+	for k, v := range byRequirement(ev, "requirements.min_shock") {
+		s, err := b.Model().Shock(d.Cases[k], 0)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if !(v.Value <= s.Unload) || !strings.Contains(v.Note, `case "`+d.Cases[k].Name+`"`) {
+			t.Errorf("case %q: shock with gravity turned %v, fixed %g m/s²", d.Cases[k].Name, v, s.Unload)
+		}
+	}
+}
