@@ -181,7 +181,8 @@ func (p Percentile) of(s kinematic.Stats) float64 {
 
 // Requirements are the limits a design must meet, each checked by
 // [Evaluation.Verdicts]. A zero limit means that requirement is not set;
-// a case name "" means the first load case.
+// a case name "" (with the zero [Cases]) means the first load case. The
+// file's keys, units and defaults are in the package documentation.
 type Requirements struct {
 	// MinCentreIndex is the least allowed Maxwell index at the ball
 	// centres (kinematic.Maxwell.CentreIndex of the weakest contact,
