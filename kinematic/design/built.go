@@ -110,6 +110,7 @@ func (d *Design) clone() Design {
 	c.Seats = append([]Seat(nil), d.Seats...)
 	c.Preloads = append([]kinematic.Preload(nil), d.Preloads...)
 	c.Tolerances = append([]kinematic.Tolerance(nil), d.Tolerances...)
+	c.Requirements = d.Requirements.clone()
 	if d.Cases != nil {
 		c.Cases = make([]kinematic.LoadCase, len(d.Cases))
 		for i, lc := range d.Cases {

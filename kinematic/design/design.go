@@ -181,7 +181,8 @@ func (p Percentile) of(s kinematic.Stats) float64 {
 
 // Requirements are the limits a design must meet, each checked by
 // [Evaluation.Verdicts]. A zero limit means that requirement is not set;
-// a case name "" means the first load case.
+// a case name "" (with the zero [Cases]) means the first load case. The
+// file's keys, units and defaults are in the package documentation.
 type Requirements struct {
 	// MinCentreIndex is the least allowed Maxwell index at the ball
 	// centres (kinematic.Maxwell.CentreIndex of the weakest contact,
@@ -228,6 +229,64 @@ type Requirements struct {
 	// under case SeatingCase (kinematic.Model.Homing).
 	Homing     bool
 	HomingCase string
+
+	// ShockCases, FrequencyCases and HomingCases check the shock, the
+	// frequency and the seating in several load cases, one verdict per
+	// case, in place of the single ShockCase, FrequencyCase or
+	// HomingCase (which must then be ""). The zero Cases is the single
+	// case.
+	ShockCases, FrequencyCases, HomingCases Cases
+
+	// ShockAnyGravity and ForceAnyGravity turn the gravity of each case
+	// to its worst direction on the sphere of directions (the
+	// instrument tilted or turned over), keeping its magnitude, for
+	// MinShock and MinContactForce. The contact forces are linear in the
+	// gravity direction, so the worst is found in closed form (see the
+	// package documentation, "Gravity in any orientation").
+	ShockAnyGravity, ForceAnyGravity bool
+
+	// MaxTiltWorst and MaxTiltRSS bound the first-order error budget's
+	// tilt of the moving body, rad (kinematic.Budget WorstTilt and
+	// RSSTilt); MaxTiltStudy the Monte Carlo study's tilt, rad, at
+	// TiltPercentile (kinematic.StudyResult.Tilt).
+	MaxTiltWorst, MaxTiltRSS, MaxTiltStudy float64
+	TiltPercentile                         Percentile
+
+	// MinStiffnessAlong and MinStiffnessAcross bound the stiffness at
+	// the point of interest, N/m, along Axis (1/Compliance.Along(Axis))
+	// and across it (the least over the directions normal to Axis),
+	// under StiffnessCases (the zero Cases: the first case).
+	MinStiffnessAlong, MinStiffnessAcross float64
+	StiffnessCases                        Cases
+
+	// MinPreloadMargin is the least factor, ≥ 1, by which the preload as
+	// given must sit inside its window (kinematic.Model.SizePreload):
+	// MinScale·factor ≤ 1 and factor ≤ MaxScale. PreloadMinForce is the
+	// least contact force, N, that defines the window's lower edge, and
+	// PreloadCases the cases sized together (the zero Cases: every
+	// case).
+	MinPreloadMargin float64
+	PreloadMinForce  float64
+	PreloadCases     Cases
+
+	// MaxRepeatWorst and MaxRepeatRSS bound the friction repeatability
+	// of the point of interest, m (kinematic.Model.Repeatability Worst
+	// and RSS with Friction.Mu), under RepeatCases (the zero Cases: the
+	// first case).
+	MaxRepeatWorst, MaxRepeatRSS float64
+	RepeatCases                  Cases
 }
+
+// Cases names the load cases a requirement is checked in: every case of
+// the design when All is set, else the cases Names lists, each once. The
+// zero Cases means the requirement's default, which its documentation
+// states.
+type Cases struct {
+	All   bool
+	Names []string
+}
+
+// zero reports whether c is the zero Cases.
+func (c Cases) zero() bool { return !c.All && len(c.Names) == 0 }
 
 var zeroVec r3.Vec

@@ -87,23 +87,122 @@
 //	                      (min_maxwell_index, its first name, is still read)
 //	  min_contact_index   number in (0, 1): the weakest Maxwell index at the contact points
 //	  max_pressure_ratio  number: peak Hertz pressure / allowable, any contact, any case
-//	  min_contact_force   force: the smallest contact force, any contact, any case
-//	  min_shock           {"level": acceleration, "case": name}: shock in the worst direction
-//	                      that every contact survives closed, added to the case
-//	  min_frequency       {"limit": frequency, "case": name}: the first natural frequency
+//	  min_contact_force   force: the smallest contact force, any contact, any case; or
+//	                      {"limit": force, "gravity_any_orientation": boolean (default false)}
+//	  min_shock           {"level": acceleration, "case": name or "cases": cases,
+//	                      "gravity_any_orientation": boolean (default false)}: shock in the
+//	                      worst direction that every contact survives closed, added to the case
+//	  min_frequency       {"limit": frequency, "case": name or "cases": cases}: the first
+//	                      natural frequency
 //	  max_error           {"worst_case": length, "rss": length, "along_axis": boolean}: the
 //	                      first-order error budget of the point of interest (at least one limit)
 //	  max_study           {"limit": length, "percentile": "p50", "p95", "p99" (default) or
 //	                      "p99.73"}: the Monte Carlo study's radial displacement
 //	  max_thermal_drift   length: the exact drift of the point of interest relative to the base over delta_t
-//	  seating             {"case": name}: the body must seat against friction mu
+//	  seating             {"case": name or "cases": cases}: the body must seat against friction mu
+//	  max_tilt            {"worst_case": angle, "rss": angle, "study": angle, "percentile": as
+//	                      max_study's (default "p99"), with study only}: the moving body's
+//	                      rotation from the tolerances (at least one limit): the first-order
+//	                      budget's worst case and RSS, and the Monte Carlo study's percentile
+//	  min_stiffness       {"along_axis": spring rate, "across_axis": spring rate, "case": name or
+//	                      "cases": cases}: the stiffness at the point of interest along the axis
+//	                      and across it (the least over the directions normal to it); needs axis
+//	  min_preload_margin  {"factor": number ≥ 1, required; "min_force": force (default 0);
+//	                      "cases": cases (default "all")}: the preload as given inside its window
+//	                      by the factor (see Preload margin)
+//	  max_repeatability   {"worst_case": length, "rss": length, "case": name or "cases": cases}:
+//	                      the friction repeatability of the point of interest with mu (at
+//	                      least one limit; needs friction with mu > 0)
 //
-// A requirement's "case" names a load case; left out, it is the first.
+// A requirement's "case" names a load case; left out (and "cases" left
+// out too), it is the first. "cases" is "all" (every load case) or an
+// array of case names, each once; a requirement given cases is checked in
+// each, one verdict per case. "case" and "cases" exclude each other.
 // The prerequisites of a requirement (a payload with mass for a shock,
-// with inertia too for a frequency, tolerances for an error, monte_carlo
-// for a study, thermal for a drift, friction for seating, an allowable
-// pressure on every pair for a pressure ratio) are checked when the file
-// is read.
+// with inertia too for a frequency, tolerances for an error or a tilt,
+// monte_carlo for a study, thermal for a drift, friction for seating,
+// an allowable pressure on every pair for a pressure ratio, the axis for
+// a stiffness, preloads for a preload margin, a case with gravity to
+// turn for gravity_any_orientation) are checked when the file is read.
+//
+// # Verdicts
+//
+// Each requirement gives one [Verdict] (one per case for a requirement on
+// several cases) whose note states its conditions. Their text, as
+// [Verdict.String] writes it, for the equilateral test fixture
+// (testdata/equilateral.json with one toleranced ball, 20 000 samples,
+// and the new requirements set; lines broken here):
+//
+//	requirements.min_contact_force: 60.37 N, needs at least 50 N (at contact C- in case "seated"
+//	  with its gravity of 9.807 m/s^2 (1 g) turned to its worst direction (-0.447, -0.775, 0.447)
+//	  (any orientation)): passes
+//	requirements.min_shock: 57.28 m/s^2 (5.84 g), needs at least 49.03 m/s^2 (5 g) (contact A+
+//	  unloads first, added to case "seated" with its gravity of 9.807 m/s^2 (1 g) turned to its
+//	  worst direction (-0.894, 0, 0.447) (any orientation)): passes
+//	requirements.min_shock: 67.08 m/s^2 (6.84 g), needs at least 49.03 m/s^2 (5 g) (contact A+
+//	  unloads first, added to case "preload only", which has no gravity to turn): passes
+//	requirements.min_frequency: 789 Hz, needs at least 700 Hz (under case "preload only"): passes
+//	requirements.max_study: 4.67e-07 m (0.467 µm), needs at most 1.2e-06 m (1.2 µm) (radial p99 of
+//	  20000 samples): passes
+//	requirements.max_thermal_drift: 1.069e-06 m (1.069 µm), needs at most 2e-06 m (2 µm) (at the
+//	  point of interest over delta_t 10 K, exact seat of the expanded geometry, relative to the
+//	  base): passes
+//	requirements.seating: seats up to mu = 0.3155, needs mu = 0.1 (under case "seated"): passes
+//	requirements.max_tilt.worst_case: 1.886e-05 rad (18.86 µrad), needs at most 2e-05 rad (20 µrad)
+//	  (the moving body's rotation, first-order worst case of the tolerances): passes
+//	requirements.max_tilt.study: 1.794e-05 rad (17.94 µrad), needs at most 2e-05 rad (20 µrad) (the
+//	  moving body's rotation, p95 of 20000 samples): passes
+//	requirements.min_stiffness.across_axis: 5.02e+07 N/m (50.2 N/µm), needs at least 5e+07 N/m
+//	  (50 N/µm) (at the point of interest under case "seated", axis (0, 0, 1)): passes
+//	requirements.min_preload_margin: 1.414, needs at least 1.5 (the preload as given in its window
+//	  ×0.7071 (contact A+ at min_force in case "preload only") to ×16.65 (contact B+ at its
+//	  allowable pressure in case "seated"); min_force 50 N, cases "seated", "preload only"): fails
+//	requirements.max_repeatability.rss: 1.106e-07 m (0.1106 µm), needs at most 5e-07 m (0.5 µm) (at
+//	  the point of interest under case "seated" with mu = 0.1): passes
+//
+// [Verdicts.Err] names every verdict that fails.
+//
+// # Gravity in any orientation
+//
+// An instrument may be tilted or turned over: "gravity_any_orientation":
+// true on min_shock or min_contact_force keeps each case's gravity
+// magnitude g = |gravity| and turns its direction to the worst on the
+// sphere, for each contact on its own. The worst is found in closed form,
+// not by trying directions. On an exactly constrained coupling the
+// contact forces are linear in the load: with the payload's weight m g u
+// (u a unit direction) at its centre of mass c, contact i carries
+//
+//	fᵢ(u) = f0ᵢ + m g (Tᵢ(c)·u)
+//
+// where f0ᵢ is its force in the case without gravity and Tᵢ(c) the
+// velocity of c under the twist that opens contact i alone at unit rate
+// (the same Tᵢ that kinematic.Model.Shock uses: a base acceleration a
+// along u_a loads the payload with −m a u_a, the same as gravity along
+// −u_a). The least over the sphere is at u = −Tᵢ(c)/|Tᵢ(c)|:
+//
+//	min_u fᵢ(u) = f0ᵢ − m g |Tᵢ(c)|,
+//
+// which is kinematic.Model.Shock of the case without gravity at
+// magnitude g (kinematic.ShockContact.Least). With a shock of level a
+// added, gravity and shock are worst along the same direction, the least
+// force is f0ᵢ − m (g + a)|Tᵢ(c)|, and contact i unloads at
+// a = f0ᵢ/(m |Tᵢ(c)|) − g: the shock level with gravity turned is
+// Model.Shock's level of the case without gravity less g (0 when turned
+// gravity alone opens a contact). A case without gravity has nothing to
+// turn and keeps its forces; the note says so. A requirement with the flag
+// needs at least one of its cases to have gravity.
+//
+// # Preload margin
+//
+// kinematic.Model.SizePreload gives the window [MinScale, MaxScale] of a
+// common factor on every preload element over the requirement's cases:
+// below MinScale a contact's force falls below min_force, above MaxScale
+// a contact's peak pressure exceeds its allowable (no upper edge without
+// allowables). The margin is min(1/MinScale, MaxScale): the factor by
+// which the preload as given may fall or rise and stay in the window; it
+// must be at least "factor". The sizing chooses the preload, so the
+// cases' own "preload" factors are ignored there. A requirement no preload
+// can meet fails with the reason in its note.
 //
 // A material is one of the keys of the reference table of package hertz
 // (hertz.Materials), or an object given inline:

@@ -41,9 +41,11 @@ type Evaluation struct {
 	MinForceAt       kinematic.Bound
 
 	// Shock is the worst shock added to the case ShockCase (the
-	// requirement's case, else the first): its Unload is the level in
-	// m/s² at which the first contact unloads. Nil without payload mass
-	// or load cases.
+	// requirement's single case, else the first) with that case's
+	// gravity as given: its Unload is the level in m/s² at which the
+	// first contact unloads. Nil without payload mass or load cases. The
+	// verdicts of a requirement on several cases, or with gravity in any
+	// orientation, are made case by case (see Verdicts).
 	Shock     *kinematic.Shock
 	ShockCase string
 
@@ -79,11 +81,21 @@ type Evaluation struct {
 	// thermal.
 	Drift *kinematic.Drift
 
+	// Sizing is the preload window of the preload margin requirement
+	// over its cases (nil without that requirement, or when no preload
+	// meets it), and Repeatability the friction repeatability of the
+	// point of interest under the first case of the repeatability
+	// requirement (nil without it).
+	Sizing        *kinematic.PreloadSizing
+	Repeatability *kinematic.Repeatability
+
 	// Notes lists analyses that could not be made and why.
 	Notes []string
 
 	req           Requirements
+	checked       map[string]Verdicts // per requirement, made by more
 	mu            float64
+	deltaT        float64
 	stiffnessNote string
 }
 
@@ -135,6 +147,9 @@ func (b *Built) Evaluate(ctx context.Context) (Evaluation, error) {
 	if err := e.loads(b); err != nil {
 		return Evaluation{}, err
 	}
+	if err := e.more(b); err != nil {
+		return Evaluation{}, err
+	}
 	if b.budget != nil {
 		e.Budget = b.budget
 		if d.Axis != zeroVec {
@@ -156,6 +171,7 @@ func (b *Built) Evaluate(ctx context.Context) (Evaluation, error) {
 		}
 	}
 	if th := d.Thermal; th != nil {
+		e.deltaT = th.DeltaT
 		dr, err := b.assembly.Drift(*th, d.Point)
 		if err != nil {
 			return Evaluation{}, thermalError(b, translator{b: b, fallback: "thermal", params: driftParams}.translate(err))
@@ -332,7 +348,10 @@ func unwrapKinematic(err error) error {
 
 // Verdicts returns, for every requirement the design sets, what the
 // design achieves against its limit, in the order of the requirements'
-// documentation (see [Requirements]).
+// documentation (see [Requirements] and the package documentation): one
+// verdict per load case for a requirement checked in several cases, each
+// verdict's Note stating its conditions (the case, the gravity turned,
+// the temperature change, the samples, the axis).
 func (e Evaluation) Verdicts() Verdicts {
 	r := e.req
 	var vs Verdicts
@@ -362,23 +381,12 @@ func (e Evaluation) Verdicts() Verdicts {
 	if r.MaxPressureRatio > 0 {
 		add("max_pressure_ratio", e.MaxPressureRatio, r.MaxPressureRatio, "", false, where(e.MaxPressureAt))
 	}
-	if r.MinContactForce > 0 {
+	if r.MinContactForce > 0 && !r.ForceAnyGravity {
 		add("min_contact_force", e.MinForce, r.MinContactForce, "N", true, where(e.MinForceAt))
 	}
-	if r.MinShock > 0 && e.Shock != nil {
-		note := fmt.Sprintf("added to case %q", e.ShockCase)
-		if len(e.Shock.First) > 0 {
-			note = fmt.Sprintf("contact %s unloads first, added to case %q", e.Shock.First[0], e.ShockCase)
-		}
-		add("min_shock", e.Shock.Unload, r.MinShock, "m/s^2", true, note)
-	}
-	if r.MinFrequency > 0 {
-		f, note := 0.0, e.stiffnessNote
-		if e.Modes != nil {
-			f, note = e.Modes[0].Frequency, fmt.Sprintf("under case %q", e.StiffnessCase)
-		}
-		add("min_frequency", f, r.MinFrequency, "Hz", true, note)
-	}
+	vs = append(vs, e.checked["min_contact_force"]...)
+	vs = append(vs, e.checked["min_shock"]...)
+	vs = append(vs, e.checked["min_frequency"]...)
 	if e.Budget != nil {
 		worst, rss, note := e.Budget.Worst, e.Budget.RSS, "at the point of interest"
 		if r.AlongAxis {
@@ -396,12 +404,13 @@ func (e Evaluation) Verdicts() Verdicts {
 		add("max_study", r.StudyPercentile.of(e.Study.Radial), r.MaxStudy, "m", false, note)
 	}
 	if r.MaxThermalDrift > 0 && e.Drift != nil {
-		add("max_thermal_drift", r3.Norm(e.Drift.Relative), r.MaxThermalDrift, "m", false, "exact seat of the expanded geometry, relative to the base")
+		add("max_thermal_drift", r3.Norm(e.Drift.Relative), r.MaxThermalDrift, "m", false,
+			fmt.Sprintf("at the point of interest over delta_t %s, exact seat of the expanded geometry, relative to the base", quantityString(e.deltaT, "K")))
 	}
-	if r.Homing && e.Homing != nil {
-		v := Verdict{Requirement: "requirements.seating", Value: e.Homing.MaxMu, Limit: e.mu, Min: true,
-			Pass: e.Homing.Home, Note: fmt.Sprintf("under case %q", e.HomingCase)}
-		vs = append(vs, v)
+	vs = append(vs, e.checked["seating"]...)
+	vs = append(vs, e.tiltVerdicts()...)
+	for _, name := range []string{"min_stiffness.along_axis", "min_stiffness.across_axis", "min_preload_margin", "max_repeatability.worst_case", "max_repeatability.rss"} {
+		vs = append(vs, e.checked[name]...)
 	}
 	return vs
 }
@@ -465,6 +474,10 @@ func quantityString(v float64, unit string) string {
 		s += fmt.Sprintf(" (%.3g g)", v/kinematic.StandardGravity)
 	case unit == "m" && v != 0 && math.Abs(v) < 1e-3:
 		s += fmt.Sprintf(" (%.4g µm)", v*1e6)
+	case unit == "rad" && v != 0 && math.Abs(v) < 1e-3:
+		s += fmt.Sprintf(" (%.4g µrad)", v*1e6)
+	case unit == "N/m" && math.Abs(v) >= 1e3:
+		s += fmt.Sprintf(" (%.4g N/µm)", v*1e-6)
 	}
 	return s
 }

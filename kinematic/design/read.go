@@ -901,7 +901,8 @@ func (r *reader) readLimit(n *node, path string, l limit) error {
 func (r *reader) readRequirements(n *node, path string) (Requirements, error) {
 	var q Requirements
 	if err := fields(n, path, "a requirements object", "min_centre_index", "min_contact_index", "min_maxwell_index", "max_pressure_ratio", "min_contact_force",
-		"min_shock", "min_frequency", "max_error", "max_study", "max_thermal_drift", "seating"); err != nil {
+		"min_shock", "min_frequency", "max_error", "max_study", "max_thermal_drift", "seating",
+		"max_tilt", "min_stiffness", "min_preload_margin", "max_repeatability"); err != nil {
 		return q, err
 	}
 	// "min_maxwell_index" is the first name of "min_centre_index" (the
@@ -919,7 +920,6 @@ func (r *reader) readRequirements(n *node, path string) (Requirements, error) {
 		{"min_contact_index", nil, &q.MinContactIndex},
 		{"min_maxwell_index", nil, &q.MinCentreIndex}, // the old name of min_centre_index
 		{"max_pressure_ratio", nil, &q.MaxPressureRatio},
-		{"min_contact_force", force, &q.MinContactForce},
 		{"max_thermal_drift", length, &q.MaxThermalDrift},
 	} {
 		if err := r.readLimit(n, path, l); err != nil {
@@ -928,6 +928,7 @@ func (r *reader) readRequirements(n *node, path string) (Requirements, error) {
 	}
 	for _, step := range []func(*node, string, *Requirements) error{
 		r.readShock, r.readFrequency, r.readMaxError, r.readMaxStudy, readSeating,
+		r.readContactForce, r.readMaxTilt, r.readMinStiffness, r.readPreloadMargin, r.readRepeatability,
 	} {
 		if err := step(n, path, &q); err != nil {
 			return q, err
@@ -938,13 +939,13 @@ func (r *reader) readRequirements(n *node, path string) (Requirements, error) {
 
 // readLimitCase reads a requirement object {key: limit, "case": name}
 // of the requirements at path.
-func (r *reader) readLimitCase(n *node, path, name, what, key string, k *quantityKind, dst *float64, c *string) error {
+func (r *reader) readLimitCase(n *node, path, name, what, key string, k *quantityKind, dst *float64, c *string, cs *Cases, extra ...string) error {
 	m := n.get(name)
 	if m == nil {
 		return nil
 	}
 	p := join(path, name)
-	if err := fields(m, p, what, key, "case"); err != nil {
+	if err := fields(m, p, what, append([]string{key, "case", "cases"}, extra...)...); err != nil {
 		return err
 	}
 	if m.get(key) == nil {
@@ -953,15 +954,21 @@ func (r *reader) readLimitCase(n *node, path, name, what, key string, k *quantit
 	if err := r.readLimit(m, p, limit{key, k, dst}); err != nil {
 		return err
 	}
-	return caseRef(m, p, c)
+	return readCases(m, p, c, cs)
 }
 
 func (r *reader) readShock(n *node, path string, q *Requirements) error {
-	return r.readLimitCase(n, path, "min_shock", "a shock requirement", "level", acceleration, &q.MinShock, &q.ShockCase)
+	if err := r.readLimitCase(n, path, "min_shock", "a shock requirement", "level", acceleration, &q.MinShock, &q.ShockCase, &q.ShockCases, "gravity_any_orientation"); err != nil {
+		return err
+	}
+	if m := n.get("min_shock"); m != nil {
+		return optBool(m, join(path, "min_shock"), "gravity_any_orientation", &q.ShockAnyGravity)
+	}
+	return nil
 }
 
 func (r *reader) readFrequency(n *node, path string, q *Requirements) error {
-	return r.readLimitCase(n, path, "min_frequency", "a frequency requirement", "limit", frequency, &q.MinFrequency, &q.FrequencyCase)
+	return r.readLimitCase(n, path, "min_frequency", "a frequency requirement", "limit", frequency, &q.MinFrequency, &q.FrequencyCase, &q.FrequencyCases)
 }
 
 func (r *reader) readMaxError(n *node, path string, q *Requirements) error {
@@ -1028,11 +1035,11 @@ func readSeating(n *node, path string, q *Requirements) error {
 		return nil
 	}
 	p := join(path, "seating")
-	if err := fields(m, p, "a seating requirement", "case"); err != nil {
+	if err := fields(m, p, "a seating requirement", "case", "cases"); err != nil {
 		return err
 	}
 	q.Homing = true
-	return caseRef(m, p, &q.HomingCase)
+	return readCases(m, p, &q.HomingCase, &q.HomingCases)
 }
 
 // finite reports whether every component of v is finite.

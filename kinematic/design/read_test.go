@@ -115,7 +115,7 @@ func TestMalformed(t *testing.T) {
 		{"zero limit", edit(t, set("requirements.min_shock.level", 0)), "requirements.min_shock.level", ErrRange, "a limit must be > 0"},
 		{"unknown case", edit(t, set("requirements.min_shock.case", "transport")), "requirements.min_shock.case", ErrRange, `no load case named "transport"`},
 		{"index above 1", edit(t, set("requirements.min_maxwell_index", 1.5)), "requirements.min_maxwell_index", ErrRange, "lies in [0, 1]"},
-		{"unknown requirement", edit(t, set("requirements.min_stiffness", 1)), "requirements.min_stiffness", ErrUnknownField, "a requirements object has the fields"},
+		{"unknown requirement", edit(t, set("requirements.min_wobble", 1)), "requirements.min_wobble", ErrUnknownField, "a requirements object has the fields"},
 		{"study without monte carlo", edit(t, set("requirements.max_study", map[string]any{"limit": "1 um"})), "requirements.max_study", ErrMissing, "needs monte_carlo"},
 		{"seating without friction", edit(t, set("requirements.seating", map[string]any{})), "requirements.seating", ErrMissing, "needs friction"},
 		{"frequency without inertia", edit(t, both(del("payload.inertia"), set("requirements.min_frequency", map[string]any{"limit": "100 Hz"}))), "requirements.min_frequency", ErrMissing, "mass and inertia"},

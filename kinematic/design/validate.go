@@ -479,7 +479,7 @@ func (d *Design) checkRequirements() error {
 	if err := d.Requirements.checkLimits(); err != nil {
 		return err
 	}
-	for _, step := range []func() error{d.needLoads, d.needPayload, d.needStudies} {
+	for _, step := range []func() error{d.needLoads, d.needPayload, d.needStudies, d.needMore} {
 		if err := step(); err != nil {
 			return err
 		}

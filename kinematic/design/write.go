@@ -171,13 +171,17 @@ type wireRequirements struct {
 	MinCentreIndex   float64        `json:"min_centre_index,omitempty"`
 	MinContactIndex  float64        `json:"min_contact_index,omitempty"`
 	MaxPressureRatio float64        `json:"max_pressure_ratio,omitempty"`
-	MinContactForce  float64        `json:"min_contact_force,omitempty"`
+	MinContactForce  any            `json:"min_contact_force,omitempty"`
 	MinShock         *wireLimitCase `json:"min_shock,omitempty"`
 	MinFrequency     *wireLimitCase `json:"min_frequency,omitempty"`
 	MaxError         *wireMaxError  `json:"max_error,omitempty"`
 	MaxStudy         *wireMaxStudy  `json:"max_study,omitempty"`
 	MaxThermalDrift  float64        `json:"max_thermal_drift,omitempty"`
 	Seating          *wireSeating   `json:"seating,omitempty"`
+	MaxTilt          *wireMaxTilt   `json:"max_tilt,omitempty"`
+	MinStiffness     *wireStiffness `json:"min_stiffness,omitempty"`
+	PreloadMargin    *wireMargin    `json:"min_preload_margin,omitempty"`
+	Repeatability    *wireRepeat    `json:"max_repeatability,omitempty"`
 }
 
 // wireLimitCase is min_shock ({level, case}) or min_frequency ({limit,
@@ -186,6 +190,8 @@ type wireLimitCase struct {
 	Level float64 `json:"level,omitempty"`
 	Limit float64 `json:"limit,omitempty"`
 	Case  string  `json:"case,omitempty"`
+	Cases any     `json:"cases,omitempty"`
+	Any   bool    `json:"gravity_any_orientation,omitempty"`
 }
 
 type wireMaxError struct {
@@ -200,7 +206,8 @@ type wireMaxStudy struct {
 }
 
 type wireSeating struct {
-	Case string `json:"case,omitempty"`
+	Case  string `json:"case,omitempty"`
+	Cases any    `json:"cases,omitempty"`
 }
 
 func wireMat(m hertz.Material) any {
@@ -280,15 +287,16 @@ func (d *Design) wire() wireDesign {
 	if mc := d.MonteCarlo; mc != nil {
 		w.MonteCarlo = &wireMonteCarlo{Samples: mc.Samples, Seed: mc.Seed, Exact: mc.Exact}
 	}
-	if r := d.Requirements; r != (Requirements{}) {
+	if r := d.Requirements; !r.isZero() {
 		wr := &wireRequirements{MinCentreIndex: r.MinCentreIndex, MinContactIndex: r.MinContactIndex, MaxPressureRatio: r.MaxPressureRatio,
-			MinContactForce: r.MinContactForce, MaxThermalDrift: r.MaxThermalDrift}
+			MaxThermalDrift: r.MaxThermalDrift}
 		if r.MinShock > 0 {
-			wr.MinShock = &wireLimitCase{Level: r.MinShock, Case: r.ShockCase}
+			wr.MinShock = &wireLimitCase{Level: r.MinShock, Case: r.ShockCase, Cases: wireCases(r.ShockCases), Any: r.ShockAnyGravity}
 		}
 		if r.MinFrequency > 0 {
-			wr.MinFrequency = &wireLimitCase{Limit: r.MinFrequency, Case: r.FrequencyCase}
+			wr.MinFrequency = &wireLimitCase{Limit: r.MinFrequency, Case: r.FrequencyCase, Cases: wireCases(r.FrequencyCases)}
 		}
+		r.wireMore(wr)
 		if r.MaxWorst > 0 || r.MaxRSS > 0 {
 			wr.MaxError = &wireMaxError{WorstCase: r.MaxWorst, RSS: r.MaxRSS, AlongAxis: r.AlongAxis}
 		}
@@ -296,7 +304,7 @@ func (d *Design) wire() wireDesign {
 			wr.MaxStudy = &wireMaxStudy{Limit: r.MaxStudy, Percentile: r.StudyPercentile.String()}
 		}
 		if r.Homing {
-			wr.Seating = &wireSeating{Case: r.HomingCase}
+			wr.Seating = &wireSeating{Case: r.HomingCase, Cases: wireCases(r.HomingCases)}
 		}
 		w.Requirements = wr
 	}
