@@ -259,7 +259,11 @@ func stiffnessAt(b *Built, k int) (along, across float64, note string, err error
 		}
 		return s
 	}
-	along = 1 / c.Along(a)
+	ca, err := c.Along(a)
+	if err != nil {
+		return 0, 0, "", &Error{Path: "axis", Err: errors.Unwrap(err)}
+	}
+	along = 1 / ca
 	p, q, s := quad(t1, t1), quad(t1, t2), quad(t2, t2)
 	lmax := (p+s)/2 + math.Hypot((p-s)/2, q)
 	across = 1 / lmax
