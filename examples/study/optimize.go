@@ -108,7 +108,7 @@ func (s *study) optimise(ctx context.Context, n int) error {
 		s.printf("  %-6s %-32s %s\n", p.Name, mm(p.Ball.Centre), seatText(p.Seat))
 	}
 	if len(best.Binding) > 0 {
-		s.printf("Held back by: %s\n", strings.Join(best.Binding, ", "))
+		s.printf("Held back by: %s\n", strings.Join(bindingText(best.Binding, c), "; "))
 	}
 	s.printf("Search: %v after %d layouts evaluated.\n", best.Status, best.Evaluations)
 
@@ -158,7 +158,12 @@ func (s *study) figures(cols []string, cards []kinematic.Scorecard) {
 				s.printf(" %12s", "n/a")
 				continue
 			}
-			s.printf(" "+format, f(&cards[i]))
+			v := f(&cards[i])
+			if math.IsNaN(v) || math.IsInf(v, 0) {
+				s.printf(" %12s", "n/a")
+				continue
+			}
+			s.printf(" "+format, v)
 		}
 		s.printf("\n")
 	}
@@ -167,9 +172,41 @@ func (s *study) figures(cols []string, cards []kinematic.Scorecard) {
 	row("tilt, µrad/µm (lower)", 0, func(k *kinematic.Scorecard) float64 { return k.Tilt }, "%12.1f")
 	row("stiffness at "+s.point+", N/µm (higher)", kinematic.FigureStiffness, func(k *kinematic.Scorecard) float64 { return k.Stiffness * 1e-6 }, "%12.2f")
 	row("first frequency, Hz (higher)", kinematic.FigureFirstFrequency, func(k *kinematic.Scorecard) float64 { return k.FirstFrequency }, "%12.0f")
-	row("shock level, g (higher)", kinematic.FigureLoadAmplification, func(k *kinematic.Scorecard) float64 { return k.ShockLevel / kinematic.StandardGravity }, "%12.2f")
+	row("shock level, g (higher)", 0, func(k *kinematic.Scorecard) float64 { return k.ShockLevel / kinematic.StandardGravity }, "%12.2f")
 	row("thermal drift, µm/K (lower)", kinematic.FigureDrift, func(k *kinematic.Scorecard) float64 { return k.Drift * 1e6 }, "%12.3f")
 	row("Maxwell index, ball centres (higher)", 0, func(k *kinematic.Scorecard) float64 { return k.WeakestCentreIndex }, "%12.4f")
 	row("Maxwell index, contact points (higher)", 0, func(k *kinematic.Scorecard) float64 { return k.WeakestContactIndex }, "%12.4f")
 	row("condition number, 1 = ideal (lower)", 0, func(k *kinematic.Scorecard) float64 { return k.Condition }, "%12.2f")
+}
+
+// bindingText says which constraints hold the optimum back, in the
+// design's words: kinematic.Optimum.Binding names them by pair index.
+func bindingText(binding []string, c kinematic.Coupling) []string {
+	out := make([]string, len(binding))
+	for k, b := range binding {
+		out[k] = b
+		var i int
+		var end string
+		switch {
+		case scan(b, "Windows[%d].%s", &i, &end) && i < len(c.Pairs):
+			out[k] = fmt.Sprintf("the %s edge of groove %s's window", map[string]string{"Min": "lower", "Max": "upper"}[end], c.Pairs[i].Name)
+		case scan(b, "Regions[%d]", &i) && i < len(c.Pairs):
+			out[k] = fmt.Sprintf("the edge of ball %s's region", c.Pairs[i].Name)
+		case b == "MinCentreIndex":
+			out[k] = "the floor on the Maxwell index at the ball centres"
+		case b == "MinContactIndex":
+			out[k] = "the floor on the Maxwell index at the contact points"
+		case b == "MaxPressureRatio":
+			out[k] = "the ceiling on the pressure ratio"
+		case b == "MaxCondition":
+			out[k] = "the ceiling on the condition number"
+		}
+	}
+	return out
+}
+
+// scan reports whether s matches format completely.
+func scan(s, format string, a ...any) bool {
+	n, err := fmt.Sscanf(s, format, a...)
+	return err == nil && n == len(a)
 }

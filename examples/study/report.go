@@ -167,7 +167,11 @@ func (s *study) coupling() {
 		if name == "" {
 			name = "preload"
 		}
-		s.printf("%s: %.2f N along %s through %s, rate %.3g N/mm\n", name, p.Force, dir(p.Direction), mm(p.Point), p.Rate*1e-3)
+		rate := ""
+		if p.Rate != 0 {
+			rate = fmt.Sprintf(", rate %.3g N/mm", p.Rate*1e-3)
+		}
+		s.printf("%s: %.2f N along %s through %s%s\n", name, p.Force, dir(p.Direction), mm(p.Point), rate)
 	}
 	if pl := s.d.Payload; pl.Mass > 0 {
 		s.printf("payload: %.4g kg, centre of mass %s\n", pl.Mass, mm(pl.Centre))
@@ -257,9 +261,10 @@ func (s *study) stiffness() {
 	s.section(4, "Stiffness and natural frequencies")
 	if s.ev.Compliance != nil {
 		c := s.ev.Compliance
+		s.printf("compliance of the %s under case %q:\n", s.point, s.ev.StiffnessCase)
 		if s.d.Axis != (r3.Vec{}) {
 			along := c.Along(s.d.Axis)
-			s.printf("compliance of the %s along its axis (case %q): %.4g µm/N (%.3g N/µm)\n", s.point, s.ev.StiffnessCase, along*1e6, 1/along*1e-6)
+			s.printf("  along its axis: %.4g µm/N (%.3g N/µm)\n", along*1e6, 1/along*1e-6)
 		}
 		for _, ax := range []struct {
 			name string
