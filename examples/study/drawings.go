@@ -33,8 +33,8 @@ func (s *study) drawings(n int) error {
 		s.printf("liftoff.svg not drawn: the design has no preload\n")
 	}
 	if s.res != nil {
-		o := opt(fmt.Sprintf("%s: %s, parts made to the drawing", title, s.point))
-		o.Notes = []string{fmt.Sprintf("%d Monte Carlo samples, seed %d", s.res.Samples, s.d.MonteCarlo.Seed)}
+		o := opt(fmt.Sprintf("%s: %s", title, s.point))
+		o.Notes = []string{fmt.Sprintf("%d parts made to the drawing (Monte Carlo, seed %d); displacement is the 3-D magnitude", s.res.Samples, s.d.MonteCarlo.Seed)}
 		if err := s.write("histogram.svg", func(w io.Writer) error { return drawing.Histogram(w, *s.res, o) }); err != nil {
 			return err
 		}
