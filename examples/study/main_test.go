@@ -327,3 +327,34 @@ func TestOptimize(t *testing.T) {
 		}
 	}
 }
+
+// TestOptimizeStdin: a design on standard input is optimised into the
+// drawings' folder, named after "design".
+func TestOptimizeStdin(t *testing.T) {
+	src, err := os.ReadFile("testdata/mirror.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	dir := t.TempDir()
+	code, rep, errs := runCmd(t, string(src), "-optimize", "-out", dir, "-")
+	if code != exitPass {
+		t.Fatalf("exit status %d; stderr %s\n%s", code, errs, rep)
+	}
+	if _, err := os.Stat(filepath.Join(dir, "design.optimized.json")); err != nil {
+		t.Errorf("no optimised design in the drawings' folder: %v", err)
+	}
+	if m := regexp.MustCompile(`(?i)cassette|detector`).FindString(rep); m != "" {
+		t.Errorf("the report mentions %q", m)
+	}
+}
+
+// TestWrap checks the description's line breaking on a case worked by
+// hand: "aa bbb cc" at width 6 is "aa bbb" (6 runes) and "cc".
+func TestWrap(t *testing.T) {
+	if got := wrap("aa bbb  cc", 6); got != "aa bbb\ncc" {
+		t.Errorf("wrap = %q, want %q", got, "aa bbb\ncc")
+	}
+	if got := wrap("µµµµµµµ a", 3); got != "µµµµµµµ\na" {
+		t.Errorf("a long word: %q", got)
+	}
+}

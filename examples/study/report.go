@@ -84,6 +84,9 @@ func (s *study) run(ctx context.Context, src []byte) (pass bool, err error) {
 	t := s.title()
 	s.printf("%s\n%s\n", t, strings.Repeat("=", len([]rune(t))))
 	s.printf("design file: %s\n", s.source())
+	if s.d.Description != "" {
+		s.printf("%s\n", wrap(s.d.Description, 78))
+	}
 	s.coupling()
 	s.constraint()
 	if err := s.loads(); err != nil {
@@ -391,4 +394,26 @@ func (s *study) caution() {
 	s.printf("apart from Hertz contacts, handbook material data, small displacements). Where a\n")
 	s.printf("result bears on safety or on hardware that can be damaged, verify it by test, and\n")
 	s.printf("let the applicable codes and standards and a qualified engineer decide.\n")
+}
+
+// wrap breaks text into lines of at most width runes at spaces (a longer
+// word stands on its own line).
+func wrap(text string, width int) string {
+	var b strings.Builder
+	n := 0
+	for _, w := range strings.Fields(text) {
+		l := len([]rune(w))
+		switch {
+		case n == 0:
+		case n+1+l > width:
+			b.WriteByte('\n')
+			n = 0
+		default:
+			b.WriteByte(' ')
+			n++
+		}
+		b.WriteString(w)
+		n += l
+	}
+	return b.String()
 }
