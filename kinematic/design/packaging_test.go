@@ -258,6 +258,7 @@ func TestOptimizeWriteBack(t *testing.T) {
 		{"rods", rods},
 		{"socket, vee, flat", string(readFile(t, "testdata/socket.json"))},
 		{"cassette", string(readFile(t, "testdata/cassette.json"))},
+		{"rods and vees with regions", string(readFile(t, "testdata/packaging.json"))},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			d, err := Parse([]byte(tc.src))
@@ -292,6 +293,22 @@ func TestOptimizeWriteBack(t *testing.T) {
 				q := got.Pairs[i]
 				if p.Name != q.Name || r3.Norm(r3.Sub(p.Ball.Centre, q.Ball.Centre)) > 1e-15 || !sameSeat(p.Seat, q.Seat) {
 					t.Errorf("pair %d: built %+v, the optimum %+v", i, q, p)
+				}
+			}
+			// Each ball stays inside its region (every Up here is +z, so
+			// the plane's axes are x and y): a disc of its radius or a box
+			// of its half-widths about the drawn centre.
+			if d.Optimize != nil {
+				for _, g := range d.Optimize.Regions {
+					k := d.ballIndex(g.Ball)
+					off := r3.Sub(got.Pairs[k].Ball.Centre, d.Balls[k].Centre)
+					in := math.Abs(off.Z) < 1e-15 && math.Abs(off.X) <= g.HalfWidth[0]+1e-12 && math.Abs(off.Y) <= g.HalfWidth[1]+1e-12
+					if g.Radius > 0 {
+						in = math.Abs(off.Z) < 1e-15 && math.Hypot(off.X, off.Y) <= g.Radius+1e-12
+					}
+					if !in {
+						t.Errorf("ball %s moved by %v, outside its region %+v", g.Ball, off, g.Region)
+					}
 				}
 			}
 			if d.Optimize == nil && best.Score.Amplification > best.Start.Amplification*(1+1e-12) {
