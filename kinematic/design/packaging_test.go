@@ -259,6 +259,7 @@ func TestOptimizeWriteBack(t *testing.T) {
 		{"socket, vee, flat", string(readFile(t, "testdata/socket.json"))},
 		{"cassette", string(readFile(t, "testdata/cassette.json"))},
 		{"rods and vees with regions", string(readFile(t, "testdata/packaging.json"))},
+		{"cone, rods and flat", string(readFile(t, "testdata/cone.json"))},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			d, err := Parse([]byte(tc.src))
@@ -332,6 +333,9 @@ func sameSeat(a, b kinematic.Seat) bool {
 	case kinematic.Trihedral:
 		y, ok := b.(kinematic.Trihedral)
 		return ok && same(x.Up, y.Up) && x.HalfAngle == y.HalfAngle && same(x.Azimuth, y.Azimuth)
+	case kinematic.Cone:
+		y, ok := b.(kinematic.Cone)
+		return ok && same(x.Up, y.Up) && x.HalfAngle == y.HalfAngle && (x.Azimuth == y.Azimuth || same(x.Azimuth, y.Azimuth))
 	case kinematic.Flat:
 		y, ok := b.(kinematic.Flat)
 		return ok && same(x.Up, y.Up)
