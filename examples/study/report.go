@@ -130,7 +130,18 @@ func (s *study) keepSamples(ctx context.Context) error {
 	return nil
 }
 
-func mm(v r3.Vec) string { return fmt.Sprintf("(%.2f, %.2f, %.2f) mm", v.X*1e3, v.Y*1e3, v.Z*1e3) }
+func mm(v r3.Vec) string {
+	return fmt.Sprintf("(%.2f, %.2f, %.2f) mm", nz(v.X*1e3, 2), nz(v.Y*1e3, 2), nz(v.Z*1e3, 2))
+}
+
+// nz returns x, or 0 when x rounds to zero at the given decimals, so that
+// no "-0.00" is printed.
+func nz(x float64, decimals int) float64 {
+	if math.Abs(x) < 0.5*math.Pow(10, -float64(decimals)) {
+		return 0
+	}
+	return x
+}
 
 func dir(v r3.Vec) string {
 	n := r3.Norm(v)
@@ -138,7 +149,7 @@ func dir(v r3.Vec) string {
 		return "(none)"
 	}
 	v = r3.Scale(1/n, v)
-	return fmt.Sprintf("(%.3f, %.3f, %.3f)", v.X, v.Y, v.Z)
+	return fmt.Sprintf("(%.3f, %.3f, %.3f)", nz(v.X, 3), nz(v.Y, 3), nz(v.Z, 3))
 }
 
 // seatText describes a seat of the coupling.
@@ -161,9 +172,13 @@ func seatText(st kinematic.Seat) string {
 func (s *study) coupling() {
 	s.section(1, "The coupling")
 	c := s.b.Coupling()
-	s.printf("%-6s %-32s %10s  %-22s %s\n", "ball", "centre", "radius", "ball material", "seat")
+	wm := len("ball material")
 	for _, p := range c.Pairs {
-		s.printf("%-6s %-32s %7.3f mm  %-22s %s\n", p.Name, mm(p.Ball.Centre), p.Ball.Radius*1e3, p.Ball.Material.Name, seatText(p.Seat))
+		wm = max(wm, len([]rune(p.Ball.Material.Name)))
+	}
+	s.printf("%-6s %-32s %10s  %-*s  %s\n", "ball", "centre", "radius", wm, "ball material", "seat")
+	for _, p := range c.Pairs {
+		s.printf("%-6s %-32s %7.3f mm  %-*s  %s\n", p.Name, mm(p.Ball.Centre), p.Ball.Radius*1e3, wm, p.Ball.Material.Name, seatText(p.Seat))
 	}
 	for _, p := range s.d.Preloads {
 		name := p.Name
@@ -348,7 +363,9 @@ func (s *study) errors() error {
 	return nil
 }
 
-func um(v r3.Vec) string { return fmt.Sprintf("(%.3f, %.3f, %.3f)", v.X*1e6, v.Y*1e6, v.Z*1e6) }
+func um(v r3.Vec) string {
+	return fmt.Sprintf("(%.3f, %.3f, %.3f)", nz(v.X*1e6, 3), nz(v.Y*1e6, 3), nz(v.Z*1e6, 3))
+}
 
 // isAngle reports whether a dimension of kinematic.Assembly is an angle.
 func isAngle(dim string) bool {
