@@ -130,5 +130,6 @@ func (d *Design) clone() Design {
 		mc := *d.MonteCarlo
 		c.MonteCarlo = &mc
 	}
+	d.cloneStudy(&c)
 	return c
 }

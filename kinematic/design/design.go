@@ -50,9 +50,19 @@ type Design struct {
 	Point r3.Vec
 	Axis  r3.Vec
 
+	// PointName names the point of interest in reports and drawings
+	// ("mirror vertex"); "" means "point of interest".
+	PointName string
+
 	Thermal    *kinematic.Thermal
 	Friction   *Friction
 	MonteCarlo *MonteCarlo
+
+	// Packaging and Optimize are what the optimiser may change and how
+	// ([Built.Optimize]); nil when not given. Neither changes the
+	// evaluation of the design as written.
+	Packaging *Packaging
+	Optimize  *OptimizeSettings
 
 	Requirements Requirements
 }

@@ -17,7 +17,8 @@
 // ([Design.Evaluate] builds and evaluates in one call) and
 // [Evaluation.Verdicts] compares it with the requirements.
 // [Design.WithCoupling] writes a coupling changed by kinematic.Optimize
-// back into the design.
+// back into the design, and [Built.Optimize] runs the optimiser with the
+// file's own packaging and settings (see Optimisation).
 //
 // # The file
 //
@@ -71,6 +72,8 @@
 //	  value             length, or angle for Turn, Tilt, Tilt1, Tilt2 and HalfAngle; ≥ 0, required
 //	  distribution      "uniform" (value the half-width, the default) or "normal" (value the standard deviation)
 //	point_of_interest   [x, y, z] lengths, on the moving body; default origin
+//	point_name          string, the point of interest's name in reports and drawings
+//	                    ("mirror vertex"); default "point of interest"
 //	axis                direction at the point of interest (an optical axis), optional; not [0, 0, 0]
 //	thermal             object, optional: a uniform temperature change
 //	  delta_t           temperature difference, required
@@ -82,6 +85,41 @@
 //	  samples           whole number in [1, 1e7], required
 //	  seed              whole number in [0, 2^64); default 0
 //	  exact             boolean: seat every sample exactly; default false (first order)
+//	packaging           object, optional: what the grooves must clear when the optimiser turns them
+//	                    (see Optimisation); it does not change the evaluation of the design as written
+//	  keep_outs         array, at most 64, default none: obstacles on the base that no groove may point at
+//	    name            string, optional (for reports)
+//	    at              [x, y, z] lengths, required: the obstacle's position
+//	    reach           length ≥ 0: only the grooves of balls nearer than this, measured normal to
+//	                    the seat's up, avoid it; default 0, every groove
+//	    clearance       angle in [0, 90) deg, required: the least angle between a groove and the line
+//	                    from its ball to the obstacle
+//	  windows           array, at most one per groove, default none: allowed groove azimuths
+//	    ball            the name of a ball whose seat is a vee or rods, required
+//	    min, max        angles in [-180, 180] deg, required, min < max < min + 180 deg (a groove is a
+//	                    line: 180 deg would allow every direction)
+//	    reference       "radial" (the default) or "frame_x": where azimuth 0 lies, as for a seat's azimuth
+//	optimize            object, optional: the optimiser's settings (kinematic.Optimize), used only when
+//	                    a program asks for an optimisation; every member optional
+//	  objective         "min_amplification" (the default: the error at the point of interest per unit
+//	                    seat error), "min_drift", "min_compliance", "max_shock_level",
+//	                    "max_first_frequency", "max_contact_index" or "max_centre_index"
+//	  min_centre_index  number in (0, 1): floor on the weakest Maxwell index at the ball centres;
+//	                    default requirements.min_centre_index, else none
+//	  min_contact_index number in (0, 1): the same at the contact points; default
+//	                    requirements.min_contact_index, else none
+//	  max_pressure_ratio  number > 0: ceiling on peak Hertz pressure / allowable; default
+//	                    requirements.max_pressure_ratio, else none
+//	  max_condition     number ≥ 1: ceiling on the condition number of the contacts; default 10
+//	                    (kinematic.DesignCondition)
+//	  regions           array, at most one per ball, default none (the balls stay where drawn): where a
+//	                    ball may move, in its seat's plane about its drawn centre:
+//	                    {"ball": name, "half_width": [length, length]} a box of ± the half-widths along
+//	                    the plane's first axis (frame x projected) and its second, or
+//	                    {"ball": name, "radius": length > 0} a disc
+//	  half_angles       array of 1 to 8 angles in (0, 90) deg: the half-angles every groove may take;
+//	                    default: as drawn
+//	  seed              whole number in [0, 2^64): the random starts of a search with regions; default 0
 //	requirements        object, optional; every requirement is optional, every limit > 0
 //	  min_centre_index    number in (0, 1): the weakest Maxwell index at the ball centres
 //	                      (min_maxwell_index, its first name, is still read)
@@ -339,6 +377,19 @@
 // first-order error budget, the Monte Carlo study and the thermal drift.
 // It returns an [Evaluation]; [Evaluation.Verdicts] holds one [Verdict]
 // per requirement set, and [Verdicts.Err] one error naming every failure.
+//
+// # Optimisation
+//
+// Reading and evaluating a design never changes it. [Built.Optimize]
+// runs kinematic.Optimize on the built coupling and scenario with the
+// options that [Built.OptimizeOptions] takes from the file's packaging
+// and optimize members, and returns the optimum with the design that
+// holds it ([Design.WithCoupling]: groove directions, ball centres and
+// half-angles written in, for every seat type), ready for
+// [Design.Write]. A groove's window is the longest arc of azimuths
+// inside its own window (every azimuth when it has none) that keeps it
+// each keep-out's clearance off the line from its ball to every keep-out
+// within reach (kinematic.KeepOutWindows); of two equal arcs, the lower.
 //
 // # Cautions
 //

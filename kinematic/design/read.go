@@ -261,8 +261,8 @@ type reader struct {
 
 // topFields are the members of a design file, in the documented order.
 var topFields = []string{"format", "units", "name", "description", "balls", "seats",
-	"preloads", "payload", "cases", "tolerances", "point_of_interest", "axis",
-	"thermal", "friction", "monte_carlo", "requirements"}
+	"preloads", "payload", "cases", "tolerances", "point_of_interest", "point_name", "axis",
+	"thermal", "friction", "monte_carlo", "packaging", "optimize", "requirements"}
 
 // walk returns the design in the tree, reading it member by member in
 // the documented order.
@@ -274,7 +274,7 @@ func walk(root *node) (*Design, error) {
 	d := &Design{}
 	for _, step := range []func(*node, *Design) error{
 		r.readTexts, r.readCoupling, r.readLoads, r.readTolerances, r.readPoint,
-		r.readEnvironment, r.readRequirementsOf,
+		r.readEnvironment, r.readStudy, r.readRequirementsOf,
 	} {
 		if err := step(root, d); err != nil {
 			return nil, err

@@ -247,6 +247,9 @@ func (d *Design) check() error {
 	if mc := d.MonteCarlo; mc != nil && (mc.Samples < 1 || mc.Samples > maxSamples) {
 		return errorf("monte_carlo.samples", ErrRange, "must be in [1, %d], got %d", maxSamples, mc.Samples)
 	}
+	if err := d.checkStudy(); err != nil {
+		return err
+	}
 	return d.checkRequirements()
 }
 

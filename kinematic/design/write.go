@@ -70,10 +70,13 @@ type wireDesign struct {
 	Cases        []wireCase        `json:"cases,omitempty"`
 	Tolerances   []wireTolerance   `json:"tolerances,omitempty"`
 	Point        vec               `json:"point_of_interest"`
+	PointName    string            `json:"point_name,omitempty"`
 	Axis         *vec              `json:"axis,omitempty"`
 	Thermal      *wireThermal      `json:"thermal,omitempty"`
 	Friction     *wireFriction     `json:"friction,omitempty"`
 	MonteCarlo   *wireMonteCarlo   `json:"monte_carlo,omitempty"`
+	Packaging    *wirePackaging    `json:"packaging,omitempty"`
+	Optimize     *wireOptimize     `json:"optimize,omitempty"`
 	Requirements *wireRequirements `json:"requirements,omitempty"`
 }
 
@@ -287,6 +290,7 @@ func (d *Design) wire() wireDesign {
 	if mc := d.MonteCarlo; mc != nil {
 		w.MonteCarlo = &wireMonteCarlo{Samples: mc.Samples, Seed: mc.Seed, Exact: mc.Exact}
 	}
+	d.wireStudy(&w)
 	if r := d.Requirements; !r.isZero() {
 		wr := &wireRequirements{MinCentreIndex: r.MinCentreIndex, MinContactIndex: r.MinContactIndex, MaxPressureRatio: r.MaxPressureRatio,
 			MaxThermalDrift: r.MaxThermalDrift}

@@ -1,0 +1,79 @@
+package main
+
+import (
+	"fmt"
+	"io"
+	"os"
+	"path/filepath"
+
+	"github.com/sixfold-dev/sixfold/kinematic"
+	"github.com/sixfold-dev/sixfold/kinematic/drawing"
+)
+
+// drawings writes the drawings to the output folder: the plan view, the
+// lift-off map, the Monte Carlo histogram and, after an optimisation,
+// the optimised plan and the scorecards of the layouts compared.
+func (s *study) drawings(n int) error {
+	s.section(n, "Drawings")
+	if err := os.MkdirAll(s.cfg.out, 0o755); err != nil {
+		return err
+	}
+	title := s.title()
+	opt := func(t string) *drawing.Options { return &drawing.Options{Title: t, PointName: s.point} }
+	if err := s.write("plan.svg", func(w io.Writer) error {
+		return drawing.Plan(w, s.b, s.ev, opt(title+": plan, looking down"))
+	}); err != nil {
+		return err
+	}
+	if len(s.d.Preloads) > 0 {
+		if err := s.write("liftoff.svg", func(w io.Writer) error { return drawing.LiftOff(w, s.b, opt("")) }); err != nil {
+			return err
+		}
+	} else {
+		s.printf("liftoff.svg not drawn: the design has no preload\n")
+	}
+	if s.res != nil {
+		o := opt(fmt.Sprintf("%s: %s", title, s.point))
+		o.Notes = []string{fmt.Sprintf("%d parts made to the drawing (Monte Carlo, seed %d); displacement is the 3-D magnitude", s.res.Samples, s.d.MonteCarlo.Seed)}
+		if err := s.write("histogram.svg", func(w io.Writer) error { return drawing.Histogram(w, *s.res, o) }); err != nil {
+			return err
+		}
+	}
+	if s.opt != nil && s.optimized != nil {
+		if err := s.write("plan-optimized.svg", func(w io.Writer) error {
+			return drawing.Plan(w, s.optimized, s.optEv, opt(title+": optimised plan, looking down"))
+		}); err != nil {
+			return err
+		}
+		names := []string{"as written", "optimised"}
+		cards := []kinematic.Scorecard{s.opt.Start, s.opt.Score}
+		err := s.write("scorecards.svg", func(w io.Writer) error {
+			return drawing.Scorecards(w, names, cards, opt(title+": design figures before and after"))
+		})
+		if err != nil {
+			// A figure the design cannot give (no thermal expansion, no
+			// inertia) cannot be drawn relative to the best.
+			s.printf("scorecards.svg not drawn: %v\n", err)
+		}
+	}
+	return nil
+}
+
+// write writes one drawing into the output folder.
+func (s *study) write(name string, draw func(io.Writer) error) error {
+	path := filepath.Join(s.cfg.out, name)
+	f, err := os.Create(path)
+	if err != nil {
+		return err
+	}
+	err = draw(f)
+	if cerr := f.Close(); err == nil {
+		err = cerr
+	}
+	if err != nil {
+		os.Remove(path)
+		return fmt.Errorf("%s: %w", path, err)
+	}
+	s.printf("wrote %s\n", path)
+	return nil
+}

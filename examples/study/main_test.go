@@ -1,0 +1,360 @@
+package main
+
+import (
+	"bytes"
+	"encoding/xml"
+	"io"
+	"math"
+	"os"
+	"path/filepath"
+	"regexp"
+	"sort"
+	"strconv"
+	"strings"
+	"testing"
+
+	"gonum.org/v1/gonum/spatial/r3"
+
+	"github.com/sixfold-dev/sixfold/kinematic"
+	"github.com/sixfold-dev/sixfold/kinematic/design"
+)
+
+const cassette = "../cassette/cassette.json"
+
+// runCmd runs the command and returns its exit status, report and
+// errors.
+func runCmd(t *testing.T, stdin string, args ...string) (int, string, string) {
+	t.Helper()
+	var out, errs bytes.Buffer
+	code := run(t.Context(), args, strings.NewReader(stdin), &out, &errs)
+	return code, out.String(), errs.String()
+}
+
+// svgElements parses an SVG file and returns its text and its number of
+// elements.
+func svgElements(t *testing.T, path string) (string, int) {
+	t.Helper()
+	b, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	dec := xml.NewDecoder(bytes.NewReader(b))
+	elems := 0
+	var text strings.Builder
+	for {
+		tok, err := dec.Token()
+		if err == io.EOF {
+			break
+		}
+		if err != nil {
+			t.Fatalf("%s: %v", path, err)
+		}
+		switch v := tok.(type) {
+		case xml.StartElement:
+			elems++
+		case xml.CharData:
+			text.Write(v)
+		}
+	}
+	return text.String(), elems
+}
+
+// TestCassette runs the whole study on the cassette design and checks
+// the report and the drawings.
+func TestCassette(t *testing.T) {
+	dir := t.TempDir()
+	code, rep, errs := runCmd(t, "", "-out", dir, cassette)
+	if code != exitPass {
+		t.Fatalf("exit status %d, want 0; stderr: %s\n%s", code, errs, rep)
+	}
+	for _, want := range []string{"detector cassette on a benchtop spectrometer", "1. The coupling", "2. Constraint", "3. Loads", "4. Stiffness",
+		"5. Error budget at the detector centre", "6. Requirements", "7. Drawings", "Caution:", "verify it by test", "qualified engineer",
+		"Monte Carlo, 100000 parts", "thermal change of +3 K", "friction seating", "Every requirement is met (10)."} {
+		if !strings.Contains(rep, want) {
+			t.Errorf("report lacks %q", want)
+		}
+	}
+	if m := regexp.MustCompile(`(?i)\bNaN\b|[+-]?Inf\b`).FindString(rep); m != "" {
+		t.Errorf("report prints %q", m)
+	}
+	if strings.Contains(rep, "Optimisation") {
+		t.Error("the report optimised without -optimize")
+	}
+
+	// Vertical balance of the seated case (statics, by hand): the six
+	// flank normals of the 90° vees lean 45° from the horizontal, so
+	// Σ fᵢ sin 45° = preload + weight = 40 N + 0.320 kg · 9.80665 m/s²,
+	// Σ fᵢ = 61.006 N. The report prints each force to 0.01 N.
+	sec := rep[strings.Index(rep, `case "seated":`):]
+	sec = sec[:strings.Index(sec, `case "cable pull"`)]
+	var sum float64
+	n := 0
+	for _, m := range regexp.MustCompile(`(?m)^\s+[ABC][+-]\s+([0-9.]+)`).FindAllStringSubmatch(sec, -1) {
+		f, _ := strconv.ParseFloat(m[1], 64)
+		sum += f
+		n++
+	}
+	want := (40 + 0.320*9.80665) / math.Sin(math.Pi/4)
+	if n != 6 || math.Abs(sum-want) > 6*0.005 {
+		t.Errorf("seated forces: %d sum to %.3f N, want 6 summing to %.3f N", n, sum, want)
+	}
+
+	for _, name := range []string{"plan.svg", "liftoff.svg", "histogram.svg"} {
+		if _, elems := svgElements(t, filepath.Join(dir, name)); elems < 20 {
+			t.Errorf("%s: only %d elements", name, elems)
+		}
+	}
+	if _, err := os.Stat(filepath.Join(dir, "scorecards.svg")); err == nil {
+		t.Error("scorecards.svg drawn without -optimize")
+	}
+}
+
+// TestPercentileColumns reads the report's radial percentile columns and
+// checks them against the percentile definition that kinematic.Stats
+// documents, the nearest rank: the p-th percentile of n sorted
+// magnitudes is the ⌈p·n⌉-th smallest (Hyndman and Fan 1996, "Sample
+// quantiles in statistical packages", The American Statistician 50(4),
+// definition 1, the inverse of the empirical distribution function),
+// applied here to the study's own samples. Worked by hand for n = 10:
+// the median is the 5th smallest, and 95, 99 and 99.73 % are all the
+// largest (⌈9.5⌉ = ⌈9.9⌉ = ⌈9.973⌉ = 10); for n = 200 the ranks are
+// 100, 190, 198 and 200 (⌈199.46⌉). The file's sample count is
+// honoured as written.
+func TestPercentileColumns(t *testing.T) {
+	src, err := os.ReadFile(cassette)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, tc := range []struct {
+		n     int
+		ranks [4]int
+	}{
+		{10, [4]int{5, 10, 10, 10}},
+		{200, [4]int{100, 190, 198, 200}},
+	} {
+		edited := strings.Replace(string(src), `"samples": 100000`, `"samples": `+strconv.Itoa(tc.n), 1)
+		if edited == string(src) {
+			t.Fatal("the cassette no longer asks for 100000 samples")
+		}
+		var out bytes.Buffer
+		st := &study{w: &out, cfg: config{path: "-"}}
+		if _, err := st.run(t.Context(), []byte(edited)); err != nil {
+			t.Fatal(err)
+		}
+		if st.res == nil || len(st.res.Points) != tc.n {
+			t.Fatalf("n = %d: the study kept no samples, or not the file's number", tc.n)
+		}
+		if !strings.Contains(out.String(), "Monte Carlo, "+strconv.Itoa(tc.n)+" parts") {
+			t.Errorf("n = %d: the report does not say the file's sample count", tc.n)
+		}
+		m := regexp.MustCompile(`radial \(3-D magnitude\): median ([0-9.]+) µm, 95 % ([0-9.]+) µm, 99 % ([0-9.]+) µm, 99.73 % ([0-9.]+) µm`).FindStringSubmatch(out.String())
+		if m == nil {
+			t.Fatalf("n = %d: no radial percentiles in the report", tc.n)
+		}
+		r := make([]float64, tc.n)
+		for i, p := range st.res.Points {
+			r[i] = math.Sqrt(p.X*p.X + p.Y*p.Y + p.Z*p.Z)
+		}
+		sort.Float64s(r)
+		for k, rank := range tc.ranks {
+			if want := strconv.FormatFloat(r[rank-1]*1e6, 'f', 2, 64); m[k+1] != want {
+				t.Errorf("n = %d: column %d prints %s µm, want %s µm (the %d-th smallest of %d)", tc.n, k+1, m[k+1], want, rank, tc.n)
+			}
+		}
+	}
+}
+
+// TestOwnDesigns runs two designs of other seat types, a socket–vee–flat
+// mirror cell and a canted three-vee probe head: each passes, names
+// itself and its point in the report and the drawings, and mentions
+// neither the cassette nor a detector anywhere.
+func TestOwnDesigns(t *testing.T) {
+	for _, tc := range []struct {
+		file, name, point string
+		figures           []string
+	}{
+		{"testdata/mirror.json", "Mirror cell M2", "mirror vertex", []string{"trihedral socket", "flat, up", "vee, 90.0° included"}},
+		{"testdata/probe.json", "Probe head on a canted three-vee mount", "stylus tip", []string{"vee, 90.0° included", "groove (-0.940, 0.000, -0.342)"}},
+	} {
+		t.Run(tc.file, func(t *testing.T) {
+			dir := t.TempDir()
+			code, rep, errs := runCmd(t, "", "-out", dir, tc.file)
+			if code != exitPass {
+				t.Fatalf("exit status %d, want 0; stderr: %s\n%s", code, errs, rep)
+			}
+			if !strings.HasPrefix(rep, tc.name+"\n") {
+				t.Errorf("the report is not headed by the design's name %q", tc.name)
+			}
+			for _, want := range append([]string{"Error budget at the " + tc.point, "error amplification at the " + tc.point,
+				"Every requirement is met", "Caution:"}, tc.figures...) {
+				if !strings.Contains(rep, want) {
+					t.Errorf("report lacks %q", want)
+				}
+			}
+			all := rep
+			for _, name := range []string{"plan.svg", "liftoff.svg", "histogram.svg"} {
+				text, elems := svgElements(t, filepath.Join(dir, name))
+				if elems < 20 {
+					t.Errorf("%s: only %d elements", name, elems)
+				}
+				all += text
+				if name == "plan.svg" && !strings.Contains(text, tc.point) {
+					t.Errorf("plan.svg does not label the %s", tc.point)
+				}
+			}
+			if m := regexp.MustCompile(`(?i)cassette|detector`).FindString(all); m != "" {
+				t.Errorf("the report or a drawing mentions %q", m)
+			}
+		})
+	}
+}
+
+// TestExitStatus: 1 when a requirement fails, 2 for a bad file or
+// command line, with the JSON path of the fault on standard error.
+func TestExitStatus(t *testing.T) {
+	src, err := os.ReadFile("testdata/mirror.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	// The mirror cell unloads its first contact at about 1.3 g (its
+	// report): asking for 3 g fails.
+	failing := strings.Replace(string(src), `"level": "1 g"`, `"level": "3 g"`, 1)
+	if failing == string(src) {
+		t.Fatal("mirror.json no longer asks for 1 g")
+	}
+	code, rep, _ := runCmd(t, failing, "-out", "none", "-")
+	if code != exitFail || !strings.Contains(rep, "requirements.min_shock") || !strings.Contains(rep, "The design FAILS: 1 of 6") {
+		t.Errorf("a failing requirement: exit status %d, want 1\n%s", code, rep)
+	}
+	if !strings.Contains(rep, "Caution:") {
+		t.Error("a failing design's report lacks the caution")
+	}
+
+	for _, tc := range []struct {
+		name, stdin string
+		args        []string
+		want        string // on standard error
+	}{
+		{"bad half-angle", strings.Replace(string(src), `"half_angle": "45 deg"`, `"half_angle": "95 deg"`, 1), []string{"-out", "none", "-"}, "seats[1].half_angle"},
+		{"bare number", `{"format": "sixfold.design/2", "balls": [{"centre": [0, 0, 0], "radius": 6.35, "material": "steel-52100"}]}`, []string{"-out", "none", "-"}, "balls[0].radius"},
+		{"not JSON", `{"format":`, []string{"-out", "none", "-"}, "design:"},
+		{"bad keep-out", strings.Replace(string(src), `"optimize":`, `"packaging": {"keep_outs": [{"at": [0, 0, 0], "clearance": "95 deg"}]}, "optimize":`, 1), []string{"-out", "none", "-"}, "packaging.keep_outs[0].clearance"},
+		{"no file", "", []string{"testdata/no-such-file.json"}, "no-such-file.json"},
+		{"two files", "", []string{"a.json", "b.json"}, "one design file"},
+		{"bad flag", "", []string{"-samples", "5", "a.json"}, "-samples"},
+		{"-optimized alone", "", []string{"-optimized", "x.json", "a.json"}, "only with -optimize"},
+	} {
+		code, _, errs := runCmd(t, tc.stdin, tc.args...)
+		if code != exitBad || !strings.Contains(errs, tc.want) {
+			t.Errorf("%s: exit status %d, stderr %q; want 2 naming %q", tc.name, code, errs, tc.want)
+		}
+	}
+}
+
+// TestOptimize: -optimize writes the improved design beside the input
+// through the canonical writer, leaves the input alone, keeps the exit
+// status of the design as written, and the optimised grooves keep to the
+// file's window and keep-out (checked here by plane geometry, not by the
+// optimiser's own bookkeeping).
+func TestOptimize(t *testing.T) {
+	src, err := os.ReadFile("testdata/probe.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	dir := t.TempDir()
+	in := filepath.Join(dir, "probe.json")
+	if err := os.WriteFile(in, src, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	code, rep, errs := runCmd(t, "", "-optimize", "-out", filepath.Join(dir, "out"), in)
+	if code != exitPass {
+		t.Fatalf("exit status %d; stderr %s\n%s", code, errs, rep)
+	}
+	for _, want := range []string{"7. Optimisation (asked for with -optimize)", "as written", "optimised", "Requirements of the optimised design",
+		"groove P: azimuth allowed from 140.0° to 220.0°", "keep-out \"cable gland\""} {
+		if !strings.Contains(rep, want) {
+			t.Errorf("report lacks %q", want)
+		}
+	}
+	after, err := os.ReadFile(in)
+	if err != nil || !bytes.Equal(after, src) {
+		t.Fatalf("the input changed (%v)", err)
+	}
+	f, err := os.Open(filepath.Join(dir, "probe.optimized.json"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer f.Close()
+	d, err := design.Read(f)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if d.Name != "Probe head on a canted three-vee mount" || d.PointName != "stylus tip" || d.Packaging == nil || d.Optimize == nil {
+		t.Errorf("the optimised design lost its name, point name or study settings: %+v", d)
+	}
+	for _, name := range []string{"plan.svg", "plan-optimized.svg", "scorecards.svg"} {
+		if _, err := os.Stat(filepath.Join(dir, "out", name)); err != nil {
+			t.Error(err)
+		}
+	}
+	b, err := d.Build()
+	if err != nil {
+		t.Fatal(err)
+	}
+	c := b.Coupling()
+	// The groove of a vee is normal to its Up; its angle to a direction u
+	// in the seat's plane, as lines, is acos|g·û| with û = u projected
+	// normal to Up.
+	angle := func(i int, u r3.Vec) float64 {
+		v := c.Pairs[i].Seat.(kinematic.Vee)
+		up := r3.Unit(v.Up)
+		u = r3.Unit(r3.Sub(u, r3.Scale(r3.Dot(u, up), up)))
+		return math.Acos(math.Min(1, math.Abs(r3.Dot(r3.Unit(v.Direction), u))))
+	}
+	const tol = 1e-9
+	// P's window: within 40° of the radial direction, from P at (40, 0, 0)
+	// mm towards the centroid of the balls, the origin.
+	if a := angle(0, r3.Vec{X: -1}); a > 40*deg+tol {
+		t.Errorf("groove P lies %.3f° off radial, outside its ±40° window", a/deg)
+	}
+	// The cable gland at (-30, 0, 0) mm reaches Q and R (about 36 mm
+	// away in plan, within the 50 mm reach; P is 70 mm away): their
+	// grooves stay at least 25° off the line to it.
+	gland := r3.Vec{X: -0.030}
+	for i := 1; i <= 2; i++ {
+		if a := angle(i, r3.Sub(gland, c.Pairs[i].Ball.Centre)); a < 25*deg-tol {
+			t.Errorf("groove %s lies %.3f° off the cable gland, inside its 25° clearance", c.Pairs[i].Name, a/deg)
+		}
+	}
+}
+
+// TestOptimizeStdin: a design on standard input is optimised into the
+// drawings' folder, named after "design".
+func TestOptimizeStdin(t *testing.T) {
+	src, err := os.ReadFile("testdata/mirror.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	dir := t.TempDir()
+	code, rep, errs := runCmd(t, string(src), "-optimize", "-out", dir, "-")
+	if code != exitPass {
+		t.Fatalf("exit status %d; stderr %s\n%s", code, errs, rep)
+	}
+	if _, err := os.Stat(filepath.Join(dir, "design.optimized.json")); err != nil {
+		t.Errorf("no optimised design in the drawings' folder: %v", err)
+	}
+	if m := regexp.MustCompile(`(?i)cassette|detector`).FindString(rep); m != "" {
+		t.Errorf("the report mentions %q", m)
+	}
+}
+
+// TestWrap checks the description's line breaking on a case worked by
+// hand: "aa bbb cc" at width 6 is "aa bbb" (6 runes) and "cc".
+func TestWrap(t *testing.T) {
+	if got := wrap("aa bbb  cc", 6); got != "aa bbb\ncc" {
+		t.Errorf("wrap = %q, want %q", got, "aa bbb\ncc")
+	}
+	if got := wrap("µµµµµµµ a", 3); got != "µµµµµµµ\na" {
+		t.Errorf("a long word: %q", got)
+	}
+}
