@@ -8,7 +8,6 @@ import (
 	"sort"
 
 	"gonum.org/v1/gonum/spatial/r3"
-	"gonum.org/v1/gonum/stat"
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/plotter"
 	"gonum.org/v1/plot/vg"
@@ -89,7 +88,7 @@ func HistogramPlotters(res kinematic.StudyResult, opt *Options) ([]plot.Plotter,
 		}
 	}
 	sort.Float64s(xs)
-	bins := int(math.Min(60, math.Max(10, math.Sqrt(float64(len(xs))))))
+	bins := binCount(xs)
 	vals := make(plotter.Values, len(xs))
 	copy(vals, xs)
 	h, err := plotter.NewHist(vals, bins)
@@ -101,7 +100,7 @@ func HistogramPlotters(res kinematic.StudyResult, opt *Options) ([]plot.Plotter,
 	h.LineStyle.Width = 0.5
 	var ls vlines
 	for i, q := range percentiles {
-		x := stat.Quantile(q/100, stat.Empirical, xs, nil)
+		x := percentile(xs, q)
 		ls = append(ls, vline{x, fmt.Sprintf("%g %%: %s µm", q, idraw.Sig(x)), ink, []vg.Length{3, 2}, 0.8, i})
 	}
 	if o.Limit > 0 {
@@ -136,4 +135,29 @@ func Histogram(w io.Writer, res kinematic.StudyResult, opt *Options) error {
 	return write(w, o, p.Title.Text, figWidth, figHeight*0.8, func(c draw.Canvas) {
 		layout(c, p, nil, notes)
 	})
+}
+
+// percentile returns the p-th percentile of the sorted xs: Hyndman & Fan
+// (1996), Am. Stat. 50(4), definition 7, x[h] interpolated at
+// h = (n−1)·p/100 with 0-based order statistics.
+func percentile(xs []float64, p float64) float64 {
+	h := (float64(len(xs)) - 1) * p / 100
+	i := int(math.Floor(h))
+	if i >= len(xs)-1 {
+		return xs[len(xs)-1]
+	}
+	return xs[i] + (h-float64(i))*(xs[i+1]-xs[i])
+}
+
+// binCount returns the number of bins for the sorted samples xs:
+// Freedman & Diaconis (1981), width 2·IQR·n^(−1/3), or √n when the IQR
+// is zero, within [10, 80].
+func binCount(xs []float64) int {
+	n := float64(len(xs))
+	span := xs[len(xs)-1] - xs[0]
+	k := math.Ceil(math.Sqrt(n))
+	if iqr := percentile(xs, 75) - percentile(xs, 25); iqr > 0 && span > 0 {
+		k = math.Ceil(span / (2 * iqr * math.Cbrt(1/n)))
+	}
+	return int(math.Min(math.Max(k, 10), 80))
 }

@@ -43,7 +43,11 @@ func Sig(v float64) string {
 	}
 	a := math.Abs(v)
 	if a >= 1e-3 && a < 1e6 {
-		d := max(0, 2-int(math.Floor(math.Log10(a))))
+		e := math.Floor(math.Log10(a))
+		if math.Round(a/math.Pow(10, e-2)) >= 1000 {
+			e++ // 99.99999 prints as 100, not 100.0
+		}
+		d := max(0, 2-int(e))
 		return strconv.FormatFloat(v, 'f', d, 64)
 	}
 	return strconv.FormatFloat(v, 'e', 2, 64)

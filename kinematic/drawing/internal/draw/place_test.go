@@ -91,12 +91,14 @@ func TestSegHitsBox(t *testing.T) {
 	}
 }
 
-// TestSig checks the three-significant-figure format of label values.
+// TestSig checks the three-significant-figure format of label values
+// (values by hand: a value that rounds up to the next decade keeps three
+// figures).
 func TestSig(t *testing.T) {
 	for _, c := range []struct {
 		v    float64
 		want string
-	}{{0.71, "0.710"}, {123.456, "123"}, {12.345, "12.3"}, {0, "0"}, {-3.333, "-3.33"}, {1.5e-5, "1.50e-05"}, {2.5e7, "2.50e+07"}} {
+	}{{0.71, "0.710"}, {123.456, "123"}, {12.345, "12.3"}, {0, "0"}, {-3.333, "-3.33"}, {1.5e-5, "1.50e-05"}, {2.5e7, "2.50e+07"}, {99.99999999, "100"}, {0.099999999, "0.100"}} {
 		if got := Sig(c.v); got != c.want {
 			t.Errorf("Sig(%g) = %q, want %q", c.v, got, c.want)
 		}
