@@ -95,8 +95,8 @@ func newLiftOff(b *design.Built, o Options) (*liftOff, error) {
 	hm.NaN = color.Gray{Y: 0xf4}
 	hm.Rasterized = true
 	v := &planView{}
-	for _, pr := range c.Pairs {
-		v.marks = append(v.marks, mark{pr.Ball.Centre.X * mm, pr.Ball.Centre.Y * mm, "ball " + pr.Name, draw.RingGlyph{}, ink})
+	for i, pr := range c.Pairs {
+		v.marks = append(v.marks, mark{pr.Ball.Centre.X * mm, pr.Ball.Centre.Y * mm, "ball " + pairName(c, i), draw.RingGlyph{}, ink})
 	}
 	for i, p := range d.Preloads {
 		v.marks = append(v.marks, mark{p.Point.X * mm, p.Point.Y * mm, fmt.Sprintf("preload %d", i+1), draw.TriangleGlyph{}, green})
@@ -149,9 +149,13 @@ func LiftOff(w io.Writer, b *design.Built, opt *Options) error {
 	p.Add(l.heat, l.marks)
 	p.X.Label.Text, p.Y.Label.Text = "x, mm", "y, mm"
 	bar := colourBar(scale(0, l.cap), fmt.Sprintf("largest push, N (scale capped at %s N)", idraw.Sig(l.cap)))
+	capNote := fmt.Sprintf("pushes above %s N, four times the total preload, are drawn in the top colour", idraw.Sig(l.cap))
+	if len(b.Design().Preloads) == 0 {
+		capNote = "pushes above 100 N are drawn in the top colour (the design has no preload)"
+	}
 	notes := o.notes(
 		fmt.Sprintf("push along -z at %.3g mm above the balls, added to case %q; pale grey: the push never unloads a contact", l.height*mm, l.caseN),
-		fmt.Sprintf("pushes above %s N (four times the preload, or 100 N without one) are drawn in the top colour", idraw.Sig(l.cap)),
+		capNote,
 	)
 	return write(w, o, p.Title.Text, figWidth, figHeight, func(c draw.Canvas) {
 		main, _, _, _ := areas(c, true, notes)

@@ -1,6 +1,7 @@
 package drawing
 
 import (
+	"fmt"
 	"math"
 
 	"gonum.org/v1/gonum/spatial/r3"
@@ -100,3 +101,15 @@ func bounds(c kinematic.Coupling) (lo, hi r3.Vec) {
 }
 
 func finite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
+
+// pairName returns the name of pair i, or a letter by position ("A",
+// "B", ...) as the design package names an unnamed ball.
+func pairName(c kinematic.Coupling, i int) string {
+	if n := c.Pairs[i].Name; n != "" {
+		return n
+	}
+	if i < 26 {
+		return string(rune('A' + i))
+	}
+	return fmt.Sprintf("#%d", i+1)
+}

@@ -103,22 +103,42 @@ func newPlan(b *design.Built, ev design.Evaluation, o Options) (*planView, error
 		centroid = r3.Add(centroid, r3.Scale(1/float64(len(c.Pairs)), pr.Ball.Centre))
 	}
 	fanR := 2.2 * maxR * mm
+	grooved := make([]bool, len(c.Pairs))
+	for _, gr := range g.Grooves {
+		grooved[gr.Pair] = true
+	}
 	for i, pr := range c.Pairs {
 		bl := pr.Ball
-		v.balls = append(v.balls, mark{x: bl.Centre.X * mm, y: bl.Centre.Y * mm, label: "ball " + pr.Name})
+		v.balls = append(v.balls, mark{x: bl.Centre.X * mm, y: bl.Centre.Y * mm, label: "ball " + pairName(c, i)})
 		v.radius = append(v.radius, bl.Radius*mm)
-		if vee, ok := pr.Seat.(kinematic.Vee); ok {
-			dir := vee.Direction
-			if n := math.Hypot(dir.X, dir.Y); n > 0 {
-				dir = r3.Vec{X: dir.X / n, Y: dir.Y / n}
-				side := r3.Vec{X: -dir.Y, Y: dir.X}
-				half := 2 * bl.Radius
-				for _, s := range []float64{1, -1} {
-					off := r3.Add(bl.Centre, r3.Scale(s*bl.Radius*1.2, side))
-					a, e := r3.Add(off, r3.Scale(-half, dir)), r3.Add(off, r3.Scale(half, dir))
-					v.lines = append(v.lines, planLine{a.X * mm, a.Y * mm, e.X * mm, e.Y * mm, nil, ink, 1.5})
-				}
+		// The seat's outline in plan: a groove's flanks (from the
+		// geometry's grooves, below), a socket's triangle, a flat's
+		// square pad, a cone's rim.
+		var outline []r3.Vec
+		switch st := pr.Seat.(type) {
+		case kinematic.Trihedral:
+			a := math.Atan2(st.Azimuth.Y, st.Azimuth.X)
+			for k := range 4 {
+				th := a + 2*math.Pi*float64(k)/3
+				outline = append(outline, r3.Add(bl.Centre, r3.Vec{X: 2 * bl.Radius * math.Cos(th), Y: 2 * bl.Radius * math.Sin(th)}))
 			}
+		case kinematic.Flat:
+			for k := range 5 {
+				th := math.Pi/4 + math.Pi/2*float64(k)
+				outline = append(outline, r3.Add(bl.Centre, r3.Vec{X: 2 * bl.Radius * math.Cos(th), Y: 2 * bl.Radius * math.Sin(th)}))
+			}
+		case kinematic.Cone:
+			for k := range 33 {
+				th := 2 * math.Pi * float64(k) / 32
+				outline = append(outline, r3.Add(bl.Centre, r3.Vec{X: 1.6 * bl.Radius * math.Cos(th), Y: 1.6 * bl.Radius * math.Sin(th)}))
+			}
+		}
+		for k := 1; k < len(outline); k++ {
+			a, e := outline[k-1], outline[k]
+			v.lines = append(v.lines, planLine{a.X * mm, a.Y * mm, e.X * mm, e.Y * mm, nil, ink, 1.5})
+		}
+		if !grooved[i] {
+			continue // keep-outs and windows are for grooves
 		}
 		if o.Windows != nil {
 			w := o.Windows[i]
@@ -153,6 +173,14 @@ func newPlan(b *design.Built, ev design.Evaluation, o Options) (*planView, error
 			continue
 		}
 		u = r3.Vec{X: u.X / n, Y: u.Y / n}
+		// The flanks' top edges, 2 radii long either side of the ball,
+		// 1.2 radii off the groove axis.
+		side := r3.Vec{X: -u.Y, Y: u.X}
+		for _, sg := range []float64{1, -1} {
+			off := r3.Add(bl.Centre, r3.Scale(sg*bl.Radius*1.2, side))
+			a, e := r3.Add(off, r3.Scale(-2*bl.Radius, u)), r3.Add(off, r3.Scale(2*bl.Radius, u))
+			v.lines = append(v.lines, planLine{a.X * mm, a.Y * mm, e.X * mm, e.Y * mm, nil, ink, 1.5})
+		}
 		l := 4 * bl.Radius
 		a, e := r3.Sub(bl.Centre, r3.Scale(l, u)), r3.Add(bl.Centre, r3.Scale(l, u))
 		v.lines = append(v.lines, planLine{a.X * mm, a.Y * mm, e.X * mm, e.Y * mm, []vg.Length{6, 3}, blue, 0.8})
@@ -160,7 +188,7 @@ func newPlan(b *design.Built, ev design.Evaluation, o Options) (*planView, error
 	size := math.Max(hi.X-lo.X, hi.Y-lo.Y)
 	mid := r3.Scale(0.5, r3.Add(lo, hi))
 	for _, ax := range g.Axes {
-		name := c.Pairs[ax.A].Name + c.Pairs[ax.B].Name
+		name := pairName(c, ax.A) + pairName(c, ax.B)
 		if ax.Parallel {
 			v.offAxes = append(v.offAxes, fmt.Sprintf("seats %s: parallel grooves, a free translation", name))
 			continue
