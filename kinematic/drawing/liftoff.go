@@ -17,7 +17,7 @@ import (
 )
 
 // liftN is the number of cells of a lift-off map along each side.
-const liftN = 90
+const liftN = 150
 
 // grid is a plotter.GridXYZ of cell values, mm.
 type grid struct {
@@ -129,7 +129,7 @@ func LiftOffPlotters(b *design.Built, opt *Options) (heat *plotter.HeatMap, poin
 	return l.heat, l.marks, nil
 }
 
-// LiftOff writes the lift-off map of a built design to w: on a 90 × 90
+// LiftOff writes the lift-off map of a built design to w: on a 150 × 150
 // grid over the balls' plan (with 20 mm of margin), the largest push, N,
 // along −z on the face Options.FaceHeight above the highest ball centre
 // before a contact unloads, added to the design's first load case
