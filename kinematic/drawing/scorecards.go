@@ -39,7 +39,7 @@ func (d dots) Plot(c draw.Canvas, plt *plot.Plot) {
 		c.DrawGlyph(draw.GlyphStyle{Color: col, Radius: 4, Shape: draw.CircleGlyph{}}, vg.Point{X: x, Y: y})
 		s := idraw.Sig(v)
 		if i != d.best {
-			s += fmt.Sprintf(" (%+.1f %%)", 100*(v/d.vals[d.best]-1))
+			s += " (" + relative(v/d.vals[d.best]-1) + ")"
 		}
 		sty.XAlign = draw.XLeft
 		at := x + 6
@@ -126,7 +126,7 @@ func Scorecards(w io.Writer, names []string, cards []kinematic.Scorecard, opt *O
 		p.Y.Min, p.Y.Max = -0.6, float64(len(cards))-0.4
 		plots = append(plots, p)
 	}
-	title := o.title("Candidate layouts: design figures (best of each filled)")
+	title := o.title("Candidate layouts: design figures (best of each filled, others relative to it)")
 	const cols = 2
 	rows := (len(plots) + cols - 1) / cols
 	rowH := 0.9*vg.Inch + vg.Length(len(cards))*0.28*vg.Inch
@@ -153,4 +153,16 @@ func Scorecards(w io.Writer, names []string, cards []kinematic.Scorecard, opt *O
 			p.Draw(tiles.At(body, i%cols, i/cols))
 		}
 	})
+}
+
+// relative formats a relative difference r: "+3.8 %", "-0.04 %", or
+// "equal" below 0.005 %.
+func relative(r float64) string {
+	switch a := math.Abs(r); {
+	case a < 5e-5:
+		return "equal"
+	case a < 1e-3:
+		return fmt.Sprintf("%+.2f %%", 100*r)
+	}
+	return fmt.Sprintf("%+.1f %%", 100*r)
 }
