@@ -7,6 +7,7 @@ import (
 	"io"
 	"math"
 	"sort"
+	"strconv"
 	"strings"
 	"testing"
 
@@ -119,6 +120,54 @@ func TestPlanDrawn(t *testing.T) {
 				t.Errorf("labels %q and %q overlap", labels[i].s, labels[j].s)
 			}
 		}
+	}
+	// A leader to every label: a grey line with one end on the label's
+	// box as gonum/plot sets it out: from the baseline down by the
+	// descent and up by the line height less the descent, about 0.93 of
+	// the size for Liberation Serif (ascent 0.891, descent 0.216, line
+	// height 1.149 em, from memory), grown by 1.5 pt for rounding.
+	for _, l := range labels {
+		bx := labelBox(l)
+		bx[1], bx[3] = l.y-1.0*l.size, l.y+0.3*l.size
+		found := false
+		for _, p := range d.paths {
+			if p.style != "fill:none;stroke:#909090;stroke-width:0.6" || len(p.pts) != 2 {
+				continue
+			}
+			for _, q := range p.pts {
+				if q[0] > bx[0]-1.5 && q[0] < bx[2]+1.5 && q[1] > bx[1]-1.5 && q[1] < bx[3]+1.5 {
+					found = true
+				}
+			}
+		}
+		if !found {
+			t.Errorf("label %q has no leader", l.s)
+		}
+	}
+	// The colour scale fitted to the indices drawn: its tick labels (the
+	// texts right of the plot) lie within [lowest − 0.01, highest] of
+	// ev's centre indices (0.01 is the span of a scale whose indices are
+	// all equal).
+	lo, hi := math.Inf(1), math.Inf(-1)
+	for _, m := range ev.Stability.Contacts {
+		lo, hi = math.Min(lo, m.CentreIndex), math.Max(hi, m.CentreIndex)
+	}
+	ticks := 0
+	for _, x := range d.texts {
+		if x.rotated || x.x < 0.85*d.w {
+			continue
+		}
+		v, err := strconv.ParseFloat(x.s, 64)
+		if err != nil {
+			continue
+		}
+		ticks++
+		if v < lo-0.01-1e-9 || v > hi+1e-9 {
+			t.Errorf("colour bar tick %g outside [%g, %g]", v, lo-0.01, hi)
+		}
+	}
+	if ticks < 2 {
+		t.Errorf("%d colour bar ticks, want at least 2", ticks)
 	}
 	if d.has("off the drawing") {
 		t.Error("a footnote about axes off the drawing, not asked for")
