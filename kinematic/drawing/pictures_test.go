@@ -172,6 +172,9 @@ func TestPlanDrawn(t *testing.T) {
 	if d.has("off the drawing") {
 		t.Error("a footnote about axes off the drawing, not asked for")
 	}
+	if ev.Shock != nil && !d.has("worst shock") {
+		t.Error("the evaluation has a shock and the plan does not show it")
+	}
 	if !d.has("kept out") {
 		t.Error("no note on the keep-out fans")
 	}

@@ -223,6 +223,32 @@ func newPlan(b *design.Built, ev design.Evaluation, o Options) (*planView, error
 		v.marks = append(v.marks, mark{d.Payload.Centre.X * mm, d.Payload.Centre.Y * mm, "centre of mass", draw.RingGlyph{}, ink})
 	}
 	v.marks = append(v.marks, mark{d.Point.X * mm, d.Point.Y * mm, o.pointName(), draw.SquareGlyph{}, ink})
+	if sh := ev.Shock; sh != nil && sh.Unload > 0 && finite(sh.Unload) && len(sh.First) > 0 {
+		// The worst shock: an arrow from the centre of mass along the
+		// plan projection of the base's acceleration that unloads a
+		// contact soonest.
+		txt := fmt.Sprintf("worst shock %s g, unloads %s", idraw.Sig(sh.Unload/kinematic.StandardGravity), sh.First[0])
+		q := d.Payload.Centre
+		u := sh.Direction
+		if n := math.Hypot(u.X, u.Y); n > 0.2 {
+			l := 0.3 * math.Max(hi.X-lo.X, hi.Y-lo.Y)
+			e := r3.Add(q, r3.Vec{X: l * u.X / n, Y: l * u.Y / n})
+			v.lines = append(v.lines, planLine{q.X * mm, q.Y * mm, e.X * mm, e.Y * mm, nil, red, 1.2})
+			// The arrow's head: two strokes 0.08 of its length, 25° off.
+			back := math.Atan2(-u.Y, -u.X)
+			for _, da := range []float64{-25 * math.Pi / 180, 25 * math.Pi / 180} {
+				h := r3.Add(e, r3.Vec{X: 0.08 * l * math.Cos(back+da), Y: 0.08 * l * math.Sin(back+da)})
+				v.lines = append(v.lines, planLine{e.X * mm, e.Y * mm, h.X * mm, h.Y * mm, nil, red, 1.2})
+			}
+			v.marks = append(v.marks, mark{e.X * mm, e.Y * mm, txt, nil, red})
+		} else {
+			dir := "up"
+			if u.Z < 0 {
+				dir = "down"
+			}
+			v.marks = append(v.marks, mark{q.X * mm, q.Y * mm, txt + " (" + dir + ")", draw.RingGlyph{}, red})
+		}
+	}
 	for _, k := range o.KeepOuts {
 		name := k.Name
 		if name == "" {
@@ -303,7 +329,9 @@ func (v *planView) Plot(c draw.Canvas, plt *plot.Plot) {
 		if !c.Contains(p) {
 			continue
 		}
-		c.DrawGlyph(draw.GlyphStyle{Color: m.col, Radius: 4, Shape: m.glyph}, p)
+		if m.glyph != nil {
+			c.DrawGlyph(draw.GlyphStyle{Color: m.col, Radius: 4, Shape: m.glyph}, p)
+		}
 		pl.Obstacle(idraw.Box{X0: float64(p.X) - 5, Y0: -float64(p.Y) - 5, X1: float64(p.X) + 5, Y1: -float64(p.Y) + 5})
 	}
 	sty := plt.X.Tick.Label
@@ -347,6 +375,9 @@ func Plan(w io.Writer, b *design.Built, ev design.Evaluation, opt *Options) erro
 	p.Add(v)
 	p.X.Label.Text, p.Y.Label.Text = "x, mm", "y, mm"
 	notes := []string{"groove axes dashed blue, instantaneous axes of seat pairs dash-dot grey; dots: contact points"}
+	if sh := ev.Shock; sh != nil && sh.Unload > 0 && finite(sh.Unload) && len(sh.First) > 0 {
+		notes = append(notes, fmt.Sprintf("red arrow from the centre of mass: the base's acceleration that unloads a contact soonest (worst shock), case %q", ev.ShockCase))
+	}
 	if o.KeepOuts != nil || o.Windows != nil {
 		notes = append(notes, "fans at the balls: groove directions allowed (green) and kept out (red)")
 	}
