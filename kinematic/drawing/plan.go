@@ -358,13 +358,17 @@ func (v *planView) Plot(c draw.Canvas, plt *plot.Plot) {
 
 // Plan writes the plan view of a built design to w as a ready figure
 // (PlanPlotter, to equal scales in mm): the balls to scale, the top edges
-// of each vee's flanks, the groove axes (dashed), the instantaneous axes
-// of seat pairs near the coupling (dash-dot), where the grooves meet, the
-// thermal centre (when ev has a drift with one), the preload points, the
-// centre of mass, the point of interest, the keep-outs and windows of
-// Options, and each contact's Maxwell centre index, dimensionless, on a
-// colour scale fitted to the indices drawn. ev is b's evaluation
-// (b.Evaluate).
+// of each groove's flanks and the outlines of sockets, flats and cones,
+// the groove axes (dashed), the instantaneous axes of seat pairs near the
+// coupling (dash-dot; those far off are listed in the notes only with
+// Options.OffAxes), where the grooves meet, the thermal centre (when ev
+// has a drift with one), the preload points, the centre of mass, the
+// worst shock (ev.Shock: the base's acceleration that unloads a contact
+// soonest, an arrow from the centre of mass along its plan projection,
+// labelled with its level, g), the point of interest, the keep-outs and
+// windows of Options, and each contact's Maxwell centre index,
+// dimensionless, on a colour scale fitted to the indices drawn. ev is b's
+// evaluation (b.Evaluate).
 func Plan(w io.Writer, b *design.Built, ev design.Evaluation, opt *Options) error {
 	o := opt.orDefault()
 	v, err := newPlan(b, ev, o)
