@@ -53,7 +53,7 @@ func TestExamplesImportPublicOnly(t *testing.T) {
 }
 
 // built returns the example's bench fixture built and evaluated.
-func built(t *testing.T, src string) (*design.Built, design.Evaluation) {
+func built(t testing.TB, src string) (*design.Built, design.Evaluation) {
 	t.Helper()
 	d, err := design.Parse([]byte(src))
 	if err != nil {

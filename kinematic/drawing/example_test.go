@@ -7,6 +7,10 @@ import (
 	"fmt"
 	"log"
 
+	"gonum.org/v1/plot"
+	"gonum.org/v1/plot/vg"
+
+	"github.com/sixfold-dev/sixfold/kinematic"
 	"github.com/sixfold-dev/sixfold/kinematic/design"
 	"github.com/sixfold-dev/sixfold/kinematic/drawing"
 )
@@ -63,4 +67,96 @@ func ExamplePlan() {
 	fmt.Printf("<%s>: %s; names the probe tip: %v\n", doc.XMLName.Local, doc.Title, bytes.Contains(svg.Bytes(), []byte("probe tip")))
 	// Output:
 	// <svg>: Bench fixture, plan; names the probe tip: true
+}
+
+// The error budget of the bench fixture's point of interest for two
+// toleranced dimensions, as a ranked chart with the caller's name for
+// the point.
+func ExampleBudget() {
+	d, err := design.Parse([]byte(bench))
+	if err != nil {
+		log.Fatal(err)
+	}
+	b, err := d.Build()
+	if err != nil {
+		log.Fatal(err)
+	}
+	bud, err := b.Assembly().Budget(d.Point, []kinematic.Tolerance{
+		{Dimension: "A.Ball.X", HalfWidth: 5e-6},
+		{Dimension: "B.Seat.Turn", HalfWidth: 1e-3},
+	})
+	if err != nil {
+		log.Fatal(err)
+	}
+	var svg bytes.Buffer
+	if err := drawing.Budget(&svg, bud, &drawing.Options{PointName: "probe tip"}); err != nil {
+		log.Fatal(err)
+	}
+	fmt.Println(bytes.Contains(svg.Bytes(), []byte("A.Ball.X")), bytes.Contains(svg.Bytes(), []byte("probe tip")))
+	// Output:
+	// true true
+}
+
+// The contact forces of every load case of the bench fixture, named by
+// the cases' own names.
+func ExampleForces() {
+	d, err := design.Parse([]byte(bench))
+	if err != nil {
+		log.Fatal(err)
+	}
+	b, err := d.Build()
+	if err != nil {
+		log.Fatal(err)
+	}
+	var cases []kinematic.Statics
+	for _, lc := range d.Cases {
+		s, err := b.Model().Statics(lc)
+		if err != nil {
+			log.Fatal(err)
+		}
+		cases = append(cases, s)
+	}
+	var svg bytes.Buffer
+	if err := drawing.Forces(&svg, cases, nil); err != nil {
+		log.Fatal(err)
+	}
+	fmt.Println(bytes.Contains(svg.Bytes(), []byte(">seated<")))
+	// Output:
+	// true
+}
+
+// The plan as a plot.Plotter in a plot of the caller's own: their title,
+// axes and size, saved as a PNG.
+func ExamplePlanPlotter() {
+	d, err := design.Parse([]byte(bench))
+	if err != nil {
+		log.Fatal(err)
+	}
+	b, err := d.Build()
+	if err != nil {
+		log.Fatal(err)
+	}
+	ev, err := b.Evaluate(context.Background())
+	if err != nil {
+		log.Fatal(err)
+	}
+	pl, err := drawing.PlanPlotter(b, ev, &drawing.Options{PointName: "probe tip"})
+	if err != nil {
+		log.Fatal(err)
+	}
+	p := plot.New()
+	p.Title.Text = "My fixture"
+	p.X.Label.Text, p.Y.Label.Text = "x, mm", "y, mm"
+	p.Add(pl)
+	wt, err := p.WriterTo(4*vg.Inch, 4*vg.Inch, "png")
+	if err != nil {
+		log.Fatal(err)
+	}
+	var png bytes.Buffer
+	if _, err := wt.WriteTo(&png); err != nil {
+		log.Fatal(err)
+	}
+	fmt.Println(bytes.HasPrefix(png.Bytes(), []byte("\x89PNG")))
+	// Output:
+	// true
 }

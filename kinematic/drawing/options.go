@@ -1,12 +1,12 @@
 package drawing
 
 import (
+	"fmt"
 	"math"
 
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"github.com/sixfold-dev/sixfold/kinematic"
-	"github.com/sixfold-dev/sixfold/kinematic/drawing/internal/draw"
 )
 
 // Options are the words and settings of a drawing. The zero value, and a
@@ -20,13 +20,36 @@ type Options struct {
 	Notes []string
 
 	// PointName names the point of interest in labels and legends, for
-	// example "detector centre"; "" means "point of interest".
+	// example "mirror vertex"; "" means "point of interest".
 	PointName string
 
 	// FaceHeight is the height, m, above the highest ball centre of the
 	// face that a lift-off map pushes on; 0 means the height of the
 	// point of interest.
 	FaceHeight float64
+
+	// Format is the output format of a ready figure: "svg" (also ""),
+	// "png" or "pdf".
+	Format string
+
+	// KeepOuts are packaging obstacles a plan draws, each with the
+	// directions from every ball within its Reach that its Clearance
+	// forbids; Windows are the allowed groove azimuths, one per pair in
+	// the coupling's order (kinematic.KeepOutWindows gives both), drawn
+	// as fans at the balls. Plan only; nil draws none.
+	KeepOuts []kinematic.KeepOut
+	Windows  []kinematic.Window
+
+	// OffAxes lists in a plan's notes the instantaneous axes of seat
+	// pairs that cross the plan far off the drawing; false leaves them
+	// out.
+	OffAxes bool
+
+	// Limit is a requirement's limit on the drawn quantity in SI units
+	// (m for a histogram of displacement), drawn as a line; 0 draws none.
+	// LimitName labels it; "" means "limit".
+	Limit     float64
+	LimitName string
 }
 
 // orDefault returns *o, or the zero Options for nil.
@@ -45,6 +68,14 @@ func (o Options) pointName() string {
 	return o.PointName
 }
 
+// limitName returns the name of the limit.
+func (o Options) limitName() string {
+	if o.LimitName == "" {
+		return "limit"
+	}
+	return o.LimitName
+}
+
 // title returns the title, or def when none is set.
 func (o Options) title(def string) string {
 	if o.Title == "" {
@@ -58,8 +89,6 @@ func (o Options) notes(own ...string) []string {
 	return append(own, o.Notes...)
 }
 
-func pt(v r3.Vec) draw.Point { return draw.Point{X: v.X, Y: v.Y} }
-
 // bounds returns the lower-left and upper-right corners of the ball
 // centres in plan.
 func bounds(c kinematic.Coupling) (lo, hi r3.Vec) {
@@ -69,4 +98,18 @@ func bounds(c kinematic.Coupling) (lo, hi r3.Vec) {
 		hi.X, hi.Y = math.Max(hi.X, p.Ball.Centre.X), math.Max(hi.Y, p.Ball.Centre.Y)
 	}
 	return lo, hi
+}
+
+func finite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
+
+// pairName returns the name of pair i, or a letter by position ("A",
+// "B", ...) as the design package names an unnamed ball.
+func pairName(c kinematic.Coupling, i int) string {
+	if n := c.Pairs[i].Name; n != "" {
+		return n
+	}
+	if i < 26 {
+		return string(rune('A' + i))
+	}
+	return fmt.Sprintf("#%d", i+1)
 }

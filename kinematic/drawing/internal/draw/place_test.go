@@ -1,7 +1,6 @@
 package draw
 
 import (
-	"math"
 	"testing"
 )
 
@@ -92,27 +91,16 @@ func TestSegHitsBox(t *testing.T) {
 	}
 }
 
-// TestNumbers checks the round lengths and number formats.
-func TestNumbers(t *testing.T) {
-	for _, c := range []struct{ x, want float64 }{{54.25, 50}, {19.9, 10}, {2, 2}, {0.0037, 0.002}, {999, 500}, {1, 1}} {
-		if got := roundBelow(c.x); math.Abs(got-c.want) > 1e-12*c.want {
-			t.Errorf("roundBelow(%g) = %g, want %g", c.x, got, c.want)
-		}
-	}
+// TestSig checks the three-significant-figure format of label values
+// (values by hand: a value that rounds up to the next decade keeps three
+// figures).
+func TestSig(t *testing.T) {
 	for _, c := range []struct {
 		v    float64
 		want string
-	}{{0.71, "0.710"}, {123.456, "123"}, {12.345, "12.3"}, {0, "0"}, {-3.333, "-3.33"}, {1.5e-5, "1.50e-05"}, {2.5e7, "2.50e+07"}} {
-		if got := sig(c.v); got != c.want {
-			t.Errorf("sig(%g) = %q, want %q", c.v, got, c.want)
-		}
-	}
-	for _, c := range []struct {
-		v, step float64
-		want    string
-	}{{0.75, 0.25, "0.75"}, {20, 20, "20"}, {-0.4, 0.2, "-0.4"}, {1e-17, 0.5, "0.0"}} {
-		if got := tickText(c.v, c.step); got != c.want {
-			t.Errorf("tickText(%g, %g) = %q, want %q", c.v, c.step, got, c.want)
+	}{{0.71, "0.710"}, {123.456, "123"}, {12.345, "12.3"}, {0, "0"}, {-3.333, "-3.33"}, {1.5e-5, "1.50e-05"}, {2.5e7, "2.50e+07"}, {99.99999999, "100"}, {0.099999999, "0.100"}} {
+		if got := Sig(c.v); got != c.want {
+			t.Errorf("Sig(%g) = %q, want %q", c.v, got, c.want)
 		}
 	}
 }
