@@ -20,8 +20,17 @@ func (s *study) drawings(n int) error {
 	}
 	title := s.title()
 	opt := func(t string) *drawing.Options { return &drawing.Options{Title: t, PointName: s.point} }
+	planOpt := opt(title + ": plan, looking down")
+	if s.d.Packaging != nil {
+		// The keep-outs and the windows they leave, as the optimiser
+		// would see them.
+		planOpt.KeepOuts = s.d.Packaging.KeepOuts
+		if oo, err := s.b.OptimizeOptions(); err == nil {
+			planOpt.Windows = oo.Windows
+		}
+	}
 	if err := s.write("plan.svg", func(w io.Writer) error {
-		return drawing.Plan(w, s.b, s.ev, opt(title+": plan, looking down"))
+		return drawing.Plan(w, s.b, s.ev, planOpt)
 	}); err != nil {
 		return err
 	}
@@ -34,7 +43,10 @@ func (s *study) drawings(n int) error {
 	}
 	if s.res != nil {
 		o := opt(fmt.Sprintf("%s: %s", title, s.point))
-		o.Notes = []string{fmt.Sprintf("%d parts made to the drawing (Monte Carlo, seed %d); displacement is the 3-D magnitude", s.res.Samples, s.d.MonteCarlo.Seed)}
+		o.Notes = []string{fmt.Sprintf("%d parts made to the drawing (Monte Carlo, seed %d)", s.res.Samples, s.d.MonteCarlo.Seed)}
+		if r := s.d.Requirements; r.MaxStudy > 0 {
+			o.Limit, o.LimitName = r.MaxStudy, fmt.Sprintf("requirement (%v)", r.StudyPercentile)
+		}
 		if err := s.write("histogram.svg", func(w io.Writer) error { return drawing.Histogram(w, *s.res, o) }); err != nil {
 			return err
 		}
