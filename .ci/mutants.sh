@@ -57,7 +57,7 @@ kinematic ||| kinematic/stability.go ||| centreIndex = 1 / linalg.Norm3(freed.At
 kinematic ||| kinematic/amplification.go ||| rss += r3.Norm2(d[i]) ||| rss += linalg.Norm3(d[i])
 kinematic ||| kinematic/budget.go ||| b.RSS += c.Effect * c.Effect ||| b.RSS += c.Effect
 kinematic ||| kinematic/budget.go ||| return 3 * t.Sigma, t.Sigma ||| return 2 * t.Sigma, t.Sigma
-kinematic ||| kinematic/thermal.go ||| pl := r3.Sub(p, a.origin) ||| pl := p
+kinematic ||| kinematic/thermal.go ||| xg := global(x, a.origin) ||| xg := x
 kinematic ||| kinematic/thermal.go ||| th.Base*r3.Dot(n, r3.Sub(root, th.BaseRef)) ||| th.Base*r3.Dot(n, root)
 kinematic ||| kinematic/score.go ||| card.PressureRatio = math.Max(card.PressureRatio, math.Cbrt(f0[i]/sc.fall[i])) ||| card.PressureRatio = math.Max(card.PressureRatio, math.Sqrt(f0[i]/sc.fall[i]))
 kinematic ||| kinematic/model.go ||| d := math.Cbrt(f / k) ||| d := math.Sqrt(f / k)
@@ -83,7 +83,7 @@ internal/linalg ||| internal/linalg/jacobi.go ||| if s > 0x1p-486 && s < 0x1p+48
 internal/constraint ||| internal/constraint/analyze.go ||| if s > tol*sigma[0] { ||| if s > tol*tol*sigma[0] {
 internal/constraint ||| internal/constraint/analyze.go ||| r.NearSingular = sigma[rank-1] < NearSingularRatio*sigma[0] ||| r.NearSingular = sigma[rank-1] < sigma[0]/NearSingularRatio
 internal/constraint ||| internal/constraint/frame.go ||| if mhi > maxSpread*mlo { ||| if mhi > maxSpread*maxSpread*mlo {
-internal/constraint ||| internal/constraint/frame.go ||| ue := exponent(far) + 1 ||| ue := exponent(far) - 1
+internal/constraint ||| internal/constraint/frame.go ||| ue = exponent(far) + 1 ||| ue = exponent(far) - 1
 internal/constraint ||| internal/constraint/frame.go ||| if f2 < minForce*minForce { ||| if f2 < minForce {
 internal/constraint ||| internal/constraint/freed.go ||| if k >= -1022 && k <= 1023 { ||| if k >= -1022 && k < 1023 {
 screw ||| screw/screw.go ||| return r3.Dot(t.W, w.M) + r3.Dot(t.V, w.F) ||| return r3.Dot(t.W, w.M) - r3.Dot(t.V, w.F)
