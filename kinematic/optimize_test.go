@@ -126,12 +126,29 @@ func TestOptimizeBinding(t *testing.T) {
 		t.Fatal(err)
 	}
 	s := scenario()
-	free, err := Optimize(c, s, nil)
+	// Without the default screen (MaxCondition +Inf) nothing binds: this
+	// layout's best grooves for the point of interest make a contact
+	// matrix of condition about 29.
+	free, err := Optimize(c, s, &OptimizeOptions{MaxCondition: math.Inf(1)})
 	if err != nil {
 		t.Fatal(err)
 	}
 	if len(free.Binding) != 0 || free.Status != Converged {
 		t.Errorf("unconstrained: binding %v, status %v", free.Binding, free.Status)
+	}
+	// With the default screen (condition ≤ DesignCondition = 10) the
+	// screen holds the optimum back, and the result says so.
+	if free.Score.Condition <= DesignCondition {
+		t.Fatalf("the free optimum's condition is %g: the screen cannot be tested on this layout", free.Score.Condition)
+	}
+	screened, err := Optimize(c, s, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !slices.Contains(screened.Binding, "MaxCondition") || screened.Status != Constrained ||
+		screened.Score.Condition > DesignCondition*(1+1e-9) || screened.Score.Amplification < free.Score.Amplification {
+		t.Errorf("default screen: binding %v, status %v, condition %g, amplification %g (free %g)",
+			screened.Binding, screened.Status, screened.Score.Condition, screened.Score.Amplification, free.Score.Amplification)
 	}
 	b := free.Azimuths[1]
 	all := Window{Min: -math.Pi / 2, Max: math.Pi / 2}
