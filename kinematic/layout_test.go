@@ -37,6 +37,7 @@ var fileOrder = []string{
 	"equilibrium.go",
 	"stiffness.go",
 	"vibration.go",
+	"spectrum.go",
 	"friction.go",
 	"closure.go",
 	"assembly.go",
