@@ -38,6 +38,7 @@ var fileOrder = []string{
 	"stiffness.go",
 	"vibration.go",
 	"spectrum.go",
+	"random.go",
 	"friction.go",
 	"closure.go",
 	"assembly.go",
