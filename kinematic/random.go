@@ -486,3 +486,189 @@ func contactResponse(label string, F, sf, sd, T float64) RandomContact {
 	}
 	return c
 }
+
+// RandomWorst returns the response along the worst direction of base
+// acceleration over the sphere: the one that gives the least contact
+// margin, with opt.Direction ignored. The variance of contact i's force
+// is a quadratic form in the unit direction u, σᵢ²(u) = uᵀ Cᵢ u with Cᵢ
+// the 3×3 matrix Σ_rs c_ir c_is I_rs g_r g_sᵀ (the modal integrals I and
+// participation vectors g of [Model.Random]), while its static force Fᵢ
+// does not depend on u; so the least margin of contact i, Fᵢ/σᵢ, is
+// Fᵢ/√λmax(Cᵢ) along the eigenvector of the largest eigenvalue, and the
+// worst direction is that of the contact whose least margin is smallest.
+// The direction's sign is immaterial; the one returned has its largest
+// component positive. Errors are those of [Model.Random].
+func (m *Model) RandomWorst(lc LoadCase, s Spectrum, opt *RandomOptions) (Random, error) {
+	if err := m.check(); err != nil {
+		return Random{}, err
+	}
+	var o RandomOptions
+	if opt != nil {
+		o = *opt
+	}
+	sp, err := s.prepare()
+	if err != nil {
+		return Random{}, renamed(err, rename{"Points", "s.Points"})
+	}
+	zeta, err := dampingOf(&o)
+	if err != nil {
+		return Random{}, err
+	}
+	_, T, k, err := randomInputs(&o)
+	if err != nil {
+		return Random{}, err
+	}
+	rm, err := m.prepareRandom(lc, &sp, zeta)
+	if err != nil {
+		return Random{}, err
+	}
+	best, dir := math.Inf(1), r3.Vec{Z: 1}
+	for i := range m.lines {
+		c := m.contactCoefficients(&rm, i)
+		cv := rm.covariance(&c, &rm.i0)
+		a := cv
+		var v [9]float64
+		var sig [3]float64
+		linalg.Jacobi(a[:], 3, 3, v[:])
+		linalg.SortColumns(a[:], 3, 3, v[:], sig[:])
+		if !(sig[0] > 0) {
+			continue
+		}
+		margin := rm.st.Forces[i] / (rm.st.Normal[i] * math.Sqrt(sig[0]))
+		if margin < best {
+			best, dir = margin, r3.Vec{X: v[0], Y: v[1], Z: v[2]}
+		}
+	}
+	dir = r3.Scale(signOf3(dir), r3.Unit(dir))
+	return m.respond(&rm, dir, T, k, o.Point), nil
+}
+
+// signOf3 returns the sign that makes the largest component of v positive.
+func signOf3(v r3.Vec) float64 {
+	best, sgn := 0.0, 1.0
+	for _, x := range [3]float64{v.X, v.Y, v.Z} {
+		if math.Abs(x) > best {
+			best, sgn = math.Abs(x), math.Copysign(1, x)
+		}
+	}
+	return sgn
+}
+
+// RandomPreload is the factor on the preload elements that gives every
+// contact a margin of k standard deviations in random vibration.
+type RandomPreload struct {
+	// FirstOrder is the factor with every contact's stiffness, and so
+	// every RMS dynamic force, held at its value in the load case given:
+	// the static forces are linear in the factor, Fᵢ(φ) = Gᵢ + φ Pᵢ, and
+	// φ = maxᵢ (k σᵢ − Gᵢ)/Pᵢ.
+	FirstOrder float64
+
+	// Hertz is the factor with every contact stiffness following Hertz
+	// (k ∝ F^(1/3)) at the forces of that factor, so that the modes and
+	// dynamic forces move with it: the root of min_i Fᵢ/σᵢ = k, bracketed
+	// from FirstOrder and found by bisection on log φ to a relative 1e-6.
+	Hertz float64
+
+	// Margin is the least margin at the load case given.
+	Margin float64
+}
+
+// RandomPreload returns the factor on the preload elements (the load
+// case's PreloadFactor; gravity and the other loads unchanged) that gives
+// every contact a margin of opt.Sigma standard deviations along
+// opt.Direction, to first order and with Hertz stiffness solved exactly.
+// The split of each static force into its part from the preload elements
+// and the rest comes from the forces at the case's factor and at twice it
+// (exact under rigid statics, where forces are linear in the loads; a
+// secant for a model that is not exactly constrained).
+//
+// Errors are those of [Model.Random]; an [*InputError] naming "lc.NoPreload"
+// when the preload is off or "lc.PreloadFactor" when it is reversed, and one wrapping [ErrRange] naming "preloads"
+// when a contact's margin cannot reach k because the preload does not
+// press it (or no factor up to 1e6 times the given one does).
+func (m *Model) RandomPreload(lc LoadCase, s Spectrum, opt *RandomOptions) (RandomPreload, error) {
+	if lc.NoPreload {
+		return RandomPreload{}, &InputError{Field: "lc.NoPreload", Err: fmt.Errorf("%w: the preload is switched off, so no factor on it helps", ErrRange)}
+	}
+	if lc.PreloadFactor < 0 {
+		return RandomPreload{}, &InputError{Field: "lc.PreloadFactor", Err: fmt.Errorf("%w: %g: a reversed preload cannot be scaled up to seat the contacts", ErrRange, lc.PreloadFactor)}
+	}
+	var o RandomOptions
+	if opt != nil {
+		o = *opt
+	}
+	r0, err := m.Random(lc, s, opt)
+	if err != nil {
+		return RandomPreload{}, err
+	}
+	k := o.Sigma
+	if k == 0 {
+		k = 3
+	}
+	phi0 := lc.factor()
+	lc2 := lc
+	lc2.PreloadFactor = 2 * phi0
+	st2, err := m.Stiffness(lc2, nil)
+	if err != nil {
+		return RandomPreload{}, err
+	}
+	res := RandomPreload{Margin: r0.Contacts[r0.Least].Margin, FirstOrder: math.Inf(-1)}
+	for i, c := range r0.Contacts {
+		P := (st2.Forces[i] - c.Static) / phi0
+		G := c.Static - phi0*P
+		if !(P > 0) {
+			if G < k*c.Dynamic {
+				return RandomPreload{}, &InputError{Field: "preloads", Err: fmt.Errorf("%w: the preload does not press contact %s, whose margin %.3g stays below %g", ErrRange, c.Label, c.Margin, k)}
+			}
+			continue
+		}
+		res.FirstOrder = math.Max(res.FirstOrder, (k*c.Dynamic-G)/P)
+	}
+	// Hertz: margin(φ) − k, increasing in φ (the static forces grow as φ,
+	// the dynamic ones about as φ^(1/6)).
+	g := func(phi float64) (float64, error) {
+		l := lc
+		l.PreloadFactor = phi
+		r, err := m.Random(l, s, opt)
+		if err != nil {
+			return 0, err
+		}
+		return r.Contacts[r.Least].Margin - k, nil
+	}
+	lo, hi := phi0, math.Max(res.FirstOrder, phi0)
+	glo := res.Margin - k
+	for glo > 0 && lo > phi0*1e-6 {
+		hi, lo = lo, lo/2
+		if glo, err = g(lo); err != nil {
+			glo = -1 // too little preload to seat the contacts: below the root
+		}
+	}
+	ghi, err := g(hi)
+	if err != nil {
+		return RandomPreload{}, err
+	}
+	for ghi < 0 {
+		if hi > phi0*1e6 {
+			return RandomPreload{}, &InputError{Field: "preloads", Err: fmt.Errorf("%w: no factor up to %g gives a margin of %g", ErrRange, hi, k)}
+		}
+		lo, hi = hi, 2*hi
+		if ghi, err = g(hi); err != nil {
+			return RandomPreload{}, err
+		}
+	}
+	for hi-lo > 1e-6*hi {
+		mid := math.Sqrt(lo * hi)
+		gm, err := g(mid)
+		if err != nil {
+			lo = mid
+			continue
+		}
+		if gm < 0 {
+			lo = mid
+		} else {
+			hi = mid
+		}
+	}
+	res.Hertz = hi
+	return res, nil
+}

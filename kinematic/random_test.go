@@ -314,3 +314,87 @@ func FuzzRandomDamping(f *testing.F) {
 		}
 	})
 }
+
+func TestRandomWorst(t *testing.T) {
+	// The closed form (the largest eigenvalue of each contact's 3×3
+	// covariance, a Rayleigh quotient, by hand) against a sampled sphere:
+	// no sampled direction may give a smaller least margin, and the
+	// closed form's margin must match the sample's best to within the
+	// sampling's angular step (a quadratic form changes by O(step²)).
+	m := symmetricModel(t)
+	lc := LoadCase{Gravity: r3.Vec{X: -2, Z: -StandardGravity}, PreloadFactor: 3}
+	w, err := m.RandomWorst(lc, gevs, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	least := w.Contacts[w.Least].Margin
+	sampled := math.Inf(1)
+	const n = 40
+	for i := range n {
+		th := math.Pi * (float64(i) + 0.5) / n
+		for j := range 2 * n {
+			ph := math.Pi * float64(j) / n
+			u := r3.Vec{X: math.Sin(th) * math.Cos(ph), Y: math.Sin(th) * math.Sin(ph), Z: math.Cos(th)}
+			r, err := m.Random(lc, gevs, &RandomOptions{Direction: u})
+			if err != nil {
+				t.Fatal(err)
+			}
+			mg := r.Contacts[r.Least].Margin
+			if mg < least*(1-1e-9) {
+				t.Fatalf("direction %v gives margin %g below the worst %g along %v", u, mg, least, w.Direction)
+			}
+			sampled = math.Min(sampled, mg)
+		}
+	}
+	step := math.Pi / n
+	if sampled > least*(1+step*step) {
+		t.Errorf("sampled least margin %g, closed form %g", sampled, least)
+	}
+}
+
+func TestRandomPreload(t *testing.T) {
+	m := symmetricModel(t)
+	lc := gravityDown
+	opt := &RandomOptions{Direction: r3.Vec{X: 1, Z: 1}, Sigma: 3}
+	quiet := Spectrum{Points: []Breakpoint{{Frequency: 20, ASD: 1e-4}, {Frequency: 2000, ASD: 1e-4}}}
+	p, err := m.RandomPreload(lc, quiet, opt)
+	if err != nil {
+		t.Fatal(err)
+	}
+	r0, err := m.Random(lc, quiet, opt)
+	if err != nil {
+		t.Fatal(err)
+	}
+	// First order (by hand from its definition): at that factor the
+	// static forces, from rigid statics, over the dynamic forces of the
+	// case given reach 3 at the least contact.
+	st, err := m.Stiffness(LoadCase{Gravity: lc.Gravity, PreloadFactor: p.FirstOrder}, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	least := math.Inf(1)
+	for i, c := range r0.Contacts {
+		least = math.Min(least, st.Forces[i]/c.Dynamic)
+	}
+	if math.Abs(least-3) > 1e-9 {
+		t.Errorf("first order factor %g gives a least margin %g, want 3", p.FirstOrder, least)
+	}
+	// Hertz: the full response at that factor has a least margin of 3.
+	r, err := m.Random(LoadCase{Gravity: lc.Gravity, PreloadFactor: p.Hertz}, quiet, opt)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if mg := r.Contacts[r.Least].Margin; math.Abs(mg-3) > 1e-5 {
+		t.Errorf("Hertz factor %g gives a least margin %g, want 3", p.Hertz, mg)
+	}
+	// Stiffer contacts at a larger preload carry more dynamic force, so
+	// the Hertz factor exceeds the first-order one when more preload is
+	// needed (dynamic force ∝ F^(1/6) for one mode, by hand).
+	if p.FirstOrder > 1 && !(p.Hertz > p.FirstOrder) {
+		t.Errorf("Hertz %g not above first order %g", p.Hertz, p.FirstOrder)
+	}
+	t.Logf("margin %g, first order %g, Hertz %g", p.Margin, p.FirstOrder, p.Hertz)
+	if _, err := m.RandomPreload(LoadCase{NoPreload: true}, quiet, opt); !errors.Is(err, ErrRange) {
+		t.Errorf("NoPreload: %v", err)
+	}
+}
