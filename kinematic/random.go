@@ -3,7 +3,6 @@ package kinematic
 import (
 	"fmt"
 	"math"
-	"math/cmplx"
 	"sort"
 
 	"gonum.org/v1/gonum/spatial/r3"
@@ -111,11 +110,11 @@ type Random struct {
 
 // randomGrid is the number of log-spaced subintervals per decade of the
 // quadrature, besides those refined around each mode.
-const randomGrid = 24
+const randomGrid = 12
 
 // modeSteps are the ends of the subintervals around a mode at f_r, in
 // half-power bandwidths ζ_r f_r on either side.
-var modeSteps = [...]float64{0.25, 0.5, 1, 1.5, 2, 3, 5, 8, 13, 20, 35, 60}
+var modeSteps = [...]float64{0.5, 1, 1.5, 2, 3, 5, 8, 13, 25, 50}
 
 // gauss5 holds the nodes and weights of 5-point Gauss–Legendre on [−1, 1].
 var gauss5 = [2][5]float64{
@@ -219,7 +218,8 @@ func (m *Model) prepareRandom(lc LoadCase, sp *spectrum, zeta [6]float64) (rando
 // points) on subintervals of the band whose ends are the breakpoints,
 // randomGrid log-spaced points per decade and, around each mode, the
 // points f_r ± t·ζ_r f_r for t in modeSteps, so that the half-power
-// band of every mode spans at least eight subintervals.
+// band of every mode spans four subintervals. Ends closer than a
+// relative 1e-9 (those of repeated modes) are merged.
 func (rm *randomModel) integrate(sp *spectrum) {
 	lo, hi := sp.f[0], sp.f[len(sp.f)-1]
 	ends := make([]float64, 0, 64+len(sp.f)+6*(2*len(modeSteps)+1))
@@ -245,33 +245,40 @@ func (rm *randomModel) integrate(sp *spectrum) {
 	}
 	sort.Float64s(ends)
 	g2 := StandardGravity * StandardGravity
-	var h, e [6]complex128
-	for k := 1; k < len(ends); k++ {
-		a, b := ends[k-1], ends[k]
-		if !(b > a) {
+	var hre, him, ere, eim [6]float64
+	prev := ends[0]
+	for _, b := range ends[1:] {
+		a := prev
+		if !(b > a*(1+1e-9)) { // ends of repeated modes coincide
 			continue
 		}
+		prev = b
 		c, d := (a+b)/2, (b-a)/2
+		seg := sort.SearchFloat64s(sp.f, c) - 1 // the segment holding the subinterval
 		for j := range 5 {
 			f := c + d*gauss5[0][j]
-			wt := d * gauss5[1][j] * sp.at(f) * g2
+			wt := d * gauss5[1][j] * sp.a[seg] * math.Pow(f/sp.f[seg], sp.n[seg]) * g2
 			if wt == 0 {
 				continue
 			}
 			om := 2 * math.Pi * f
+			om2 := om * om
 			for r := range 6 {
 				or := rm.omega[r]
-				damp := complex(0, 2*rm.zeta[r]*or*om)
-				h[r] = 1 / (complex(or*or-om*om, 0) + damp)
-				e[r] = (complex(or*or, 0) + damp) * h[r]
+				// h = 1/(x + iy) = (x − iy)/(x² + y²); e = (ω_r² + iy)·h.
+				x, y := or*or-om2, 2*rm.zeta[r]*or*om
+				inv := 1 / (x*x + y*y)
+				hre[r], him[r] = x*inv, -y*inv
+				ere[r], eim[r] = or*or*hre[r]-y*him[r], or*or*him[r]+y*hre[r]
 			}
 			rm.input += wt
 			for r := range 6 {
+				hr, hi, er, ei := wt*hre[r], wt*him[r], wt*ere[r], wt*eim[r]
 				for s := r; s < 6; s++ {
-					hh := real(h[r] * cmplx.Conj(h[s]))
-					rm.i0[6*r+s] += wt * hh
-					rm.i2[6*r+s] += wt * om * om * hh
-					rm.ia[6*r+s] += wt * real(e[r]*cmplx.Conj(e[s]))
+					hh := hr*hre[s] + hi*him[s]
+					rm.i0[6*r+s] += hh
+					rm.i2[6*r+s] += om2 * hh
+					rm.ia[6*r+s] += er*ere[s] + ei*eim[s]
 				}
 			}
 		}
