@@ -316,18 +316,6 @@ func (rm *randomModel) covariance(c *[6]float64, I *[36]float64) [9]float64 {
 	return cv
 }
 
-// quad returns uᵀ C u.
-func quad(cv *[9]float64, u r3.Vec) float64 {
-	x := [3]float64{u.X, u.Y, u.Z}
-	var s float64
-	for i := range 3 {
-		for j := range 3 {
-			s += x[i] * cv[3*i+j] * x[j]
-		}
-	}
-	return math.Max(s, 0)
-}
-
 // variance returns var(Σ c_r q_r) along u.
 func (rm *randomModel) variance(c [6]float64, I *[36]float64, u r3.Vec) float64 {
 	var s float64
