@@ -116,10 +116,11 @@ const randomGrid = 12
 // half-power bandwidths ζ_r f_r on either side.
 var modeSteps = [...]float64{0.5, 1, 1.5, 2, 3, 5, 8, 13, 25, 50}
 
-// gauss5 holds the nodes and weights of 5-point Gauss–Legendre on [−1, 1].
-var gauss5 = [2][5]float64{
-	{-0.9061798459386640, -0.5384693101056831, 0, 0.5384693101056831, 0.9061798459386640},
-	{0.2369268850561891, 0.4786286704993665, 0.5688888888888889, 0.4786286704993665, 0.2369268850561891},
+// gauss4 holds the nodes and weights of 4-point Gauss–Legendre on [−1, 1]
+// (Abramowitz & Stegun, Table 25.4).
+var gauss4 = [2][4]float64{
+	{-0.8611363115940526, -0.3399810435848563, 0.3399810435848563, 0.8611363115940526},
+	{0.3478548451374538, 0.6521451548625461, 0.6521451548625461, 0.3478548451374538},
 }
 
 // randomModel is what the response needs of the model: the modes in
@@ -214,7 +215,7 @@ func (m *Model) prepareRandom(lc LoadCase, sp *spectrum, zeta [6]float64) (rando
 	return rm, nil
 }
 
-// integrate fills i0, i2, ia and input by Gauss–Legendre quadrature (5
+// integrate fills i0, i2, ia and input by Gauss–Legendre quadrature (4
 // points) on subintervals of the band whose ends are the breakpoints,
 // randomGrid log-spaced points per decade and, around each mode, the
 // points f_r ± t·ζ_r f_r for t in modeSteps, so that the half-power
@@ -255,9 +256,14 @@ func (rm *randomModel) integrate(sp *spectrum) {
 		prev = b
 		c, d := (a+b)/2, (b-a)/2
 		seg := sort.SearchFloat64s(sp.f, c) - 1 // the segment holding the subinterval
-		for j := range 5 {
-			f := c + d*gauss5[0][j]
-			wt := d * gauss5[1][j] * sp.a[seg] * math.Pow(f/sp.f[seg], sp.n[seg]) * g2
+		as, fs, ns := sp.a[seg]*g2, sp.f[seg], sp.n[seg]
+		for j := range 4 {
+			f := c + d*gauss4[0][j]
+			level := as
+			if ns != 0 { // a flat segment needs no power
+				level = as * math.Exp(ns*math.Log(f/fs))
+			}
+			wt := d * gauss4[1][j] * level
 			if wt == 0 {
 				continue
 			}
