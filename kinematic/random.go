@@ -380,7 +380,8 @@ func (m *Model) contactCoefficients(rm *randomModel, i int) [6]float64 {
 // Errors are those of [Model.Stiffness] and [Stiffness.Modes], those of
 // [Spectrum.GRMS] with the field prefixed "s." ("s.Points[2].Frequency"),
 // and [*InputError]s naming the option ("opt.Damping[3]", "opt.Q",
-// "opt.Direction", "opt.Duration", "opt.Sigma", "opt.Point").
+// "opt.Direction", "opt.Duration", "opt.Sigma", "opt.Point"), and one
+// naming "s" wrapping [ErrRange] when the response overflows.
 func (m *Model) Random(lc LoadCase, s Spectrum, opt *RandomOptions) (Random, error) {
 	if err := m.check(); err != nil {
 		return Random{}, err
@@ -405,7 +406,20 @@ func (m *Model) Random(lc LoadCase, s Spectrum, opt *RandomOptions) (Random, err
 	if err != nil {
 		return Random{}, err
 	}
-	return m.respond(&rm, u, T, k, o.Point), nil
+	return finiteRandom(m.respond(&rm, u, T, k, o.Point))
+}
+
+// finiteRandom returns r, or an error naming the spectrum when a figure
+// leaves the floating-point range (a level of 1e300 g²/Hz).
+func finiteRandom(r Random) (Random, error) {
+	ok := allFinite(r.Input, r.Centre.RMS, r.Point.RMS, r.Displacement.RMS, r.Tilt.RMS)
+	for _, c := range r.Contacts {
+		ok = ok && allFinite(c.Dynamic, c.Rate, c.Openings) && !math.IsNaN(c.Margin)
+	}
+	if !ok {
+		return Random{}, &InputError{Field: "s", Err: fmt.Errorf("%w: the response overflows", ErrRange)}
+	}
+	return r, nil
 }
 
 // randomInputs validates and defaults the direction, duration and k.
@@ -541,7 +555,7 @@ func (m *Model) RandomWorst(lc LoadCase, s Spectrum, opt *RandomOptions) (Random
 		}
 	}
 	dir = r3.Scale(signOf3(dir), r3.Unit(dir))
-	return m.respond(&rm, dir, T, k, o.Point), nil
+	return finiteRandom(m.respond(&rm, dir, T, k, o.Point))
 }
 
 // signOf3 returns the sign that makes the largest component of v positive.

@@ -403,3 +403,20 @@ func TestRandomPreload(t *testing.T) {
 		t.Errorf("NoPreload: %v", err)
 	}
 }
+
+func TestRandomOverflow(t *testing.T) {
+	// A level near the largest float64 overflows the response: an error
+	// naming the spectrum, not an Inf or a NaN.
+	m := symmetricModel(t)
+	huge := Spectrum{Points: []Breakpoint{{Frequency: 20, ASD: 1e307}, {Frequency: 2000, ASD: 1e307}}}
+	for name, f := range map[string]func() (Random, error){
+		"Random":      func() (Random, error) { return m.Random(gravityDown, huge, nil) },
+		"RandomWorst": func() (Random, error) { return m.RandomWorst(gravityDown, huge, nil) },
+	} {
+		_, err := f()
+		var ie *InputError
+		if !errors.As(err, &ie) || ie.Field != "s" || !errors.Is(err, ErrRange) {
+			t.Errorf("%s: err = %v, want an InputError naming s wrapping ErrRange", name, err)
+		}
+	}
+}
