@@ -131,3 +131,33 @@ func FuzzSpectrum(f *testing.F) {
 		}
 	})
 }
+
+func TestSpectrumWorkmanship(t *testing.T) {
+	// The minimum workmanship random vibration level of NASA-STD-7001A
+	// (2011): overall 6.8 grms, as stated on
+	// http://www.thermaxtesting.com/test-specs/nasa-std-7001a-testing/
+	// (found with the search tool); its breakpoints from memory: 20 Hz
+	// 0.01 g²/Hz, +3 dB/octave to 80 Hz, 0.04 g²/Hz to 500 Hz,
+	// −3 dB/octave to 2000 Hz.
+	s := Spectrum{Points: []Breakpoint{
+		{Frequency: 20},
+		{Frequency: 80, ASD: 0.04, Slope: 3},
+		{Frequency: 500, ASD: 0.04},
+		{Frequency: 2000, Slope: -3},
+	}}
+	g, err := s.GRMS()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if math.Abs(g-6.8) > 0.05 {
+		t.Errorf("workmanship grms = %.4f, want 6.8 (NASA-STD-7001A)", g)
+	}
+	// The −3 dB/octave fall is an exponent of −0.99658, next to the
+	// slope −1 case: by hand, 0.04·500/(n+1)·(4^(n+1) − 1) with n + 1 =
+	// 0.0034...; the closed form with expm1 keeps it exact.
+	n := 3 / (10 * math.Log10(2))
+	want := 0.04*80/(n+1)*(1-math.Pow(0.25, n+1)) + 0.04*420 + 0.04*500/(1-n)*(math.Pow(4, 1-n)-1)
+	if math.Abs(g*g-want) > 1e-12*want {
+		t.Errorf("mean square = %.15g, want %.15g (hand integration)", g*g, want)
+	}
+}
