@@ -401,8 +401,12 @@ func TestRandomPreload(t *testing.T) {
 		t.Errorf("Hertz %g not above first order %g", p.Hertz, p.FirstOrder)
 	}
 	t.Logf("margin %g, first order %g, Hertz %g", p.Margin, p.FirstOrder, p.Hertz)
-	if _, err := m.RandomPreload(LoadCase{NoPreload: true}, quiet, opt); !errors.Is(err, ErrRange) {
-		t.Errorf("NoPreload: %v", err)
+	for field, lc := range map[string]LoadCase{"lc.NoPreload": {NoPreload: true}, "lc.PreloadFactor": {PreloadFactor: -1}} {
+		_, err := m.RandomPreload(lc, quiet, opt)
+		var ie *InputError
+		if !errors.As(err, &ie) || ie.Field != field || !errors.Is(err, ErrRange) {
+			t.Errorf("%s: err = %v, want an InputError naming it wrapping ErrRange", field, err)
+		}
 	}
 }
 
