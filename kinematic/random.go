@@ -114,7 +114,7 @@ const randomGrid = 12
 
 // modeSteps are the ends of the subintervals around a mode at f_r, in
 // half-power bandwidths ζ_r f_r on either side.
-var modeSteps = [...]float64{0.5, 1, 1.5, 2, 3, 5, 8, 13, 25, 50}
+var modeSteps = [...]float64{0.5, 1, 2, 3, 5, 8, 13, 25}
 
 // gauss4 holds the nodes and weights of 4-point Gauss–Legendre on [−1, 1]
 // (Abramowitz & Stegun, Table 25.4).
