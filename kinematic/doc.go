@@ -246,7 +246,7 @@
 //     breakpoints, 12 log-spaced points per decade and, around each mode,
 //     f_r ± t ζ_r f_r for t = 0.5, 1, 2, 3, 5, 8, 13, 25; against
 //     the closed-form response of a single mode to white noise it agrees
-//     to better than 1e-5 of the variance (4e-8 measured at ζ = 0.02, once the
+//     to better than 1e-5 of the variance (6e-8 measured at ζ = 0.02, once the
 //     finite band's share is subtracted by hand).
 //   - The worst direction over the sphere ([Model.RandomWorst]) is in
 //     closed form: a contact's force variance is a quadratic form in the
