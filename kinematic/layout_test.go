@@ -37,6 +37,8 @@ var fileOrder = []string{
 	"equilibrium.go",
 	"stiffness.go",
 	"vibration.go",
+	"spectrum.go",
+	"random.go",
 	"friction.go",
 	"closure.go",
 	"assembly.go",
