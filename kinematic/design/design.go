@@ -300,3 +300,12 @@ type Cases struct {
 func (c Cases) zero() bool { return !c.All && len(c.Names) == 0 }
 
 var zeroVec r3.Vec
+
+// pointLabel returns the point of interest's name for notes and reports:
+// PointName, or "point of interest".
+func (d *Design) pointLabel() string {
+	if d.PointName != "" {
+		return d.PointName
+	}
+	return "point of interest"
+}

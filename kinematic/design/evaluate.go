@@ -97,6 +97,7 @@ type Evaluation struct {
 	mu            float64
 	deltaT        float64
 	stiffnessNote string
+	point         string // the point of interest's name, for the notes
 }
 
 // Evaluate returns the whole evaluation of the design, as
@@ -121,7 +122,7 @@ func (d *Design) Evaluate(ctx context.Context) (Evaluation, error) {
 // stops early).
 func (b *Built) Evaluate(ctx context.Context) (Evaluation, error) {
 	d := &b.d
-	e := Evaluation{Analysis: b.analysis, req: d.Requirements}
+	e := Evaluation{Analysis: b.analysis, req: d.Requirements, point: d.pointLabel()}
 	if d.Friction != nil {
 		e.mu = d.Friction.Mu
 	}
@@ -388,7 +389,7 @@ func (e Evaluation) Verdicts() Verdicts {
 	vs = append(vs, e.checked["min_shock"]...)
 	vs = append(vs, e.checked["min_frequency"]...)
 	if e.Budget != nil {
-		worst, rss, note := e.Budget.Worst, e.Budget.RSS, "at the point of interest"
+		worst, rss, note := e.Budget.Worst, e.Budget.RSS, "at the "+e.point
 		if r.AlongAxis {
 			worst, rss, note = e.AxisWorst, e.AxisRSS, "along the axis at the point of interest"
 		}
@@ -405,7 +406,7 @@ func (e Evaluation) Verdicts() Verdicts {
 	}
 	if r.MaxThermalDrift > 0 && e.Drift != nil {
 		add("max_thermal_drift", r3.Norm(e.Drift.Relative), r.MaxThermalDrift, "m", false,
-			fmt.Sprintf("at the point of interest over delta_t %s, exact seat of the expanded geometry, relative to the base", quantityString(e.deltaT, "K")))
+			fmt.Sprintf("at the %s over delta_t %s, exact seat of the expanded geometry, relative to the base", e.point, quantityString(e.deltaT, "K")))
 	}
 	vs = append(vs, e.checked["seating"]...)
 	vs = append(vs, e.tiltVerdicts()...)

@@ -27,3 +27,18 @@ func TestUnitHint(t *testing.T) {
 		}
 	}
 }
+
+// TestNotesUseThePointName: a verdict about the point of interest names it
+// as the file does ("point_name"), and says "point of interest" without it.
+func TestNotesUseThePointName(t *testing.T) {
+	for _, tc := range []struct {
+		name, want string
+	}{{"", "at the point of interest"}, {"mirror vertex", "at the mirror vertex"}} {
+		d := editFixture(t, "testdata/equilateral.json", set("monte_carlo.samples", 1000))
+		d.PointName = tc.name
+		_, v := verdict(t, d, "requirements.max_error.worst_case")
+		if !strings.HasPrefix(v.Note, tc.want) {
+			t.Errorf("point_name %q: note %q, want it to start %q", tc.name, v.Note, tc.want)
+		}
+	}
+}

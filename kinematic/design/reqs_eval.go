@@ -124,7 +124,7 @@ func (e *Evaluation) more(b *Built) error {
 		for _, k := range d.selected("", r.RepeatCases, false) {
 			lc := d.Cases[k]
 			rp, err := b.model.Repeatability(lc, d.Friction.Mu, d.Point)
-			note := fmt.Sprintf("at the point of interest under case %q with mu = %.4g", lc.Name, d.Friction.Mu)
+			note := fmt.Sprintf("at the %s under case %q with mu = %.4g", d.pointLabel(), lc.Name, d.Friction.Mu)
 			if err != nil {
 				if !errors.Is(err, ErrRange) && !errors.Is(err, ErrDegenerate) {
 					return caseTranslator(b, k, map[string]string{"mu": "friction.mu", "p": "point_of_interest"}).translate(err)
@@ -267,7 +267,7 @@ func stiffnessAt(b *Built, k int) (along, across float64, note string, err error
 	p, q, s := quad(t1, t1), quad(t1, t2), quad(t2, t2)
 	lmax := (p+s)/2 + math.Hypot((p-s)/2, q)
 	across = 1 / lmax
-	note = fmt.Sprintf("at the point of interest under case %q, axis %s", lc.Name, vecString(a))
+	note = fmt.Sprintf("at the %s under case %q, axis %s", b.d.pointLabel(), lc.Name, vecString(a))
 	return along, across, note, nil
 }
 
