@@ -77,21 +77,8 @@ func newPlan(b *design.Built, ev design.Evaluation, o Options) (*planView, error
 		return nil, err
 	}
 	cs := b.Contacts()
-	if len(ev.Stability.Contacts) != len(cs) {
-		return nil, fmt.Errorf("drawing: ev has %d contacts' Maxwell indices, the design %d contacts: %w", len(ev.Stability.Contacts), len(cs), kinematic.ErrDegenerate)
-	}
-	if o.Windows != nil && len(o.Windows) != len(c.Pairs) {
-		return nil, fmt.Errorf("drawing: Options.Windows: %w: %d windows for %d pairs", kinematic.ErrDegenerate, len(o.Windows), len(c.Pairs))
-	}
-	for i, k := range o.KeepOuts {
-		if !finite(k.At.X) || !finite(k.At.Y) || !finite(k.Clearance) || !finite(k.Reach) {
-			return nil, fmt.Errorf("drawing: Options.KeepOuts[%d]: %w", i, kinematic.ErrNonFinite)
-		}
-	}
-	for i, w := range o.Windows {
-		if !finite(w.Min) || !finite(w.Max) {
-			return nil, fmt.Errorf("drawing: Options.Windows[%d]: %w", i, kinematic.ErrNonFinite)
-		}
+	if err := checkPlan(c, cs, ev, o); err != nil {
+		return nil, err
 	}
 	d := b.Design()
 	v := &planView{}
@@ -103,6 +90,41 @@ func newPlan(b *design.Built, ev design.Evaluation, o Options) (*planView, error
 		centroid = r3.Add(centroid, r3.Scale(1/float64(len(c.Pairs)), pr.Ball.Centre))
 	}
 	fanR := 2.2 * maxR * mm
+	v.seats(c, g, o, centroid, fanR)
+	v.grooves(c, g)
+	v.axes(c, g, lo, hi)
+	v.points(g, ev, d, o)
+	v.shock(ev, d, lo, hi)
+	v.keepOuts(o)
+	v.indices(ev, cs)
+	v.extent(lo, hi, fanR)
+	return v, nil
+}
+
+// checkPlan checks that the evaluation and the options fit the coupling.
+func checkPlan(c kinematic.Coupling, cs []kinematic.Contact, ev design.Evaluation, o Options) error {
+	if len(ev.Stability.Contacts) != len(cs) {
+		return fmt.Errorf("drawing: ev has %d contacts' Maxwell indices, the design %d contacts: %w", len(ev.Stability.Contacts), len(cs), kinematic.ErrDegenerate)
+	}
+	if o.Windows != nil && len(o.Windows) != len(c.Pairs) {
+		return fmt.Errorf("drawing: Options.Windows: %w: %d windows for %d pairs", kinematic.ErrDegenerate, len(o.Windows), len(c.Pairs))
+	}
+	for i, k := range o.KeepOuts {
+		if !finite(k.At.X) || !finite(k.At.Y) || !finite(k.Clearance) || !finite(k.Reach) {
+			return fmt.Errorf("drawing: Options.KeepOuts[%d]: %w", i, kinematic.ErrNonFinite)
+		}
+	}
+	for i, w := range o.Windows {
+		if !finite(w.Min) || !finite(w.Max) {
+			return fmt.Errorf("drawing: Options.Windows[%d]: %w", i, kinematic.ErrNonFinite)
+		}
+	}
+	return nil
+}
+
+// seats draws each seat's outline in plan and, at the grooves, the
+// allowed and kept-out directions as fans.
+func (v *planView) seats(c kinematic.Coupling, g kinematic.Geometry, o Options, centroid r3.Vec, fanR float64) {
 	grooved := make([]bool, len(c.Pairs))
 	for _, gr := range g.Grooves {
 		grooved[gr.Pair] = true
@@ -165,6 +187,10 @@ func newPlan(b *design.Built, ev design.Evaluation, o Options) (*planView, error
 			}
 		}
 	}
+}
+
+// grooves draws the vee flanks' top edges and the groove axes.
+func (v *planView) grooves(c kinematic.Coupling, g kinematic.Geometry) {
 	for _, gr := range g.Grooves {
 		bl := c.Pairs[gr.Pair].Ball
 		u := gr.Direction
@@ -185,6 +211,11 @@ func newPlan(b *design.Built, ev design.Evaluation, o Options) (*planView, error
 		a, e := r3.Sub(bl.Centre, r3.Scale(l, u)), r3.Add(bl.Centre, r3.Scale(l, u))
 		v.lines = append(v.lines, planLine{a.X * mm, a.Y * mm, e.X * mm, e.Y * mm, []vg.Length{6, 3}, blue, 0.8})
 	}
+}
+
+// axes draws the instantaneous axes of seat pairs on the drawing and
+// lists those off it.
+func (v *planView) axes(c kinematic.Coupling, g kinematic.Geometry, lo, hi r3.Vec) {
 	size := math.Max(hi.X-lo.X, hi.Y-lo.Y)
 	mid := r3.Scale(0.5, r3.Add(lo, hi))
 	for _, ax := range g.Axes {
@@ -210,6 +241,11 @@ func newPlan(b *design.Built, ev design.Evaluation, o Options) (*planView, error
 		a, e := r3.Sub(q, r3.Scale(l, u)), r3.Add(q, r3.Scale(l, u))
 		v.lines = append(v.lines, planLine{a.X * mm, a.Y * mm, e.X * mm, e.Y * mm, []vg.Length{8, 2, 2, 2}, faint, 0.8})
 	}
+}
+
+// points marks the coupling centre, the thermal centre, the preloads, the
+// centre of mass and the point of interest.
+func (v *planView) points(g kinematic.Geometry, ev design.Evaluation, d design.Design, o Options) {
 	if g.HasCentre {
 		v.marks = append(v.marks, mark{g.Centre.X * mm, g.Centre.Y * mm, "grooves meet", draw.CrossGlyph{}, blue})
 	}
@@ -223,6 +259,11 @@ func newPlan(b *design.Built, ev design.Evaluation, o Options) (*planView, error
 		v.marks = append(v.marks, mark{d.Payload.Centre.X * mm, d.Payload.Centre.Y * mm, "centre of mass", draw.RingGlyph{}, ink})
 	}
 	v.marks = append(v.marks, mark{d.Point.X * mm, d.Point.Y * mm, o.pointName(), draw.SquareGlyph{}, ink})
+}
+
+// shock draws the worst shock's direction as an arrow from the centre of
+// mass.
+func (v *planView) shock(ev design.Evaluation, d design.Design, lo, hi r3.Vec) {
 	if sh := ev.Shock; sh != nil && sh.Unload > 0 && finite(sh.Unload) && len(sh.First) > 0 {
 		// The worst shock: an arrow from the centre of mass along the
 		// plan projection of the base's acceleration that unloads a
@@ -249,6 +290,10 @@ func newPlan(b *design.Built, ev design.Evaluation, o Options) (*planView, error
 			v.marks = append(v.marks, mark{q.X * mm, q.Y * mm, txt + " (" + dir + ")", draw.RingGlyph{}, red})
 		}
 	}
+}
+
+// keepOuts marks the packaging obstacles.
+func (v *planView) keepOuts(o Options) {
 	for _, k := range o.KeepOuts {
 		name := k.Name
 		if name == "" {
@@ -256,6 +301,11 @@ func newPlan(b *design.Built, ev design.Evaluation, o Options) (*planView, error
 		}
 		v.marks = append(v.marks, mark{k.At.X * mm, k.At.Y * mm, name, draw.CrossGlyph{}, red})
 	}
+}
+
+// indices places a dot at every contact, coloured by its Maxwell index at
+// the ball centre, on a scale fitted to the values.
+func (v *planView) indices(ev design.Evaluation, cs []kinematic.Contact) {
 	lov, hiv := math.Inf(1), math.Inf(-1)
 	for i, m := range ev.Stability.Contacts {
 		v.dots = append(v.dots, mark{x: cs[i].Point.X * mm, y: cs[i].Point.Y * mm, label: m.Label})
@@ -267,6 +317,11 @@ func newPlan(b *design.Built, ev design.Evaluation, o Options) (*planView, error
 		lov = hiv - 0.01
 	}
 	v.cm = scale(lov, hiv)
+}
+
+// extent sets the drawing's extent: the balls with their fans, the marks
+// and the lines.
+func (v *planView) extent(lo, hi r3.Vec, fanR float64) {
 	// Extent: balls with the fans, marks, keep-outs.
 	m := math.Max(fanR, 5)
 	v.x0, v.x1, v.y0, v.y1 = lo.X*mm-m, hi.X*mm+m, lo.Y*mm-m, hi.Y*mm+m
@@ -278,7 +333,6 @@ func newPlan(b *design.Built, ev design.Evaluation, o Options) (*planView, error
 		v.x0, v.x1 = math.Min(v.x0, math.Min(l.x0, l.x1)), math.Max(v.x1, math.Max(l.x0, l.x1))
 		v.y0, v.y1 = math.Min(v.y0, math.Min(l.y0, l.y1)), math.Max(v.y1, math.Max(l.y0, l.y1))
 	}
-	return v, nil
 }
 
 // DataRange implements plot.DataRanger.
