@@ -88,7 +88,7 @@ func RandomSpectrumPlotters(s kinematic.Spectrum, curves []RandomCurve, opt *Opt
 		if err != nil {
 			return nil, nil, err
 		}
-		l.Color, l.Width = plotutil.Color(k+1), 1.2
+		l.Color, l.Width = plotutil.Color(k), 1.2 // the colours of RandomMargins' bars
 		ps = append(ps, l)
 		if !finite(c.Response.Point.RMS) {
 			return nil, nil, fmt.Errorf("drawing: curves[%d].Response.Point.RMS: %w", k, kinematic.ErrNonFinite)
