@@ -248,6 +248,26 @@
 //     the closed-form response of a single mode to white noise it agrees
 //     to better than 1e-5 of the variance (6e-8 measured at ζ = 0.02, once the
 //     finite band's share is subtracted by hand).
+//   - Damping given per mode (six values) applies ζ_r to the r-th mode
+//     as [Stiffness.Modes] returns them, lowest frequency first. Where
+//     two or more modes share one frequency (a symmetric coupling's
+//     lateral pair), the eigenvectors of that frequency are any basis
+//     of their subspace, and which one the solver returns is an accident
+//     of rounding. With one damping ratio for the repeated modes the
+//     damping matrix on that subspace is 2ζω times the identity (mass
+//     normalised), the same in every basis, so the answer does not
+//     depend on the basis (a test turns the excitation by the
+//     coupling's symmetry and finds the same response). With different
+//     ratios on modes of equal frequency the damping matrix, and so the
+//     response, depends on the basis the solver happened to return: the
+//     library does not detect this and computes with the solver's
+//     basis; give such modes one ratio (or a single value for all six).
+//     Modes that are close but distinct are well defined and any ratios
+//     are right for them.
+//   - [Model.RandomDensity] gives the power spectral densities of the
+//     base input and of the point's absolute acceleration ((m/s²)²/Hz)
+//     and relative displacement (m²/Hz) at frequencies the caller
+//     chooses, for plots; the RMS figures integrate the same densities.
 //   - The worst direction over the sphere ([Model.RandomWorst]) is in
 //     closed form: a contact's force variance is a quadratic form in the
 //     direction, so its least margin lies along the top eigenvector of a

@@ -185,6 +185,17 @@ func dampingOf(o *RandomOptions) ([6]float64, error) {
 // prepareRandom builds the modal model at the load case and integrates
 // the spectrum against the modal transfer functions.
 func (m *Model) prepareRandom(lc LoadCase, sp *spectrum, zeta [6]float64) (randomModel, error) {
+	rm, err := m.modalRandom(lc, zeta)
+	if err != nil {
+		return rm, err
+	}
+	rm.integrate(sp)
+	return rm, nil
+}
+
+// modalRandom builds the modal model at the load case: the stiffness,
+// the mass-normalised modes and their participation vectors.
+func (m *Model) modalRandom(lc LoadCase, zeta [6]float64) (randomModel, error) {
 	var rm randomModel
 	st, err := m.Stiffness(lc, nil)
 	if err != nil {
@@ -211,7 +222,6 @@ func (m *Model) prepareRandom(lc LoadCase, sp *spectrum, zeta [6]float64) (rando
 		rm.g[r] = r3.Scale(p.Mass, rm.v[r])
 		rm.omega[r] = 2 * math.Pi * md.Frequency
 	}
-	rm.integrate(sp)
 	return rm, nil
 }
 
@@ -686,4 +696,103 @@ func (m *Model) RandomPreload(lc LoadCase, s Spectrum, opt *RandomOptions) (Rand
 	}
 	res.Hertz = hi
 	return res, nil
+}
+
+// RandomDensity is the power spectral density of the response at the
+// point of interest at one frequency, as [Model.RandomDensity] gives it.
+type RandomDensity struct {
+	Frequency float64 // Hz
+
+	// Input is the density of the base acceleration, (m/s²)²/Hz: the
+	// spectrum's level in g²/Hz times [StandardGravity]², zero outside
+	// its band.
+	Input float64
+
+	// Acceleration is the density of the point's absolute acceleration,
+	// (m/s²)²/Hz, summed over its three components: its integral over
+	// the band is the square of [Random] Point.RMS.
+	Acceleration float64
+
+	// Displacement is the density of the point's displacement relative
+	// to the base, m²/Hz, summed over its three components: its integral
+	// is the square of [Random] Displacement.RMS.
+	Displacement float64
+}
+
+// RandomDensity returns the power spectral densities of the base
+// acceleration and of the response at the point of interest opt.Point
+// at each frequency of f (Hz), for the base acceleration of spectrum s
+// along opt.Direction, in the model of [Model.Random] (the same modes,
+// damping and conventions): with Γ_r the participation of mode r along
+// the direction, h_r its transfer function and e_r = (ω_r² + 2iζ_r ω_r ω) h_r,
+// the displacement's density is S(f)·Σ_xyz |Σ_r x_r Γ_r h_r|² and the
+// acceleration's S(f)·Σ_xyz |Σ_r x_r Γ_r e_r|², x_r the point's motion in
+// mode r, cross terms between modes included. It is what a plot of the
+// response beside the spectrum needs; the RMS figures come from
+// [Model.Random], which integrates these densities with a quadrature
+// refined about each mode.
+//
+// Errors are those of [Model.Random], and an [*InputError] naming "f[i]"
+// for a frequency that is negative or not finite.
+func (m *Model) RandomDensity(lc LoadCase, s Spectrum, opt *RandomOptions, f []float64) ([]RandomDensity, error) {
+	if err := m.check(); err != nil {
+		return nil, err
+	}
+	var o RandomOptions
+	if opt != nil {
+		o = *opt
+	}
+	sp, err := s.prepare()
+	if err != nil {
+		return nil, renamed(err, rename{"Points", "s.Points"})
+	}
+	zeta, err := dampingOf(&o)
+	if err != nil {
+		return nil, err
+	}
+	u, _, _, err := randomInputs(&o)
+	if err != nil {
+		return nil, err
+	}
+	for i, x := range f {
+		switch {
+		case !allFinite(x):
+			return nil, &InputError{Field: indexed("f", i), Err: fmt.Errorf("%w: %g Hz", ErrNonFinite, x)}
+		case x < 0:
+			return nil, &InputError{Field: indexed("f", i), Err: fmt.Errorf("%w: %g Hz: a frequency is not negative", ErrRange, x)}
+		}
+	}
+	rm, err := m.modalRandom(lc, zeta)
+	if err != nil {
+		return nil, err
+	}
+	arm := r3.Sub(o.Point, rm.cg)
+	var at [6]r3.Vec // the point's motion in mode r times Γ_r
+	for r := range 6 {
+		at[r] = r3.Scale(r3.Dot(rm.g[r], u), r3.Add(rm.v[r], r3.Cross(rm.w[r], arm)))
+	}
+	g2 := StandardGravity * StandardGravity
+	out := make([]RandomDensity, len(f))
+	for i, fi := range f {
+		d := RandomDensity{Frequency: fi, Input: sp.at(fi) * g2}
+		om := 2 * math.Pi * fi
+		var dre, dim, are, aim r3.Vec
+		for r := range 6 {
+			or := rm.omega[r]
+			// h = 1/(x + iy) = (x − iy)/(x² + y²); e = (ω_r² + iy)·h.
+			x, y := or*or-om*om, 2*rm.zeta[r]*or*om
+			inv := 1 / (x*x + y*y)
+			hre, him := x*inv, -y*inv
+			ere, eim := or*or*hre-y*him, or*or*him+y*hre
+			dre, dim = r3.Add(dre, r3.Scale(hre, at[r])), r3.Add(dim, r3.Scale(him, at[r]))
+			are, aim = r3.Add(are, r3.Scale(ere, at[r])), r3.Add(aim, r3.Scale(eim, at[r]))
+		}
+		d.Displacement = d.Input * (r3.Dot(dre, dre) + r3.Dot(dim, dim))
+		d.Acceleration = d.Input * (r3.Dot(are, are) + r3.Dot(aim, aim))
+		if !allFinite(d.Input, d.Displacement, d.Acceleration) {
+			return nil, &InputError{Field: "s", Err: fmt.Errorf("%w: the response density at %g Hz overflows", ErrRange, fi)}
+		}
+		out[i] = d
+	}
+	return out, nil
 }

@@ -161,3 +161,36 @@ func TestSpectrumWorkmanship(t *testing.T) {
 		t.Errorf("mean square = %.15g, want %.15g (hand integration)", g*g, want)
 	}
 }
+
+func TestSpectrumPublishedLevels(t *testing.T) {
+	// Two published test levels given by breakpoints in g²/Hz with their
+	// stated overall levels, found with the search tool:
+	//   - Intel, Thermal and Mechanical Design Guidelines for the Pentium
+	//     Dual-Core E2000 series (BTX chapter), §5.2.1.1 "Random Vibration
+	//     Test Procedure", p. 47: 5 Hz 0.001 g²/Hz rising to 20 Hz
+	//     0.01 g²/Hz, flat 0.01 g²/Hz to 500 Hz, "2.2 G RMS", 10 min per
+	//     axis (a system-level test of a desktop computer);
+	//   - SpaceX, Rideshare Payload User's Guide (October 2022), Table 3-7
+	//     "Random Vibration MPE": 20 Hz 0.01, 50 Hz 0.015, 700 Hz 0.015,
+	//     800 Hz 0.03, 925 Hz 0.03, 2000 Hz 0.00644 g²/Hz, 5.57 grms.
+	// The stated levels are rounded to 2 and 3 figures: the tolerances are
+	// half a unit of the last figure.
+	for _, c := range []struct {
+		name string
+		s    Spectrum
+		grms float64
+		tol  float64
+	}{
+		{"Intel §5.2.1.1", Spectrum{Points: []Breakpoint{{Frequency: 5, ASD: 0.001}, {Frequency: 20, ASD: 0.01}, {Frequency: 500, ASD: 0.01}}}, 2.2, 0.05},
+		{"SpaceX Table 3-7", Spectrum{Points: []Breakpoint{{Frequency: 20, ASD: 0.01}, {Frequency: 50, ASD: 0.015}, {Frequency: 700, ASD: 0.015},
+			{Frequency: 800, ASD: 0.03}, {Frequency: 925, ASD: 0.03}, {Frequency: 2000, ASD: 0.00644}}}, 5.57, 0.005},
+	} {
+		g, err := c.s.GRMS()
+		if err != nil {
+			t.Fatal(err)
+		}
+		if math.Abs(g-c.grms) > c.tol {
+			t.Errorf("%s: grms = %.4f, want %g (stated)", c.name, g, c.grms)
+		}
+	}
+}

@@ -51,6 +51,11 @@ func (s *study) drawings(n int) error {
 			return err
 		}
 	}
+	if len(s.ev.Random) > 0 {
+		if err := s.randomDrawings(title); err != nil {
+			return err
+		}
+	}
 	if s.opt != nil && s.optimized != nil {
 		if err := s.write("plan-optimized.svg", func(w io.Writer) error {
 			return drawing.Plan(w, s.optimized, s.optEv, opt(title+": optimised plan, looking down"))
@@ -88,4 +93,39 @@ func (s *study) write(name string, draw func(io.Writer) error) error {
 	}
 	s.printf("wrote %s\n", path)
 	return nil
+}
+
+// randomDrawings writes the random vibration spectrum with the response
+// at the point of interest along each axis, and the contact margins.
+func (s *study) randomDrawings(title string) error {
+	v := s.d.Vibration
+	var lc kinematic.LoadCase
+	for _, c := range s.d.Cases {
+		if c.Name == s.ev.RandomCase {
+			lc = c
+			break
+		}
+	}
+	var curves []drawing.RandomCurve
+	for _, ra := range s.ev.Random {
+		opt := ra.Options
+		d, err := s.b.Model().RandomDensity(lc, v.Spectrum, &opt, densityFrequencies(v.Spectrum, ra.Response))
+		if err != nil {
+			return err
+		}
+		curves = append(curves, drawing.RandomCurve{Name: ra.Axis.String(), Response: ra.Response, Density: d})
+	}
+	o := &drawing.Options{Title: fmt.Sprintf("%s: random vibration at the %s", title, s.point), PointName: s.point}
+	if v.Level != "" {
+		o.Notes = []string{"test level: " + v.Level}
+	}
+	if err := s.write("random-spectrum.svg", func(w io.Writer) error { return drawing.RandomSpectrum(w, v.Spectrum, curves, o) }); err != nil {
+		return err
+	}
+	k := sigmaOf(v)
+	mo := &drawing.Options{Title: title + ": contact margins in random vibration", Limit: k, LimitName: "margin for the preload"}
+	if r := s.d.Requirements.MinRandomMargin; r > 0 {
+		mo.Limit, mo.LimitName = r, "required margin"
+	}
+	return s.write("random-margins.svg", func(w io.Writer) error { return drawing.RandomMargins(w, curves, mo) })
 }

@@ -96,8 +96,13 @@ func (s *study) run(ctx context.Context, src []byte) (pass bool, err error) {
 	if err := s.errors(); err != nil {
 		return false, err
 	}
-	pass = s.requirements(6, "Requirements of the design as written", s.ev)
-	n := 7
+	n := 6
+	if s.d.Vibration != nil {
+		s.vibration(n)
+		n++
+	}
+	pass = s.requirements(n, "Requirements of the design as written", s.ev)
+	n++
 	if s.cfg.optimize {
 		if err := s.optimise(ctx, n); err != nil {
 			return false, err

@@ -130,6 +130,9 @@ func (d *Design) clone() Design {
 		mc := *d.MonteCarlo
 		c.MonteCarlo = &mc
 	}
+	if d.Vibration != nil {
+		c.Vibration = d.Vibration.clone()
+	}
 	d.cloneStudy(&c)
 	return c
 }

@@ -58,6 +58,10 @@ type Design struct {
 	Friction   *Friction
 	MonteCarlo *MonteCarlo
 
+	// Vibration is a random vibration test or transport the design
+	// must survive; nil when not given.
+	Vibration *Vibration
+
 	// Packaging and Optimize are what the optimiser may change and how
 	// ([Built.Optimize]); nil when not given. Neither changes the
 	// evaluation of the design as written.
@@ -285,6 +289,15 @@ type Requirements struct {
 	// first case).
 	MaxRepeatWorst, MaxRepeatRSS float64
 	RepeatCases                  Cases
+
+	// MinRandomMargin is the least margin of every contact in the
+	// design's Vibration along each of its axes: static force over RMS
+	// dynamic force, the number of standard deviations at which the
+	// contact opens (kinematic.RandomContact.Margin); a pure number > 0.
+	// MaxRandomDisplacement bounds the RMS displacement of the point of
+	// interest relative to the base along each axis, m
+	// (kinematic.Random.Displacement). Both need Vibration.
+	MinRandomMargin, MaxRandomDisplacement float64
 }
 
 // Cases names the load cases a requirement is checked in: every case of

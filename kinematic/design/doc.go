@@ -85,6 +85,24 @@
 //	  samples           whole number in [1, 1e7], required
 //	  seed              whole number in [0, 2^64); default 0
 //	  exact             boolean: seat every sample exactly; default false (first order)
+//	vibration           object, optional: a random vibration test or transport (kinematic.Model.Random;
+//	                    see Random vibration); needs the payload's mass and inertia and a load case
+//	  spectrum          object, required: the base acceleration's power spectral density
+//	    name            string, the test level's name, optional
+//	    source          string, where the level comes from (a standard and its table), optional
+//	    points          array of 2 to 256 breakpoints in increasing frequency, required:
+//	                    {"frequency": frequency > 0, required; "asd": spectral density > 0;
+//	                    "slope": dB/octave of the segment from the previous breakpoint to this one,
+//	                    used when one of its two ends has no asd}
+//	  case              name of the load case whose static forces and stiffness the response is
+//	                    linear about; default the first
+//	  damping           {"zeta": number in (0, 1) or an array of six} or {"q": number > 0.5 or six}:
+//	                    modal viscous damping, one value or one per mode from the lowest; default
+//	                    zeta 0.02 (Q = 25)
+//	  duration          time > 0 of the test per axis; default 120 s
+//	  axes              array of "x", "y", "z" and "worst" (the direction of the least contact
+//	                    margin over the sphere), each once; default ["x", "y", "z"]
+//	  sigma             number > 0: the k of the k-σ peaks and of the preload for a margin; default 3
 //	packaging           object, optional: what the grooves must clear when the optimiser turns them
 //	                    (see Optimisation); it does not change the evaluation of the design as written
 //	  keep_outs         array, at most 64, default none: obstacles on the base that no groove may point at
@@ -151,6 +169,11 @@
 //	  max_repeatability   {"worst_case": length, "rss": length, "case": name or "cases": cases}:
 //	                      the friction repeatability of the point of interest with mu (at
 //	                      least one limit; needs friction with mu > 0)
+//	  min_random_margin   number > 0: every contact's margin in the vibration (static force over
+//	                      RMS dynamic force, the standard deviations at which it opens) along
+//	                      every axis; one verdict per axis (needs vibration)
+//	  max_random_displacement  length: the RMS displacement of the point of interest relative
+//	                      to the base in the vibration, along every axis; one verdict per axis
 //
 // A requirement's "case" names a load case; left out (and "cases" left
 // out too), it is the first. "cases" is "all" (every load case) or an
@@ -299,6 +322,13 @@
 //	temperature difference    K (SI), mK
 //	expansion coefficient     1/K (SI), /K, ppm/K (10⁻⁶/K)
 //	frequency                 Hz (SI), kHz
+//	time                      s (SI), ms, min, h
+//	spectral density          g^2/Hz (also g2/Hz, g²/Hz), (m/s^2)^2/Hz
+//	slope                     dB/oct, dB/octave
+//
+// A spectral density and a slope are in the units of test specifications
+// and of kinematic.Spectrum, g²/Hz and dB/octave, and a plain number for
+// them is read in those units; 1 (m/s²)²/Hz is 1/9.80665² g²/Hz.
 //
 // The prefixes are those of the SI Brochure (9th ed., 2019, Table 7); the
 // degree, minute and second of arc are π/180, π/10 800 and π/648 000 rad
@@ -377,6 +407,27 @@
 // first-order error budget, the Monte Carlo study and the thermal drift.
 // It returns an [Evaluation]; [Evaluation.Verdicts] holds one [Verdict]
 // per requirement set, and [Verdicts.Err] one error naming every failure.
+//
+// # Random vibration
+//
+// The vibration section describes a random vibration test (or a
+// transport) by its base-acceleration spectrum, damping, time per axis
+// and axes. [Built.Evaluate] runs kinematic.Model.Random along each axis
+// (kinematic.Model.RandomWorst for "worst") at the point of interest, in
+// linear theory about the section's load case, and
+// kinematic.Model.RandomPreload for the preload factor that gives every
+// contact a margin of sigma; [Evaluation.Random] holds the results, one
+// [RandomAxis] per axis with the options that gave it (for
+// kinematic.Model.RandomDensity). min_random_margin and
+// max_random_displacement give one verdict per axis, their notes naming
+// the contact, the direction, the spectrum's name and grms and the case.
+// A case that leaves a contact in tension gives no response; the
+// requirements then fail with the reason. The conventions (viscous modal
+// damping, absolute acceleration, displacement relative to the base,
+// normal contact stiffness only, Rice's openings) are package
+// kinematic's; see its documentation, "Random vibration". Like every
+// figure here, these are engineering estimates: verify them by test and
+// defer to the applicable codes and a qualified engineer.
 //
 // # Optimisation
 //

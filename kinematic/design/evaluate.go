@@ -89,15 +89,24 @@ type Evaluation struct {
 	Sizing        *kinematic.PreloadSizing
 	Repeatability *kinematic.Repeatability
 
+	// Random holds the random vibration response along each axis of
+	// the design's vibration section, in its order, under case
+	// RandomCase; nil without the section, or when the case gives no
+	// response (a contact in tension: Notes says why).
+	Random     []RandomAxis
+	RandomCase string
+
 	// Notes lists analyses that could not be made and why.
 	Notes []string
 
-	req           Requirements
-	checked       map[string]Verdicts // per requirement, made by more
-	mu            float64
-	deltaT        float64
-	stiffnessNote string
-	point         string // the point of interest's name, for the notes
+	req            Requirements
+	checked        map[string]Verdicts // per requirement, made by more
+	mu             float64
+	deltaT         float64
+	stiffnessNote  string
+	point          string // the point of interest's name, for the notes
+	randomNote     string // why there is no random response
+	randomSpectrum string // the vibration's spectrum as the notes name it
 }
 
 // Evaluate returns the whole evaluation of the design, as
@@ -149,6 +158,9 @@ func (b *Built) Evaluate(ctx context.Context) (Evaluation, error) {
 		return Evaluation{}, err
 	}
 	if err := e.more(b); err != nil {
+		return Evaluation{}, err
+	}
+	if err := e.random(b); err != nil {
 		return Evaluation{}, err
 	}
 	if b.budget != nil {
@@ -413,6 +425,7 @@ func (e Evaluation) Verdicts() Verdicts {
 	for _, name := range []string{"min_stiffness.along_axis", "min_stiffness.across_axis", "min_preload_margin", "max_repeatability.worst_case", "max_repeatability.rss"} {
 		vs = append(vs, e.checked[name]...)
 	}
+	vs = append(vs, e.randomVerdicts()...)
 	return vs
 }
 

@@ -2,10 +2,16 @@ package design
 
 import (
 	"bytes"
+	"errors"
+	"math"
 	"path/filepath"
+	"strings"
 	"testing"
 
 	"github.com/google/go-cmp/cmp"
+
+	"github.com/sixfold-dev/sixfold/internal/fuzzdata"
+	"github.com/sixfold-dev/sixfold/kinematic"
 )
 
 // FuzzRead reads arbitrary bytes as a design file. Invariants: no panic;
@@ -19,6 +25,20 @@ func FuzzRead(f *testing.F) {
 		f.Add(readFile(f, name))
 	}
 	f.Add([]byte(baseJSON))
+	// The vibration section with bad spectra and damping.
+	vib := string(readFile(f, "testdata/vibration.json"))
+	for _, r := range [][2]string{
+		{`"0.16 g^2/Hz"`, `"-1 g^2/Hz"`},
+		{`"0.16 g^2/Hz", "slope": "6 dB/oct"`, `"0.16 g^2/Hz"`},
+		{`"q": [25, 25, 20, 20, 15, 15]`, `"zeta": [0.5]`},
+		{`"q": [25, 25, 20, 20, 15, 15]`, `"q": 0.5`},
+		{`"20 Hz"`, `"1e400 Hz"`},
+		{`"-6 dB/octave"`, `"-6000 dB/octave"`},
+		{`"axes": ["z", "worst"]`, `"axes": ["worst", "worst"]`},
+		{`"duration": "2 min"`, `"duration": "1e-320 s"`},
+	} {
+		f.Add([]byte(strings.Replace(vib, r[0], r[1], 1)))
+	}
 	for _, s := range []string{
 		``,
 		`{}`,
@@ -64,6 +84,77 @@ func FuzzRead(f *testing.F) {
 		var w2 bytes.Buffer
 		if err := d2.Write(&w2); err != nil || !bytes.Equal(w1.Bytes(), w2.Bytes()) {
 			t.Fatalf("the canonical form is not stable (%v)", err)
+		}
+	})
+}
+
+// FuzzVibration evaluates the vibration fixture (testdata/vibration.json)
+// with an arbitrary spectrum (breakpoints of frequency, level and slope)
+// and damping (one ζ, or six Q): either an *Error naming a path under
+// vibration, or an evaluation whose random figures are finite; never a
+// panic, a NaN or an error of another type.
+func FuzzVibration(f *testing.F) {
+	// frequency, asd, slope per group; the first group's slope is ζ (> 0)
+	// or −Q (< 0), given to every mode.
+	f.Add(fuzzdata.Append(nil, 20, 0.01, 0.02, 2000, 0.01, 0))
+	f.Add(fuzzdata.Append(nil, 20, 0, -25, 50, 0.16, 6, 800, 0.16, 0, 2000, 0, -6))
+	f.Add(fuzzdata.Append(nil, 1, 1e300, 0.5, 1e6, 1e300, 0))
+	f.Add(fuzzdata.Append(nil, 5, 0.001, -0.5, 20, 0.01, 0, 500, 0.01, 0))
+	f.Add(fuzzdata.Append(nil, 1e-300, 1e-300, 1e-9, 1e300, 0, -3.0103))
+	base, err := Parse(readFile(f, "testdata/vibration.json"))
+	if err != nil {
+		f.Fatal(err)
+	}
+	b, err := base.Build()
+	if err != nil {
+		f.Fatal(err)
+	}
+	f.Fuzz(func(t *testing.T, data []byte) {
+		gs := fuzzdata.Floats(data, 3)
+		if len(gs) < 1 || len(gs) > 8 {
+			return
+		}
+		d := b.Design()
+		v := d.Vibration
+		v.Spectrum.Points = nil
+		v.Damping, v.Q = nil, nil
+		if z := gs[0][2]; z >= 0 {
+			v.Damping = []float64{z}
+		} else {
+			v.Q = []float64{-z}
+		}
+		for i, g := range gs {
+			bp := kinematic.Breakpoint{Frequency: g[0], ASD: g[1]}
+			if i > 0 {
+				bp.Slope = g[2]
+			}
+			v.Spectrum.Points = append(v.Spectrum.Points, bp)
+		}
+		ev, err := d.Evaluate(t.Context())
+		if err != nil {
+			var e *Error
+			if !errors.As(err, &e) || !strings.HasPrefix(e.Path, "vibration") {
+				t.Fatalf("error %v (%T) does not name the vibration section", err, err)
+			}
+			return
+		}
+		for _, ra := range ev.Random {
+			r := ra.Response
+			for _, x := range []float64{r.Input, r.Centre.RMS, r.Point.RMS, r.Displacement.RMS, r.Tilt.RMS} {
+				if math.IsNaN(x) || math.IsInf(x, 0) || x < 0 {
+					t.Fatalf("axis %v: a figure is %g", ra.Axis, x)
+				}
+			}
+			for _, c := range r.Contacts {
+				if math.IsNaN(c.Margin) || math.IsNaN(c.Openings) || math.IsInf(c.Openings, 0) || c.Probability < 0 || c.Probability > 1 {
+					t.Fatalf("axis %v: contact %+v", ra.Axis, c)
+				}
+			}
+		}
+		for _, vd := range ev.Verdicts() {
+			if math.IsNaN(vd.Value) {
+				t.Fatalf("verdict %v is NaN", vd)
+			}
 		}
 	})
 }

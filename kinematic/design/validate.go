@@ -250,6 +250,9 @@ func (d *Design) check() error {
 	if err := d.checkStudy(); err != nil {
 		return err
 	}
+	if err := d.checkVibration(); err != nil {
+		return err
+	}
 	return d.checkRequirements()
 }
 
@@ -482,7 +485,7 @@ func (d *Design) checkRequirements() error {
 	if err := d.Requirements.checkLimits(); err != nil {
 		return err
 	}
-	for _, step := range []func() error{d.needLoads, d.needPayload, d.needStudies, d.needMore} {
+	for _, step := range []func() error{d.needLoads, d.needPayload, d.needStudies, d.needMore, d.needVibration} {
 		if err := step(); err != nil {
 			return err
 		}

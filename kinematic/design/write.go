@@ -75,6 +75,7 @@ type wireDesign struct {
 	Thermal      *wireThermal      `json:"thermal,omitempty"`
 	Friction     *wireFriction     `json:"friction,omitempty"`
 	MonteCarlo   *wireMonteCarlo   `json:"monte_carlo,omitempty"`
+	Vibration    *wireVibration    `json:"vibration,omitempty"`
 	Packaging    *wirePackaging    `json:"packaging,omitempty"`
 	Optimize     *wireOptimize     `json:"optimize,omitempty"`
 	Requirements *wireRequirements `json:"requirements,omitempty"`
@@ -185,6 +186,8 @@ type wireRequirements struct {
 	MinStiffness     *wireStiffness `json:"min_stiffness,omitempty"`
 	PreloadMargin    *wireMargin    `json:"min_preload_margin,omitempty"`
 	Repeatability    *wireRepeat    `json:"max_repeatability,omitempty"`
+	MinRandomMargin  float64        `json:"min_random_margin,omitempty"`
+	MaxRandomDisp    float64        `json:"max_random_displacement,omitempty"`
 }
 
 // wireLimitCase is min_shock ({level, case}) or min_frequency ({limit,
@@ -290,10 +293,11 @@ func (d *Design) wire() wireDesign {
 	if mc := d.MonteCarlo; mc != nil {
 		w.MonteCarlo = &wireMonteCarlo{Samples: mc.Samples, Seed: mc.Seed, Exact: mc.Exact}
 	}
+	w.Vibration = d.wireVibration()
 	d.wireStudy(&w)
 	if r := d.Requirements; !r.isZero() {
 		wr := &wireRequirements{MinCentreIndex: r.MinCentreIndex, MinContactIndex: r.MinContactIndex, MaxPressureRatio: r.MaxPressureRatio,
-			MaxThermalDrift: r.MaxThermalDrift}
+			MaxThermalDrift: r.MaxThermalDrift, MinRandomMargin: r.MinRandomMargin, MaxRandomDisp: r.MaxRandomDisplacement}
 		if r.MinShock > 0 {
 			wr.MinShock = &wireLimitCase{Level: r.MinShock, Case: r.ShockCase, Cases: wireCases(r.ShockCases), Any: r.ShockAnyGravity}
 		}

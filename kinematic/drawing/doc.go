@@ -2,8 +2,10 @@
 // gonum.org/v1/plot: the plan view ([Plan]), the lift-off map
 // ([LiftOff]), the histogram of a Monte Carlo study ([Histogram]), the
 // design figures of candidate layouts ([Scorecards]), the error budget
-// ranked by contributor ([Budget]) and the contact forces of each load
-// case ([Forces]). Each takes the library's own values (a design.Built
+// ranked by contributor ([Budget]), the contact forces of each load
+// case ([Forces]), and random vibration: the test spectrum on log–log
+// axes with the response at the point of interest ([RandomSpectrum],
+// g²/Hz against Hz) and each contact's margin ([RandomMargins]). Each takes the library's own values (a design.Built
 // and its design.Evaluation, a kinematic.StudyResult, kinematic.Scorecard,
 // kinematic.Budget or kinematic.Statics values), an io.Writer and an
 // [*Options] whose zero value (or nil) draws with the defaults. Titles

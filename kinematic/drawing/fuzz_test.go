@@ -3,6 +3,8 @@ package drawing_test
 import (
 	"bytes"
 	"errors"
+	"fmt"
+	"math"
 	"testing"
 
 	"gonum.org/v1/gonum/spatial/r3"
@@ -41,5 +43,44 @@ func FuzzHistogram(f *testing.F) {
 			return
 		}
 		wellFormed(t, "histogram", buf.Bytes())
+	})
+}
+
+// FuzzRandomDrawings draws the random vibration figures with arbitrary
+// margins, densities and limit: either an error wrapping one of
+// kinematic's sentinels, or a well-formed SVG; never a panic.
+func FuzzRandomDrawings(f *testing.F) {
+	// Each group: a contact's margin, a frequency and an acceleration
+	// density; the last group's margin is the limit.
+	f.Add(fuzzdata.Append(nil, 1, 100, 2, 3, 200, 5, 0.5, 300, 1, 3))
+	f.Add(fuzzdata.Append(nil, math.Inf(1), 0, 0, 0, 1e300, 1e300, 2))
+	f.Add(fuzzdata.Append(nil, -1, -5, 1e-300, 5e-324, 1e308, -1, 0))
+	spec := kinematic.Spectrum{Points: []kinematic.Breakpoint{{Frequency: 20, ASD: 0.01}, {Frequency: 2000, ASD: 0.01}}}
+	f.Fuzz(func(t *testing.T, data []byte) {
+		gs := fuzzdata.Floats(data, 3)
+		if len(gs) == 0 || len(gs) > 64 {
+			return
+		}
+		var c drawing.RandomCurve
+		for i, g := range gs {
+			c.Response.Contacts = append(c.Response.Contacts, kinematic.RandomContact{Label: fmt.Sprintf("c%d", i), Margin: g[0]})
+			c.Density = append(c.Density, kinematic.RandomDensity{Frequency: g[1], Acceleration: g[2]})
+		}
+		c.Response.Point.RMS = gs[0][2]
+		for _, draw := range []func(*bytes.Buffer) error{
+			func(b *bytes.Buffer) error {
+				return drawing.RandomMargins(b, []drawing.RandomCurve{c}, &drawing.Options{Limit: gs[len(gs)-1][0]})
+			},
+			func(b *bytes.Buffer) error { return drawing.RandomSpectrum(b, spec, []drawing.RandomCurve{c}, nil) },
+		} {
+			var buf bytes.Buffer
+			if err := draw(&buf); err != nil {
+				if !errors.Is(err, kinematic.ErrNonFinite) && !errors.Is(err, kinematic.ErrRange) && !errors.Is(err, kinematic.ErrDegenerate) {
+					t.Fatalf("error without a sentinel: %v", err)
+				}
+				continue
+			}
+			wellFormed(t, "random", buf.Bytes())
+		}
 	})
 }

@@ -1,0 +1,125 @@
+package main
+
+import (
+	"fmt"
+	"math"
+	"sort"
+	"strings"
+
+	"github.com/sixfold-dev/sixfold/kinematic"
+	"github.com/sixfold-dev/sixfold/kinematic/design"
+)
+
+// vibration prints the random vibration study: the test, then for each
+// axis the figures of the payload and the point of interest, the
+// per-contact table and the preload for the margin, and the worst
+// direction.
+func (s *study) vibration(n int) {
+	v := s.d.Vibration
+	s.section(n, "Random vibration")
+	grms, _ := v.Spectrum.GRMS() // valid: the design was checked
+	name := v.Level
+	if name == "" {
+		name = "test spectrum"
+	}
+	s.printf("%s: %.3g grms overall", name, grms)
+	if v.Source != "" {
+		s.printf("\n%s", wrap("source: "+v.Source, 78))
+	}
+	s.printf("\nbreakpoints:")
+	for _, b := range v.Spectrum.Points {
+		a, _ := v.Spectrum.Level(b.Frequency)
+		s.printf(" %g Hz %.3g g²/Hz;", b.Frequency, a)
+	}
+	k := sigmaOf(v)
+	duration := v.Duration
+	if duration == 0 {
+		duration = 120
+	}
+	s.printf("\ncase %q, %g s per axis, k = %g σ\n", s.ev.RandomCase, duration, k)
+	if len(s.ev.Random) == 0 {
+		s.printf("No response: see the notes above.\n")
+		return
+	}
+	r0 := s.ev.Random[0].Response
+	s.printf("\nModes and effective masses (g) along the frame axes:\n")
+	s.printf("  %-5s %9s %7s %9s %9s %9s\n", "mode", "f, Hz", "zeta", "x", "y", "z")
+	for i := range 6 {
+		e := r0.EffectiveMass[i]
+		s.printf("  %-5d %9.1f %7.4f %9.1f %9.1f %9.1f\n", i+1, r0.Modes[i], r0.Damping[i], e.X*1e3, e.Y*1e3, e.Z*1e3)
+	}
+	worst, worstAxis := math.Inf(1), ""
+	for _, ra := range s.ev.Random {
+		r := ra.Response
+		s.printf("\nAlong %s %s:\n", ra.Axis, dir(r.Direction))
+		g := kinematic.StandardGravity
+		s.printf("  centre of mass acceleration %.3g g RMS, %.3g g peak (%g σ)\n", r.Centre.RMS/g, r.Centre.Peak/g, k)
+		s.printf("  %s acceleration %.3g g RMS, %.3g g peak\n", s.point, r.Point.RMS/g, r.Point.Peak/g)
+		s.printf("  %s displacement relative to the base %.4g µm RMS, %.4g µm peak; tilt %.4g µrad RMS\n",
+			s.point, r.Displacement.RMS*1e6, r.Displacement.Peak*1e6, r.Tilt.RMS*1e6)
+		s.printf("  %-7s %9s %11s %13s %9s %11s %11s\n", "contact", "static N", "RMS dyn. N",
+			fmt.Sprintf("F-%gσ·dyn N", k), "σ to open", "openings", "P(open)")
+		for _, c := range r.Contacts {
+			s.printf("  %-7s %9.3f %11.4g %13.4g %9.3g %11.3g %11.3g\n", c.Label, c.Static, c.Dynamic,
+				c.Static-k*c.Dynamic, c.Margin, c.Openings, c.Probability)
+		}
+		least := r.Contacts[r.Least]
+		s.printf("  least margin %.3g σ at contact %s\n", least.Margin, least.Label)
+		if least.Margin < worst {
+			worst, worstAxis = least.Margin, fmt.Sprintf("%s %s (contact %s)", ra.Axis, dir(r.Direction), least.Label)
+		}
+		if p := ra.Preload; p != nil {
+			s.printf("  preload for %g σ at every contact: ×%.3g of the preload as given to first order (stiffness held), ×%.3g with Hertz stiffness (%s)\n",
+				k, p.FirstOrder, p.Hertz, s.preloadForces(p.Hertz))
+		} else {
+			s.printf("  preload for %g σ: %s\n", k, ra.PreloadNote)
+		}
+	}
+	s.printf("\nWorst direction: along %s, least margin %.3g σ.\n", worstAxis, worst)
+	s.printf("Caution: random vibration figures are engineering estimates in linear theory\n" +
+		"(modal damping as assumed, normal contact stiffness only); verify them by test,\n" +
+		"and defer to the applicable codes and a qualified engineer.\n")
+}
+
+// sigmaOf returns the vibration's k.
+func sigmaOf(v *design.Vibration) float64 {
+	if v.Sigma > 0 {
+		return v.Sigma
+	}
+	return 3
+}
+
+// preloadForces names the preload elements' forces scaled by f.
+func (s *study) preloadForces(f float64) string {
+	var parts []string
+	for i, p := range s.d.Preloads {
+		name := p.Name
+		if name == "" {
+			name = fmt.Sprintf("preload %d", i+1)
+		}
+		parts = append(parts, fmt.Sprintf("%s %.3g N", name, p.Force*f))
+	}
+	return strings.Join(parts, ", ")
+}
+
+// densityFrequencies returns the frequencies at which the response's
+// spectrum is drawn: 600 log-spaced across the band, and each natural
+// frequency in it with points at ±ζ f about it, so that the peaks are
+// drawn at their height.
+func densityFrequencies(sp kinematic.Spectrum, r kinematic.Random) []float64 {
+	lo, hi := sp.Points[0].Frequency, sp.Points[len(sp.Points)-1].Frequency
+	const n = 600
+	f := make([]float64, 0, n+18)
+	for i := range n {
+		f = append(f, lo*math.Pow(hi/lo, float64(i)/(n-1)))
+	}
+	for i, fr := range r.Modes {
+		for _, x := range []float64{fr * (1 - r.Damping[i]), fr, fr * (1 + r.Damping[i])} {
+			if x > lo && x < hi {
+				f = append(f, x)
+			}
+		}
+	}
+	sort.Float64s(f)
+	return f
+}
