@@ -124,11 +124,11 @@ func RandomSpectrum(w io.Writer, s kinematic.Spectrum, curves []RandomCurve, opt
 	p.Y.Label.Text = "acceleration spectral density, g²/Hz"
 	p.Legend.Top = true
 	// The y axis from and to whole decades (a tick label beyond the
-	// range would push the plot down), with a decade above the highest
-	// curve for the legend.
+	// range would push the plot down), the highest curve
+	// within the top decade (the legend sits above the plot area).
 	// Both within 1e±300, so that the log scale's arithmetic stays finite.
 	p.Y.Min = math.Pow(10, math.Max(-300, math.Floor(math.Log10(p.Y.Min))))
-	p.Y.Max = math.Pow(10, math.Min(300, math.Ceil(math.Log10(p.Y.Max)+1)))
+	p.Y.Max = math.Pow(10, math.Min(300, math.Ceil(math.Log10(p.Y.Max))))
 	if p.Y.Max <= p.Y.Min {
 		p.Y.Max = p.Y.Min * 10
 	}
