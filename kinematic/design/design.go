@@ -296,8 +296,15 @@ type Requirements struct {
 	// contact opens (kinematic.RandomContact.Margin); a pure number > 0.
 	// MaxRandomDisplacement bounds the RMS displacement of the point of
 	// interest relative to the base along each axis, m
-	// (kinematic.Random.Displacement). Both need Vibration.
-	MinRandomMargin, MaxRandomDisplacement float64
+	// (kinematic.Random.Displacement). MaxRandomOpenings bounds, along
+	// each axis, the expected number of times the most exposed contact
+	// opens during the test (kinematic.RandomContact.Openings, Rice's
+	// down-crossings of zero force in Vibration.Duration); a pure
+	// number > 0, for example 0.01 for about a 1 % chance that a contact
+	// opens at all. A margin of 3 alone does not keep a contact shut:
+	// with modes near 1 kHz and a ten-minute test, 3 σ is crossed
+	// hundreds of times. All three need Vibration.
+	MinRandomMargin, MaxRandomDisplacement, MaxRandomOpenings float64
 }
 
 // Cases names the load cases a requirement is checked in: every case of

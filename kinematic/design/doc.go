@@ -174,6 +174,11 @@
 //	                      every axis; one verdict per axis (needs vibration)
 //	  max_random_displacement  length: the RMS displacement of the point of interest relative
 //	                      to the base in the vibration, along every axis; one verdict per axis
+//	  max_random_openings number > 0: the expected number of openings of the most exposed
+//	                      contact in the test (Rice's down-crossings of zero force over the
+//	                      duration), along every axis; one verdict per axis. 0.01 means about a
+//	                      1 % chance that a contact opens at all; a margin of 3 σ alone can be
+//	                      crossed hundreds of times in a ten-minute test at 1 kHz
 //
 // A requirement's "case" names a load case; left out (and "cases" left
 // out too), it is the first. "cases" is "all" (every load case) or an
@@ -418,9 +423,9 @@
 // kinematic.Model.RandomPreload for the preload factor that gives every
 // contact a margin of sigma; [Evaluation.Random] holds the results, one
 // [RandomAxis] per axis with the options that gave it (for
-// kinematic.Model.RandomDensity). min_random_margin and
-// max_random_displacement give one verdict per axis, their notes naming
-// the contact, the direction, the spectrum's name and grms and the case.
+// kinematic.Model.RandomDensity). min_random_margin,
+// max_random_displacement and max_random_openings give one verdict per
+// axis, their notes naming the contact, the direction, the spectrum's name and grms and the case.
 // A case that leaves a contact in tension gives no response; the
 // requirements then fail with the reason. The conventions (viscous modal
 // damping, absolute acceleration, displacement relative to the base,

@@ -107,6 +107,7 @@ type Evaluation struct {
 	point          string // the point of interest's name, for the notes
 	randomNote     string // why there is no random response
 	randomSpectrum string // the vibration's spectrum as the notes name it
+	randomDuration string // the vibration's duration as the notes name it
 }
 
 // Evaluate returns the whole evaluation of the design, as

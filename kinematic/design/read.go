@@ -902,7 +902,7 @@ func (r *reader) readRequirements(n *node, path string) (Requirements, error) {
 	var q Requirements
 	if err := fields(n, path, "a requirements object", "min_centre_index", "min_contact_index", "min_maxwell_index", "max_pressure_ratio", "min_contact_force",
 		"min_shock", "min_frequency", "max_error", "max_study", "max_thermal_drift", "seating",
-		"max_tilt", "min_stiffness", "min_preload_margin", "max_repeatability", "min_random_margin", "max_random_displacement"); err != nil {
+		"max_tilt", "min_stiffness", "min_preload_margin", "max_repeatability", "min_random_margin", "max_random_displacement", "max_random_openings"); err != nil {
 		return q, err
 	}
 	// "min_maxwell_index" is the first name of "min_centre_index" (the
@@ -923,6 +923,7 @@ func (r *reader) readRequirements(n *node, path string) (Requirements, error) {
 		{"max_thermal_drift", length, &q.MaxThermalDrift},
 		{"min_random_margin", nil, &q.MinRandomMargin},
 		{"max_random_displacement", length, &q.MaxRandomDisplacement},
+		{"max_random_openings", nil, &q.MaxRandomOpenings},
 	} {
 		if err := r.readLimit(n, path, l); err != nil {
 			return q, err

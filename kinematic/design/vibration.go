@@ -394,7 +394,7 @@ func (d *Design) needVibration() error {
 	for _, l := range []struct {
 		path string
 		v    float64
-	}{{"min_random_margin", r.MinRandomMargin}, {"max_random_displacement", r.MaxRandomDisplacement}} {
+	}{{"min_random_margin", r.MinRandomMargin}, {"max_random_displacement", r.MaxRandomDisplacement}, {"max_random_openings", r.MaxRandomOpenings}} {
 		if !(l.v >= 0) || math.IsInf(l.v, 0) {
 			return errorf(join(reqPath, l.path), ErrRange, "a limit must be finite and > 0 (0: not set), got %g", l.v)
 		}
@@ -485,6 +485,10 @@ func (e *Evaluation) random(b *Built) error {
 	lc := d.Cases[k]
 	e.RandomCase = lc.Name
 	e.randomSpectrum = "spectrum"
+	e.randomDuration = "the default duration of kinematic.RandomOptions"
+	if v.Duration > 0 {
+		e.randomDuration = fmt.Sprintf("%.4g s", v.Duration)
+	}
 	if v.Level != "" {
 		e.randomSpectrum = fmt.Sprintf("spectrum %q", v.Level)
 	}
@@ -529,7 +533,7 @@ func (e *Evaluation) random(b *Built) error {
 func (e Evaluation) randomVerdicts() Verdicts {
 	r := e.req
 	var vs Verdicts
-	if r.MinRandomMargin == 0 && r.MaxRandomDisplacement == 0 {
+	if r.MinRandomMargin == 0 && r.MaxRandomDisplacement == 0 && r.MaxRandomOpenings == 0 {
 		return nil
 	}
 	if len(e.Random) == 0 {
@@ -538,6 +542,9 @@ func (e Evaluation) randomVerdicts() Verdicts {
 		}
 		if r.MaxRandomDisplacement > 0 {
 			vs = append(vs, Verdict{Requirement: "requirements.max_random_displacement", Value: math.Inf(1), Limit: r.MaxRandomDisplacement, Unit: "m", Note: e.randomNote})
+		}
+		if r.MaxRandomOpenings > 0 {
+			vs = append(vs, Verdict{Requirement: "requirements.max_random_openings", Value: math.Inf(1), Limit: r.MaxRandomOpenings, Note: e.randomNote})
 		}
 		return vs
 	}
@@ -556,6 +563,19 @@ func (e Evaluation) randomVerdicts() Verdicts {
 			vs = append(vs, Verdict{Requirement: "requirements.max_random_displacement", Value: x, Limit: r.MaxRandomDisplacement, Unit: "m",
 				Pass: x <= r.MaxRandomDisplacement,
 				Note: fmt.Sprintf("RMS at the %s relative to the base %s; %s", e.point, along, cond)})
+		}
+		if r.MaxRandomOpenings > 0 {
+			worst := 0
+			for i, c := range res.Contacts {
+				if c.Openings > res.Contacts[worst].Openings {
+					worst = i
+				}
+			}
+			c := res.Contacts[worst]
+			vs = append(vs, Verdict{Requirement: "requirements.max_random_openings", Value: c.Openings, Limit: r.MaxRandomOpenings,
+				Pass: c.Openings <= r.MaxRandomOpenings,
+				Note: fmt.Sprintf("contact %s %s: expected openings in %s (Rice), margin %.3g σ, chance of at least one %.3g; %s",
+					c.Label, along, e.randomDuration, c.Margin, c.Probability, cond)})
 		}
 	}
 	return vs

@@ -32,10 +32,11 @@ func TestVibrationVerticalClosedForm(t *testing.T) {
 				map[string]any{"frequency": "1000 kHz", "asd": "0.05 g2/Hz"},
 			}},
 			"damping": map[string]any{"zeta": zeta},
-			"axes":    []any{"z"},
-			"case":    "seated",
+			"axes":     []any{"z"},
+			"case":     "seated",
+			"duration": "10 min",
 		}),
-		set("requirements", map[string]any{"min_random_margin": 2, "max_random_displacement": "0.1 um"}),
+		set("requirements", map[string]any{"min_random_margin": 2, "max_random_displacement": "0.1 um", "max_random_openings": 0.01}),
 	))
 	ev, err := d.Evaluate(t.Context())
 	if err != nil {
@@ -82,6 +83,22 @@ func TestVibrationVerticalClosedForm(t *testing.T) {
 	if !strings.Contains(m[0].Note, `along z (0, 0, 1)`) || !strings.Contains(m[0].Note, `case "seated"`) {
 		t.Errorf("margin note %q does not state the axis and case", m[0].Note)
 	}
+	// Rice's expected number of zero down-crossings in T = 600 s (Rice,
+	// Mathematical Analysis of Random Noise, Bell Syst. Tech. J. 23,
+	// 1944, eq. 3.3-5 — from memory): (1/2π)(σ_ḟ/σ_f)·exp(−N²/2σ_f²)·T.
+	// For one mode under white noise σ_ḟ/σ_f = ω exactly (the ratio of
+	// ∫ω²|h|² to ∫|h|², Crandall & Mark 1963 — from memory). The
+	// tolerance follows the 1e-4 on σ through the exponent: m² times it.
+	o := byRequirement(ev, "requirements.max_random_openings")
+	if len(o) != 1 {
+		t.Fatalf("openings verdicts %v, want one", o)
+	}
+	margin := N / (k * s * sigma)
+	openings := w / (2 * math.Pi) * math.Exp(-margin*margin/2) * 600
+	near(t, "openings verdict", o[0].Value, openings, 1e-3+3e-4*margin*margin)
+	if o[0].Pass != (o[0].Value <= 0.01) || !strings.Contains(o[0].Note, "600 s") {
+		t.Errorf("openings verdict %v judged or noted wrongly", o[0])
+	}
 	// The preload for a margin of 3 to first order: the static forces
 	// grow with the preload, (300φ + mg)/(6 sinθ), the dynamic ones held:
 	// φ = (3 k sinθ σ·6 sinθ − mg)/300.
@@ -123,14 +140,14 @@ func TestVibrationFixture(t *testing.T) {
 	if ev.Random[1].Options.Direction != worst.Direction {
 		t.Errorf("worst axis options direction %v, response %v", ev.Random[1].Options.Direction, worst.Direction)
 	}
-	for _, req := range []string{"requirements.min_random_margin", "requirements.max_random_displacement"} {
+	for _, req := range []string{"requirements.min_random_margin", "requirements.max_random_displacement", "requirements.max_random_openings"} {
 		if n := len(byRequirement(ev, req)); n != 2 {
 			t.Errorf("%s: %d verdicts, want 2", req, n)
 		}
 	}
 	out := roundTrip(t, d)
 	for _, want := range []string{`"vibration": {`, `"name": "component qualification"`, `{"frequency": 2000, "slope": -6}`,
-		`"damping": {"q": [25, 25, 20, 20, 15, 15]}`, `"axes": ["z", "worst"]`, `"min_random_margin": 3`, `"max_random_displacement": 0.000005`} {
+		`"damping": {"q": [25, 25, 20, 20, 15, 15]}`, `"axes": ["z", "worst"]`, `"min_random_margin": 3`, `"max_random_displacement": 0.000005`, `"max_random_openings": 0.01`} {
 		if !bytes.Contains(out, []byte(want)) {
 			t.Errorf("canonical file lacks %s:\n%s", want, out)
 		}
@@ -204,6 +221,8 @@ func TestVibrationRefused(t *testing.T) {
 		{"no inertia", fix(del("payload.inertia")), "vibration", ErrMissing},
 		{"margin without vibration", fix(del("vibration")), "requirements.min_random_margin", ErrMissing},
 		{"negative margin", fix(set("requirements.min_random_margin", -3)), "requirements.min_random_margin", ErrRange},
+		{"openings without vibration", fix(both(del("vibration"), set("requirements", map[string]any{"max_random_openings": 0.01}))), "requirements.max_random_openings", ErrMissing},
+		{"negative openings", fix(set("requirements.max_random_openings", -1)), "requirements.max_random_openings", ErrRange},
 		{"displacement in g", fix(set("requirements.max_random_displacement", "1 g")), "requirements.max_random_displacement", ErrUnit},
 	} {
 		t.Run(tc.name, func(t *testing.T) {

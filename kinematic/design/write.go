@@ -188,6 +188,7 @@ type wireRequirements struct {
 	Repeatability    *wireRepeat    `json:"max_repeatability,omitempty"`
 	MinRandomMargin  float64        `json:"min_random_margin,omitempty"`
 	MaxRandomDisp    float64        `json:"max_random_displacement,omitempty"`
+	MaxRandomOpen    float64        `json:"max_random_openings,omitempty"`
 }
 
 // wireLimitCase is min_shock ({level, case}) or min_frequency ({limit,
@@ -297,7 +298,8 @@ func (d *Design) wire() wireDesign {
 	d.wireStudy(&w)
 	if r := d.Requirements; !r.isZero() {
 		wr := &wireRequirements{MinCentreIndex: r.MinCentreIndex, MinContactIndex: r.MinContactIndex, MaxPressureRatio: r.MaxPressureRatio,
-			MaxThermalDrift: r.MaxThermalDrift, MinRandomMargin: r.MinRandomMargin, MaxRandomDisp: r.MaxRandomDisplacement}
+			MaxThermalDrift: r.MaxThermalDrift, MinRandomMargin: r.MinRandomMargin, MaxRandomDisp: r.MaxRandomDisplacement,
+			MaxRandomOpen: r.MaxRandomOpenings}
 		if r.MinShock > 0 {
 			wr.MinShock = &wireLimitCase{Level: r.MinShock, Case: r.ShockCase, Cases: wireCases(r.ShockCases), Any: r.ShockAnyGravity}
 		}

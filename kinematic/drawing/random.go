@@ -174,8 +174,11 @@ func fmtList(xs []float64) []string {
 // the number of standard deviations at which the contact opens
 // (kinematic.RandomContact.Margin). Options.Limit, when set, is the
 // required margin k, drawn as a red line and named by Options.LimitName
-// ("" means "required margin"). A contact without dynamic force (an
-// unbounded margin) is drawn to the top of the plot and marked "∞".
+// ("" means "required margin"). The axis reaches four times the larger
+// of the required margin and the least margin drawn, where the verdict
+// is read: longer bars are cut there and a note says how many. A contact
+// without dynamic force (an unbounded margin) is drawn to the top of the
+// plot and marked "∞".
 func RandomMargins(w io.Writer, curves []RandomCurve, opt *Options) error {
 	o := opt.orDefault()
 	if len(curves) == 0 || len(curves[0].Response.Contacts) == 0 {
@@ -187,6 +190,7 @@ func RandomMargins(w io.Writer, curves []RandomCurve, opt *Options) error {
 	n := len(curves[0].Response.Contacts)
 	labels := make([]string, n)
 	top := o.Limit
+	least := math.Inf(1) // the least finite margin drawn
 	for i, c := range curves[0].Response.Contacts {
 		labels[i] = c.Label
 	}
@@ -205,12 +209,19 @@ func RandomMargins(w io.Writer, curves []RandomCurve, opt *Options) error {
 				return fmt.Errorf("drawing: curves[%d].Response.Contacts[%d].Margin: %w: %g, a margin is ≥ 0", k, i, kinematic.ErrRange, c.Margin)
 			case !math.IsInf(c.Margin, 1):
 				top = math.Max(top, c.Margin)
+				least = math.Min(least, c.Margin)
 			}
 		}
 	}
-	// The axis reaches at least a margin of 0.01 and at most 1e300, so
-	// that the plot's arithmetic stays finite; longer bars are clipped.
+	// The axis reaches four times the larger of the limit and the least
+	// margin (the bars far from opening are cut there), at least a
+	// margin of 0.01 and at most 1e300, so that the plot's arithmetic
+	// stays finite.
+	if !math.IsInf(least, 1) {
+		top = math.Min(top, 4*math.Max(o.Limit, least))
+	}
 	top = math.Min(math.Max(top, 0.01), 1e300)
+	cut := 0
 	p := newPlot(o.title("Contact margins in random vibration"))
 	width := vg.Length(0.7*vg.Inch) / vg.Length(len(curves))
 	var inf []string
@@ -218,9 +229,13 @@ func RandomMargins(w io.Writer, curves []RandomCurve, opt *Options) error {
 		vals := make(plotter.Values, n)
 		for i, c := range cv.Response.Contacts {
 			vals[i] = c.Margin
-			if math.IsInf(c.Margin, 1) {
+			switch {
+			case math.IsInf(c.Margin, 1):
 				vals[i] = top * 1.15
 				inf = append(inf, fmt.Sprintf("%s along %s", c.Label, cv.name(k)))
+			case c.Margin > top:
+				vals[i] = top * 1.15
+				cut++
 			}
 		}
 		bc, err := plotter.NewBarChart(vals, width)
@@ -267,6 +282,9 @@ func RandomMargins(w io.Writer, curves []RandomCurve, opt *Options) error {
 	notes := []string{"a contact opens when its force fluctuation reaches its static force: at a margin of k it opens at k standard deviations"}
 	if len(inf) > 0 {
 		notes = append(notes, fmt.Sprintf("no dynamic force (margin ∞, drawn to the top): %v", inf))
+	}
+	if cut > 0 {
+		notes = append(notes, fmt.Sprintf("%d bars with margins above %s σ are cut at the top (those contacts are far from opening)", cut, idraw.Sig(top)))
 	}
 	return write(w, o, p.Title.Text, figWidth, figHeight*0.75, func(c draw.Canvas) {
 		layout(c, p, nil, o.notes(notes...))

@@ -118,6 +118,17 @@ func TestRandomMarginsDrawn(t *testing.T) {
 	if !strings.Contains(buf.String(), "B+ along z") {
 		t.Error("the unbounded margin is not named in the notes")
 	}
+	// Margins beyond four times the larger of the limit (3) and the least
+	// margin (1) are cut at 12 and counted in the notes.
+	r1.Contacts[2].Margin = 40
+	r1.Contacts[4].Margin = 13
+	buf.Reset()
+	if err := drawing.RandomMargins(&buf, []drawing.RandomCurve{{Name: "z", Response: r1}}, &drawing.Options{Limit: 3}); err != nil {
+		t.Fatal(err)
+	}
+	if !strings.Contains(buf.String(), "2 bars with margins above 12.0 σ are cut") {
+		t.Error("the cut bars are not counted in the notes")
+	}
 	for _, c := range []struct {
 		name string
 		cs   []drawing.RandomCurve
