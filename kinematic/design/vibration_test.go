@@ -31,7 +31,7 @@ func TestVibrationVerticalClosedForm(t *testing.T) {
 				map[string]any{"frequency": "1 Hz", "asd": "0.05 g^2/Hz"},
 				map[string]any{"frequency": "1000 kHz", "asd": "0.05 g2/Hz"},
 			}},
-			"damping": map[string]any{"zeta": zeta},
+			"damping":  map[string]any{"zeta": zeta},
 			"axes":     []any{"z"},
 			"case":     "seated",
 			"duration": "10 min",
