@@ -49,7 +49,11 @@
 //
 // LoadForPressure and LoadForApproach invert Solve for the load. The
 // Contact methods TangentialStiffness and SlidingLimit give Mindlin's
-// tangential stiffness and the sliding limit μN.
+// tangential stiffness and the sliding limit μN; Contact.Slip follows the
+// tangential load–displacement path of a contact under constant normal load
+// through any sequence of loads (Mindlin's partial slip, Mindlin &
+// Deresiewicz's unloading, the memory of the path by Masing's rules), and
+// Contact.SlipEnergy gives the energy lost per cycle.
 //
 // # Many loads on the same bodies
 //
