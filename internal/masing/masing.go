@@ -95,12 +95,6 @@ func coord(p Point, byY bool) float64 {
 func (m *Memory) move(t float64, byY, commit bool) (Point, float64) {
 	n := len(m.rev)
 	var pushed reversal
-	get := func(i int) reversal {
-		if i < n {
-			return m.rev[i]
-		}
-		return pushed
-	}
 	k, cur := n, m.cur
 	c := coord(cur, byY)
 	if t != c {
@@ -109,7 +103,7 @@ func (m *Memory) move(t float64, byY, commit bool) (Point, float64) {
 		if k == 0 {
 			dir = sign(c)
 		} else {
-			dir = get(k - 1).dir
+			dir = m.at(k-1, n, &pushed).dir
 		}
 		if dir != 0 && s != dir {
 			pushed = reversal{p: cur, dir: s}
@@ -119,9 +113,9 @@ func (m *Memory) move(t float64, byY, commit bool) (Point, float64) {
 		for k > 0 {
 			var lim Point
 			if k >= 2 {
-				lim = get(k - 2).p
+				lim = m.at(k-2, n, &pushed).p
 			} else {
-				r := get(0).p
+				r := m.at(0, n, &pushed).p
 				lim = Point{-r.X, -r.Y}
 			}
 			if s*(t-coord(lim, byY)) < 0 {
@@ -145,7 +139,7 @@ func (m *Memory) move(t float64, byY, commit bool) (Point, float64) {
 		}
 		slope = m.c.Slope(p.X)
 	} else {
-		b := get(k - 1).p
+		b := m.at(k-1, n, &pushed).p
 		if byY {
 			p = Point{b.X + 2*m.c.Inv((t-b.Y)/2), t}
 		} else {
@@ -170,6 +164,15 @@ func (m *Memory) move(t float64, byY, commit bool) (Point, float64) {
 	return p, slope
 }
 
+// at returns open reversal i of the stack viewed as the n stored points
+// and then pushed.
+func (m *Memory) at(i, n int, pushed *reversal) reversal {
+	if i < n {
+		return m.rev[i]
+	}
+	return *pushed
+}
+
 func sign(x float64) float64 {
 	switch {
 	case x > 0:
@@ -189,14 +192,17 @@ func sign(x float64) float64 {
 //
 // odd in x; its inverse x = 1 − (1 − y)^(2/3) is Johnson's loading curve
 // δ = 3μP/(16G*a)[1 − (1 − Q/μP)^(2/3)] for k0 = 8G*a. Both are formed
-// with expm1 and log1p so that small arguments keep full precision.
+// without cancellation for small arguments: with u = 1 − x,
+// 1 − u^(3/2) = (1 − u³)/(1 + u^(3/2)) = x(1 + u + u²)/(1 + u√u), and with
+// v = 1 − y, 1 − v^(2/3) = (1 − v²)/(1 + v^(2/3) + v^(4/3)) = y(1 + v)/(1 + c + c²), c = v^(2/3).
 var Mindlin = Curve{
 	F: func(x float64) float64 {
 		a := math.Abs(x)
 		if a >= 1 {
 			return math.Copysign(1, x)
 		}
-		return math.Copysign(-math.Expm1(1.5*math.Log1p(-a)), x)
+		u := 1 - a
+		return math.Copysign(a*(1+u+u*u)/(1+u*math.Sqrt(u)), x)
 	},
 	Slope: func(x float64) float64 {
 		a := math.Abs(x)
@@ -210,6 +216,8 @@ var Mindlin = Curve{
 		if a >= 1 {
 			return math.Copysign(math.Inf(1), y)
 		}
-		return math.Copysign(-math.Expm1(math.Log1p(-a)*2/3), y)
+		v := 1 - a
+		c := math.Cbrt(v * v)
+		return math.Copysign(a*(1+v)/(1+c+c*c), y)
 	},
 }
