@@ -119,6 +119,23 @@ func TestHysteresisLoop(t *testing.T) {
 	if d := r3.Norm(r3.Sub(mid, h.Residual)); d > 1e-9*r3.Norm(first) {
 		t.Errorf("residuals of the two cycles differ: %v, %v", mid, h.Residual)
 	}
+	// The second cycle of the path is the steady loop (Masing), so the
+	// work of the push around it by the trapezoid rule, from the
+	// reported displacements of the push's point of application, is the
+	// energy per cycle (the work of the loads, which Hysteresis forms
+	// from the pose instead).
+	hp, err := m.Hysteresis(lc, steps, mu, at)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var work float64
+	for k := 4 * n; k < 8*n; k++ {
+		a, b := hp.Path[k-1], hp.Path[k]
+		work += 0.5 * r3.Dot(r3.Add(a.Force, b.Force), r3.Sub(b.Displacement, a.Displacement))
+	}
+	if math.Abs(work-hp.Energy/2) > 1e-9*hp.Energy {
+		t.Errorf("work of the push around the second cycle %v J, energy per cycle %v J", work, hp.Energy/2)
+	}
 	// Energy per cycle against the contacts' small-amplitude losses.
 	st, err := m.Statics(lc)
 	if err != nil {
