@@ -137,3 +137,33 @@ func TestCycleErrors(t *testing.T) {
 		}
 	}
 }
+
+// TestHysteresisContactOpens: a push of 2 kN across the fixture's 300 N
+// preload opens a contact (the rigid-statics force of the case plus the
+// push is tensile): no hysteresis, a note naming the step, and the
+// requirement fails with an unbounded value.
+func TestHysteresisContactOpens(t *testing.T) {
+	src := strings.Replace(string(readFile(t, "testdata/cycle.json")), `"20 N", "0 N", "0 N"`, `"2 kN", "0 N", "0 N"`, 1)
+	d, err := Parse([]byte(src))
+	if err != nil {
+		t.Fatal(err)
+	}
+	ev, err := d.Evaluate(t.Context())
+	if err != nil {
+		t.Fatal(err)
+	}
+	if ev.Hysteresis != nil {
+		t.Fatalf("hysteresis %+v with a contact open", ev.Hysteresis)
+	}
+	if len(ev.Notes) == 0 || !strings.Contains(strings.Join(ev.Notes, "\n"), "opens under this step") {
+		t.Errorf("notes %q", ev.Notes)
+	}
+	for _, v := range ev.Verdicts() {
+		if strings.HasPrefix(v.Requirement, "requirements.max_hysteresis") && (v.Pass || !math.IsInf(v.Value, 1)) {
+			t.Errorf("verdict %+v", v)
+		}
+	}
+	if err := ev.Verdicts().Err(); err == nil {
+		t.Error("the verdicts pass")
+	}
+}
