@@ -198,6 +198,12 @@ type hysteresisSolver struct {
 	ref float64 // force scale of the residual, N
 	cs  [6]slipContact
 	y   [6]float64 // scaled pose change (V, W·L) about origin
+
+	// The tangent stiffness (lower triangle) and the scaled load at the
+	// end of the last step, for the next step's first-order prediction.
+	kMat     [36]float64
+	bLast    [6]float64
+	havePred bool
 }
 
 // prepare sets up the contacts from their seated forces f0 and chooses
@@ -290,6 +296,20 @@ func (h *hysteresisSolver) step(k int, w screw.Wrench) (float64, error) {
 	ref := h.ref + math.Sqrt(dot6(&b, &b))
 	var r, dy [6]float64
 	var K [36]float64
+	if h.havePred {
+		// Predict the step from the last step's tangent stiffness: the
+		// Newton iteration then starts within the step's curvature.
+		K = h.kMat
+		if linalg.Cholesky6(&K, 1e-15) {
+			for a := range 6 {
+				dy[a] = b[a] - h.bLast[a]
+			}
+			linalg.CholeskySolve6(&K, &dy)
+			for a := range 6 {
+				h.y[a] += dy[a]
+			}
+		}
+	}
 	norm := h.residual(&h.y, &b, &r, &K)
 	for it := 0; ; it++ {
 		if norm <= hysteresisTol*ref {
@@ -330,6 +350,7 @@ func (h *hysteresisSolver) step(k int, w screw.Wrench) (float64, error) {
 		}
 		h.y = yt
 	}
+	h.kMat, h.bLast, h.havePred = K, b, true
 	ratio := 0.0
 	for i := range m.lines {
 		c := &h.cs[i]
