@@ -204,11 +204,13 @@ func unitOr(v r3.Vec) r3.Vec {
 	return v
 }
 
-// vecString formats a unit direction with components below 1e-12 as 0.
+// vecString formats a unit direction with components below 1e-9 as 0:
+// the direction of a residual formed from small differences carries
+// rounding of that order in its zero components.
 func vecString(v r3.Vec) string {
 	c := [3]float64{v.X, v.Y, v.Z}
 	for i := range c {
-		if math.Abs(c[i]) < 1e-12 {
+		if math.Abs(c[i]) < 1e-9 {
 			c[i] = 0
 		}
 	}

@@ -49,6 +49,15 @@ func TestHysteresisDrawn(t *testing.T) {
 			t.Errorf("no %q in the texts:\n%s", want, all)
 		}
 	}
+	// No text over another (rotated axis labels are measured along x, so
+	// they are left out).
+	for i, a := range d.texts {
+		for _, b := range d.texts[:i] {
+			if !a.rotated && !b.rotated && overlap(labelBox(a), labelBox(b)) {
+				t.Errorf("texts %q and %q overlap", a.s, b.s)
+			}
+		}
+	}
 	path, res, err := drawing.HysteresisPlotters(h, nil)
 	if err != nil {
 		t.Fatal(err)
