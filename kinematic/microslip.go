@@ -82,9 +82,10 @@ const hysteresisTol = 1e-12
 // law with Mindlin & Deresiewicz's unloading and the exact memory of the
 // load path by Masing's rules (hertz.Contact.Slip); the direction is that
 // of the contact's tangential displacement, with no slip anywhere, under
-// the cycle's largest step, and the contact is taken as stuck (no-slip
-// stiffness) across it. The package documentation states the model and
-// its limits.
+// the cycle's largest step, and the traction across it follows the same
+// law independently. Each step is predicted from the last one's tangent
+// stiffness and solved by Newton's method with backtracking. The package
+// documentation states the model and its limits.
 //
 // Errors are [*InputError]s: those of [Model.Stiffness] for the seated
 // case; "mu" when not finite and > 0; "p" when not finite; "steps" when
