@@ -81,3 +81,39 @@ func TestPeekLeavesState(t *testing.T) {
 		t.Errorf("Reset left %v, %d", m.State(), m.Open())
 	}
 }
+
+// TestMindlinCurve checks the Mindlin backbone and its inverse against
+// their binomial series for small arguments, (1 − x)^(3/2) =
+// 1 − 3x/2 + 3x²/8 + x³/16 + O(x⁴) and (1 − y)^(2/3) = 1 − 2y/3 − y²/9
+// − 4y³/81 + O(y⁴) (by hand), where the plain forms lose their digits,
+// against math.Pow at 1/2 (√2/4 and 2^(−2/3)), and the slope
+// (3/2)(1 − x)^(1/2) against a central difference.
+func TestMindlinCurve(t *testing.T) {
+	for _, x := range []float64{1e-12, 1e-6, -1e-6} {
+		a := math.Abs(x)
+		wantF := math.Copysign(1.5*a-0.375*a*a-a*a*a/16, x)
+		if got := Mindlin.F(x); math.Abs(got-wantF) > 1e-15*math.Abs(wantF) {
+			t.Errorf("F(%g) = %.17g, series %.17g", x, got, wantF)
+		}
+		wantInv := math.Copysign(2*a/3+a*a/9+4*a*a*a/81, x)
+		if got := Mindlin.Inv(x); math.Abs(got-wantInv) > 1e-15*math.Abs(wantInv) {
+			t.Errorf("Inv(%g) = %.17g, series %.17g", x, got, wantInv)
+		}
+	}
+	if got, want := Mindlin.F(0.5), 1-math.Sqrt2/4; math.Abs(got-want) > 1e-15 {
+		t.Errorf("F(1/2) = %.17g, want 1 − √2/4 = %.17g", got, want)
+	}
+	if got, want := Mindlin.Inv(0.5), 1-math.Pow(2, -2.0/3); math.Abs(got-want) > 1e-15 {
+		t.Errorf("Inv(1/2) = %.17g, want 1 − 2^(−2/3) = %.17g", got, want)
+	}
+	for _, x := range []float64{0.1, 0.5, 0.9, -0.7} {
+		const h = 1e-6
+		fd := (Mindlin.F(x+h) - Mindlin.F(x-h)) / (2 * h)
+		if got := Mindlin.Slope(x); math.Abs(got-fd) > 1e-8 {
+			t.Errorf("Slope(%g) = %v, central difference %v", x, got, fd)
+		}
+	}
+	if Mindlin.F(1.5) != 1 || Mindlin.F(-3) != -1 || Mindlin.Slope(2) != 0 || !math.IsInf(Mindlin.Inv(1), 1) {
+		t.Errorf("saturation: F(1.5) %v, F(−3) %v, Slope(2) %v, Inv(1) %v", Mindlin.F(1.5), Mindlin.F(-3), Mindlin.Slope(2), Mindlin.Inv(1))
+	}
+}
