@@ -49,7 +49,11 @@
 //
 // LoadForPressure and LoadForApproach invert Solve for the load. The
 // Contact methods TangentialStiffness and SlidingLimit give Mindlin's
-// tangential stiffness and the sliding limit μN.
+// tangential stiffness and the sliding limit μN; Contact.Slip follows the
+// tangential load–displacement path of a contact under constant normal load
+// through any sequence of loads (Mindlin's partial slip, Mindlin &
+// Deresiewicz's unloading, the memory of the path by Masing's rules), and
+// Contact.SlipEnergy gives the energy lost per cycle.
 //
 // # Many loads on the same bodies
 //
@@ -177,7 +181,10 @@
 // copy, math/9409227), Numer. Algorithms 10 (1995), 13–26 (volume and pages
 // from memory); from memory, not checked: R. D. Mindlin (1949), J. Appl.
 // Mech. 16, 259–268; Mindlin & Deresiewicz (1953), J. Appl. Mech. 20,
-// 327–344; DLMF chapter 19. ISO 76:2006, Rolling bearings — Static load
+// 327–344; G. Masing (1926), on the hysteresis of brass (the rule that a
+// reversal starts a branch at twice the scale of the first loading),
+// Proc. 2nd Int. Congress of Applied Mechanics, Zürich, 332–335; DLMF
+// chapter 19. ISO 76:2006, Rolling bearings — Static load
 // ratings, clause 3 (checked). The material data sheets are named in each
 // Material's Source.
 //

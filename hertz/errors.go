@@ -53,7 +53,8 @@ var (
 //
 // Field names the input as the caller wrote it, in one of these forms:
 //
-//   - a parameter of the function: "load", "p0", "delta", "mu", "q";
+//   - a parameter of the function: "load", "p0", "delta", "mu", "q", "d",
+//     "amplitude";
 //   - a path into a parameter: "b1.R1", "b2.Angle", "b1.Material.E",
 //     "c.SemiMinor" (the receiver of a Contact method), "p" (the receiver
 //     of a Pair method);

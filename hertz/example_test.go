@@ -110,3 +110,37 @@ func ExampleNewPair() {
 	// 20 N: a  87.67 µm, δ 1.5370 µm, k 19.52 N/µm, p0 1243 MPa
 	// 40 N: a 110.45 µm, δ 2.4399 µm, k 24.59 N/µm, p0 1566 MPa
 }
+
+// The same flank under a tangential load that an operator's push puts on
+// it, with friction 0.15: the contact creeps by micro-slip on loading,
+// springs back less on unloading, and is left displaced when the push is
+// gone; each further push and release loses a little energy. (By hand
+// from Johnson 1985, §7.4, with c = 3μP/(16G*a) = 1.5μP/k0 ≈ 288.7 nm:
+// loading c[1 − 0.5^(2/3)] = 0.37004c = 106.8 nm, unloading to zero
+// c[2·0.75^(2/3) − 0.5^(2/3) − 1] = 0.02100c = 6.06 nm.)
+func ExampleContact_Slip() {
+	c, err := hertz.Solve(hertz.Sphere(0.005, hertz.Steel52100), hertz.Flat(hertz.Steel440C), 30/(2*math.Cos(math.Pi/4)))
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	const mu = 0.15
+	s, err := c.Slip(mu)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	push := 0.5 * mu * c.Load // half the sliding limit
+	d1, _ := s.Step(push)
+	d0, _ := s.Step(0)
+	w, _ := c.SlipEnergy(mu, push)
+	fmt.Printf("no-slip stiffness   %.1f N/µm\n", 8*c.GStar*c.SemiMajor/1e6)
+	fmt.Printf("push %.3f N: moves  %.2f nm\n", push, d1*1e9)
+	fmt.Printf("released: left at   %.2f nm\n", d0*1e9)
+	fmt.Printf("loss per ±push      %.3g J\n", w)
+	// Output:
+	// no-slip stiffness   16.5 N/µm
+	// push 1.591 N: moves  106.84 nm
+	// released: left at   6.06 nm
+	// loss per ±push      2.59e-08 J
+}

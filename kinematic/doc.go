@@ -97,6 +97,58 @@
 // approach, and ignore form errors of the surfaces, wear and
 // contamination.
 //
+// # Micro-slip and hysteresis
+//
+// [Model.Hysteresis] follows the point of interest through a load cycle
+// given by the caller (a push, a cable pull, a shock or a thermal load as
+// equivalent wrenches: a sequence of [CycleStep]s added to a load case)
+// and reports its path, the residual displacement and tilt after the
+// cycle (the hysteresis) and the energy dissipated per cycle. The model:
+//
+//   - the normal force P of each contact at each step is its rigid-statics
+//     force under the case plus the step's load; a step that opens a
+//     contact is an error naming it ("steps[3]");
+//   - the body's small pose change balances the loads against the
+//     contacts' Hertz normal springs, taken about their seated approach,
+//     and their tangential tractions; normal and tangential problems are
+//     uncoupled (Johnson, Contact Mechanics, 1985, §7.2);
+//   - each contact's tangential traction follows Mindlin's partial-slip
+//     law, δ = 3μP/(2k0)[1 − (1 − Q/μP)^(2/3)] with the no-slip stiffness
+//     k0 = 8G*a and 1/G* = (2 − ν1)/G1 + (2 − ν2)/G2, unloading and
+//     reloading by Mindlin & Deresiewicz (Johnson §7.4), and the memory of
+//     the load path kept exactly by Masing's rules (each reversal starts a
+//     branch at twice the scale; a branch that meets an earlier one
+//     continues it); beyond |Q| = μP the contact slides. Displacements
+//     are those of distant points of the two bodies (hertz.Contact.Slip);
+//   - the traction is resolved along two directions of the tangent plane,
+//     each following the law independently with the limit μP: the
+//     direction in which the contact moves, without slip, under the
+//     cycle's largest step, and the one across it. This is exact when a
+//     contact's traction keeps its line of action, as it does to first
+//     order under a cycle of one load scaled up and down; a traction
+//     that turns is an approximation (a contact loaded diagonally to both
+//     directions holds up to √2 μP before it slides);
+//   - when P changes during the cycle the memory is kept in the scaled
+//     variables Q/μP and δ/δs, δs = 3μP/(2k0) (so the whole load path is
+//     rescaled with the normal force, at constant Q/μP): exact at constant
+//     P, and with no slip (μ → ∞) the force k0(P)·δ depends on the
+//     present state only, so a cycle leaves nothing behind. Mindlin &
+//     Deresiewicz's solution for a normal force that changes together with
+//     the tangential (oblique loading, Johnson §7.5) is outside the model:
+//     the normal force must change slowly against the tangential (the
+//     cycle's load small against the preload);
+//   - small slip: the pose change is small against the contacts; no wear,
+//     fretting or change of friction over the cycles; no dynamics (the
+//     steps are quasi-static).
+//
+// Energy is the work of the cycle's loads around the second pass of the
+// cycle, by the trapezoid rule over the steps: by Masing's rules the
+// second pass is a closed loop (at constant normal forces), so the work is
+// the energy dissipated by micro-slip, which in the small-amplitude limit
+// grows as the cube of the load (Johnson §7.4; hertz.Contact.SlipEnergy).
+// Steps fine enough to follow the loop are the caller's choice: the
+// trapezoid rule's error falls as the square of the step.
+//
 // # Design figures
 //
 // [Coupling.Score] reports, for a [Scenario] (the point of interest, the
@@ -127,6 +179,8 @@
 //     contacts with no force an error naming "lc.NoPreload" (the preload switched off)
 //     or "preloads" (none) and listing them: an unloaded Hertz contact has
 //     no stiffness.
+//   - [Model.Hysteresis]: what [Stiffness] needs, with every contact in
+//     compression at every step of the cycle.
 //   - [Mode]: a payload mass and inertia tensor, else an error naming
 //     "payload.Mass" or "payload.Inertia".
 //   - [PreloadSizing]: a preload element, else an error naming

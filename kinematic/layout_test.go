@@ -40,6 +40,7 @@ var fileOrder = []string{
 	"spectrum.go",
 	"random.go",
 	"friction.go",
+	"microslip.go",
 	"closure.go",
 	"assembly.go",
 	"pose.go",

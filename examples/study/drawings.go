@@ -11,7 +11,8 @@ import (
 )
 
 // drawings writes the drawings to the output folder: the plan view, the
-// lift-off map, the Monte Carlo histogram and, after an optimisation,
+// lift-off map, the Monte Carlo histogram, the random vibration figures
+// and the hysteresis loop where the design has them and, after an optimisation,
 // the optimised plan and the scorecards of the layouts compared.
 func (s *study) drawings(n int) error {
 	s.section(n, "Drawings")
@@ -53,6 +54,12 @@ func (s *study) drawings(n int) error {
 	}
 	if len(s.ev.Random) > 0 {
 		if err := s.randomDrawings(title); err != nil {
+			return err
+		}
+	}
+	if h := s.ev.Hysteresis; h != nil {
+		o := opt(fmt.Sprintf("%s: hysteresis of the %s under cycle %q", title, s.point, s.ev.HysteresisCycle))
+		if err := s.write("hysteresis.svg", func(w io.Writer) error { return drawing.Hysteresis(w, *h, o) }); err != nil {
 			return err
 		}
 	}

@@ -15,7 +15,10 @@
 // worst shock, friction seating, stiffness and natural frequencies, the
 // error budget at the point of interest with the Monte Carlo study as
 // the file sets it (monte_carlo: samples, seed, exact), the thermal drift
-// over the file's delta_t, and every requirement's verdict.
+// over the file's delta_t, the random vibration response and the
+// hysteresis of the point of interest under the file's load cycle
+// (micro-slip at the contacts) where the file gives them, and every
+// requirement's verdict.
 //
 // The design is never changed unless asked: with -optimize the optimiser
 // runs with the file's own packaging (keep_outs, windows) and optimize

@@ -271,7 +271,7 @@ func TestOptimize(t *testing.T) {
 	if code != exitPass {
 		t.Fatalf("exit status %d; stderr %s\n%s", code, errs, rep)
 	}
-	for _, want := range []string{"7. Optimisation (asked for with -optimize)", "as written", "optimised", "Requirements of the optimised design",
+	for _, want := range []string{"8. Optimisation (asked for with -optimize)", "as written", "optimised", "Requirements of the optimised design",
 		"groove P: azimuth allowed from 140.0° to 220.0°", "keep-out \"cable gland\""} {
 		if !strings.Contains(rep, want) {
 			t.Errorf("report lacks %q", want)

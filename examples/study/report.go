@@ -101,6 +101,10 @@ func (s *study) run(ctx context.Context, src []byte) (pass bool, err error) {
 		s.vibration(n)
 		n++
 	}
+	if len(s.d.Cycles) > 0 {
+		s.hysteresis(n)
+		n++
+	}
 	pass = s.requirements(n, "Requirements of the design as written", s.ev)
 	n++
 	if s.cfg.optimize {

@@ -133,6 +133,7 @@ func (d *Design) clone() Design {
 	if d.Vibration != nil {
 		c.Vibration = d.Vibration.clone()
 	}
+	c.Cycles = cloneCycles(d.Cycles)
 	d.cloneStudy(&c)
 	return c
 }

@@ -62,6 +62,11 @@ type Design struct {
 	// must survive; nil when not given.
 	Vibration *Vibration
 
+	// Cycles are named load cycles (operator pushes, cable pulls,
+	// shocks as equivalent loads) for the hysteresis of micro-slip at
+	// the contacts; nil when not given.
+	Cycles []Cycle
+
 	// Packaging and Optimize are what the optimiser may change and how
 	// ([Built.Optimize]); nil when not given. Neither changes the
 	// evaluation of the design as written.
@@ -305,6 +310,13 @@ type Requirements struct {
 	// with modes near 1 kHz and a ten-minute test, 3 σ is crossed
 	// hundreds of times. All three need Vibration.
 	MinRandomMargin, MaxRandomDisplacement, MaxRandomOpenings float64
+
+	// MaxHysteresis bounds the residual displacement of the point of
+	// interest after load cycle HysteresisCycle ("" the first) added to
+	// case HysteresisCase ("" the first), m, and MaxHysteresisTilt the
+	// residual tilt, rad (kinematic.Model.Hysteresis with Friction.Mu).
+	MaxHysteresis, MaxHysteresisTilt float64
+	HysteresisCycle, HysteresisCase  string
 }
 
 // Cases names the load cases a requirement is checked in: every case of

@@ -103,6 +103,14 @@
 //	  axes              array of "x", "y", "z" and "worst" (the direction of the least contact
 //	                    margin over the sphere), each once; default ["x", "y", "z"]
 //	  sigma             number > 0: the k of the k-σ peaks and of the preload for a margin; default 3
+//	cycles              array, optional: named load cycles for the hysteresis of micro-slip at the
+//	                    contacts (kinematic.Model.Hysteresis; see Load cycles)
+//	  name              string, required, unique
+//	  substeps          whole number in [1, 1000]: equal parts of each step; default 1; steps
+//	                    times substeps at most 20000
+//	  steps             array of 1 to 1000 steps, required, each {"force": [x, y, z] forces,
+//	                    "point": [x, y, z] lengths, "moment": [x, y, z] moments}, all optional
+//	                    (zero), added to the load case; the last has zero force and moment
 //	packaging           object, optional: what the grooves must clear when the optimiser turns them
 //	                    (see Optimisation); it does not change the evaluation of the design as written
 //	  keep_outs         array, at most 64, default none: obstacles on the base that no groove may point at
@@ -179,6 +187,10 @@
 //	                      duration), along every axis; one verdict per axis. 0.01 means about a
 //	                      1 % chance that a contact opens at all; a margin of 3 σ alone can be
 //	                      crossed hundreds of times in a ten-minute test at 1 kHz
+//	  max_hysteresis      {"displacement": length, "tilt": angle, "cycle": name (default the
+//	                      first), "case": name}: the residual displacement and tilt of the point
+//	                      of interest after the cycle (at least one limit; needs cycles and
+//	                      friction with mu > 0)
 //
 // A requirement's "case" names a load case; left out (and "cases" left
 // out too), it is the first. "cases" is "all" (every load case) or an
@@ -412,6 +424,20 @@
 // first-order error budget, the Monte Carlo study and the thermal drift.
 // It returns an [Evaluation]; [Evaluation.Verdicts] holds one [Verdict]
 // per requirement set, and [Verdicts.Err] one error naming every failure.
+//
+// # Load cycles
+//
+// A cycle is a sequence of loads added to a load case, each reached from
+// the one before along a straight path in load (the first from no added
+// load), in substeps equal parts: an operator's push and release, a cable
+// pulled and let go, a shock or a thermal load as equivalent loads. The
+// evaluation follows the point of interest through the cycle with
+// micro-slip at the contacts (kinematic.Model.Hysteresis, whose
+// documentation states the model and its limits) for the hysteresis
+// requirement's cycle and case, or the first cycle in the first case
+// without it, with friction's mu; a contact that opens under the cycle
+// is a note and the requirement fails. The verdicts compare the length of
+// the residual displacement and of the residual rotation with the limits.
 //
 // # Random vibration
 //

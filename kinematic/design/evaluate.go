@@ -96,6 +96,15 @@ type Evaluation struct {
 	Random     []RandomAxis
 	RandomCase string
 
+	// Hysteresis is the response of the point of interest to the load
+	// cycle HysteresisCycle added to case HysteresisCase with micro-slip
+	// at the contacts: the hysteresis requirement's cycle and case, or
+	// the first of each without it. Nil without cycles, cases or
+	// friction, or when a contact opens under the cycle (Notes says
+	// why).
+	Hysteresis                      *kinematic.Hysteresis
+	HysteresisCycle, HysteresisCase string
+
 	// Notes lists analyses that could not be made and why.
 	Notes []string
 
@@ -108,6 +117,7 @@ type Evaluation struct {
 	randomNote     string // why there is no random response
 	randomSpectrum string // the vibration's spectrum as the notes name it
 	randomDuration string // the vibration's duration as the notes name it
+	hysteresisNote string // why there is no hysteresis
 }
 
 // Evaluate returns the whole evaluation of the design, as
@@ -164,6 +174,7 @@ func (b *Built) Evaluate(ctx context.Context) (Evaluation, error) {
 	if err := e.random(b); err != nil {
 		return Evaluation{}, err
 	}
+	e.hysteresis(b)
 	if b.budget != nil {
 		e.Budget = b.budget
 		if d.Axis != zeroVec {
@@ -427,6 +438,7 @@ func (e Evaluation) Verdicts() Verdicts {
 		vs = append(vs, e.checked[name]...)
 	}
 	vs = append(vs, e.randomVerdicts()...)
+	vs = append(vs, e.hysteresisVerdicts()...)
 	return vs
 }
 

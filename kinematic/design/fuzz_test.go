@@ -39,6 +39,20 @@ func FuzzRead(f *testing.F) {
 	} {
 		f.Add([]byte(strings.Replace(vib, r[0], r[1], 1)))
 	}
+	// The cycles section with bad steps, substeps and requirement.
+	cyc := string(readFile(f, "testdata/cycle.json"))
+	for _, r := range [][2]string{
+		{`"-20 N"`, `"-1e400 N"`},
+		{`"substeps": 25`, `"substeps": 0`},
+		{`{}
+    ]}`, `{"force": ["1 N", 0, 0]}
+    ]}`},
+		{`"cycle": "operator push"`, `"cycle": ""`},
+		{`"steps": [`, `"steps": [{"point": ["1e300 m", 0, 0], "force": ["1e300 N", "1e300 N", 0]}, `},
+		{`"friction": {"mu": 0.1}`, `"friction": {"mu": 0}`},
+	} {
+		f.Add([]byte(strings.Replace(cyc, r[0], r[1], 1)))
+	}
 	for _, s := range []string{
 		``,
 		`{}`,

@@ -262,7 +262,7 @@ type reader struct {
 // topFields are the members of a design file, in the documented order.
 var topFields = []string{"format", "units", "name", "description", "balls", "seats",
 	"preloads", "payload", "cases", "tolerances", "point_of_interest", "point_name", "axis",
-	"thermal", "friction", "monte_carlo", "vibration", "packaging", "optimize", "requirements"}
+	"thermal", "friction", "monte_carlo", "vibration", "cycles", "packaging", "optimize", "requirements"}
 
 // walk returns the design in the tree, reading it member by member in
 // the documented order.
@@ -274,7 +274,7 @@ func walk(root *node) (*Design, error) {
 	d := &Design{}
 	for _, step := range []func(*node, *Design) error{
 		r.readTexts, r.readCoupling, r.readLoads, r.readTolerances, r.readPoint,
-		r.readEnvironment, r.readVibration, r.readStudy, r.readRequirementsOf,
+		r.readEnvironment, r.readVibration, r.readCycles, r.readStudy, r.readRequirementsOf,
 	} {
 		if err := step(root, d); err != nil {
 			return nil, err
@@ -902,7 +902,7 @@ func (r *reader) readRequirements(n *node, path string) (Requirements, error) {
 	var q Requirements
 	if err := fields(n, path, "a requirements object", "min_centre_index", "min_contact_index", "min_maxwell_index", "max_pressure_ratio", "min_contact_force",
 		"min_shock", "min_frequency", "max_error", "max_study", "max_thermal_drift", "seating",
-		"max_tilt", "min_stiffness", "min_preload_margin", "max_repeatability", "min_random_margin", "max_random_displacement", "max_random_openings"); err != nil {
+		"max_tilt", "min_stiffness", "min_preload_margin", "max_repeatability", "min_random_margin", "max_random_displacement", "max_random_openings", "max_hysteresis"); err != nil {
 		return q, err
 	}
 	// "min_maxwell_index" is the first name of "min_centre_index" (the
@@ -931,7 +931,7 @@ func (r *reader) readRequirements(n *node, path string) (Requirements, error) {
 	}
 	for _, step := range []func(*node, string, *Requirements) error{
 		r.readShock, r.readFrequency, r.readMaxError, r.readMaxStudy, readSeating,
-		r.readContactForce, r.readMaxTilt, r.readMinStiffness, r.readPreloadMargin, r.readRepeatability,
+		r.readContactForce, r.readMaxTilt, r.readMinStiffness, r.readPreloadMargin, r.readRepeatability, r.readHysteresis,
 	} {
 		if err := step(n, path, &q); err != nil {
 			return q, err

@@ -65,6 +65,7 @@ func (r Requirements) wireMore(wr *wireRequirements) {
 	if r.MinPreloadMargin > 0 {
 		wr.PreloadMargin = &wireMargin{Factor: r.MinPreloadMargin, MinForce: r.PreloadMinForce, Cases: wireCases(r.PreloadCases)}
 	}
+	wr.Hysteresis = r.wireHysteresis()
 	if r.MaxRepeatWorst > 0 || r.MaxRepeatRSS > 0 {
 		wr.Repeatability = &wireRepeat{WorstCase: r.MaxRepeatWorst, RSS: r.MaxRepeatRSS, Cases: wireCases(r.RepeatCases)}
 	}

@@ -253,6 +253,9 @@ func (d *Design) check() error {
 	if err := d.checkVibration(); err != nil {
 		return err
 	}
+	if err := d.checkCycles(); err != nil {
+		return err
+	}
 	return d.checkRequirements()
 }
 
@@ -485,7 +488,7 @@ func (d *Design) checkRequirements() error {
 	if err := d.Requirements.checkLimits(); err != nil {
 		return err
 	}
-	for _, step := range []func() error{d.needLoads, d.needPayload, d.needStudies, d.needMore, d.needVibration} {
+	for _, step := range []func() error{d.needLoads, d.needPayload, d.needStudies, d.needMore, d.needVibration, d.needHysteresis} {
 		if err := step(); err != nil {
 			return err
 		}

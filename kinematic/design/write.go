@@ -76,6 +76,7 @@ type wireDesign struct {
 	Friction     *wireFriction     `json:"friction,omitempty"`
 	MonteCarlo   *wireMonteCarlo   `json:"monte_carlo,omitempty"`
 	Vibration    *wireVibration    `json:"vibration,omitempty"`
+	Cycles       []wireCycle       `json:"cycles,omitempty"`
 	Packaging    *wirePackaging    `json:"packaging,omitempty"`
 	Optimize     *wireOptimize     `json:"optimize,omitempty"`
 	Requirements *wireRequirements `json:"requirements,omitempty"`
@@ -172,23 +173,24 @@ type wireMonteCarlo struct {
 }
 
 type wireRequirements struct {
-	MinCentreIndex   float64        `json:"min_centre_index,omitempty"`
-	MinContactIndex  float64        `json:"min_contact_index,omitempty"`
-	MaxPressureRatio float64        `json:"max_pressure_ratio,omitempty"`
-	MinContactForce  any            `json:"min_contact_force,omitempty"`
-	MinShock         *wireLimitCase `json:"min_shock,omitempty"`
-	MinFrequency     *wireLimitCase `json:"min_frequency,omitempty"`
-	MaxError         *wireMaxError  `json:"max_error,omitempty"`
-	MaxStudy         *wireMaxStudy  `json:"max_study,omitempty"`
-	MaxThermalDrift  float64        `json:"max_thermal_drift,omitempty"`
-	Seating          *wireSeating   `json:"seating,omitempty"`
-	MaxTilt          *wireMaxTilt   `json:"max_tilt,omitempty"`
-	MinStiffness     *wireStiffness `json:"min_stiffness,omitempty"`
-	PreloadMargin    *wireMargin    `json:"min_preload_margin,omitempty"`
-	Repeatability    *wireRepeat    `json:"max_repeatability,omitempty"`
-	MinRandomMargin  float64        `json:"min_random_margin,omitempty"`
-	MaxRandomDisp    float64        `json:"max_random_displacement,omitempty"`
-	MaxRandomOpen    float64        `json:"max_random_openings,omitempty"`
+	MinCentreIndex   float64         `json:"min_centre_index,omitempty"`
+	MinContactIndex  float64         `json:"min_contact_index,omitempty"`
+	MaxPressureRatio float64         `json:"max_pressure_ratio,omitempty"`
+	MinContactForce  any             `json:"min_contact_force,omitempty"`
+	MinShock         *wireLimitCase  `json:"min_shock,omitempty"`
+	MinFrequency     *wireLimitCase  `json:"min_frequency,omitempty"`
+	MaxError         *wireMaxError   `json:"max_error,omitempty"`
+	MaxStudy         *wireMaxStudy   `json:"max_study,omitempty"`
+	MaxThermalDrift  float64         `json:"max_thermal_drift,omitempty"`
+	Seating          *wireSeating    `json:"seating,omitempty"`
+	MaxTilt          *wireMaxTilt    `json:"max_tilt,omitempty"`
+	MinStiffness     *wireStiffness  `json:"min_stiffness,omitempty"`
+	PreloadMargin    *wireMargin     `json:"min_preload_margin,omitempty"`
+	Repeatability    *wireRepeat     `json:"max_repeatability,omitempty"`
+	MinRandomMargin  float64         `json:"min_random_margin,omitempty"`
+	MaxRandomDisp    float64         `json:"max_random_displacement,omitempty"`
+	MaxRandomOpen    float64         `json:"max_random_openings,omitempty"`
+	Hysteresis       *wireHysteresis `json:"max_hysteresis,omitempty"`
 }
 
 // wireLimitCase is min_shock ({level, case}) or min_frequency ({limit,
@@ -295,6 +297,7 @@ func (d *Design) wire() wireDesign {
 		w.MonteCarlo = &wireMonteCarlo{Samples: mc.Samples, Seed: mc.Seed, Exact: mc.Exact}
 	}
 	w.Vibration = d.wireVibration()
+	w.Cycles = d.wireCycles()
 	d.wireStudy(&w)
 	if r := d.Requirements; !r.isZero() {
 		wr := &wireRequirements{MinCentreIndex: r.MinCentreIndex, MinContactIndex: r.MinContactIndex, MaxPressureRatio: r.MaxPressureRatio,
