@@ -61,8 +61,6 @@ type ForceTable struct {
 	// Points holds at least two points with strictly increasing gaps
 	// (m, ≥ 0) and forces (N, ≥ 0).
 	Points []TablePoint
-
-	slope []float64 // Fritsch–Carlson tangents, set by NewForceTable
 }
 
 // TablePoint is one point of a [ForceTable]: the force in N at the gap in
@@ -71,8 +69,8 @@ type TablePoint struct {
 	Gap, Force float64
 }
 
-// NewForceTable returns the table of the points (copied), validated and
-// with its interpolant prepared. Its errors are [*InputError]s naming
+// NewForceTable returns the table of the points (copied), validated. Its
+// errors are [*InputError]s naming
 // "Points" (fewer than two) or "Points[i].Gap" and "Points[i].Force" (not
 // finite, negative, or gaps not strictly increasing).
 func NewForceTable(points []TablePoint) (*ForceTable, error) {
@@ -80,7 +78,6 @@ func NewForceTable(points []TablePoint) (*ForceTable, error) {
 	if err := t.check(); err != nil {
 		return nil, err
 	}
-	t.slope = tangents(t.Points)
 	return t, nil
 }
 
@@ -116,38 +113,50 @@ func (t *ForceTable) check() error {
 	return nil
 }
 
-// tangents returns the Fritsch–Carlson tangents: the three-point average of
-// the secants (the ends take their secant), zero where the data has a
-// peak or a flat, and the pair of tangents of an interval scaled onto the
-// circle α² + β² = 9 when outside it (Fritsch & Carlson 1980, §4, the
-// sufficient condition of their Fig. 2 region).
-func tangents(p []TablePoint) []float64 {
+// tangents returns the final Fritsch–Carlson tangents at the ends of
+// interval lo: the initial tangents are the three-point average of the
+// secants (the ends take their secant), zero where the data has a peak or
+// a flat; then interval by interval from the first, a pair of tangents
+// outside the circle α² + β² = 9 (α, β the tangents over the secant) is
+// scaled onto it (Fritsch & Carlson 1980, §4, the sufficient condition of
+// their Fig. 2 region). Interval k changes the tangents at k and k + 1
+// only, so the tangent at k is final after interval k: the loop runs to
+// interval lo + 1, without storage.
+func tangents(p []TablePoint, lo int) (float64, float64) {
 	n := len(p)
-	d := make([]float64, n-1)
-	for k := range d {
-		d[k] = (p[k+1].Force - p[k].Force) / (p[k+1].Gap - p[k].Gap)
-	}
-	m := make([]float64, n)
-	m[0], m[n-1] = d[0], d[n-2]
-	for k := 1; k < n-1; k++ {
-		if d[k-1]*d[k] <= 0 {
-			m[k] = 0
-		} else {
-			m[k] = (d[k-1] + d[k]) / 2
+	sec := func(k int) float64 { return (p[k+1].Force - p[k].Force) / (p[k+1].Gap - p[k].Gap) }
+	initial := func(k int) float64 {
+		switch {
+		case k == 0:
+			return sec(0)
+		case k == n-1:
+			return sec(n - 2)
 		}
-	}
-	for k, dk := range d {
-		if dk == 0 {
-			m[k], m[k+1] = 0, 0
-			continue
+		d0, d1 := sec(k-1), sec(k)
+		if d0*d1 <= 0 {
+			return 0
 		}
-		a, b := m[k]/dk, m[k+1]/dk
-		if s := a*a + b*b; s > 9 {
-			tau := 3 / math.Sqrt(s)
-			m[k], m[k+1] = tau*a*dk, tau*b*dk
-		}
+		return (d0 + d1) / 2
 	}
-	return m
+	carry := initial(0)
+	var mlo float64
+	for k := 0; k <= min(lo+1, n-2); k++ {
+		a, b := carry, initial(k+1)
+		if dk := sec(k); dk == 0 {
+			a, b = 0, 0
+		} else if al, be := a/dk, b/dk; al*al+be*be > 9 {
+			tau := 3 / math.Sqrt(al*al+be*be)
+			a, b = tau*al*dk, tau*be*dk
+		}
+		if k == lo {
+			mlo = a
+		}
+		if k == lo+1 {
+			return mlo, a
+		}
+		carry = b
+	}
+	return mlo, carry
 }
 
 // Force returns the interpolated force in N at the gap in m and its slope
@@ -161,10 +170,6 @@ func (t *ForceTable) Force(gap float64) (float64, float64, error) {
 	}
 	p := t.Points
 	n := len(p)
-	m := t.slope
-	if len(m) != n {
-		m = tangents(p) // a table made without NewForceTable
-	}
 	switch {
 	case gap <= p[0].Gap:
 		return p[0].Force, 0, nil
@@ -180,13 +185,14 @@ func (t *ForceTable) Force(gap float64) (float64, float64, error) {
 			hi = mid
 		}
 	}
+	mlo, mhi := tangents(p, lo)
 	h := p[hi].Gap - p[lo].Gap
 	s := (gap - p[lo].Gap) / h
 	// Cubic Hermite basis on [0, 1] and its derivative.
 	h00, h10, h01, h11 := (1+2*s)*(1-s)*(1-s), s*(1-s)*(1-s), s*s*(3-2*s), s*s*(s-1)
-	f := h00*p[lo].Force + h10*h*m[lo] + h01*p[hi].Force + h11*h*m[hi]
+	f := h00*p[lo].Force + h10*h*mlo + h01*p[hi].Force + h11*h*mhi
 	d00, d10, d01, d11 := 6*s*(s-1), (1-s)*(1-3*s), 6*s*(1-s), s*(3*s-2)
-	df := (d00*p[lo].Force+d01*p[hi].Force)/h + d10*m[lo] + d11*m[hi]
+	df := (d00*p[lo].Force+d01*p[hi].Force)/h + d10*mlo + d11*mhi
 	if !allFinite(f, df) {
 		return 0, 0, &InputError{Field: "gap", Err: fmt.Errorf("%w: the interpolated force at %g m overflows", ErrRange, gap)}
 	}

@@ -320,8 +320,8 @@ func (m *Model) setPreloads(ps []Preload) error {
 }
 
 // lawOf validates p's Law and Gap (field f is "preloads[i]") and sets
-// p.Force and p.Rate from the law at the seated gap; a table made without
-// NewForceTable is replaced by a prepared copy.
+// p.Force and p.Rate from the law at the seated gap; a table is replaced
+// by a copy.
 func lawOf(p *Preload, f string) error {
 	if p.Law == nil {
 		if p.Gap != 0 {
@@ -341,8 +341,8 @@ func lawOf(p *Preload, f string) error {
 		}
 		return err
 	}
-	if t, ok := p.Law.(*ForceTable); ok && len(t.slope) != len(t.Points) {
-		p.Law, _ = NewForceTable(t.Points)
+	if t, ok := p.Law.(*ForceTable); ok {
+		p.Law = &ForceTable{Points: append([]TablePoint(nil), t.Points...)} // the caller's slice may change
 	}
 	if err := checkGap(p.Gap); err != nil {
 		return &InputError{Field: f + ".Gap", Err: err.(*InputError).Err}
