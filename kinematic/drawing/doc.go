@@ -5,7 +5,9 @@
 // ranked by contributor ([Budget]), the contact forces of each load
 // case ([Forces]), and random vibration: the test spectrum on log–log
 // axes with the response at the point of interest ([RandomSpectrum],
-// g²/Hz against Hz) and each contact's margin ([RandomMargins]). Each takes the library's own values (a design.Built
+// g²/Hz against Hz) and each contact's margin ([RandomMargins]), and the
+// force law of a gap-dependent preload element with its operating and
+// runaway points ([PreloadCurve], N against the gap in mm). Each takes the library's own values (a design.Built
 // and its design.Evaluation, a kinematic.StudyResult, kinematic.Scorecard,
 // kinematic.Budget or kinematic.Statics values), an io.Writer and an
 // [*Options] whose zero value (or nil) draws with the defaults. Titles
@@ -19,7 +21,7 @@
 //	err = drawing.Plan(f, b, ev, &drawing.Options{PointName: "mirror vertex"})
 //
 // The pictures are also plot.Plotter values ([PlanPlotter],
-// [LiftOffPlotters], [HistogramPlotters]) that a caller adds to a
+// [LiftOffPlotters], [HistogramPlotters], [PreloadCurvePlotters]) that a caller adds to a
 // plot.Plot of their own, with their own axes, title and size.
 //
 // # Units and conventions
