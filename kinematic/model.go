@@ -319,6 +319,21 @@ func (m *Model) setPreloads(ps []Preload) error {
 	return nil
 }
 
+// AtSeat returns the element's force in N and rate in N/m at the seated
+// position: Force and Rate, or for an element with a Law the law's force
+// at Gap and minus its slope there. Its errors are those of the law (an
+// [*InputError] naming the law's field or "gap").
+func (p Preload) AtSeat() (force, rate float64, err error) {
+	if p.Law == nil {
+		return p.Force, p.Rate, nil
+	}
+	f, s, err := p.Law.Force(p.Gap)
+	if err != nil {
+		return 0, 0, err
+	}
+	return f, -s, nil
+}
+
 // lawOf validates p's Law and Gap (field f is "preloads[i]") and sets
 // p.Force and p.Rate from the law at the seated gap; a table is replaced
 // by a copy.

@@ -179,3 +179,10 @@ func PreloadCurve(w io.Writer, p kinematic.Preload, opt *Options) error {
 		layout(c, pl, nil, o.notes(notes...))
 	})
 }
+
+// seated returns the element's force at the seat, N (0 for a law that
+// cannot be evaluated: a built design's laws can).
+func seated(p kinematic.Preload) float64 {
+	f, _, _ := p.AtSeat()
+	return f
+}
