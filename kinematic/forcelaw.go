@@ -391,7 +391,12 @@ func phiZ(u, v, w float64, fu, fv bool) (float64, float64) {
 	rest := -r * w
 	drest := -(r*r + w*w) / r
 	if uv != 0 {
-		rest += uv * math.Atan2(uv, r*w)
+		// W ≥ 0 (the gap is), and at W = 0 the limit W → 0⁺ is ±π/2.
+		at := math.Copysign(math.Pi/2, uv)
+		if w > 0 {
+			at = math.Atan(uv / (r * w))
+		}
+		rest += uv * at
 		drest -= uv * uv * (r*r + w*w) / (r * (u*u + w*w) * (v*v + w*w))
 	}
 	return mv*pu + mu*pv + mu*mv*rest, mv*du + mu*dv + mu*mv*drest

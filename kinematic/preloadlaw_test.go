@@ -12,7 +12,7 @@ import (
 // vees) held by one element along −z through the axis with the law at the
 // gap (or, for a nil law, the force and rate given), and a payload of
 // 0.8 kg at the contacts' height.
-func lawModel(t *testing.T, law ForceLaw, gap, force, rate float64) *Model {
+func lawModel(t testing.TB, law ForceLaw, gap, force, rate float64) *Model {
 	t.Helper()
 	c, err := BisectorVees(equilateral(), three(vee45))
 	if err != nil {
@@ -179,5 +179,26 @@ func TestPreloadLawErrors(t *testing.T) {
 		if !errors.As(err, &ie) || ie.Field != tc.field || !errors.Is(err, tc.want) {
 			t.Errorf("%+v: %v; want %s wrapping %v", tc.p, err, tc.field, tc.want)
 		}
+	}
+}
+
+// BenchmarkShockLaw is Model.Shock of the three-vee held by a magnet pair
+// (the runaway search along the lift: a grid and a golden-section
+// refinement per contact) and by a linear element of the same force.
+func BenchmarkShockLaw(b *testing.B) {
+	law := MagnetPair{Moving: n42, Base: n42}
+	F, _, _ := law.Force(0.0006)
+	for _, c := range []struct {
+		name string
+		m    *Model
+	}{{"magnet", lawModel(b, law, 0.0006, 0, 0)}, {"linear", lawModel(b, nil, 0, F, 0)}} {
+		b.Run(c.name, func(b *testing.B) {
+			b.ReportAllocs()
+			for b.Loop() {
+				if _, err := c.m.Shock(LoadCase{PreloadFactor: 1}, 10); err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
 	}
 }
