@@ -91,8 +91,11 @@
 // remanence Br in T. The touching limit (gap 0) gives a finite force but
 // an infinite stiffness for faces with an edge in common, so a seated gap
 // must be > 0; beyond 20 magnet sizes the force is the point-dipole limit.
-// Statics, stiffness, modes, the Monte Carlo and the preload window use
-// the law's force and slope at the seated gap; the shock's runaway level
+// Statics, stiffness, modes, random vibration, the scorecard and the
+// preload window use the law's force and slope at the seated gap (the
+// Monte Carlo study of tolerances is geometric and needs no preload; the
+// friction repeatability takes the forces from the statics); the shock's
+// runaway level
 // ([Shock.Runaway]) follows the law along the lift, and the preload
 // window gives the range of seated gaps ([PreloadSizing.Gaps]). The
 // nonlinear equilibrium uses the law's tangent at the seat, so its
