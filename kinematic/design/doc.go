@@ -64,8 +64,9 @@
 //	                    (kinematic.MagnetPlate): {"size", "grade" or "remanence"}
 //	  table             instead of force and rate: [[gap, force], ...], lengths and forces,
 //	                    gaps increasing, at most 256 (kinematic.ForceTable)
-//	  gap               length ≥ 0 (> 0 for touching magnet faces), the seated gap of
-//	                    magnet, magnet_plate or table; required with them
+//	  gap               length ≥ 0, the seated gap of magnet, magnet_plate or table (the
+//	                    clearance between the pole faces, > 0 for magnets: touching faces
+//	                    have no finite stiffness); required with them
 //	payload             object, default none (massless)
 //	  mass              mass ≥ 0; default 0
 //	  centre            [x, y, z] lengths, the centre of mass; default origin
