@@ -15,7 +15,11 @@
 // worst shock, friction seating, stiffness and natural frequencies, the
 // error budget at the point of interest with the Monte Carlo study as
 // the file sets it (monte_carlo: samples, seed, exact), the thermal drift
-// over the file's delta_t, and every requirement's verdict.
+// over the file's delta_t, and every requirement's verdict. A preload
+// element whose force depends on its gap (magnet, magnet_plate, table)
+// gets its curve's figures at the seat, its window in force and gap, the
+// shock at which the part runs away against compression springs of the
+// same static force, and a drawing of its curve (preload-curve-N.svg).
 //
 // The design is never changed unless asked: with -optimize the optimiser
 // runs with the file's own packaging (keep_outs, windows) and optimize
