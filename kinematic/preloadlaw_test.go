@@ -6,6 +6,8 @@ import (
 	"testing"
 
 	"gonum.org/v1/gonum/spatial/r3"
+
+	"github.com/sixfold-dev/sixfold/internal/fuzzdata"
 )
 
 // lawModel returns the equilateral three-vee of equilateralModel (90°
@@ -201,4 +203,55 @@ func BenchmarkShockLaw(b *testing.B) {
 			}
 		})
 	}
+}
+
+// FuzzRunaway builds the three-vee held by a force table of arbitrary
+// points at an arbitrary gap and preload factor and checks that NewModel
+// refuses it with a named field or that Shock gives a runaway level that
+// is not NaN and not below the level at which the first contact opens.
+// The bytes are float64s: gap, preload factor, payload mass, then pairs
+// of gap and force.
+func FuzzRunaway(f *testing.F) {
+	f.Add(fuzzdata.Append(nil, 0.001, 1, 0.8, 0, 20, 0.001, 30, 0.002, 45, 0.003, 30, 0.006, 5))
+	f.Add(fuzzdata.Append(nil, 0.0005, 2, 0.1, 0, 40, 0.001, 24, 0.004, 4))
+	f.Add(fuzzdata.Append(nil, 0, -1, 1e-300, 0, 1e300, 1e-300, 0))
+	f.Add(fuzzdata.Append(nil, math.NaN(), 1, 1, 0, 1, 1, -1))
+	c, err := BisectorVees(equilateral(), three(vee45))
+	if err != nil {
+		f.Fatal(err)
+	}
+	cs, err := c.Contacts()
+	if err != nil {
+		f.Fatal(err)
+	}
+	f.Fuzz(func(t *testing.T, b []byte) {
+		xs := fuzzdata.Floats(b, 1)
+		if len(xs) < 5 || len(xs) > 67 {
+			return
+		}
+		v := make([]float64, len(xs))
+		for i := range xs {
+			v[i] = xs[i][0]
+		}
+		tb := &ForceTable{}
+		for i := 3; i+1 < len(v); i += 2 {
+			tb.Points = append(tb.Points, TablePoint{Gap: v[i], Force: v[i+1]})
+		}
+		pre := []Preload{{Point: r3.Vec{Z: 0.02}, Direction: r3.Vec{Z: -1}, Law: tb, Gap: v[0]}}
+		m, err := NewModel(cs, pre, Payload{Mass: v[2], Centre: r3.Vec{Z: 0.01}})
+		if err != nil {
+			var ie *InputError
+			if !errors.As(err, &ie) || ie.Field == "" {
+				t.Fatalf("error without a field: %v", err)
+			}
+			return
+		}
+		sh, err := m.Shock(LoadCase{PreloadFactor: v[1]}, 9.8)
+		if err != nil {
+			return
+		}
+		if math.IsNaN(sh.Runaway) || sh.Runaway < sh.Unload {
+			t.Fatalf("runaway %g, unload %g", sh.Runaway, sh.Unload)
+		}
+	})
 }
