@@ -36,6 +36,14 @@ fi
 mutants() {
 	cat <<'LIST'
 kinematic ||| kinematic/statics.go ||| ql := r3.Sub(q, m.origin) ||| ql := q
+kinematic ||| kinematic/model.go ||| p.Force, p.Rate = force, -slope ||| p.Force, p.Rate = force, slope
+kinematic ||| kinematic/forcelaw.go ||| k := a.Remanence * b.Remanence / (4 * math.Pi * mu0) ||| k := a.Remanence * b.Remanence / (2 * math.Pi * mu0)
+kinematic ||| kinematic/forcelaw.go ||| tau := 3 / math.Sqrt(al*al+be*be) ||| tau := 2 / math.Sqrt(al*al+be*be)
+kinematic ||| kinematic/forcelaw.go ||| return f, 2 * df, nil ||| return f, df, nil
+kinematic ||| kinematic/forcelaw.go ||| f := k * (15*z*z*z/r7 - 9*z/r5) ||| f := k * (15*z*z*z/r7 - 6*z/r5)
+kinematic ||| kinematic/statics.go ||| pij := -r3.Dot(t.At(p.p), p.dir) ||| pij := r3.Dot(t.At(p.p), p.dir)
+kinematic ||| kinematic/statics.go ||| slope -= factor * p.rate * pij * pij ||| slope += factor * p.rate * pij * pij
+kinematic ||| kinematic/preload.go ||| if (force(c) >= v) == falling { ||| if (force(c) >= v) != falling {
 kinematic ||| kinematic/statics.go ||| a <= l.Scale*(1+unloadTol) ||| a < l.Scale*(1-unloadTol)
 kinematic ||| kinematic/thermal.go ||| s.R *= 1 + pr.alpha*dt ||| s.R *= 1 - pr.alpha*dt
 kinematic ||| kinematic/thermal.go ||| q = r3.Add(newRoot, r3.Scale(1+pr.alpha*dt, r3.Sub(q, root))) ||| q = r3.Add(newRoot, r3.Sub(q, root))

@@ -71,6 +71,36 @@
 // contact is not a Hertz point contact; the analyses that need its
 // elasticity or stress return an error naming it.
 //
+// # Gap-dependent preload
+//
+// A preload element may give its force as a [ForceLaw] of its gap: a
+// table of measured forces ([ForceTable], monotone cubic), two cuboid
+// magnets ([MagnetPair]) or a magnet on a steel plate ([MagnetPlate]).
+// The gap, in m, is the separation along the element's line that grows
+// as the moving body lifts off its seats (moves against the element's
+// Direction); the force, in N, is the element's pull or push along
+// Direction, attraction positive for a magnet; its stiffness dF/dgap is
+// negative for a magnet (a negative spring: it lowers the coupling's
+// stiffness, its natural frequencies and the lift-off level) and positive
+// for a compression spring pressing the part down. [Preload.Rate] is
+// −dF/dgap. Magnets: sizes are full edge lengths (the published closed
+// form is written with half edges), magnetised along their third edge
+// with parallel magnetisation; the gap is the clearance between the
+// facing pole faces; a lateral offset is between centres; the relative
+// permeability is 1 (rigid magnets, no demagnetisation by the partner);
+// remanence Br in T. The touching limit (gap 0) gives a finite force but
+// an infinite stiffness for faces with an edge in common, so a seated gap
+// must be > 0; beyond 20 magnet sizes the force is the point-dipole limit.
+// Statics, stiffness, modes, random vibration, the scorecard and the
+// preload window use the law's force and slope at the seated gap (the
+// Monte Carlo study of tolerances is geometric and needs no preload; the
+// friction repeatability takes the forces from the statics); the shock's
+// runaway level
+// ([Shock.Runaway]) follows the law along the lift, and the preload
+// window gives the range of seated gaps ([PreloadSizing.Gaps]). The
+// nonlinear equilibrium uses the law's tangent at the seat, so its
+// displacements must be small against the gap.
+//
 // # Error budget
 //
 // An [Assembly] describes a coupling by its own geometry: the balls on the

@@ -31,6 +31,7 @@ var fileOrder = []string{
 	"analyze.go",
 	"stability.go",
 	"geometry.go",
+	"forcelaw.go",
 	"model.go",
 	"statics.go",
 	"preload.go",

@@ -29,6 +29,16 @@ const StandardGravity = 9.80665
 // body into the seats gains force as the gap closes (Rate > 0). Rate enters
 // the stiffness and the nonlinear equilibrium; rigid statics uses Force.
 // Couple is a pure moment in N·m added to the element.
+//
+// An element whose force depends on its gap (a magnet, a spring measured
+// as a table) gives Law and its seated Gap instead of Force and Rate
+// (which must then be zero): Force is the law's force at Gap, and Rate is
+// minus the law's slope, −dF/dgap, since the gap closes as the body moves
+// along Direction (a magnet, whose force falls as the gap opens, has a
+// positive Rate: a negative spring that lowers the coupling's stiffness).
+// Every analysis uses these two at the seat; [Model.Shock] follows the
+// whole law along the lift path ([Shock.Runaway]) and [Model.SizePreload]
+// gives the window in force and gap ([PreloadSizing.Gaps]).
 type Preload struct {
 	Name      string
 	Point     r3.Vec  // m, a point of the line of action
@@ -36,6 +46,9 @@ type Preload struct {
 	Force     float64 // N, ≥ 0, at the seated position
 	Rate      float64 // N/m, d(Force)/d(displacement along Direction)
 	Couple    r3.Vec  // N·m
+
+	Law ForceLaw // the force against the gap; nil for Force and Rate
+	Gap float64  // m, ≥ 0: the seated gap of Law
 }
 
 // Payload is the moving body and what it carries, for gravity, shocks and
@@ -128,6 +141,8 @@ type preloadLine struct {
 	dir  r3.Vec       // unit direction of the force (zero for a pure couple)
 	p    r3.Vec       // point of the line, about origin
 	rate float64
+	law  ForceLaw // nil for a linear element
+	gap  float64  // the seated gap of law, m
 }
 
 // NewModel returns the contacts cs prepared with the preload elements and
@@ -140,6 +155,11 @@ type preloadLine struct {
 // "preloads[i].Direction" for a zero or non-finite direction (when Force is
 // not zero), "preloads[i].Force" for a negative or non-finite force,
 // "preloads[i].Point", ".Rate" or ".Couple" when not finite,
+// "preloads[i].Law.…" for an invalid law (its own field after "Law."),
+// "preloads[i].Gap" for a gap that is negative, not finite, given
+// without a Law, or where the law's force is negative or its stiffness
+// infinite (magnet faces touching), and ".Force" or ".Rate" when given
+// beside a Law,
 // "preloads[i].Force" or "preloads" wrapping [ErrRange] when an element's
 // moment or their sum overflows; "payload.Mass"
 // for a negative or non-finite mass, "payload.Centre" when not finite, and
@@ -274,8 +294,11 @@ func (m *Model) setPreloads(ps []Preload) error {
 		if !linalg.Finite(p.Rate) {
 			return &InputError{Field: f + ".Rate", Err: fmt.Errorf("%w: %g", ErrNonFinite, p.Rate)}
 		}
-		pl := preloadLine{name: p.Name, p: r3.Sub(p.Point, m.origin), rate: p.Rate}
-		if p.Force != 0 || p.Rate != 0 {
+		if err := lawOf(&p, f); err != nil {
+			return err
+		}
+		pl := preloadLine{name: p.Name, p: r3.Sub(p.Point, m.origin), rate: p.Rate, law: p.Law, gap: p.Gap}
+		if p.Force != 0 || p.Rate != 0 || p.Law != nil {
 			d, err := unitOf(p.Direction, f+".Direction")
 			if err != nil {
 				return err
@@ -293,6 +316,63 @@ func (m *Model) setPreloads(ps []Preload) error {
 			return &InputError{Field: "preloads", Err: fmt.Errorf("%w: the sum of the preload elements overflows", ErrRange)}
 		}
 	}
+	return nil
+}
+
+// AtSeat returns the element's force in N and rate in N/m at the seated
+// position: Force and Rate, or for an element with a Law the law's force
+// at Gap and minus its slope there. Its errors are those of the law (an
+// [*InputError] naming the law's field or "gap").
+func (p Preload) AtSeat() (force, rate float64, err error) {
+	if p.Law == nil {
+		return p.Force, p.Rate, nil
+	}
+	f, s, err := p.Law.Force(p.Gap)
+	if err != nil {
+		return 0, 0, err
+	}
+	return f, -s, nil
+}
+
+// lawOf validates p's Law and Gap (field f is "preloads[i]") and sets
+// p.Force and p.Rate from the law at the seated gap; a table is replaced
+// by a copy.
+func lawOf(p *Preload, f string) error {
+	if p.Law == nil {
+		if p.Gap != 0 {
+			return &InputError{Field: f + ".Gap", Err: fmt.Errorf("%w: a seated gap needs a Law", ErrRange)}
+		}
+		return nil
+	}
+	if p.Force != 0 {
+		return &InputError{Field: f + ".Force", Err: fmt.Errorf("%w: the Law gives the force: leave Force 0", ErrRange)}
+	}
+	if p.Rate != 0 {
+		return &InputError{Field: f + ".Rate", Err: fmt.Errorf("%w: the Law gives the rate: leave Rate 0", ErrRange)}
+	}
+	if err := p.Law.check(); err != nil {
+		if ie, ok := err.(*InputError); ok {
+			return &InputError{Field: f + ".Law." + ie.Field, Err: ie.Err}
+		}
+		return err
+	}
+	if t, ok := p.Law.(*ForceTable); ok {
+		p.Law = &ForceTable{Points: append([]TablePoint(nil), t.Points...)} // the caller's slice may change
+	}
+	if err := checkGap(p.Gap); err != nil {
+		return &InputError{Field: f + ".Gap", Err: err.(*InputError).Err}
+	}
+	force, slope, err := p.Law.Force(p.Gap)
+	if err != nil {
+		return &InputError{Field: f + ".Gap", Err: err.(*InputError).Err}
+	}
+	if force < 0 {
+		return &InputError{Field: f + ".Gap", Err: fmt.Errorf("%w: the law's force at %g m is %g N, a repulsion (a magnet offset beyond its partner's face?)", ErrRange, p.Gap, force)}
+	}
+	if !allFinite(slope) {
+		return &InputError{Field: f + ".Gap", Err: fmt.Errorf("%w: the law's stiffness at %g m is infinite (magnet faces touching): give the seated clearance, > 0", ErrRange, p.Gap)}
+	}
+	p.Force, p.Rate = force, -slope
 	return nil
 }
 

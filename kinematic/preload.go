@@ -37,6 +37,29 @@ type PreloadSizing struct {
 	// MinScale ≤ MaxScale.
 	MinScale, MaxScale     float64
 	MinBinding, MaxBinding Bound
+
+	// Gaps holds, per preload element, the window of an element with a
+	// [ForceLaw] in force and in seated gap at the common scale (the
+	// zero GapWindow for an element without a law): the gap is how a
+	// magnet's preload is sized, and MinScale rounded up is the number of
+	// such elements, side by side, that the smallest preload needs.
+	Gaps []GapWindow
+}
+
+// GapWindow is the preload window of an element with a force law.
+type GapWindow struct {
+	// MinForce and MaxForce are the element's force in N at MinScale and
+	// at MaxScale (+Inf when MaxScale is).
+	MinForce, MaxForce float64
+
+	// MinGap and MaxGap bound the seated gaps in m at which the law's
+	// force lies in [MinForce, MaxForce] (MaxGap +Inf when the force never
+	// falls below MinForce within ten times the law's reach); Met reports
+	// whether there is such a gap. They are computed for a law that is
+	// monotone over that range (a magnet, a spring's table) and left zero,
+	// with Met false, for one that is not.
+	MinGap, MaxGap float64
+	Met            bool
 }
 
 // bindTol is the relative margin within which a contact counts as binding
@@ -117,7 +140,83 @@ func (m *Model) SizePreload(cases []LoadCase, minForce float64) (PreloadSizing, 
 		return PreloadSizing{}, &InputError{Field: "preloads", Err: fmt.Errorf("%w: the sized preload overflows", ErrRange)}
 	}
 	sz.Binding = bindings(sz.Factors, a, e, minForce, bound)
+	sz.Gaps = make([]GapWindow, nj)
+	for j, p := range m.preloads {
+		if p.law != nil {
+			f := linalg.Norm3(p.w.F)
+			sz.Gaps[j] = gapWindow(p.law, sz.MinScale*f, sz.MaxScale*f)
+		}
+	}
 	return sz, nil
+}
+
+// gapWindow returns the window of the law for forces in [lo, hi], by
+// bisection on the gap over [0, 10·reach] for a law that is monotone
+// there (checked on 200 points).
+func gapWindow(law ForceLaw, lo, hi float64) GapWindow {
+	w := GapWindow{MinForce: lo, MaxForce: hi}
+	if math.IsNaN(hi) {
+		w.MaxForce = math.Inf(1)
+		hi = w.MaxForce
+	}
+	end := 10 * law.reach()
+	force := func(g float64) float64 {
+		f, _, err := law.Force(g)
+		if err != nil {
+			return math.NaN()
+		}
+		return f
+	}
+	const n = 200
+	f0, fe := force(0), force(end)
+	falling := fe <= f0
+	prev := f0
+	for k := 1; k <= n; k++ {
+		f := force(end * float64(k) / n)
+		if math.IsNaN(f) || (falling && f > prev) || (!falling && f < prev) {
+			return w
+		}
+		prev = f
+	}
+	// solve returns the gap at which the force crosses v, between 0 and
+	// end, where force(0) and force(end) lie on either side of v.
+	solve := func(v float64) float64 {
+		a, b := 0.0, end
+		for range 100 {
+			c := (a + b) / 2
+			if (force(c) >= v) == falling {
+				a = c
+			} else {
+				b = c
+			}
+			if b-a <= 1e-15*end {
+				break
+			}
+		}
+		return (a + b) / 2
+	}
+	fmax, fmin := math.Max(f0, fe), math.Min(f0, fe)
+	w.Met = lo <= fmax && hi >= fmin && lo <= hi
+	if !w.Met {
+		return w
+	}
+	w.MinGap, w.MaxGap = 0, math.Inf(1)
+	if falling {
+		if hi < f0 {
+			w.MinGap = solve(hi)
+		}
+		if lo > fe {
+			w.MaxGap = solve(lo)
+		}
+	} else {
+		if lo > f0 {
+			w.MinGap = solve(lo)
+		}
+		if hi < fe {
+			w.MaxGap = solve(hi)
+		}
+	}
+	return w
 }
 
 // sizingForces returns the contact forces of the sizing: a[j][i], the

@@ -143,6 +143,16 @@ type Shock struct {
 	// unloads First[0] soonest (unit).
 	First     []string
 	Direction r3.Vec
+
+	// Runaway is the smallest acceleration magnitude, in m/s², at which
+	// the part can no longer be held: past it, the part lifts off a
+	// contact and keeps going. It is the least of the contacts' Runaway
+	// levels, never below Unload: equal to it when every preload force
+	// falls or stays as the part lifts (a magnet, a constant force: the
+	// part lets go where the first contact opens), above it when the
+	// preload grows as the part lifts (a compression spring: +Inf, the
+	// part lifts and is pulled back).
+	Runaway float64
 }
 
 // ShockContact is one contact under the worst shock.
@@ -155,6 +165,14 @@ type ShockContact struct {
 	// Unload is the acceleration magnitude in m/s² along Worst at which
 	// the contact unloads, Base/Gain (+Inf when Gain is 0; 0 when Base ≤ 0).
 	Unload float64
+
+	// Runaway is the acceleration magnitude in m/s² along Direction
+	// beyond which, once the contact has opened, no lift holds the part:
+	// the largest over the lift q ≥ 0 of the force the preload and the
+	// base case would give the contact, divided by Gain (see
+	// [Model.Shock]). ≥ Unload; +Inf when the preload grows without bound
+	// as the part lifts or Gain is 0; 0 when Base ≤ 0.
+	Runaway float64
 }
 
 // Shock returns, for an acceleration of the base of the given magnitude in
@@ -168,6 +186,18 @@ type ShockContact struct {
 // velocity of c under the twist of power δᵢⱼ with contact j; so the worst
 // direction is u = −Tᵢ(c)/|Tᵢ(c)| and the least force f₀ᵢ − m a |Tᵢ(c)|, in
 // closed form. Rotational accelerations are not modelled.
+//
+// The runaway level follows the preload along the lift: once contact i
+// opens, the part moves by q along the same twist Tᵢ (the other five
+// contacts stay closed; q is the opening of contact i), the gap of each
+// preload element j grows by q·Pᵢⱼ, where Pᵢⱼ = −Tᵢ(pⱼ)·dⱼ is the force at
+// contact i per newton of element j, and its force changes along its
+// [ForceLaw] (or by −Rate·Δgap for a linear element). The part is held at
+// the lift q while the force contact i would carry there,
+// hᵢ(q) = f₀ᵢ + Σⱼ Pᵢⱼ ΔFⱼ(q), exceeds a·Gainᵢ; so it runs away at
+// a = max over q of hᵢ(q)/Gainᵢ, found on a grid of lifts out to the laws' reach
+// and refined by golden-section search. The five other contacts are not
+// checked along the lift, and the geometry is linear in q.
 //
 // Shock returns the errors of [Model.Statics] (without the Hertz ones),
 // and an [*InputError] naming "magnitude" when it is negative or not
@@ -225,6 +255,17 @@ func (m *Model) Shock(base LoadCase, magnitude float64) (Shock, error) {
 			}
 		}
 		s.Unload = math.Min(s.Unload, sc.Unload)
+		sc.Runaway = sc.Unload
+		if f[i] > 0 && sc.Gain > 0 {
+			sc.Runaway = m.runaway(i, f[i], base.factor()) / sc.Gain
+			if math.IsNaN(sc.Runaway) || sc.Runaway < sc.Unload {
+				sc.Runaway = sc.Unload
+			}
+		}
+	}
+	s.Runaway = math.Inf(1)
+	for _, sc := range s.Contacts {
+		s.Runaway = math.Min(s.Runaway, sc.Runaway)
 	}
 	for _, sc := range s.Contacts {
 		if sc.Unload <= s.Unload*(1+unloadTol) && !math.IsInf(sc.Unload, 1) {
@@ -235,6 +276,99 @@ func (m *Model) Shock(base LoadCase, magnitude float64) (Shock, error) {
 		}
 	}
 	return s, nil
+}
+
+// runawayGrid is the number of lifts at which [Model.runaway] evaluates
+// the held force before refining the best; the refinement takes
+// runawayRefine golden-section steps, shrinking the bracket by
+// 0.618^60 ≈ 3e-13.
+const (
+	runawayGrid   = 96
+	runawayRefine = 60
+)
+
+// runaway returns the largest force, N, that contact i (base force f0 >
+// 0) can carry as the part lifts off it along its freed twist with the
+// preload at factor: +Inf when the linear elements' force grows with the
+// lift.
+func (m *Model) runaway(i int, f0, factor float64) float64 {
+	t := m.freed[i]
+	var slope, qmax float64
+	type lawAt struct {
+		law         ForceLaw
+		gap, f0, pf float64
+	}
+	var laws [8]lawAt
+	nl := 0
+	var extra []lawAt
+	for _, p := range m.preloads {
+		pij := -r3.Dot(t.At(p.p), p.dir)
+		if pij == 0 {
+			continue
+		}
+		if p.law == nil {
+			slope -= factor * p.rate * pij * pij
+			continue
+		}
+		la := lawAt{law: p.law, gap: p.gap, f0: linalg.Norm3(p.w.F), pf: pij}
+		if nl < len(laws) {
+			laws[nl] = la
+			nl++
+		} else {
+			extra = append(extra, la)
+		}
+		switch {
+		case pij > 0 && p.law.reach() > p.gap:
+			qmax = math.Max(qmax, (p.law.reach()-p.gap)/pij)
+		case pij < 0:
+			qmax = math.Max(qmax, p.gap/-pij)
+		}
+	}
+	if slope > 0 {
+		return math.Inf(1)
+	}
+	all := append(laws[:nl:nl], extra...)
+	held := func(q float64) float64 {
+		h := f0 + slope*q
+		for _, la := range all {
+			f, _, err := la.law.Force(math.Max(0, la.gap+q*la.pf))
+			if err != nil {
+				return math.Inf(-1)
+			}
+			h += factor * la.pf * (f - la.f0)
+		}
+		return h
+	}
+	if len(all) == 0 || !(qmax > 0) || !allFinite(qmax) {
+		return f0
+	}
+	best, kb := f0, 0
+	for k := 1; k <= runawayGrid; k++ {
+		x := float64(k) / runawayGrid
+		if h := held(qmax * x * x); h > best {
+			best, kb = h, k
+		}
+	}
+	if kb == 0 {
+		return best
+	}
+	lo := qmax * math.Pow(float64(kb-1)/runawayGrid, 2)
+	hi := qmax * math.Pow(math.Min(float64(kb+1), runawayGrid)/runawayGrid, 2)
+	const g = 0.6180339887498949
+	a, b := hi-g*(hi-lo), lo+g*(hi-lo)
+	ha, hb := held(a), held(b)
+	for range runawayRefine {
+		if ha > hb {
+			hi, b, hb = b, a, ha
+			a = hi - g*(hi-lo)
+			ha = held(a)
+		} else {
+			lo, a, ha = a, b, hb
+			b = lo + g*(hi-lo)
+			hb = held(b)
+		}
+	}
+	return math.Max(best, math.Max(ha, hb))
 }
 
 // Limit is how far one load can grow before a contact unloads.

@@ -42,6 +42,9 @@ func (s *study) drawings(n int) error {
 	} else {
 		s.printf("liftoff.svg not drawn: the design has no preload\n")
 	}
+	if err := s.preloadDrawings(title); err != nil {
+		return err
+	}
 	if s.res != nil {
 		o := opt(fmt.Sprintf("%s: %s", title, s.point))
 		o.Notes = []string{fmt.Sprintf("%d parts made to the drawing (Monte Carlo, seed %d)", s.res.Samples, s.d.MonteCarlo.Seed)}

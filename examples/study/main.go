@@ -18,7 +18,11 @@
 // over the file's delta_t, the random vibration response and the
 // hysteresis of the point of interest under the file's load cycle
 // (micro-slip at the contacts) where the file gives them, and every
-// requirement's verdict.
+// requirement's verdict. A preload element whose force depends on its
+// gap (magnet, magnet_plate, table) gets its curve's figures at the seat,
+// its window in force and gap, the shock at which the part runs away
+// against compression springs of the same static force, and a drawing of
+// its curve (preload-curve-N.svg).
 //
 // The design is never changed unless asked: with -optimize the optimiser
 // runs with the file's own packaging (keep_outs, windows) and optimize

@@ -194,11 +194,12 @@ func (s *study) coupling() {
 		if name == "" {
 			name = "preload"
 		}
+		f, r, _ := p.AtSeat() // the design was built: its laws are valid
 		rate := ""
-		if p.Rate != 0 {
-			rate = fmt.Sprintf(", rate %.3g N/mm", p.Rate*1e-3)
+		if r != 0 {
+			rate = fmt.Sprintf(", rate %.3g N/mm", r*1e-3)
 		}
-		s.printf("%s: %.2f N along %s through %s%s\n", name, p.Force, dir(p.Direction), mm(p.Point), rate)
+		s.printf("%s: %.2f N along %s through %s%s%s\n", name, f, dir(p.Direction), mm(p.Point), rate, lawText(p))
 	}
 	if pl := s.d.Payload; pl.Mass > 0 {
 		s.printf("payload: %.4g kg, centre of mass %s\n", pl.Mass, mm(pl.Centre))
@@ -253,7 +254,8 @@ func (s *study) loads() error {
 		sz, err := s.b.Model().SizePreload(s.d.Cases, minF)
 		total := 0.0
 		for _, p := range s.d.Preloads {
-			total += p.Force
+			f, _, _ := p.AtSeat()
+			total += f
 		}
 		if err != nil {
 			s.printf("preload window: %v\n", err)
@@ -281,7 +283,7 @@ func (s *study) loads() error {
 		}
 		s.printf("friction seating at mu = %.3g under case %q: the body %s; it would up to mu = %.3f\n", h.Mu, s.ev.HomingCase, ok, h.MaxMu)
 	}
-	return nil
+	return s.preloadCurves()
 }
 
 func (s *study) stiffness() {

@@ -97,7 +97,8 @@ func (s *study) preloadForces(f float64) string {
 		if name == "" {
 			name = fmt.Sprintf("preload %d", i+1)
 		}
-		parts = append(parts, fmt.Sprintf("%s %.3g N", name, p.Force*f))
+		force, _, _ := p.AtSeat()
+		parts = append(parts, fmt.Sprintf("%s %.3g N", name, force*f))
 	}
 	return strings.Join(parts, ", ")
 }

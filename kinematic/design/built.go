@@ -108,7 +108,7 @@ func (d *Design) clone() Design {
 	c := *d
 	c.Balls = append([]Ball(nil), d.Balls...)
 	c.Seats = append([]Seat(nil), d.Seats...)
-	c.Preloads = append([]kinematic.Preload(nil), d.Preloads...)
+	c.Preloads = clonePreloads(d.Preloads)
 	c.Tolerances = append([]kinematic.Tolerance(nil), d.Tolerances...)
 	c.Requirements = d.Requirements.clone()
 	if d.Cases != nil {

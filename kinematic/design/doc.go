@@ -54,6 +54,19 @@
 //	  force             force ≥ 0; default 0
 //	  rate              spring rate, N/m, d(force)/d(displacement along direction); default 0
 //	  couple            [x, y, z] moments; default zero
+//	  magnet            instead of force and rate: two cuboid magnets, attracting, on the line
+//	                    (kinematic.MagnetPair): {"size": [a, b, c] lengths, full edges, c along
+//	                    the magnetisation, required; "grade": "N42", "N52", "SmCo" or "Sm2Co17",
+//	                    or "remanence": flux density; "second": the base's magnet {"size",
+//	                    "grade" or "remanence"}, default the same; "offset": [x, y] lengths
+//	                    between the centres, default [0, 0]}
+//	  magnet_plate      instead of force and rate: a magnet on a steel plate
+//	                    (kinematic.MagnetPlate): {"size", "grade" or "remanence"}
+//	  table             instead of force and rate: [[gap, force], ...], lengths and forces,
+//	                    gaps increasing, at most 256 (kinematic.ForceTable)
+//	  gap               length ≥ 0, the seated gap of magnet, magnet_plate or table (the
+//	                    clearance between the pole faces, > 0 for magnets: touching faces
+//	                    have no finite stiffness); required with them
 //	payload             object, default none (massless)
 //	  mass              mass ≥ 0; default 0
 //	  centre            [x, y, z] lengths, the centre of mass; default origin
@@ -342,6 +355,7 @@
 //	time                      s (SI), ms, min, h
 //	spectral density          g^2/Hz (also g2/Hz, g²/Hz), (m/s^2)^2/Hz
 //	slope                     dB/oct, dB/octave
+//	flux density              T (SI), mT
 //
 // A spectral density and a slope are in the units of test specifications
 // and of kinematic.Spectrum, g²/Hz and dB/octave, and a plain number for

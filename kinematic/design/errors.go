@@ -205,6 +205,11 @@ func (t translator) field(f string) string {
 		}
 		return "cases"
 	case name == "preloads" && indexed:
+		if t.b != nil && i < len(t.b.d.Preloads) {
+			if q, ok := lawField(t.b.d.Preloads[i], rest); ok {
+				return join(index("preloads", i), q)
+			}
+		}
 		return join(index("preloads", i), snake(rest))
 	case head == "payload":
 		return payloadField(rest)

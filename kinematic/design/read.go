@@ -642,7 +642,7 @@ func (r *reader) readSeat(n *node, path string) (Seat, error) {
 
 func (r *reader) readPreload(n *node, path string) (kinematic.Preload, error) {
 	var p kinematic.Preload
-	if err := fields(n, path, "a preload", "name", "point", "direction", "force", "rate", "couple"); err != nil {
+	if err := fields(n, path, "a preload", "name", "point", "direction", "force", "rate", "couple", "magnet", "magnet_plate", "table", "gap"); err != nil {
 		return p, err
 	}
 	if err := optText(n, path, "name", maxName, &p.Name); err != nil {
@@ -658,6 +658,9 @@ func (r *reader) readPreload(n *node, path string) (kinematic.Preload, error) {
 		return p, err
 	}
 	if err := r.optQuantity(n, path, "rate", rate, &p.Rate); err != nil {
+		return p, err
+	}
+	if err := r.readLaw(n, path, &p); err != nil {
 		return p, err
 	}
 	return p, r.optVector(n, path, "couple", moment, &p.Couple)

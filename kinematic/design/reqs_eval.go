@@ -183,7 +183,7 @@ func shockVerdict(b *Built, k int, level float64, any bool) (Verdict, error) {
 			note += " with " + gravityNote(g, r3.Scale(-1, s.Direction))
 		}
 	}
-	v.Note = note
+	v.Note = note + runawayNote(&b.d, &s, g)
 	return v, nil
 }
 

@@ -119,6 +119,11 @@ type wirePreload struct {
 	Force     float64 `json:"force"`
 	Rate      float64 `json:"rate,omitempty"`
 	Couple    *vec    `json:"couple,omitempty"`
+
+	Magnet      *wireMagnet  `json:"magnet,omitempty"`
+	MagnetPlate *wireMagnet  `json:"magnet_plate,omitempty"`
+	Table       [][2]float64 `json:"table,omitempty"`
+	Gap         *float64     `json:"gap,omitempty"`
 }
 
 type wirePayload struct {
@@ -256,8 +261,10 @@ func (d *Design) wire() wireDesign {
 		w.Seats = append(w.Seats, ws)
 	}
 	for _, p := range d.Preloads {
-		w.Preloads = append(w.Preloads, wirePreload{Name: p.Name, Point: wireVec(p.Point), Direction: optVec(p.Direction),
-			Force: p.Force, Rate: p.Rate, Couple: optVec(p.Couple)})
+		wp := wirePreload{Name: p.Name, Point: wireVec(p.Point), Direction: optVec(p.Direction),
+			Force: p.Force, Rate: p.Rate, Couple: optVec(p.Couple)}
+		wireLaw(&wp, p)
+		w.Preloads = append(w.Preloads, wp)
 	}
 	if p := d.Payload; p != (kinematic.Payload{}) {
 		wp := &wirePayload{Mass: p.Mass, Centre: wireVec(p.Centre)}

@@ -5,10 +5,12 @@
 // ranked by contributor ([Budget]), the contact forces of each load
 // case ([Forces]), and random vibration: the test spectrum on log–log
 // axes with the response at the point of interest ([RandomSpectrum],
-// g²/Hz against Hz) and each contact's margin ([RandomMargins]), and
-// the hysteresis loop of the point of interest under a load cycle
-// ([Hysteresis], displacement along the load against the load). Each takes the library's own values (a design.Built
-// and its design.Evaluation, a kinematic.StudyResult, kinematic.Scorecard,
+// g²/Hz against Hz) and each contact's margin ([RandomMargins]), the
+// hysteresis loop of the point of interest under a load cycle
+// ([Hysteresis], displacement along the load against the load), and the
+// force law of a gap-dependent preload element with its operating and
+// runaway points ([PreloadCurve], N against the gap in mm). Each takes
+// the library's own values (a design.Built and its design.Evaluation, a kinematic.StudyResult, kinematic.Scorecard,
 // kinematic.Budget or kinematic.Statics values), an io.Writer and an
 // [*Options] whose zero value (or nil) draws with the defaults. Titles
 // and labels come from the caller: the point of interest's name
@@ -21,7 +23,7 @@
 //	err = drawing.Plan(f, b, ev, &drawing.Options{PointName: "mirror vertex"})
 //
 // The pictures are also plot.Plotter values ([PlanPlotter],
-// [LiftOffPlotters], [HistogramPlotters], [HysteresisPlotters]) that a caller adds to a
+// [LiftOffPlotters], [HistogramPlotters], [HysteresisPlotters], [PreloadCurvePlotters]) that a caller adds to a
 // plot.Plot of their own, with their own axes, title and size.
 //
 // # Units and conventions

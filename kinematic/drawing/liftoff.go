@@ -75,7 +75,8 @@ func newLiftOff(b *design.Built, o Options) (*liftOff, error) {
 	// grows without bound; the scale stops at four times the preload.
 	capN := 0.0
 	for _, p := range d.Preloads {
-		capN += 4 * p.Force
+		f, _, _ := p.AtSeat() // the model was built: the law is valid
+		capN += 4 * f
 	}
 	if capN == 0 {
 		capN = 100

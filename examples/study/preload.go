@@ -1,0 +1,165 @@
+package main
+
+import (
+	"fmt"
+	"io"
+	"math"
+
+	"github.com/sixfold-dev/sixfold/kinematic"
+	"github.com/sixfold-dev/sixfold/kinematic/drawing"
+)
+
+// lawText describes a preload element's force law, "" for a linear
+// element.
+func lawText(p kinematic.Preload) string {
+	size := func(m kinematic.Magnet) string {
+		return fmt.Sprintf("%.4g x %.4g x %.4g mm, Br %.3g T", m.Size[0]*1e3, m.Size[1]*1e3, m.Size[2]*1e3, m.Remanence)
+	}
+	var what string
+	switch l := p.Law.(type) {
+	case nil:
+		return ""
+	case kinematic.MagnetPair:
+		what = "magnets " + size(l.Moving)
+		if l.Base != l.Moving {
+			what += " over " + size(l.Base)
+		}
+		if l.Offset != ([2]float64{}) {
+			what += fmt.Sprintf(", offset (%.3g, %.3g) mm", l.Offset[0]*1e3, l.Offset[1]*1e3)
+		}
+	case kinematic.MagnetPlate:
+		what = "magnet " + size(l.Magnet) + " on a steel plate"
+	case *kinematic.ForceTable:
+		what = fmt.Sprintf("table of %d points", len(l.Points))
+	}
+	return fmt.Sprintf(" (%s; seated gap %.3f mm)", what, p.Gap*1e3)
+}
+
+// preloadCurves prints, for each preload element with a force law, its
+// curve's figures at the seat, its preload window in force and gap, and
+// the shock at which the part runs away against a compression spring of
+// the same static force and the same stiffness in size.
+func (s *study) preloadCurves() error {
+	var laws []int
+	for i, p := range s.d.Preloads {
+		if p.Law != nil {
+			laws = append(laws, i)
+		}
+	}
+	if len(laws) == 0 {
+		return nil
+	}
+	var sz *kinematic.PreloadSizing
+	if len(s.d.Cases) > 0 {
+		if w, err := s.b.Model().SizePreload(s.d.Cases, s.d.Requirements.MinContactForce); err == nil {
+			sz = &w
+		}
+	}
+	for _, i := range laws {
+		p := s.d.Preloads[i]
+		f, slope, err := p.Law.Force(p.Gap)
+		if err != nil {
+			return err
+		}
+		kind := "it adds to the coupling's stiffness"
+		if slope < 0 {
+			kind = "a negative spring: it takes from the coupling's stiffness"
+		}
+		s.printf("preload curve of %s: %.2f N at the seated gap of %.3f mm, dF/dgap %.3g N/mm (%s)\n",
+			nameOf(p, i), f, p.Gap*1e3, slope*1e-3, kind)
+		if sz != nil {
+			g := sz.Gaps[i]
+			hi := "no upper limit"
+			if !math.IsInf(g.MaxForce, 1) {
+				hi = fmt.Sprintf("%.2f N", g.MaxForce)
+			}
+			switch {
+			case g.Met:
+				gmax := "any larger gap"
+				if !math.IsInf(g.MaxGap, 1) {
+					gmax = fmt.Sprintf("%.3f mm", g.MaxGap*1e3)
+				}
+				s.printf("  its window: %.2f N to %s, met with a seated gap from %.3f mm to %s\n", g.MinForce, hi, g.MinGap*1e3, gmax)
+			default:
+				s.printf("  its window: %.2f N to %s, met at no gap of this law: change the magnets or their number (%.2f times this element)\n",
+					g.MinForce, hi, sz.MinScale)
+			}
+		}
+	}
+	sh := s.ev.Shock
+	if sh == nil {
+		return nil
+	}
+	var base kinematic.LoadCase
+	for _, c := range s.d.Cases {
+		if c.Name == s.ev.ShockCase {
+			base = c
+		}
+	}
+	// The same coupling held by compression springs of the same static
+	// forces, each growing as the part lifts by the law's stiffness in
+	// size.
+	springs := make([]kinematic.Preload, len(s.d.Preloads))
+	for i, p := range s.d.Preloads {
+		springs[i] = p
+		if p.Law != nil {
+			f, slope, _ := p.Law.Force(p.Gap)
+			springs[i].Law, springs[i].Gap = nil, 0
+			springs[i].Force, springs[i].Rate = f, -math.Abs(slope)
+		}
+	}
+	m, err := kinematic.NewModel(s.b.Contacts(), springs, s.d.Payload)
+	if err != nil {
+		return err
+	}
+	sp, err := m.Shock(base, sh.Magnitude)
+	if err != nil {
+		return err
+	}
+	g := kinematic.StandardGravity
+	s.printf("shock along the lift, added to case %q: the first contact opens at %.2f g; %s\n", s.ev.ShockCase, sh.Unload/g, runaway(sh))
+	s.printf("  with compression springs of the same static force and stiffness %s (force growing as the part lifts): first contact opens at %.2f g; %s\n",
+		"in size", sp.Unload/g, runaway(&sp))
+	return nil
+}
+
+func runaway(sh *kinematic.Shock) string {
+	switch {
+	case math.IsInf(sh.Runaway, 1):
+		return "the part is pulled back at any level (no runaway)"
+	case sh.Runaway <= sh.Unload*(1+1e-9):
+		return fmt.Sprintf("the part runs away at the same %.2f g (the pull only falls as it lifts)", sh.Runaway/kinematic.StandardGravity)
+	}
+	return fmt.Sprintf("the part runs away at %.2f g", sh.Runaway/kinematic.StandardGravity)
+}
+
+func nameOf(p kinematic.Preload, i int) string {
+	if p.Name != "" {
+		return p.Name
+	}
+	return fmt.Sprintf("preload %d", i+1)
+}
+
+// preloadDrawings writes the curve of each preload element with a force
+// law, with the lower end of its window as a line.
+func (s *study) preloadDrawings(title string) error {
+	var sz *kinematic.PreloadSizing
+	if len(s.d.Cases) > 0 {
+		if w, err := s.b.Model().SizePreload(s.d.Cases, s.d.Requirements.MinContactForce); err == nil {
+			sz = &w
+		}
+	}
+	for i, p := range s.d.Preloads {
+		if p.Law == nil {
+			continue
+		}
+		o := &drawing.Options{Title: fmt.Sprintf("%s: %s, force against gap", title, nameOf(p, i))}
+		if sz != nil && sz.Gaps[i].MinForce > 0 {
+			o.Limit, o.LimitName = sz.Gaps[i].MinForce, "least force of the preload window"
+		}
+		if err := s.write(fmt.Sprintf("preload-curve-%d.svg", i+1), func(w io.Writer) error { return drawing.PreloadCurve(w, p, o) }); err != nil {
+			return err
+		}
+	}
+	return nil
+}
