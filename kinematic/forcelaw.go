@@ -32,17 +32,20 @@ type ForceLaw interface {
 	reach() float64
 }
 
-// Remanence of common magnet grades, in T (the remanent flux density Br
-// at 20 °C, a typical mid-range value of the grade). The grades follow the
-// maximum energy product in MGOe (N42: 42 MGOe); IEC 60404-8-1 gives
-// minimum values by its own designations. From memory of manufacturers'
-// datasheets (N42: 1.28–1.32 T; N52: 1.42–1.47 T; Sm2Co17 of 30 MGOe:
-// 1.08–1.12 T), not checked against a datasheet: use the supplier's figure
-// for a design.
+// Remanence of common magnet grades, in T: the remanent flux density Br
+// at 20 °C, the middle of the grade's range in a manufacturer's table. The
+// grades follow the maximum energy product in MGOe (N42: 42 MGOe); IEC
+// 60404-8-1 gives minimum values by its own designations. Sources: NdFeB
+// from Shanghai Magnet, "NdFeB Performance Parameter Table"
+// (en.shanghaimagnet.com, read 2026-12): N42 1.28–1.32 T, N52 1.42–1.46 T;
+// Sm2Co17 from Magnetsearcher, "Typical magnetic properties of samarium
+// cobalt magnets" (magnetsearcher.com, read 2026-12): YXG30H 1.08–1.10 T.
+// Other suppliers' ranges differ by a few per cent: use the supplier's
+// figure for a design.
 const (
 	RemanenceN42  = 1.30 // T, sintered NdFeB grade N42
-	RemanenceN52  = 1.45 // T, sintered NdFeB grade N52
-	RemanenceSmCo = 1.10 // T, sintered Sm2Co17, about 30 MGOe
+	RemanenceN52  = 1.44 // T, sintered NdFeB grade N52
+	RemanenceSmCo = 1.09 // T, sintered Sm2Co17, about 30 MGOe
 )
 
 // mu0 is the magnetic constant μ0 in H/m (CODATA 2018: 1.25663706212e-6;

@@ -375,3 +375,18 @@ func BenchmarkMagnetPair(b *testing.B) {
 		})
 	}
 }
+
+// TestRemanenceGrades checks each grade constant against the range its
+// source gives (Shanghai Magnet, NdFeB Performance Parameter Table: N42
+// 1.28–1.32 T, N52 1.42–1.46 T; Magnetsearcher, typical properties of
+// samarium cobalt magnets: YXG30H 1.08–1.10 T).
+func TestRemanenceGrades(t *testing.T) {
+	for _, g := range []struct {
+		name       string
+		br, lo, hi float64
+	}{{"N42", RemanenceN42, 1.28, 1.32}, {"N52", RemanenceN52, 1.42, 1.46}, {"SmCo", RemanenceSmCo, 1.08, 1.10}} {
+		if g.br < g.lo || g.br > g.hi {
+			t.Errorf("%s: %g T outside the published %g–%g T", g.name, g.br, g.lo, g.hi)
+		}
+	}
+}
