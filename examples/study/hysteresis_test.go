@@ -76,7 +76,7 @@ func TestHysteresisSection(t *testing.T) {
 		t.Errorf("largest displacement %g µm not between stuck %g µm and free %g µm", peak, lin[0], lin[1])
 	}
 	text, elems := svgElements(t, filepath.Join(dir, "hysteresis.svg"))
-	if elems < 20 || !strings.Contains(text, "stylus tip") || !strings.Contains(text, "residual after the cycle") {
+	if elems < 20 || !strings.Contains(text, "stylus tip") || !strings.Contains(text, "residual along the load after the cycle") {
 		t.Errorf("hysteresis.svg: %d elements, text %q", elems, text)
 	}
 }

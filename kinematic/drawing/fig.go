@@ -81,8 +81,8 @@ func (p plainPalette) Colors() []color.Color { return p }
 // newPlot returns a plot with the drawings' styles and the given title.
 func newPlot(title string) *plot.Plot {
 	p := plot.New()
-	p.Title.Text = title
 	p.Title.TextStyle.Font.Size = 13
+	p.Title.Text = fitTitle(p.Title.TextStyle, title, figWidth-24)
 	p.Title.Padding = 8
 	p.X.Label.TextStyle.Font.Size = 11
 	p.Y.Label.TextStyle.Font.Size = 11
@@ -92,6 +92,32 @@ func newPlot(title string) *plot.Plot {
 	p.X.Tick.Marker = ticks{}
 	p.Y.Tick.Marker = ticks{}
 	return p
+}
+
+// fitTitle returns title as it is when it fits in width at style, else
+// broken into two lines at the space nearest its middle (a caller's long
+// design name before the drawing's own title would be cut at both edges).
+func fitTitle(style text.Style, title string, width vg.Length) string {
+	if strings.Contains(title, "\n") || style.Width(title) <= width {
+		return title
+	}
+	mid, best := len(title)/2, -1
+	for i, r := range title {
+		if r == ' ' && (best < 0 || abs(i-mid) < abs(best-mid)) {
+			best = i
+		}
+	}
+	if best < 0 {
+		return title
+	}
+	return title[:best] + "\n" + title[best+1:]
+}
+
+func abs(i int) int {
+	if i < 0 {
+		return -i
+	}
+	return i
 }
 
 // ticks are plot.DefaultTicks labelled with up to six significant
@@ -241,7 +267,7 @@ func write(w io.Writer, o Options, title string, width, height vg.Length, fill f
 			j := bytes.IndexByte(out[i:], '>')
 			if j > 0 {
 				k := i + j + 1
-				out = append(append(append([]byte(nil), out[:k]...), []byte("\n<title>"+html.EscapeString(title)+"</title>")...), out[k:]...)
+				out = append(append(append([]byte(nil), out[:k]...), []byte("\n<title>"+html.EscapeString(strings.ReplaceAll(title, "\n", " "))+"</title>")...), out[k:]...)
 			}
 		}
 	}

@@ -155,7 +155,7 @@ func Hysteresis(w io.Writer, h kinematic.Hysteresis, opt *Options) error {
 	grid.Vertical.Color, grid.Horizontal.Color = faintFill, faintFill
 	top.Add(grid, path, res)
 	top.Legend.Add("path from the seated pose", path)
-	top.Legend.Add(fmt.Sprintf("residual after the cycle: %s µ%s", idraw.Sig(l.residual), map[bool]string{false: "m", true: "rad"}[l.moment]), res)
+	top.Legend.Add(fmt.Sprintf("residual along the %s after the cycle: %s µ%s", load, idraw.Sig(l.residual), map[bool]string{false: "m", true: "rad"}[l.moment]), res)
 	top.Legend.Top, top.Legend.Left = true, true
 	top.Legend.Padding = 3
 	top.Legend.XOffs = 6
