@@ -159,7 +159,9 @@ type preloadLine struct {
 // "preloads[i].Gap" for a gap that is negative, not finite, given
 // without a Law, or where the law's force is negative or its stiffness
 // infinite (magnet faces touching), and ".Force" or ".Rate" when given
-// beside a Law,
+// beside a Law; "preloads[i].Law" or ".Gap" wrapping [ErrRange] when the
+// law's reach (ten magnet sizes, a table's last gap) exceeds 100 times the
+// coupling's size or the gap 10 times it (millimetres given as metres),
 // "preloads[i].Force" or "preloads" wrapping [ErrRange] when an element's
 // moment or their sum overflows; "payload.Mass"
 // for a negative or non-finite mass, "payload.Centre" when not finite, and
@@ -297,6 +299,9 @@ func (m *Model) setPreloads(ps []Preload) error {
 		if err := lawOf(&p, f); err != nil {
 			return err
 		}
+		if err := m.lawScale(p, f); err != nil {
+			return err
+		}
 		pl := preloadLine{name: p.Name, p: r3.Sub(p.Point, m.origin), rate: p.Rate, law: p.Law, gap: p.Gap}
 		if p.Force != 0 || p.Rate != 0 || p.Law != nil {
 			d, err := unitOf(p.Direction, f+".Direction")
@@ -373,6 +378,27 @@ func lawOf(p *Preload, f string) error {
 		return &InputError{Field: f + ".Gap", Err: fmt.Errorf("%w: the law's stiffness at %g m is infinite (magnet faces touching): give the seated clearance, > 0", ErrRange, p.Gap)}
 	}
 	p.Force, p.Rate = force, -slope
+	return nil
+}
+
+// lawScaleRatio bounds the reach of a law element (ten magnet sizes, a
+// table's last gap) and ten times its seated gap against the coupling's
+// size (the RMS distance of the contacts from their centroid): beyond it
+// a length was almost surely given in millimetres as metres. A 12 mm
+// magnet on a coupling of 40 mm radius has a ratio of 3.
+const lawScaleRatio = 100
+
+// lawScale refuses a law element far larger than the coupling it holds.
+func (m *Model) lawScale(p Preload, f string) error {
+	if p.Law == nil || !(m.size > 0) {
+		return nil
+	}
+	if r := p.Law.reach(); r > lawScaleRatio*m.size {
+		return &InputError{Field: f + ".Law", Err: fmt.Errorf("%w: the law reaches %g m (ten magnet sizes or the last table gap) on a coupling of %g m: a length in millimetres given as metres?", ErrRange, r, m.size)}
+	}
+	if 10*p.Gap > lawScaleRatio*m.size {
+		return &InputError{Field: f + ".Gap", Err: fmt.Errorf("%w: a seated gap of %g m on a coupling of %g m: a length in millimetres given as metres?", ErrRange, p.Gap, m.size)}
+	}
 	return nil
 }
 

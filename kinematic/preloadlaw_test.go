@@ -175,6 +175,9 @@ func TestPreloadLawErrors(t *testing.T) {
 		{Preload{Direction: r3.Vec{Z: -1}, Law: &ForceTable{Points: []TablePoint{{0, 1}, {0.001, -1}}}}, "preloads[0].Law.Points[1].Force", ErrRange},
 		{Preload{Direction: r3.Vec{Z: -1}, Law: MagnetPair{Moving: n42, Base: n42, Offset: [2]float64{0.02, 0}}, Gap: 0.001}, "preloads[0].Gap", ErrRange},
 		{Preload{Law: law, Gap: 0.001}, "preloads[0].Direction", ErrDegenerate},
+		// Millimetres given as metres: a 12 m magnet, a 0.6 m gap.
+		{Preload{Direction: r3.Vec{Z: -1}, Law: MagnetPair{Moving: Magnet{Size: [3]float64{12, 12, 4}, Remanence: 1.3}, Base: n42}, Gap: 0.0006}, "preloads[0].Law", ErrRange},
+		{Preload{Direction: r3.Vec{Z: -1}, Law: law, Gap: 0.6}, "preloads[0].Gap", ErrRange},
 	} {
 		_, err := NewModel(cs, []Preload{tc.p}, Payload{})
 		var ie *InputError

@@ -243,6 +243,16 @@ func lawField(p kinematic.Preload, rest string) (string, bool) {
 	if rest == "Gap" {
 		return "gap", true
 	}
+	if rest == "Law" {
+		switch p.Law.(type) {
+		case kinematic.MagnetPair:
+			return "magnet", true
+		case kinematic.MagnetPlate:
+			return "magnet_plate", true
+		case *kinematic.ForceTable:
+			return "table", true
+		}
+	}
 	sub, ok := strings.CutPrefix(rest, "Law.")
 	if !ok {
 		return "", false

@@ -118,6 +118,12 @@ func TestLawErrors(t *testing.T) {
 			set("preloads[0].gap", "0 mm")(m)
 			del("preloads[0].force")(m)
 		}, "preloads[0].gap", ErrRange},
+		// A magnet typed in metres where millimetres were meant.
+		{func(m map[string]any) {
+			set("preloads[0].magnet", map[string]any{"size": []any{"12 m", "12 m", "4 m"}, "grade": "N42"})(m)
+			set("preloads[0].gap", "0.6 mm")(m)
+			del("preloads[0].force")(m)
+		}, "preloads[0].magnet", ErrRange},
 	} {
 		d, err := Parse([]byte(edit(t, c.change)))
 		if err == nil {
