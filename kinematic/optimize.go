@@ -6,7 +6,6 @@ import (
 	"math/rand/v2"
 	"sort"
 
-	"gonum.org/v1/gonum/optimize"
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"github.com/sixfold-dev/sixfold/internal/linalg"
@@ -896,6 +895,7 @@ func (p *optProblem) search(obj Objective, extra *bound) (candidate, bool) {
 	rng := rand.New(rand.NewPCG(p.o.Seed, 0x5eed))
 	grid := p.grid(rng)
 	p.limited = make([]bool, len(p.combos))
+	nm := newNelderMead(p.nvar)
 	for k := range p.combos {
 		var starts, tried []candidate
 		own, in := p.ownVars()
@@ -927,25 +927,21 @@ func (p *optProblem) search(obj Objective, extra *bound) (candidate, bool) {
 			}
 			continue
 		}
-		problem := optimize.Problem{Func: func(x []float64) float64 {
+		fn := func(x []float64) float64 {
 			c, pen, ok := p.evaluate(obj, extra, x, k)
 			keep(x, k, c, ok)
 			return pen
-		}}
-		settings := &optimize.Settings{
-			FuncEvaluations: 150 * p.nvar,
-			Converger:       &optimize.FunctionConverge{Relative: 1e-10, Absolute: 1e-300, Iterations: 20 * p.nvar},
 		}
+		budget := 150 * p.nvar
 		for _, s := range starts {
-			// Errors report the evaluation budget running out; the best
-			// layout seen is kept either way.
-			_, _ = optimize.Minimize(problem, append([]float64(nil), s.x...), settings, &optimize.NelderMead{SimplexSize: 0.1})
+			// Running out of budget is not an error: the best layout
+			// seen is kept either way.
+			nm.run(fn, s.x, 0.1, budget)
 		}
 		// Polish the best with a small simplex: the figures are minima
 		// and maxima of smooth ones, where a large simplex stalls.
 		if best.ok && best.combo == k {
-			r, _ := optimize.Minimize(problem, append([]float64(nil), best.x...), settings, &optimize.NelderMead{SimplexSize: 0.01})
-			p.limited[k] = r != nil && r.Status == optimize.FunctionEvaluationLimit
+			p.limited[k] = nm.run(fn, best.x, 0.01, budget)
 		}
 	}
 	return best, best.ok
@@ -1079,4 +1075,142 @@ func (p *optProblem) front(a, b Objective, n int, bestA candidate) ([]FrontPoint
 		}
 	}
 	return out, nil
+}
+
+// nelderMead is the downhill simplex method of Nelder & Mead (1965,
+// Computer Journal 7(4)) with the standard coefficients (reflection 1,
+// expansion 2, contraction ½, shrink ½; Lagarias, Reeds, Wright & Wright
+// 1998, SIAM J. Optim. 9(1)), on storage reused from one run to the next.
+type nelderMead struct {
+	x               [][]float64 // the n+1 vertices
+	f               []float64   // their values
+	cen, xr, xe, xc []float64
+	order           []int
+}
+
+func newNelderMead(n int) *nelderMead {
+	m := &nelderMead{x: make([][]float64, n+1), f: make([]float64, n+1), order: make([]int, n+1)}
+	buf := make([]float64, (n+1)*n+4*n)
+	for i := range m.x {
+		m.x[i] = buf[i*n : (i+1)*n : (i+1)*n]
+	}
+	buf = buf[(n+1)*n:]
+	m.cen, m.xr, m.xe, m.xc = buf[:n:n], buf[n:2*n:2*n], buf[2*n:3*n:3*n], buf[3*n:]
+	return m
+}
+
+// nmFTol and nmXTol end a run: the values at the vertices within nmFTol
+// of the best one (relative), and every vertex within nmXTol of the best
+// in each variable (radians of azimuth, or of the sine map of a ball
+// position: 1e-9 of a region's half-width).
+const (
+	nmFTol = 1e-10
+	nmXTol = 1e-9
+)
+
+// run minimises fn from x0 with the simplex of x0 and x0 + size·eᵢ, for at
+// most budget evaluations, and reports whether the budget ended it. fn
+// must not keep its argument.
+func (m *nelderMead) run(fn func([]float64) float64, x0 []float64, size float64, budget int) (limited bool) {
+	n := len(x0)
+	evals := 0
+	for i := range m.x {
+		copy(m.x[i], x0)
+		if i > 0 {
+			m.x[i][i-1] += size
+		}
+		m.f[i] = fn(m.x[i])
+		evals++
+	}
+	for {
+		// Order the vertices by value: best first, worst last.
+		for i := range m.order {
+			m.order[i] = i
+		}
+		for i := 1; i <= n; i++ {
+			for j := i; j > 0 && m.f[m.order[j]] < m.f[m.order[j-1]]; j-- {
+				m.order[j], m.order[j-1] = m.order[j-1], m.order[j]
+			}
+		}
+		b, w, sw := m.order[0], m.order[n], m.order[max(n-1, 0)]
+		fb, fw := m.f[b], m.f[w]
+		if fw-fb <= nmFTol*math.Abs(fb) || fw == fb {
+			done := true
+			for i := range m.x {
+				for j := range n {
+					if math.Abs(m.x[i][j]-m.x[b][j]) > nmXTol {
+						done = false
+					}
+				}
+			}
+			if done {
+				return false
+			}
+		}
+		if evals >= budget {
+			return true
+		}
+		xw := m.x[w]
+		for j := range n {
+			var c float64
+			for i := range m.x {
+				if i != w {
+					c += m.x[i][j]
+				}
+			}
+			m.cen[j] = c / float64(n)
+		}
+		for j := range n {
+			m.xr[j] = 2*m.cen[j] - xw[j]
+		}
+		fr := fn(m.xr)
+		evals++
+		switch {
+		case fr < fb:
+			for j := range n {
+				m.xe[j] = 3*m.cen[j] - 2*xw[j]
+			}
+			fe := fn(m.xe)
+			evals++
+			if fe < fr {
+				copy(xw, m.xe)
+				m.f[w] = fe
+			} else {
+				copy(xw, m.xr)
+				m.f[w] = fr
+			}
+			continue
+		case fr < m.f[sw]:
+			copy(xw, m.xr)
+			m.f[w] = fr
+			continue
+		}
+		// Contract: outside when the reflection improved on the worst,
+		// inside otherwise; shrink towards the best if that fails.
+		from, ff := xw, fw
+		if fr < fw {
+			from, ff = m.xr, fr
+		}
+		for j := range n {
+			m.xc[j] = 0.5 * (m.cen[j] + from[j])
+		}
+		fc := fn(m.xc)
+		evals++
+		if fc < ff || fc <= ff && fr < fw {
+			copy(xw, m.xc)
+			m.f[w] = fc
+			continue
+		}
+		xb := m.x[b]
+		for i := range m.x {
+			if i == b {
+				continue
+			}
+			for j := range n {
+				m.x[i][j] = 0.5 * (xb[j] + m.x[i][j])
+			}
+			m.f[i] = fn(m.x[i])
+			evals++
+		}
+	}
 }
