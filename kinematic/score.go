@@ -441,16 +441,31 @@ func checkScenario(s *Scenario) error {
 func (sc *scorer) score(card *Scorecard, need figures) error {
 	card.Unavailable = sc.missing
 	var ts [6]screw.Twist
-	if !freedOf(sc.lines[:], &ts) {
+	// One factorisation serves the singular values and, for six
+	// independent contacts, the freed twists (as in Analyze).
+	var r constraint.Result
+	var serr error
+	shared := false
+	if need&figSingular != 0 {
+		serr = sc.factor(&r)
+		shared = serr == nil && r.HasFreed
+	}
+	if shared {
+		for i := range ts {
+			ts[i] = screw.Twist(r.Freed[i])
+		}
+	} else if !freedOf(sc.lines[:], &ts) {
 		return &InputError{Field: "Pairs", Err: fmt.Errorf("%w: the six contacts are singular to working precision", ErrNotExact)}
 	}
 	if need&figMaxwell != 0 {
 		sc.maxwell(card, &ts)
 	}
 	if need&figSingular != 0 {
-		if err := sc.singular(card); err != nil {
-			return err
+		if serr != nil {
+			return serr
 		}
+		card.MinSingular, card.Condition = r.Singular[r.K-1], r.Condition
+		card.Poor = r.Condition > DesignCondition
 	}
 	p := r3.Sub(sc.s.Point, sc.origin)
 	if need&figError != 0 {
@@ -516,19 +531,18 @@ func (sc *scorer) maxwell(card *Scorecard, ts *[6]screw.Twist) {
 	}
 }
 
-// singular fills the singular-value figures of the normalised contact
-// matrix.
-func (sc *scorer) singular(card *Scorecard) error {
+// factor writes the constraint analysis of the scorer's lines into r:
+// the singular values of the normalised contact matrix and the freed
+// twists.
+func (sc *scorer) factor(r *constraint.Result) error {
 	var ws [6]constraint.Wrench
-	for i, l := range sc.lines {
+	for i := range sc.lines {
+		l := &sc.lines[i]
 		ws[i] = constraint.Wrench{F: l.n, M: r3.Cross(l.p, l.n)}
 	}
-	var r constraint.Result
-	if err := constraint.Analyze(ws[:], &r); err != nil {
+	if err := constraint.Analyze(ws[:], r); err != nil {
 		return &InputError{Field: "Pairs", Err: err}
 	}
-	card.MinSingular, card.Condition = r.Singular[r.K-1], r.Condition
-	card.Poor = r.Condition > DesignCondition
 	return nil
 }
 
@@ -615,8 +629,8 @@ func (sc *scorer) stiffness(card *Scorecard, f0 *[6]float64, need figures) error
 		}
 	}
 	if need&figModes != 0 && !sc.missing.Has(FigureFirstFrequency) {
-		if modes, err := st.Modes(); err == nil {
-			card.FirstFrequency = modes[0].Frequency
+		if f, ok := firstFrequency(&st); ok {
+			card.FirstFrequency = f
 		} else {
 			card.Unavailable |= FigureFirstFrequency
 		}
@@ -661,4 +675,28 @@ func largestEigen3(a *[6][6]float64) float64 {
 	linalg.Jacobi(m[:], 3, 3, v[:])
 	linalg.SortColumns(m[:], 3, 3, v[:], sv[:])
 	return sv[0]
+}
+
+// firstFrequency returns the lowest natural frequency of Stiffness.Modes,
+// Hz, from the eigenvalues alone, and false where Modes returns an error.
+func firstFrequency(st *Stiffness) (float64, bool) {
+	p := st.payload
+	if st.length == 0 || !(p.Mass > 0) || p.Inertia == ([3][3]float64{}) {
+		return 0, false
+	}
+	b, _, err := st.reduced()
+	if err != nil {
+		return 0, false
+	}
+	var w [6]float64
+	linalg.EigenSym6(&b, nil, &w)
+	var big float64
+	for i := range 6 {
+		big = math.Max(big, math.Abs(w[i]))
+	}
+	if !(w[0] > singularStiffness*big) {
+		return 0, false
+	}
+	f := math.Sqrt(w[0]) / (2 * math.Pi)
+	return f, allFinite(f)
 }

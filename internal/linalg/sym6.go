@@ -73,10 +73,15 @@ func CholeskySolve6(l *[36]float64, b *[6]float64) {
 // J. Matrix Anal. Appl. 13(4)), at most 30 sweeps (convergence is
 // quadratic; six sweeps suffice in practice). The eigenvalues are accurate
 // to a small multiple of ε times the largest |eigenvalue|.
+//
+// With v nil it computes the eigenvalues alone (the same rotations, less
+// than half the work).
 func EigenSym6(a *[36]float64, v *[36]float64, w *[6]float64) {
-	*v = [36]float64{}
-	for i := range 6 {
-		v[7*i] = 1
+	if v != nil {
+		*v = [36]float64{}
+		for i := range 6 {
+			v[7*i] = 1
+		}
 	}
 	const eps = 0x1p-52
 	for sweep := 0; sweep < 30; sweep++ {
@@ -104,6 +109,9 @@ func EigenSym6(a *[36]float64, v *[36]float64, w *[6]float64) {
 					apk, aqk := a[6*p+k], a[6*q+k]
 					a[6*p+k], a[6*q+k] = c*apk-s*aqk, s*apk+c*aqk
 				}
+				if v == nil {
+					continue
+				}
 				for k := range 6 {
 					vkp, vkq := v[6*k+p], v[6*k+q]
 					v[6*k+p], v[6*k+q] = c*vkp-s*vkq, s*vkp+c*vkq
@@ -121,6 +129,9 @@ func EigenSym6(a *[36]float64, v *[36]float64, w *[6]float64) {
 	for i := 1; i < 6; i++ {
 		for j := i; j > 0 && w[j] < w[j-1]; j-- {
 			w[j], w[j-1] = w[j-1], w[j]
+			if v == nil {
+				continue
+			}
 			for k := range 6 {
 				v[6*k+j], v[6*k+j-1] = v[6*k+j-1], v[6*k+j]
 			}
