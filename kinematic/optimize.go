@@ -218,10 +218,11 @@ type FrontPoint struct {
 // (az = mid + half·sin u for a window narrower than π, the azimuth itself
 // when every direction is allowed; the sine map per axis of a box, a disc
 // as a box projected onto it). The search is global then local: a grid of
-// about 1000 layouts over the azimuths (and seeded random ball positions
+// about 343 layouts over the azimuths (and seeded random ball positions
 // with regions), then Nelder–Mead (Nelder & Mead 1965, Computer Journal
-// 7(4); gonum's optimize.NelderMead) from the best grid points, the
-// coupling as given and the bisector layout, once per combination of
+// 7(4)) from the six best grid points that are not grid neighbours of a
+// better one, the coupling as given and the bisector layout, and a
+// polish of the best with a small simplex, once per combination of
 // half-angles. The constraints are exact penalties, and the result is the
 // best feasible layout seen, so it is never worse than any feasible start,
 // the bisector layout included. The trade-off curve uses the ε-constraint
@@ -408,6 +409,7 @@ type optProblem struct {
 	// search's polish of its best layout ran out of evaluations.
 	limited []bool
 
+	gridGap  float64     // the largest gap between neighbours of the start grid
 	combos   [][]float64 // half-angle choices, one per groove pair, per combination
 	ownCombo int         // index of the drawn half-angles in combos (−1 if not there)
 }
@@ -827,7 +829,7 @@ func (p *optProblem) setLayout(az []float64, offs []r3.Vec, x []float64, k int) 
 }
 
 // grid returns the starting points of the global search: a grid of about
-// 1000 layouts over the azimuths with the balls at their drawn places,
+// gridSize layouts over the azimuths with the balls at their drawn places,
 // and, with ball regions, 64 layouts drawn at random from the regions
 // (and the azimuth windows).
 func (p *optProblem) grid(rng *rand.Rand) [][]float64 {
@@ -839,7 +841,10 @@ func (p *optProblem) grid(rng *rand.Rand) [][]float64 {
 	}
 	var out [][]float64
 	if len(az) > 0 {
-		m := max(2, int(math.Pow(1000, 1/float64(len(az)))+1e-9))
+		m := max(2, int(math.Pow(gridSize, 1/float64(len(az)))+1e-9))
+		// Neighbours on the grid are at most π/m apart in a periodic
+		// variable, at least 2/m in a window's sine map.
+		p.gridGap = 1.1 * math.Pi / float64(m)
 		idx := make([]int, len(az))
 		for {
 			x := make([]float64, p.nvar)
@@ -919,7 +924,19 @@ func (p *optProblem) search(obj Objective, extra *bound) (candidate, bool) {
 			tried = append(tried, candidate{x: x, cost: pen})
 		}
 		sort.SliceStable(tried, func(i, j int) bool { return tried[i].cost < tried[j].cost })
-		starts = append(starts, tried[:min(8, len(tried))]...)
+		// The best grid points that are not neighbours of a better
+		// one: one start per basin the grid resolves.
+		chosen := 0
+		for _, c := range tried {
+			if chosen == maxStarts {
+				break
+			}
+			if !isolated(c.x, starts[len(seeds):], p.gridGap) {
+				continue
+			}
+			starts = append(starts, c)
+			chosen++
+		}
 		if p.nvar == 0 {
 			if len(seeds) == 0 {
 				c, _, ok := p.evaluate(obj, extra, nil, k)
@@ -936,7 +953,7 @@ func (p *optProblem) search(obj Objective, extra *bound) (candidate, bool) {
 		for _, s := range starts {
 			// Running out of budget is not an error: the best layout
 			// seen is kept either way.
-			nm.run(fn, s.x, 0.1, budget)
+			nm.run(fn, s.x, 0.1, startBudget*p.nvar)
 		}
 		// Polish the best with a small simplex: the figures are minima
 		// and maxima of smooth ones, where a large simplex stalls.
@@ -1076,6 +1093,31 @@ func (p *optProblem) front(a, b Objective, n int, bestA candidate) ([]FrontPoint
 	}
 	return out, nil
 }
+
+// gridSize is about the number of layouts of the start grid.
+const gridSize = 343
+
+// maxStarts is the number of grid points the local search starts from.
+const maxStarts = 6
+
+// isolated reports whether x is farther than gap from every start in the
+// largest difference of a variable.
+func isolated(x []float64, starts []candidate, gap float64) bool {
+	for _, s := range starts {
+		var d float64
+		for j := range x {
+			d = math.Max(d, math.Abs(x[j]-s.x[j]))
+		}
+		if d <= gap {
+			return false
+		}
+	}
+	return true
+}
+
+// startBudget is the evaluations per variable of a local search from a
+// start; the polish of the best gets 150 per variable.
+var startBudget = 50
 
 // nelderMead is the downhill simplex method of Nelder & Mead (1965,
 // Computer Journal 7(4)) with the standard coefficients (reflection 1,
