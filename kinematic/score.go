@@ -689,7 +689,9 @@ func firstFrequency(st *Stiffness) (float64, bool) {
 		return 0, false
 	}
 	var w [6]float64
-	linalg.EigenSym6(&b, nil, &w)
+	if !linalg.EigenvaluesSym6(&b, &w) {
+		return 0, false
+	}
 	var big float64
 	for i := range 6 {
 		big = math.Max(big, math.Abs(w[i]))
