@@ -615,10 +615,10 @@ func (sc *scorer) stiffness(card *Scorecard, f0 *[6]float64, need figures) error
 	}
 	st := stiffnessOf(sc.lines[:], kn[:], sc.preloads, sc.origin, sc.L, sc.pay)
 	if need&figStiffness != 0 {
-		c, err := st.Compliance(sc.s.Point)
+		c, err := translationalCompliance(&st, sc.s.Point)
 		switch {
 		case err == nil:
-			card.Stiffness = 1 / largestEigen3(&c.Matrix)
+			card.Stiffness = 1 / largestEigenSym3(&c.Matrix)
 			// A zero Axis marks AxisCompliance unavailable (the
 			// scenario's availability); Along's error says the same.
 			card.AxisCompliance, _ = c.Along(sc.s.Axis)
@@ -701,4 +701,87 @@ func firstFrequency(st *Stiffness) (float64, bool) {
 	}
 	f := math.Sqrt(w[0]) / (2 * math.Pi)
 	return f, allFinite(f)
+}
+
+// translationalCompliance returns the Compliance of st.Compliance(at)
+// with only its translational block (the top-left 3×3, all that Along
+// and the scorecard's stiffness read) filled, and the same errors: from
+// three Cholesky solves instead of six, C_VV = T·K⁻¹·Tᵀ with T the three
+// translational rows of the shift S times the unscaling D (see
+// Compliance).
+func translationalCompliance(st *Stiffness, at r3.Vec) (Compliance, error) {
+	if st.length == 0 {
+		return Compliance{}, errZeroStiffness
+	}
+	l := st.k
+	if !linalg.Cholesky6(&l, singularStiffness) {
+		return Compliance{}, &InputError{Field: "cs", Err: fmt.Errorf("%w: the stiffness is singular or not positive definite: some motion is not resisted", ErrDegenerate)}
+	}
+	r := r3.Sub(at, st.origin)
+	inv := 1 / st.length
+	// Row a of T: e_a in the translations, the row of −[r]× over L in
+	// the rotations.
+	t := [3][6]float64{
+		{1, 0, 0, 0, r.Z * inv, -r.Y * inv},
+		{0, 1, 0, -r.Z * inv, 0, r.X * inv},
+		{0, 0, 1, r.Y * inv, -r.X * inv, 0},
+	}
+	var y [3][6]float64 // K⁻¹ Tᵀ, by columns
+	for b := range 3 {
+		y[b] = t[b]
+		linalg.CholeskySolve6(&l, &y[b])
+	}
+	c := Compliance{Point: at}
+	for a := range 3 {
+		for b := range 3 {
+			var v float64
+			for p := range 6 {
+				v += t[a][p] * y[b][p]
+			}
+			c.Matrix[a][b] = v
+		}
+	}
+	for a := range 3 {
+		for b := range a {
+			c.Matrix[a][b] = (c.Matrix[a][b] + c.Matrix[b][a]) / 2
+			c.Matrix[b][a] = c.Matrix[a][b]
+		}
+		if !allFinite(c.Matrix[a][:3]...) {
+			return Compliance{}, &InputError{Field: "at", Err: fmt.Errorf("%w: the compliance at %v overflows: the point is too far from the coupling", ErrRange, at)}
+		}
+	}
+	return c, nil
+}
+
+// largestEigenSym3 returns the largest eigenvalue of the symmetric
+// translational block (the top-left 3×3) of a, in closed form (Smith
+// 1961, "Eigenvalues of a symmetric 3 × 3 matrix", Commun. ACM 4(4)):
+// with q the mean of the diagonal, p² the mean square of A − qI's
+// entries over two, and B = (A − qI)/p, the eigenvalues are
+// q + 2p·cos(φ + 2πk/3) with φ = acos(det(B)/2)/3; the largest is k = 0.
+// Where two eigenvalues nearly coincide (|det(B)/2| within 1e-6 of 1, or
+// A a multiple of I) it returns largestEigen3's instead: there the closed
+// form would lose their split to √ε. It is accurate to a small multiple
+// of ε times the largest |eigenvalue|.
+func largestEigenSym3(a *[6][6]float64) float64 {
+	a00, a11, a22 := a[0][0], a[1][1], a[2][2]
+	a01, a02, a12 := a[0][1], a[0][2], a[1][2]
+	q := (a00 + a11 + a22) / 3
+	p1 := a01*a01 + a02*a02 + a12*a12
+	b00, b11, b22 := a00-q, a11-q, a22-q
+	p := math.Sqrt((b00*b00 + b11*b11 + b22*b22 + 2*p1) / 6)
+	if !(p > 0) || p < 1e-300*math.Abs(q) || math.IsInf(p, 0) {
+		return largestEigen3(a) // a multiple of I, or out of the range of the squares
+	}
+	ip := 1 / p
+	b00, b11, b22 = b00*ip, b11*ip, b22*ip
+	b01, b02, b12 := a01*ip, a02*ip, a12*ip
+	det := b00*(b11*b22-b12*b12) - b01*(b01*b22-b12*b02) + b02*(b01*b12-b11*b02)
+	h := det / 2
+	if !(math.Abs(h) < 1-1e-6) {
+		// Two eigenvalues (nearly) equal: h within rounding of ±1 loses
+		// their split, to √ε of their size. Jacobi keeps it.
+		return largestEigen3(a)
+	}
+	return q + 2*p*math.Cos(math.Acos(h)/3)
 }
