@@ -4,31 +4,42 @@
 #
 #   .ci/speed.sh [rounds] [benchtime]     (defaults 5 and 1s)
 #
-# SPEED_SRC=dir builds the benchmarks from another checkout instead (a
-# "before" tree from git archive, say), for a before/after comparison.
-#
 # Each round runs every benchmark once, in one process, after the SVD
 # reference; a benchmark's ratio in a round is its ns/op over that
 # round's SVD. Printed per benchmark: the median ns/op, the median of the
 # rounds' ratios, and the ratio of the smallest times (the least
 # disturbed, on a shared machine). The load averages before and after are
 # printed too.
+#
+# SPEED_BEFORE=dir also builds the benchmarks from another checkout (a
+# tree of an earlier commit from git archive, say) and runs the two in
+# turn, round by round, so that both meet the same load; it prints a
+# table for each.
 set -euo pipefail
 cd "$(dirname "$0")/.."
 rounds="${1:-5}"
 benchtime="${2:-1s}"
 dir="$(mktemp -d)"
 trap 'rm -rf "$dir"' EXIT
-(cd "${SPEED_SRC:-.}" && go test -c -o "$dir/kinematic.test" ./kinematic)
+trees=(after)
+go test -c -o "$dir/after.test" ./kinematic
+if [ -n "${SPEED_BEFORE:-}" ]; then
+	(cd "$SPEED_BEFORE" && go test -c -o "$dir/before.test" ./kinematic)
+	trees=(before after)
+fi
 
 echo "load before: $(cat /proc/loadavg)  ($(nproc) cores)"
 for r in $(seq "$rounds"); do
-	"$dir/kinematic.test" -test.run '^$' -test.cpu 1 -test.count 1 -test.benchtime "$benchtime" -test.benchmem \
-		-test.bench '^(BenchmarkRef|BenchmarkAnalyzeStability|BenchmarkScore|BenchmarkStudySample|BenchmarkOptimize)$/^(svd|inverse|general|three-vee|socket-vee-flat|all|draw|linear|exact|azimuths)$' |
-		grep -E '^Benchmark' | sed "s/^/$r /"
-done >"$dir/out"
+	for tree in "${trees[@]}"; do
+		"$dir/$tree.test" -test.run '^$' -test.cpu 1 -test.count 1 -test.benchtime "$benchtime" -test.benchmem \
+			-test.bench '^(BenchmarkRef|BenchmarkAnalyzeStability|BenchmarkScore|BenchmarkStudySample|BenchmarkOptimize)$/^(svd|inverse|general|three-vee|socket-vee-flat|all|draw|linear|exact|azimuths)$' |
+			grep -E '^Benchmark' | sed "s/^/$r /" >>"$dir/$tree.out"
+	done
+done
 echo "load after:  $(cat /proc/loadavg)"
-awk '
+for tree in "${trees[@]}"; do
+	[ "${#trees[@]}" -gt 1 ] && echo "== $tree"
+	awk '
 { r = $1; name = $2; sub(/^Benchmark/, "", name); ns[r, name] = $4; allocs[name] = $(NF-1); names[name] = 1; R[r] = 1 }
 function median(s,    a, n, i, j, x) {
 	n = split(s, a, " ")
@@ -61,4 +72,5 @@ END {
 	if (("StudySample/linear" in names) && ("StudySample/draw" in names)) {
 		printf "%-34s %12.1f %12s %12.1f %7s  %s\n", "linear sample minus draw (ns)", median(t["StudySample/linear"]) - median(t["StudySample/draw"]), "", minimum(t["StudySample/linear"]) - minimum(t["StudySample/draw"]), "", "<= 10 ns"
 	}
-}' "$dir/out"
+}' "$dir/$tree.out"
+done
