@@ -220,7 +220,7 @@ type FrontPoint struct {
 // as a box projected onto it). The search is global then local: a grid of
 // about 343 layouts over the azimuths (and seeded random ball positions
 // with regions), then Nelder–Mead (Nelder & Mead 1965, Computer Journal
-// 7(4)) from the six best grid points that are not grid neighbours of a
+// 7(4)) from the four best grid points that are not grid neighbours of a
 // better one, the coupling as given and the bisector layout, and a
 // polish of the best with a small simplex, once per combination of
 // half-angles. The constraints are exact penalties, and the result is the
@@ -1098,7 +1098,7 @@ func (p *optProblem) front(a, b Objective, n int, bestA candidate) ([]FrontPoint
 const gridSize = 343
 
 // maxStarts is the number of grid points the local search starts from.
-const maxStarts = 6
+const maxStarts = 4
 
 // isolated reports whether x is farther than gap from every start in the
 // largest difference of a variable.
