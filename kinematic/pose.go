@@ -216,7 +216,7 @@ func (a *Assembly) seat(g *geom, appr *[6]float64, tol float64, maxIt int) (Pose
 				return Pose{}, a.errUnseated(i, "its centre lies on a cylinder's axis")
 			}
 			gaps[i] = gi + appr[i]
-			resid = math.Max(resid, math.Abs(gaps[i]))
+			resid = max(resid, math.Abs(gaps[i])) // the builtin: math.Max is a call
 			p := r3.Sub(w, r3.Scale(g.r[i], n))
 			// Squared, so that no square root is taken in the loop.
 			if dp := r3.Sub(p, a.lines[i].p); r3.Norm2(dp) > leaveFraction*leaveFraction*g.r[i]*g.r[i] {
@@ -274,7 +274,7 @@ func rodrigues(w r3.Vec) [3][3]float64 {
 		return [3][3]float64{{1, 0, 0}, {0, 1, 0}, {0, 0, 1}}
 	}
 	k := r3.Scale(1/th, w)
-	s, c := math.Sincos(th)
+	s, c := sincos(th)
 	// K² = kkᵀ − I for a unit k: R = c·I + s·K + (1 − c)·kkᵀ.
 	d := 1 - c
 	kx, ky, kz := k.X, k.Y, k.Z
