@@ -662,7 +662,7 @@ func (p *optProblem) evaluate(obj Objective, extra *bound, x []float64, k int) (
 	v := p.violation(&card)
 	if extra != nil {
 		if e := cost(extra.obj, &card); e > extra.limit {
-			v += (e - extra.limit) / math.Max(math.Abs(extra.limit), 1e-300)
+			v += (e - extra.limit) / max(math.Abs(extra.limit), 1e-300)
 		}
 	}
 	if !linalg.Finite(cst) {
@@ -686,7 +686,7 @@ func (p *optProblem) toVar(op *optPair, az float64) (float64, bool) {
 	if half == 0 {
 		return 0, in
 	}
-	return math.Asin(math.Max(-1, math.Min(1, (a-mid)/half))), in
+	return math.Asin(max(-1, min(1, (a-mid)/half))), in
 }
 
 // vars returns the variables of the azimuths az (per pair, from radial)
@@ -1106,7 +1106,7 @@ func isolated(x []float64, starts []candidate, gap float64) bool {
 	for _, s := range starts {
 		var d float64
 		for j := range x {
-			d = math.Max(d, math.Abs(x[j]-s.x[j]))
+			d = max(d, math.Abs(x[j]-s.x[j]))
 		}
 		if d <= gap {
 			return false

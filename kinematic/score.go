@@ -514,7 +514,7 @@ func (sc *scorer) maxwell(card *Scorecard, ts *[6]screw.Twist) {
 	for i, t := range ts {
 		l := &sc.lines[i]
 		freed, idx, ci := maxwell(t, l)
-		card.WeakestContactIndex = math.Min(card.WeakestContactIndex, idx)
+		card.WeakestContactIndex = min(card.WeakestContactIndex, idx)
 		if ci <= card.WeakestCentreIndex {
 			card.WeakestCentreIndex = ci
 			vc := freed.At(l.p)
@@ -526,7 +526,7 @@ func (sc *scorer) maxwell(card *Scorecard, ts *[6]screw.Twist) {
 			card.WeakestAngle = math.Atan2(linalg.Norm3(r3.Cross(l.n, vc)), math.Abs(r3.Dot(l.n, vc)))
 		}
 		if sc.ideal[i] > 0 {
-			card.MaxwellRatio = math.Min(card.MaxwellRatio, ci/sc.ideal[i])
+			card.MaxwellRatio = min(card.MaxwellRatio, ci/sc.ideal[i])
 		}
 	}
 }
@@ -570,26 +570,26 @@ func (sc *scorer) loads(card *Scorecard, ts *[6]screw.Twist, f0 *[6]float64) {
 		tc := linalg.Norm3(t.At(sc.pay.Centre))
 		gain := sc.pay.Mass * tc
 		if sc.pay.Mass > 0 {
-			card.LoadAmplification = math.Max(card.LoadAmplification, tc)
+			card.LoadAmplification = max(card.LoadAmplification, tc)
 		}
 		switch {
 		case f0[i] <= 0:
 			card.ShockLevel = 0
 		case gain > 0:
-			card.ShockLevel = math.Min(card.ShockLevel, f0[i]/gain)
+			card.ShockLevel = min(card.ShockLevel, f0[i]/gain)
 		}
 		need := sc.s.MinForce - e + sc.s.Shock*gain
 		switch {
 		case a > 0:
-			card.PreloadMin = math.Max(card.PreloadMin, need/a)
+			card.PreloadMin = max(card.PreloadMin, need/a)
 			if sc.fall[i] > 0 {
-				card.PreloadMax = math.Min(card.PreloadMax, (sc.fall[i]-e-sc.s.Shock*gain)/a)
+				card.PreloadMax = min(card.PreloadMax, (sc.fall[i]-e-sc.s.Shock*gain)/a)
 			}
 		case need > 0:
 			card.PreloadMin = math.Inf(1)
 		}
 		if sc.fall[i] > 0 && f0[i] > 0 {
-			card.PressureRatio = math.Max(card.PressureRatio, math.Cbrt(f0[i]/sc.fall[i]))
+			card.PressureRatio = max(card.PressureRatio, math.Cbrt(f0[i]/sc.fall[i]))
 		}
 	}
 }
@@ -694,7 +694,7 @@ func firstFrequency(st *Stiffness) (float64, bool) {
 	}
 	var big float64
 	for i := range 6 {
-		big = math.Max(big, math.Abs(w[i]))
+		big = max(big, math.Abs(w[i]))
 	}
 	if !(w[0] > singularStiffness*big) {
 		return 0, false
