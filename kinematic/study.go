@@ -315,27 +315,16 @@ func (s *sampler) draw(rng *rand.Rand, dev []float64) {
 // one part with the deviations dev, and whether it seated.
 func (s *sampler) sample(dev []float64) (r3.Vec, float64, bool) {
 	if !s.exact {
-		// Two partial sums halve the chains of dependent additions;
-		// fused multiply–adds halve the instructions.
-		jd, jw := s.jd[:len(dev)], s.jw[:len(dev)]
 		d, w := s.d0, s.w0
-		var d1, w1 r3.Vec
-		i := 0
-		for ; i+1 < len(dev); i += 2 {
-			v, u := dev[i], dev[i+1]
-			a, b := &jd[i], &jw[i]
-			d.X, d.Y, d.Z = math.FMA(v, a.X, d.X), math.FMA(v, a.Y, d.Y), math.FMA(v, a.Z, d.Z)
-			w.X, w.Y, w.Z = math.FMA(v, b.X, w.X), math.FMA(v, b.Y, w.Y), math.FMA(v, b.Z, w.Z)
-			a, b = &jd[i+1], &jw[i+1]
-			d1.X, d1.Y, d1.Z = math.FMA(u, a.X, d1.X), math.FMA(u, a.Y, d1.Y), math.FMA(u, a.Z, d1.Z)
-			w1.X, w1.Y, w1.Z = math.FMA(u, b.X, w1.X), math.FMA(u, b.Y, w1.Y), math.FMA(u, b.Z, w1.Z)
+		for i, v := range dev {
+			d.X += v * s.jd[i].X
+			d.Y += v * s.jd[i].Y
+			d.Z += v * s.jd[i].Z
+			w.X += v * s.jw[i].X
+			w.Y += v * s.jw[i].Y
+			w.Z += v * s.jw[i].Z
 		}
-		if i < len(dev) {
-			v, a, b := dev[i], &jd[i], &jw[i]
-			d.X, d.Y, d.Z = math.FMA(v, a.X, d.X), math.FMA(v, a.Y, d.Y), math.FMA(v, a.Z, d.Z)
-			w.X, w.Y, w.Z = math.FMA(v, b.X, w.X), math.FMA(v, b.Y, w.Y), math.FMA(v, b.Z, w.Z)
-		}
-		return r3.Add(d, d1), linalg.Norm3(r3.Add(w, w1)), true
+		return d, linalg.Norm3(w), true
 	}
 	g := s.base
 	for i, v := range dev {
