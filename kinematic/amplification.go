@@ -98,20 +98,41 @@ func alongAxis(d *[6]r3.Vec, u r3.Vec) (worst, rss float64) {
 // vector of the zonotope, found at a vertex (the norm is convex), by
 // visiting the 32 sign patterns with s₀ = +1 (the others are their
 // negatives).
+//
+// It compares squared norms and takes one square root, which gives the
+// same result (the square root is monotone and correctly rounded) while
+// the squares stay within the range where Norm3 takes them too; outside
+// it, or for a NaN, it takes the norm of each vertex.
 func zonotopeNorm(v *[6]r3.Vec) float64 {
+	var best2 float64
+	for mask := 0; mask < 32; mask++ {
+		s := zonotopeVertex(v, mask)
+		if n2 := s.X*s.X + s.Y*s.Y + s.Z*s.Z; n2 > best2 || n2 != n2 {
+			best2 = n2
+		}
+	}
+	if best2 > 0x1p-486 && best2 < 0x1p+486 || best2 == 0 {
+		return math.Sqrt(best2)
+	}
 	var best float64
 	for mask := 0; mask < 32; mask++ {
-		s := v[0]
-		for i := 1; i < 6; i++ {
-			if mask&(1<<(i-1)) != 0 {
-				s = r3.Sub(s, v[i])
-			} else {
-				s = r3.Add(s, v[i])
-			}
-		}
-		best = math.Max(best, linalg.Norm3(s))
+		best = math.Max(best, linalg.Norm3(zonotopeVertex(v, mask)))
 	}
 	return best
+}
+
+// zonotopeVertex returns v₀ + Σ sᵢvᵢ with sᵢ = −1 where bit i−1 of mask
+// is set, +1 elsewhere.
+func zonotopeVertex(v *[6]r3.Vec, mask int) r3.Vec {
+	s := v[0]
+	for i := 1; i < 6; i++ {
+		if mask&(1<<(i-1)) != 0 {
+			s = r3.Sub(s, v[i])
+		} else {
+			s = r3.Add(s, v[i])
+		}
+	}
+	return s
 }
 
 // Along returns the worst and RSS error amplification of the point along

@@ -58,7 +58,16 @@ func Analyze(cs []Contact) (Analysis, error) {
 	if len(cs) < 2 {
 		return Analysis{}, &InputError{Field: "cs", Err: fmt.Errorf("%w: %d contacts; a coupling needs at least two", ErrDegenerate, len(cs))}
 	}
-	lines := make([]line, len(cs))
+	// Up to six contacts, the lines and the singular values share one
+	// allocation.
+	var lines []line
+	var sing []float64
+	if len(cs) <= 6 {
+		st := new(analysisStore)
+		lines, sing = st.lines[:len(cs)], st.singular[:0]
+	} else {
+		lines = make([]line, len(cs))
+	}
 	var o r3.Vec
 	for i := range cs {
 		c := &cs[i]
@@ -101,7 +110,7 @@ func Analyze(cs []Contact) (Analysis, error) {
 		return Analysis{}, fromConstraint(err, cs)
 	}
 	sa := screw.Analysis{
-		Rank: r.Rank, Singular: append([]float64(nil), r.Singular[:r.K]...), Condition: r.Condition,
+		Rank: r.Rank, Singular: append(sing, r.Singular[:r.K]...), Condition: r.Condition,
 		NearSingular: r.NearSingular, Redundant: r.Redundant, Centre: r3.Add(r.Centre, o), Length: r.Length,
 	}
 	if r.Rank < 6 {
@@ -128,6 +137,13 @@ func Analyze(cs []Contact) (Analysis, error) {
 		}
 	}
 	return an, nil
+}
+
+// analysisStore holds the lines and singular values of up to six
+// contacts in one allocation.
+type analysisStore struct {
+	lines    [6]line
+	singular [6]float64
 }
 
 // global returns the twist t, whose V is the velocity of the body point at

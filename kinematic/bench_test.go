@@ -5,8 +5,44 @@ import (
 	"math/rand/v2"
 	"testing"
 
+	"gonum.org/v1/gonum/mat"
 	"gonum.org/v1/gonum/spatial/r3"
 )
+
+var (
+	sinkSVD   mat.SVD
+	sinkDense mat.Dense
+)
+
+// BenchmarkRef measures two references in the same process as the
+// library's benchmarks, so that speed can be stated as ratios that the
+// load of a shared machine moves little: gonum's SVD of a 6×6 matrix with
+// the full U and V, and gonum's inverse of the same matrix (.ci/speed.sh
+// divides by them).
+func BenchmarkRef(b *testing.B) {
+	rng := rand.New(rand.NewPCG(6, 6))
+	data := make([]float64, 36)
+	for i := range data {
+		data[i] = 2*rng.Float64() - 1
+	}
+	a := mat.NewDense(6, 6, data)
+	b.Run("svd", func(b *testing.B) {
+		b.ReportAllocs()
+		for b.Loop() {
+			if !sinkSVD.Factorize(a, mat.SVDFull) {
+				b.Fatal("SVD did not converge")
+			}
+		}
+	})
+	b.Run("inverse", func(b *testing.B) {
+		b.ReportAllocs()
+		for b.Loop() {
+			if err := sinkDense.Inverse(a); err != nil {
+				b.Fatal(err)
+			}
+		}
+	})
+}
 
 var sinkStability Stability
 
@@ -21,10 +57,18 @@ func BenchmarkAnalyzeStability(b *testing.B) {
 	if err != nil {
 		b.Fatal(err)
 	}
+	// Six general contacts: vees aimed off-centre on balls at different
+	// heights, one with gothic-arch flanks (no symmetry to exploit).
+	arch := vee45
+	arch.FlankRadius = 5.4e-3
+	gen, err := AimedVees([3]Ball{ball(-60, -35, 0), ball(65, -30, 8), ball(10, 55, -4)}, r3.Vec{X: 0.01, Y: 0.02}, [3]Vee{vee45, arch, vee45})
+	if err != nil {
+		b.Fatal(err)
+	}
 	for _, bc := range []struct {
 		name string
 		c    Coupling
-	}{{"three-vee", bis}, {"socket-vee-flat", svf}} {
+	}{{"general", gen}, {"three-vee", bis}, {"socket-vee-flat", svf}} {
 		cs := mustContacts(b, bc.c)
 		b.Run(bc.name, func(b *testing.B) {
 			b.ReportAllocs()
@@ -49,7 +93,8 @@ var (
 )
 
 // BenchmarkScore measures one evaluation of every design figure of a
-// layout, on the optimiser's path (contacts already set).
+// layout, on the optimiser's path (contacts already set); a sub-benchmark
+// so that .ci/speed.sh can select it beside the others.
 func BenchmarkScore(b *testing.B) {
 	c, err := BisectorVees([3]Ball{ball(-60, -35, 0), ball(65, -30, 0), ball(10, 55, 0)}, three(vee45))
 	if err != nil {
@@ -59,12 +104,14 @@ func BenchmarkScore(b *testing.B) {
 	if err != nil {
 		b.Fatal(err)
 	}
-	b.ReportAllocs()
-	for b.Loop() {
-		if err := sc.score(&sinkCard, allFigures); err != nil {
-			b.Fatal(err)
+	b.Run("all", func(b *testing.B) {
+		b.ReportAllocs()
+		for b.Loop() {
+			if err := sc.score(&sinkCard, allFigures); err != nil {
+				b.Fatal(err)
+			}
 		}
-	}
+	})
 }
 
 // BenchmarkOptimize measures the optimiser: groove azimuths only, with
@@ -248,6 +295,17 @@ func BenchmarkStudySample(b *testing.B) {
 		}
 		rng := rand.New(rand.NewPCG(1, 2))
 		dev := make([]float64, len(tols))
+		if !exact {
+			// The draw alone: the linear sample's target is its cost
+			// plus at most 10 ns.
+			b.Run("draw", func(b *testing.B) {
+				b.ReportAllocs()
+				for b.Loop() {
+					s.draw(rng, dev)
+				}
+				sinkSample.X = dev[0]
+			})
+		}
 		b.Run(name, func(b *testing.B) {
 			b.ReportAllocs()
 			for b.Loop() {

@@ -6,7 +6,6 @@ import (
 	"math/rand/v2"
 	"sort"
 
-	"gonum.org/v1/gonum/optimize"
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"github.com/sixfold-dev/sixfold/internal/linalg"
@@ -219,10 +218,11 @@ type FrontPoint struct {
 // (az = mid + half·sin u for a window narrower than π, the azimuth itself
 // when every direction is allowed; the sine map per axis of a box, a disc
 // as a box projected onto it). The search is global then local: a grid of
-// about 1000 layouts over the azimuths (and seeded random ball positions
+// about 343 layouts over the azimuths (and seeded random ball positions
 // with regions), then Nelder–Mead (Nelder & Mead 1965, Computer Journal
-// 7(4); gonum's optimize.NelderMead) from the best grid points, the
-// coupling as given and the bisector layout, once per combination of
+// 7(4)) from the four best grid points that are not grid neighbours of a
+// better one, the coupling as given and the bisector layout, and a
+// polish of the best with a small simplex, once per combination of
 // half-angles. The constraints are exact penalties, and the result is the
 // best feasible layout seen, so it is never worse than any feasible start,
 // the bisector layout included. The trade-off curve uses the ε-constraint
@@ -409,6 +409,7 @@ type optProblem struct {
 	// search's polish of its best layout ran out of evaluations.
 	limited []bool
 
+	gridGap  float64     // the largest gap between neighbours of the start grid
 	combos   [][]float64 // half-angle choices, one per groove pair, per combination
 	ownCombo int         // index of the drawn half-angles in combos (−1 if not there)
 }
@@ -661,7 +662,7 @@ func (p *optProblem) evaluate(obj Objective, extra *bound, x []float64, k int) (
 	v := p.violation(&card)
 	if extra != nil {
 		if e := cost(extra.obj, &card); e > extra.limit {
-			v += (e - extra.limit) / math.Max(math.Abs(extra.limit), 1e-300)
+			v += (e - extra.limit) / max(math.Abs(extra.limit), 1e-300)
 		}
 	}
 	if !linalg.Finite(cst) {
@@ -685,7 +686,7 @@ func (p *optProblem) toVar(op *optPair, az float64) (float64, bool) {
 	if half == 0 {
 		return 0, in
 	}
-	return math.Asin(math.Max(-1, math.Min(1, (a-mid)/half))), in
+	return math.Asin(max(-1, min(1, (a-mid)/half))), in
 }
 
 // vars returns the variables of the azimuths az (per pair, from radial)
@@ -828,7 +829,7 @@ func (p *optProblem) setLayout(az []float64, offs []r3.Vec, x []float64, k int) 
 }
 
 // grid returns the starting points of the global search: a grid of about
-// 1000 layouts over the azimuths with the balls at their drawn places,
+// gridSize layouts over the azimuths with the balls at their drawn places,
 // and, with ball regions, 64 layouts drawn at random from the regions
 // (and the azimuth windows).
 func (p *optProblem) grid(rng *rand.Rand) [][]float64 {
@@ -840,7 +841,10 @@ func (p *optProblem) grid(rng *rand.Rand) [][]float64 {
 	}
 	var out [][]float64
 	if len(az) > 0 {
-		m := max(2, int(math.Pow(1000, 1/float64(len(az)))+1e-9))
+		m := max(2, int(math.Pow(gridSize, 1/float64(len(az)))+1e-9))
+		// Neighbours on the grid are at most π/m apart in a periodic
+		// variable, at least 2/m in a window's sine map.
+		p.gridGap = 1.1 * math.Pi / float64(m)
 		idx := make([]int, len(az))
 		for {
 			x := make([]float64, p.nvar)
@@ -896,6 +900,7 @@ func (p *optProblem) search(obj Objective, extra *bound) (candidate, bool) {
 	rng := rand.New(rand.NewPCG(p.o.Seed, 0x5eed))
 	grid := p.grid(rng)
 	p.limited = make([]bool, len(p.combos))
+	nm := newNelderMead(p.nvar)
 	for k := range p.combos {
 		var starts, tried []candidate
 		own, in := p.ownVars()
@@ -919,7 +924,19 @@ func (p *optProblem) search(obj Objective, extra *bound) (candidate, bool) {
 			tried = append(tried, candidate{x: x, cost: pen})
 		}
 		sort.SliceStable(tried, func(i, j int) bool { return tried[i].cost < tried[j].cost })
-		starts = append(starts, tried[:min(8, len(tried))]...)
+		// The best grid points that are not neighbours of a better
+		// one: one start per basin the grid resolves.
+		chosen := 0
+		for _, c := range tried {
+			if chosen == maxStarts {
+				break
+			}
+			if !isolated(c.x, starts[len(seeds):], p.gridGap) {
+				continue
+			}
+			starts = append(starts, c)
+			chosen++
+		}
 		if p.nvar == 0 {
 			if len(seeds) == 0 {
 				c, _, ok := p.evaluate(obj, extra, nil, k)
@@ -927,25 +944,21 @@ func (p *optProblem) search(obj Objective, extra *bound) (candidate, bool) {
 			}
 			continue
 		}
-		problem := optimize.Problem{Func: func(x []float64) float64 {
+		fn := func(x []float64) float64 {
 			c, pen, ok := p.evaluate(obj, extra, x, k)
 			keep(x, k, c, ok)
 			return pen
-		}}
-		settings := &optimize.Settings{
-			FuncEvaluations: 150 * p.nvar,
-			Converger:       &optimize.FunctionConverge{Relative: 1e-10, Absolute: 1e-300, Iterations: 20 * p.nvar},
 		}
+		budget := 150 * p.nvar
 		for _, s := range starts {
-			// Errors report the evaluation budget running out; the best
-			// layout seen is kept either way.
-			_, _ = optimize.Minimize(problem, append([]float64(nil), s.x...), settings, &optimize.NelderMead{SimplexSize: 0.1})
+			// Running out of budget is not an error: the best layout
+			// seen is kept either way.
+			nm.run(fn, s.x, 0.1, startBudget*p.nvar)
 		}
 		// Polish the best with a small simplex: the figures are minima
 		// and maxima of smooth ones, where a large simplex stalls.
 		if best.ok && best.combo == k {
-			r, _ := optimize.Minimize(problem, append([]float64(nil), best.x...), settings, &optimize.NelderMead{SimplexSize: 0.01})
-			p.limited[k] = r != nil && r.Status == optimize.FunctionEvaluationLimit
+			p.limited[k] = nm.run(fn, best.x, 0.01, budget)
 		}
 	}
 	return best, best.ok
@@ -1079,4 +1092,167 @@ func (p *optProblem) front(a, b Objective, n int, bestA candidate) ([]FrontPoint
 		}
 	}
 	return out, nil
+}
+
+// gridSize is about the number of layouts of the start grid.
+const gridSize = 343
+
+// maxStarts is the number of grid points the local search starts from.
+const maxStarts = 4
+
+// isolated reports whether x is farther than gap from every start in the
+// largest difference of a variable.
+func isolated(x []float64, starts []candidate, gap float64) bool {
+	for _, s := range starts {
+		var d float64
+		for j := range x {
+			d = max(d, math.Abs(x[j]-s.x[j]))
+		}
+		if d <= gap {
+			return false
+		}
+	}
+	return true
+}
+
+// startBudget is the evaluations per variable of a local search from a
+// start; the polish of the best gets 150 per variable.
+var startBudget = 50
+
+// nelderMead is the downhill simplex method of Nelder & Mead (1965,
+// Computer Journal 7(4)) with the standard coefficients (reflection 1,
+// expansion 2, contraction ½, shrink ½; Lagarias, Reeds, Wright & Wright
+// 1998, SIAM J. Optim. 9(1)), on storage reused from one run to the next.
+type nelderMead struct {
+	x               [][]float64 // the n+1 vertices
+	f               []float64   // their values
+	cen, xr, xe, xc []float64
+	order           []int
+}
+
+func newNelderMead(n int) *nelderMead {
+	m := &nelderMead{x: make([][]float64, n+1), f: make([]float64, n+1), order: make([]int, n+1)}
+	buf := make([]float64, (n+1)*n+4*n)
+	for i := range m.x {
+		m.x[i] = buf[i*n : (i+1)*n : (i+1)*n]
+	}
+	buf = buf[(n+1)*n:]
+	m.cen, m.xr, m.xe, m.xc = buf[:n:n], buf[n:2*n:2*n], buf[2*n:3*n:3*n], buf[3*n:]
+	return m
+}
+
+// nmFTol and nmXTol end a run: the values at the vertices within nmFTol
+// of the best one (relative), and every vertex within nmXTol of the best
+// in each variable (radians of azimuth, or of the sine map of a ball
+// position: 1e-9 of a region's half-width).
+const (
+	nmFTol = 1e-10
+	nmXTol = 1e-9
+)
+
+// run minimises fn from x0 with the simplex of x0 and x0 + size·eᵢ, for at
+// most budget evaluations, and reports whether the budget ended it. fn
+// must not keep its argument.
+func (m *nelderMead) run(fn func([]float64) float64, x0 []float64, size float64, budget int) (limited bool) {
+	n := len(x0)
+	evals := 0
+	for i := range m.x {
+		copy(m.x[i], x0)
+		if i > 0 {
+			m.x[i][i-1] += size
+		}
+		m.f[i] = fn(m.x[i])
+		evals++
+	}
+	for {
+		// Order the vertices by value: best first, worst last.
+		for i := range m.order {
+			m.order[i] = i
+		}
+		for i := 1; i <= n; i++ {
+			for j := i; j > 0 && m.f[m.order[j]] < m.f[m.order[j-1]]; j-- {
+				m.order[j], m.order[j-1] = m.order[j-1], m.order[j]
+			}
+		}
+		b, w, sw := m.order[0], m.order[n], m.order[max(n-1, 0)]
+		fb, fw := m.f[b], m.f[w]
+		if fw-fb <= nmFTol*math.Abs(fb) || fw == fb {
+			done := true
+			for i := range m.x {
+				for j := range n {
+					if math.Abs(m.x[i][j]-m.x[b][j]) > nmXTol {
+						done = false
+					}
+				}
+			}
+			if done {
+				return false
+			}
+		}
+		if evals >= budget {
+			return true
+		}
+		xw := m.x[w]
+		for j := range n {
+			var c float64
+			for i := range m.x {
+				if i != w {
+					c += m.x[i][j]
+				}
+			}
+			m.cen[j] = c / float64(n)
+		}
+		for j := range n {
+			m.xr[j] = 2*m.cen[j] - xw[j]
+		}
+		fr := fn(m.xr)
+		evals++
+		switch {
+		case fr < fb:
+			for j := range n {
+				m.xe[j] = 3*m.cen[j] - 2*xw[j]
+			}
+			fe := fn(m.xe)
+			evals++
+			if fe < fr {
+				copy(xw, m.xe)
+				m.f[w] = fe
+			} else {
+				copy(xw, m.xr)
+				m.f[w] = fr
+			}
+			continue
+		case fr < m.f[sw]:
+			copy(xw, m.xr)
+			m.f[w] = fr
+			continue
+		}
+		// Contract: outside when the reflection improved on the worst,
+		// inside otherwise; shrink towards the best if that fails.
+		from, ff := xw, fw
+		if fr < fw {
+			from, ff = m.xr, fr
+		}
+		for j := range n {
+			m.xc[j] = 0.5 * (m.cen[j] + from[j])
+		}
+		fc := fn(m.xc)
+		evals++
+		if fc < ff || fc <= ff && fr < fw {
+			copy(xw, m.xc)
+			m.f[w] = fc
+			continue
+		}
+		xb := m.x[b]
+		for i := range m.x {
+			if i == b {
+				continue
+			}
+			for j := range n {
+				m.x[i][j] = 0.5 * (xb[j] + m.x[i][j])
+			}
+			m.f[i] = fn(m.x[i])
+			evals++
+		}
+	}
 }

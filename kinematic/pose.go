@@ -195,7 +195,7 @@ func (a *Assembly) seat(g *geom, appr *[6]float64, tol float64, maxIt int) (Pose
 	}
 	R := [3][3]float64{{1, 0, 0}, {0, 1, 0}, {0, 0, 1}}
 	var t r3.Vec
-	var ls [6]line
+	var cp, cn [6]r3.Vec // the contact points and normals at the current pose
 	it := 0
 	var resid float64
 	// The steps use the twists of the nominal contacts while they
@@ -209,19 +209,22 @@ func (a *Assembly) seat(g *geom, appr *[6]float64, tol float64, maxIt int) (Pose
 	for ; ; it++ {
 		resid = 0
 		var gaps [6]float64
-		for i := range ls {
+		for i := range cp {
 			w := r3.Add(mulMat(&R, g.c[i]), t)
 			gi, n, ok := g.surfs[i].gap(w, g.r[i])
 			if !ok {
 				return Pose{}, a.errUnseated(i, "its centre lies on a cylinder's axis")
 			}
 			gaps[i] = gi + appr[i]
-			resid = math.Max(resid, math.Abs(gaps[i]))
+			resid = max(resid, math.Abs(gaps[i])) // the builtin: math.Max is a call
 			p := r3.Sub(w, r3.Scale(g.r[i], n))
-			if d := linalg.Norm3(r3.Sub(p, a.lines[i].p)); d > leaveFraction*g.r[i] {
-				return Pose{}, a.errUnseated(i, fmt.Sprintf("contact %s would move %.3g m across its seat, more than half the ball's radius", a.conts[i].label, d))
+			// Squared, so that no square root is taken in the loop.
+			if dp := r3.Sub(p, a.lines[i].p); r3.Norm2(dp) > leaveFraction*leaveFraction*g.r[i]*g.r[i] {
+				if d := linalg.Norm3(dp); d > leaveFraction*g.r[i] {
+					return Pose{}, a.errUnseated(i, fmt.Sprintf("contact %s would move %.3g m across its seat, more than half the ball's radius", a.conts[i].label, d))
+				}
 			}
-			ls[i] = line{p: p, n: n}
+			cp[i], cn[i] = p, n
 		}
 		if resid <= tol*L {
 			break
@@ -230,15 +233,26 @@ func (a *Assembly) seat(g *geom, appr *[6]float64, tol float64, maxIt int) (Pose
 			return Pose{}, a.errUnseated(0, fmt.Sprintf("the seated pose did not converge in %d iterations (largest gap %.3g m)", maxIt, resid))
 		}
 		if resid > prev/100 {
+			var ls [6]line
+			for i := range ls {
+				ls[i].p, ls[i].n = cp[i], cn[i]
+			}
 			if !freedOf(ls[:], &ts) {
 				return Pose{}, a.errUnseated(0, "the contacts are singular at this pose")
 			}
 		}
 		prev = resid
-		var x screw.Twist
+		var xw, xv r3.Vec
 		for i := range ts {
-			x = x.Add(ts[i].Scale(-gaps[i]))
+			gi := gaps[i]
+			xw.X -= gi * ts[i].W.X
+			xw.Y -= gi * ts[i].W.Y
+			xw.Z -= gi * ts[i].W.Z
+			xv.X -= gi * ts[i].V.X
+			xv.Y -= gi * ts[i].V.Y
+			xv.Z -= gi * ts[i].V.Z
 		}
+		x := screw.Twist{W: xw, V: xv}
 		// y' = Rot(ω) y + V for every world point y (V is the velocity of
 		// the point at the local origin): R ← Rot(ω)R, t ← Rot(ω)t + V.
 		rot := rodrigues(x.W)
@@ -260,20 +274,15 @@ func rodrigues(w r3.Vec) [3][3]float64 {
 		return [3][3]float64{{1, 0, 0}, {0, 1, 0}, {0, 0, 1}}
 	}
 	k := r3.Scale(1/th, w)
-	s, c := math.Sincos(th)
-	kx := [3][3]float64{{0, -k.Z, k.Y}, {k.Z, 0, -k.X}, {-k.Y, k.X, 0}}
-	var r [3][3]float64
-	for i := range 3 {
-		for j := range 3 {
-			var k2 float64
-			for m := range 3 {
-				k2 += kx[i][m] * kx[m][j]
-			}
-			r[i][j] = s*kx[i][j] + (1-c)*k2
-		}
-		r[i][i]++
+	s, c := sincos(th)
+	// K² = kkᵀ − I for a unit k: R = c·I + s·K + (1 − c)·kkᵀ.
+	d := 1 - c
+	kx, ky, kz := k.X, k.Y, k.Z
+	return [3][3]float64{
+		{c + d*kx*kx, d*kx*ky - s*kz, d*kx*kz + s*ky},
+		{d*ky*kx + s*kz, c + d*ky*ky, d*ky*kz - s*kx},
+		{d*kz*kx - s*ky, d*kz*ky + s*kx, c + d*kz*kz},
 	}
-	return r
 }
 
 // rotationVector returns the rotation vector of the rotation matrix r,

@@ -441,16 +441,31 @@ func checkScenario(s *Scenario) error {
 func (sc *scorer) score(card *Scorecard, need figures) error {
 	card.Unavailable = sc.missing
 	var ts [6]screw.Twist
-	if !freedOf(sc.lines[:], &ts) {
+	// One factorisation serves the singular values and, for six
+	// independent contacts, the freed twists (as in Analyze).
+	var r constraint.Result
+	var serr error
+	shared := false
+	if need&figSingular != 0 {
+		serr = sc.factor(&r)
+		shared = serr == nil && r.HasFreed
+	}
+	if shared {
+		for i := range ts {
+			ts[i] = screw.Twist(r.Freed[i])
+		}
+	} else if !freedOf(sc.lines[:], &ts) {
 		return &InputError{Field: "Pairs", Err: fmt.Errorf("%w: the six contacts are singular to working precision", ErrNotExact)}
 	}
 	if need&figMaxwell != 0 {
 		sc.maxwell(card, &ts)
 	}
 	if need&figSingular != 0 {
-		if err := sc.singular(card); err != nil {
-			return err
+		if serr != nil {
+			return serr
 		}
+		card.MinSingular, card.Condition = r.Singular[r.K-1], r.Condition
+		card.Poor = r.Condition > DesignCondition
 	}
 	p := r3.Sub(sc.s.Point, sc.origin)
 	if need&figError != 0 {
@@ -499,7 +514,7 @@ func (sc *scorer) maxwell(card *Scorecard, ts *[6]screw.Twist) {
 	for i, t := range ts {
 		l := &sc.lines[i]
 		freed, idx, ci := maxwell(t, l)
-		card.WeakestContactIndex = math.Min(card.WeakestContactIndex, idx)
+		card.WeakestContactIndex = min(card.WeakestContactIndex, idx)
 		if ci <= card.WeakestCentreIndex {
 			card.WeakestCentreIndex = ci
 			vc := freed.At(l.p)
@@ -511,24 +526,23 @@ func (sc *scorer) maxwell(card *Scorecard, ts *[6]screw.Twist) {
 			card.WeakestAngle = math.Atan2(linalg.Norm3(r3.Cross(l.n, vc)), math.Abs(r3.Dot(l.n, vc)))
 		}
 		if sc.ideal[i] > 0 {
-			card.MaxwellRatio = math.Min(card.MaxwellRatio, ci/sc.ideal[i])
+			card.MaxwellRatio = min(card.MaxwellRatio, ci/sc.ideal[i])
 		}
 	}
 }
 
-// singular fills the singular-value figures of the normalised contact
-// matrix.
-func (sc *scorer) singular(card *Scorecard) error {
+// factor writes the constraint analysis of the scorer's lines into r:
+// the singular values of the normalised contact matrix and the freed
+// twists.
+func (sc *scorer) factor(r *constraint.Result) error {
 	var ws [6]constraint.Wrench
-	for i, l := range sc.lines {
+	for i := range sc.lines {
+		l := &sc.lines[i]
 		ws[i] = constraint.Wrench{F: l.n, M: r3.Cross(l.p, l.n)}
 	}
-	var r constraint.Result
-	if err := constraint.Analyze(ws[:], &r); err != nil {
+	if err := constraint.Analyze(ws[:], r); err != nil {
 		return &InputError{Field: "Pairs", Err: err}
 	}
-	card.MinSingular, card.Condition = r.Singular[r.K-1], r.Condition
-	card.Poor = r.Condition > DesignCondition
 	return nil
 }
 
@@ -556,26 +570,26 @@ func (sc *scorer) loads(card *Scorecard, ts *[6]screw.Twist, f0 *[6]float64) {
 		tc := linalg.Norm3(t.At(sc.pay.Centre))
 		gain := sc.pay.Mass * tc
 		if sc.pay.Mass > 0 {
-			card.LoadAmplification = math.Max(card.LoadAmplification, tc)
+			card.LoadAmplification = max(card.LoadAmplification, tc)
 		}
 		switch {
 		case f0[i] <= 0:
 			card.ShockLevel = 0
 		case gain > 0:
-			card.ShockLevel = math.Min(card.ShockLevel, f0[i]/gain)
+			card.ShockLevel = min(card.ShockLevel, f0[i]/gain)
 		}
 		need := sc.s.MinForce - e + sc.s.Shock*gain
 		switch {
 		case a > 0:
-			card.PreloadMin = math.Max(card.PreloadMin, need/a)
+			card.PreloadMin = max(card.PreloadMin, need/a)
 			if sc.fall[i] > 0 {
-				card.PreloadMax = math.Min(card.PreloadMax, (sc.fall[i]-e-sc.s.Shock*gain)/a)
+				card.PreloadMax = min(card.PreloadMax, (sc.fall[i]-e-sc.s.Shock*gain)/a)
 			}
 		case need > 0:
 			card.PreloadMin = math.Inf(1)
 		}
 		if sc.fall[i] > 0 && f0[i] > 0 {
-			card.PressureRatio = math.Max(card.PressureRatio, math.Cbrt(f0[i]/sc.fall[i]))
+			card.PressureRatio = max(card.PressureRatio, math.Cbrt(f0[i]/sc.fall[i]))
 		}
 	}
 }
@@ -601,10 +615,10 @@ func (sc *scorer) stiffness(card *Scorecard, f0 *[6]float64, need figures) error
 	}
 	st := stiffnessOf(sc.lines[:], kn[:], sc.preloads, sc.origin, sc.L, sc.pay)
 	if need&figStiffness != 0 {
-		c, err := st.Compliance(sc.s.Point)
+		c, err := translationalCompliance(&st, sc.s.Point)
 		switch {
 		case err == nil:
-			card.Stiffness = 1 / largestEigen3(&c.Matrix)
+			card.Stiffness = 1 / largestEigenSym3(&c.Matrix)
 			// A zero Axis marks AxisCompliance unavailable (the
 			// scenario's availability); Along's error says the same.
 			card.AxisCompliance, _ = c.Along(sc.s.Axis)
@@ -615,8 +629,8 @@ func (sc *scorer) stiffness(card *Scorecard, f0 *[6]float64, need figures) error
 		}
 	}
 	if need&figModes != 0 && !sc.missing.Has(FigureFirstFrequency) {
-		if modes, err := st.Modes(); err == nil {
-			card.FirstFrequency = modes[0].Frequency
+		if f, ok := firstFrequency(&st); ok {
+			card.FirstFrequency = f
 		} else {
 			card.Unavailable |= FigureFirstFrequency
 		}
@@ -661,4 +675,113 @@ func largestEigen3(a *[6][6]float64) float64 {
 	linalg.Jacobi(m[:], 3, 3, v[:])
 	linalg.SortColumns(m[:], 3, 3, v[:], sv[:])
 	return sv[0]
+}
+
+// firstFrequency returns the lowest natural frequency of Stiffness.Modes,
+// Hz, from the eigenvalues alone, and false where Modes returns an error.
+func firstFrequency(st *Stiffness) (float64, bool) {
+	p := st.payload
+	if st.length == 0 || !(p.Mass > 0) || p.Inertia == ([3][3]float64{}) {
+		return 0, false
+	}
+	b, _, err := st.reduced()
+	if err != nil {
+		return 0, false
+	}
+	var w [6]float64
+	if !linalg.EigenvaluesSym6(&b, &w) {
+		return 0, false
+	}
+	var big float64
+	for i := range 6 {
+		big = max(big, math.Abs(w[i]))
+	}
+	if !(w[0] > singularStiffness*big) {
+		return 0, false
+	}
+	f := math.Sqrt(w[0]) / (2 * math.Pi)
+	return f, allFinite(f)
+}
+
+// translationalCompliance returns the Compliance of st.Compliance(at)
+// with only its translational block (the top-left 3×3, all that Along
+// and the scorecard's stiffness read) filled, and the same errors: from
+// three Cholesky solves instead of six, C_VV = T·K⁻¹·Tᵀ with T the three
+// translational rows of the shift S times the unscaling D (see
+// Compliance).
+func translationalCompliance(st *Stiffness, at r3.Vec) (Compliance, error) {
+	if st.length == 0 {
+		return Compliance{}, errZeroStiffness
+	}
+	l := st.k
+	if !linalg.Cholesky6(&l, singularStiffness) {
+		return Compliance{}, &InputError{Field: "cs", Err: fmt.Errorf("%w: the stiffness is singular or not positive definite: some motion is not resisted", ErrDegenerate)}
+	}
+	r := r3.Sub(at, st.origin)
+	inv := 1 / st.length
+	// Row a of T: e_a in the translations, the row of −[r]× over L in
+	// the rotations.
+	t := [3][6]float64{
+		{1, 0, 0, 0, r.Z * inv, -r.Y * inv},
+		{0, 1, 0, -r.Z * inv, 0, r.X * inv},
+		{0, 0, 1, r.Y * inv, -r.X * inv, 0},
+	}
+	var y [3][6]float64 // K⁻¹ Tᵀ, by columns
+	for b := range 3 {
+		y[b] = t[b]
+		linalg.CholeskySolve6(&l, &y[b])
+	}
+	c := Compliance{Point: at}
+	for a := range 3 {
+		for b := range 3 {
+			var v float64
+			for p := range 6 {
+				v += t[a][p] * y[b][p]
+			}
+			c.Matrix[a][b] = v
+		}
+	}
+	for a := range 3 {
+		for b := range a {
+			c.Matrix[a][b] = (c.Matrix[a][b] + c.Matrix[b][a]) / 2
+			c.Matrix[b][a] = c.Matrix[a][b]
+		}
+		if !allFinite(c.Matrix[a][:3]...) {
+			return Compliance{}, &InputError{Field: "at", Err: fmt.Errorf("%w: the compliance at %v overflows: the point is too far from the coupling", ErrRange, at)}
+		}
+	}
+	return c, nil
+}
+
+// largestEigenSym3 returns the largest eigenvalue of the symmetric
+// translational block (the top-left 3×3) of a, in closed form (Smith
+// 1961, "Eigenvalues of a symmetric 3 × 3 matrix", Commun. ACM 4(4)):
+// with q the mean of the diagonal, p² the mean square of A − qI's
+// entries over two, and B = (A − qI)/p, the eigenvalues are
+// q + 2p·cos(φ + 2πk/3) with φ = acos(det(B)/2)/3; the largest is k = 0.
+// Where two eigenvalues nearly coincide (|det(B)/2| within 1e-6 of 1, or
+// A a multiple of I) it returns largestEigen3's instead: there the closed
+// form would lose their split to √ε. It is accurate to a small multiple
+// of ε times the largest |eigenvalue|.
+func largestEigenSym3(a *[6][6]float64) float64 {
+	a00, a11, a22 := a[0][0], a[1][1], a[2][2]
+	a01, a02, a12 := a[0][1], a[0][2], a[1][2]
+	q := (a00 + a11 + a22) / 3
+	p1 := a01*a01 + a02*a02 + a12*a12
+	b00, b11, b22 := a00-q, a11-q, a22-q
+	p := math.Sqrt((b00*b00 + b11*b11 + b22*b22 + 2*p1) / 6)
+	if !(p > 0) || p < 1e-300*math.Abs(q) || math.IsInf(p, 0) {
+		return largestEigen3(a) // a multiple of I, or out of the range of the squares
+	}
+	ip := 1 / p
+	b00, b11, b22 = b00*ip, b11*ip, b22*ip
+	b01, b02, b12 := a01*ip, a02*ip, a12*ip
+	det := b00*(b11*b22-b12*b12) - b01*(b01*b22-b12*b02) + b02*(b01*b12-b11*b02)
+	h := det / 2
+	if !(math.Abs(h) < 1-1e-6) {
+		// Two eigenvalues (nearly) equal: h within rounding of ±1 loses
+		// their split, to √ε of their size. Jacobi keeps it.
+		return largestEigen3(a)
+	}
+	return q + 2*p*math.Cos(math.Acos(h)/3)
 }

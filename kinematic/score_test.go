@@ -2,8 +2,10 @@ package kinematic
 
 import (
 	"math"
+	"math/rand/v2"
 	"testing"
 
+	"gonum.org/v1/gonum/mat"
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"github.com/sixfold-dev/sixfold/hertz"
@@ -282,4 +284,60 @@ func TestScoreThermalCentreSocketVeeFlat(t *testing.T) {
 	if got, want := card.Drift, r3.Norm(dr.RelativeLinear); math.Abs(got-want) > 1e-9*want {
 		t.Errorf("drift: scorecard %.12g m/K, Drift %.12g m/K", got, want)
 	}
+}
+
+// TestLargestEigenSym3AgainstGonum: the closed form of the largest
+// eigenvalue matches gonum's mat.EigenSym on random symmetric matrices,
+// on nearly repeated eigenvalues in a rotated basis, and on multiples of
+// the identity, to 1e-14 of the largest |eigenvalue|.
+func TestLargestEigenSym3AgainstGonum(t *testing.T) {
+	rng := rand.New(rand.NewPCG(3, 19))
+	for trial := 0; trial < 200; trial++ {
+		var a [6][6]float64
+		sym := mat.NewSymDense(3, nil)
+		switch {
+		case trial == 0:
+			a[0][0], a[1][1], a[2][2] = 2.5e-9, 2.5e-9, 2.5e-9
+		case trial%4 == 1:
+			// Q·diag(λ, λ(1+δ), μ)·Qᵀ with a random rotation Q.
+			lam := []float64{1e-7, 1e-7 * (1 + 1e-9), 3e-8}
+			q := r3.NewRotation(rng.Float64()*6, r3.Vec{X: rng.Float64(), Y: rng.Float64() - 0.5, Z: 1})
+			var cols [3]r3.Vec
+			for k, e := range []r3.Vec{{X: 1}, {Y: 1}, {Z: 1}} {
+				cols[k] = q.Rotate(e)
+			}
+			for i := range 3 {
+				for j := range 3 {
+					for k := range 3 {
+						a[i][j] += lam[k] * comp(cols[k], i) * comp(cols[k], j)
+					}
+				}
+			}
+		default:
+			for i := range 3 {
+				for j := i; j < 3; j++ {
+					x := 2*rng.Float64() - 1
+					a[i][j], a[j][i] = x, x
+				}
+			}
+		}
+		for i := range 3 {
+			for j := i; j < 3; j++ {
+				sym.SetSym(i, j, (a[i][j]+a[j][i])/2)
+			}
+		}
+		var es mat.EigenSym
+		if !es.Factorize(sym, false) {
+			t.Fatal("gonum EigenSym failed")
+		}
+		w := es.Values(nil)
+		big := math.Max(math.Abs(w[0]), math.Abs(w[2]))
+		if got := largestEigenSym3(&a); math.Abs(got-w[2]) > 1e-14*big {
+			t.Errorf("trial %d: largest eigenvalue %.17g, gonum %.17g", trial, got, w[2])
+		}
+	}
+}
+
+func comp(v r3.Vec, i int) float64 {
+	return [3]float64{v.X, v.Y, v.Z}[i]
 }

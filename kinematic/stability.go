@@ -2,7 +2,6 @@ package kinematic
 
 import (
 	"fmt"
-	"math"
 
 	"gonum.org/v1/gonum/spatial/r3"
 
@@ -91,7 +90,7 @@ func (a *Analysis) stability(st *Stability) error {
 	}
 	low := st.Contacts[0].Index
 	for _, m := range st.Contacts {
-		low = math.Min(low, m.Index)
+		low = min(low, m.Index)
 	}
 	for i, m := range st.Contacts {
 		if m.Index <= low+tieTol {

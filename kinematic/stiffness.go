@@ -381,13 +381,21 @@ func (s Stiffness) Compliance(at r3.Vec) (Compliance, error) {
 	sm[1][3], sm[1][5] = -r.Z, r.X
 	sm[2][3], sm[2][4] = r.Y, -r.X
 	c := Compliance{Point: at}
+	var sc [6][6]float64 // S C_o
+	for a := range 6 {
+		for q := range 6 {
+			var v float64
+			for p := range 6 {
+				v += sm[a][p] * co[p][q]
+			}
+			sc[a][q] = v
+		}
+	}
 	for a := range 6 {
 		for b := range 6 {
 			var v float64
-			for p := range 6 {
-				for q := range 6 {
-					v += sm[a][p] * co[p][q] * sm[b][q]
-				}
+			for q := range 6 {
+				v += sc[a][q] * sm[b][q]
 			}
 			c.Matrix[a][b] = v
 		}

@@ -350,7 +350,9 @@ func summarise(disp []r3.Vec, tilt []float64, ok []bool, keep bool) (res StudyRe
 		}
 		d := disp[i]
 		xs, ys, zs = append(xs, d.X), append(ys, d.Y), append(zs, d.Z)
-		rs, ts = append(rs, linalg.Norm3(d)), append(ts, tilt[i])
+		// The radial magnitude as r3.Norm gives it, so that a caller's
+		// r3.Norm of a kept point reproduces the statistics exactly.
+		rs, ts = append(rs, r3.Norm(d)), append(ts, tilt[i])
 		if keep {
 			res.Points = append(res.Points, d)
 		}

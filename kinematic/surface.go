@@ -1,6 +1,8 @@
 package kinematic
 
 import (
+	"math"
+
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"github.com/sixfold-dev/sixfold/internal/linalg"
@@ -50,10 +52,18 @@ func (s *seatSurface) gap(c r3.Vec, r float64) (g float64, n r3.Vec, ok bool) {
 // with unit direction a, then translate by t" to the surface.
 func (s *seatSurface) move(angle float64, a, o, t r3.Vec) {
 	if angle != 0 {
-		s.q = r3.Add(o, r3.Rotate(r3.Sub(s.q, o), angle, a))
-		s.d = r3.Rotate(s.d, angle, a)
+		sn, cs := sincos(angle)
+		s.q = r3.Add(o, rotateAbout(r3.Sub(s.q, o), a, sn, cs))
+		s.d = rotateAbout(s.d, a, sn, cs)
 	}
 	s.q = r3.Add(s.q, t)
+}
+
+// rotateAbout returns v rotated about the unit axis a by the angle whose
+// sine and cosine are sn and cs, by Rodrigues' formula
+// v cos θ + (a × v) sin θ + a (a·v)(1 − cos θ).
+func rotateAbout(v, a r3.Vec, sn, cs float64) r3.Vec {
+	return r3.Add(r3.Add(r3.Scale(cs, v), r3.Scale(sn, r3.Cross(a, v))), r3.Scale(r3.Dot(a, v)*(1-cs), a))
 }
 
 // dimKind is what a named dimension changes.
@@ -111,4 +121,17 @@ func (s *seatSurface) anchor(root r3.Vec) r3.Vec {
 		return s.q
 	}
 	return root
+}
+
+// sincos is math.Sincos, by the Taylor series for |x| < 1e-3, where the
+// first omitted terms (x⁹/9!, x⁸/8!) are below 1e-16 of the sums:
+// the seating steps and the toleranced rotations are micro-radians.
+func sincos(x float64) (sin, cos float64) {
+	if math.Abs(x) >= 1e-3 {
+		return math.Sincos(x)
+	}
+	x2 := x * x
+	sin = x * (1 - x2/6*(1-x2/20*(1-x2/42)))
+	cos = 1 - x2/2*(1-x2/12*(1-x2/30))
+	return sin, cos
 }

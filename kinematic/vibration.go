@@ -49,56 +49,11 @@ func (s Stiffness) Modes() ([6]Mode, error) {
 	if p.Inertia == ([3][3]float64{}) {
 		return modes, &InputError{Field: "payload.Inertia", Err: fmt.Errorf("%w: natural frequencies need the payload's inertia tensor", ErrDegenerate)}
 	}
-	L := s.length
-	// Scaled mass matrix for y = (V, W·L), V at the origin o, centre
-	// c = com − o: the kinetic energy ½m|V + W × c|² + ½WᵀJW gives
-	// M_VV = mI, M_VW = −m[c]×, M_WW = J − m[c]×², then D M D.
-	c := p.Centre
-	cx := [3][3]float64{{0, -c.Z, c.Y}, {c.Z, 0, -c.X}, {-c.Y, c.X, 0}}
-	var mm [36]float64
-	for a := range 3 {
-		mm[6*a+a] = p.Mass
-		for b := range 3 {
-			mm[6*a+3+b] = -p.Mass * cx[a][b] / L
-			mm[6*(3+b)+a] = mm[6*a+3+b]
-			var c2 float64
-			for k := range 3 {
-				c2 += cx[a][k] * cx[k][b]
-			}
-			mm[6*(3+a)+3+b] = (p.Inertia[a][b] - p.Mass*c2) / (L * L)
-		}
+	b, l, err := s.reduced()
+	if err != nil {
+		return modes, err
 	}
-	l := mm
-	if !linalg.Cholesky6(&l, 1e-14) {
-		return modes, &InputError{Field: "payload.Inertia", Err: fmt.Errorf("%w: the mass matrix is not positive definite", ErrDegenerate)}
-	}
-	// B = L⁻¹ K L⁻ᵀ: solve column by column.
-	var x [36]float64 // L⁻¹ K
-	for j := range 6 {
-		for i := range 6 {
-			v := s.k[6*i+j]
-			for k := range i {
-				v -= l[6*i+k] * x[6*k+j]
-			}
-			x[6*i+j] = v / l[7*i]
-		}
-	}
-	var b [36]float64 // (L⁻¹ (L⁻¹ K)ᵀ) = L⁻¹ K L⁻ᵀ, K symmetric
-	for j := range 6 {
-		for i := range 6 {
-			v := x[6*j+i]
-			for k := range i {
-				v -= l[6*i+k] * b[6*k+j]
-			}
-			b[6*i+j] = v / l[7*i]
-		}
-	}
-	for i := range 6 {
-		for j := range i {
-			b[6*i+j] = (b[6*i+j] + b[6*j+i]) / 2
-			b[6*j+i] = b[6*i+j]
-		}
-	}
+	L, c := s.length, p.Centre
 	var v [36]float64
 	var w [6]float64
 	linalg.EigenSym6(&b, &v, &w)
@@ -128,6 +83,64 @@ func (s Stiffness) Modes() ([6]Mode, error) {
 		}
 	}
 	return modes, nil
+}
+
+// reduced returns the symmetric matrix B = L⁻¹ K L⁻ᵀ whose eigenvalues
+// are the squared angular frequencies (scaled coordinates y = (V, W·L) at
+// the origin), and the Cholesky factor L of the scaled mass matrix, for a
+// stiffness of non-zero length and a payload with mass and inertia.
+func (s Stiffness) reduced() (b, l [36]float64, err error) {
+	L, p := s.length, s.payload
+	// Scaled mass matrix for y = (V, W·L), V at the origin o, centre
+	// c = com − o: the kinetic energy ½m|V + W × c|² + ½WᵀJW gives
+	// M_VV = mI, M_VW = −m[c]×, M_WW = J − m[c]×², then D M D.
+	c := p.Centre
+	cx := [3][3]float64{{0, -c.Z, c.Y}, {c.Z, 0, -c.X}, {-c.Y, c.X, 0}}
+	var mm [36]float64
+	for a := range 3 {
+		mm[6*a+a] = p.Mass
+		for b := range 3 {
+			mm[6*a+3+b] = -p.Mass * cx[a][b] / L
+			mm[6*(3+b)+a] = mm[6*a+3+b]
+			var c2 float64
+			for k := range 3 {
+				c2 += cx[a][k] * cx[k][b]
+			}
+			mm[6*(3+a)+3+b] = (p.Inertia[a][b] - p.Mass*c2) / (L * L)
+		}
+	}
+	l = mm
+	if !linalg.Cholesky6(&l, 1e-14) {
+		return b, l, &InputError{Field: "payload.Inertia", Err: fmt.Errorf("%w: the mass matrix is not positive definite", ErrDegenerate)}
+	}
+	// B = L⁻¹ K L⁻ᵀ: solve column by column.
+	var x [36]float64 // L⁻¹ K
+	for j := range 6 {
+		for i := range 6 {
+			v := s.k[6*i+j]
+			for k := range i {
+				v -= l[6*i+k] * x[6*k+j]
+			}
+			x[6*i+j] = v / l[7*i]
+		}
+	}
+	// b = (L⁻¹ (L⁻¹ K)ᵀ) = L⁻¹ K L⁻ᵀ, K symmetric
+	for j := range 6 {
+		for i := range 6 {
+			v := x[6*j+i]
+			for k := range i {
+				v -= l[6*i+k] * b[6*k+j]
+			}
+			b[6*i+j] = v / l[7*i]
+		}
+	}
+	for i := range 6 {
+		for j := range i {
+			b[6*i+j] = (b[6*i+j] + b[6*j+i]) / 2
+			b[6*j+i] = b[6*i+j]
+		}
+	}
+	return b, l, nil
 }
 
 // signOfTwist returns the sign that makes the largest component of the

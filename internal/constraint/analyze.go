@@ -221,7 +221,7 @@ func analyze(ws []Wrench, r *Result, withFreed bool) error {
 	linalg.Jacobi6(&u, k)
 	linalg.Sort6(&u, k, &sigma)
 
-	tol := math.Max(RankTol, fr.noise)
+	tol := max(RankTol, fr.noise)
 	rank := 0
 	for _, s := range sigma[:k] {
 		if s > tol*sigma[0] {

@@ -336,7 +336,7 @@ func reference(ws []Wrench, inv []float64) (fr frame, ok bool) {
 	if math.IsInf(length, 0) {
 		return frame{}, false
 	}
-	far := math.Max(math.Sqrt(far2), linalg.Norm3(c))
+	far := max(math.Sqrt(far2), linalg.Norm3(c))
 	fr = frame{c: c, length: length, used: length, far: far}
 	if length <= momentRounding*eps*far {
 		// The lines meet at c to within the rounding their moments carry:

@@ -43,7 +43,7 @@ func Freed(ws *[6]Wrench, ts *[6]Twist) bool {
 	if err != nil || fr.length == 0 {
 		return false
 	}
-	if !linalg.Inverse6(&a, math.Max(freedTol, fr.noise)) {
+	if !linalg.Inverse6(&a, max(freedTol, fr.noise)) {
 		return false
 	}
 	// Row i of A⁻¹ is a[i], a[6+i], ..., a[30+i].

@@ -56,7 +56,7 @@ func redundancies(a []float64, n int, u *[36]float64, rank int, sigmaR float64, 
 			ah[j*r+l] = dot6(ul, aj)
 		}
 	}
-	delta := math.Min(pivotTol, sigmaR/(2*math.Sqrt(float64(n))))
+	delta := min(pivotTol, sigmaR/(2*math.Sqrt(float64(n))))
 
 	var q [6][6]float64  // orthonormal basis of the chosen columns, in R^r
 	var rm [6][6]float64 // rm[c][l]: coefficient of q[l] in chosen column c (upper triangular)
@@ -130,7 +130,7 @@ func redundancies(a []float64, n int, u *[36]float64, rank int, sigmaR float64, 
 			}
 			idx[m], m = piv[c], m+1
 			w[piv[c]] = -x[c]
-			big = math.Max(big, math.Abs(x[c]))
+			big = max(big, math.Abs(x[c]))
 		}
 		if !placed {
 			idx[m], m = j, m+1
