@@ -74,17 +74,18 @@ func (a Analysis) Stability() (Stability, error) {
 
 // stability fills st.
 func (a *Analysis) stability(st *Stability) error {
-	if len(a.lines) != 6 || a.Rank != 6 {
+	lines := a.contacts()
+	if len(lines) != 6 || a.Rank != 6 {
 		return &InputError{Field: "cs", Err: fmt.Errorf(
 			"%w: %d contacts of rank %d (%d free motions, %d redundant); Maxwell indices need six independent contacts",
-			ErrNotExact, len(a.lines), a.Rank, len(a.Free), len(a.Redundant))}
+			ErrNotExact, len(lines), a.Rank, len(a.Free), len(a.Redundant))}
 	}
 	ts := a.freed
-	if !a.hasFreed && !freedOf(a.lines, &ts) {
+	if !a.hasFreed && !freedOf(lines, &ts) {
 		return &InputError{Field: "cs", Err: fmt.Errorf("%w: the six contacts are singular to working precision", ErrNotExact)}
 	}
 	for i, t := range ts {
-		l := &a.lines[i]
+		l := &lines[i]
 		m := &st.Contacts[i]
 		t, m.Index, m.CentreIndex = maxwell(t, l)
 		// global(t, a.origin), in scalars as in maxwell.
