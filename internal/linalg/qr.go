@@ -62,3 +62,59 @@ func QRPivot(a []float64, m int, rt *[36]float64, perm *[6]int) {
 		}
 	}
 }
+
+// QRPivot6 is QRPivot for a 6×6 matrix (m = 6) held in a fixed array: the
+// same operations in the same order, so the same results to the bit.
+// Constraint analysis of six wrenches runs it before Jacobi6.
+func QRPivot6(a *[36]float64, rt *[36]float64, perm *[6]int) {
+	for c := range perm {
+		perm[c] = c
+	}
+	*rt = [36]float64{}
+	var norm2 [6]float64
+	for r := 0; r < 6; r++ {
+		// Pivot: the remaining column of largest norm below row r.
+		best, bestNorm := r, -1.0
+		for j := r; j < 6; j++ {
+			col := (*[6]float64)(a[6*j : 6*j+6])
+			var s float64
+			for i := r; i < 6; i++ {
+				s += col[i] * col[i]
+			}
+			norm2[j] = s
+			if s > bestNorm {
+				best, bestNorm = j, s
+			}
+		}
+		x := (*[6]float64)(a[6*r : 6*r+6])
+		if best != r {
+			y := (*[6]float64)(a[6*best : 6*best+6])
+			*x, *y = *y, *x
+			perm[r], perm[best] = perm[best], perm[r]
+		}
+		x2 := norm2[best]
+		if x2 > 0 {
+			x0 := x[r]
+			alpha := -math.Copysign(math.Sqrt(x2), x0)
+			x[r] = x0 - alpha // v = x − αe₁
+			vv := 2 * (x2 - alpha*x0)
+			for j := r + 1; j < 6; j++ {
+				y := (*[6]float64)(a[6*j : 6*j+6])
+				var d float64
+				for i := r; i < 6; i++ {
+					d += x[i] * y[i]
+				}
+				f := -2 * d / vv
+				for i := r; i < 6; i++ {
+					y[i] += f * x[i]
+				}
+			}
+			x[r] = alpha
+		}
+	}
+	for r := 0; r < 6; r++ {
+		for j := r; j < 6; j++ {
+			rt[6*r+j] = a[6*j+r]
+		}
+	}
+}
