@@ -195,33 +195,14 @@ func analyze(ws []Wrench, r *Result, withFreed bool) error {
 	}
 
 	// Singular values and left singular vectors: one-sided Jacobi on A, or
-	// with six wrenches or more on Rᵀ from the pivoted QR factorisation
+	// with more than six wrenches on Rᵀ from the pivoted QR factorisation
 	// AᵀΠ = QR, which has the same singular values and, permuted, the same
-	// left singular vectors in six columns instead of n. For six the
-	// factorisation is a preconditioner (Drmač & Veselić 2008, "New fast
-	// and accurate Jacobi SVD algorithm I", SIAM J. Matrix Anal. Appl.
-	// 29(4)): the columns of Rᵀ are closer to orthogonal than those of A,
-	// and Jacobi needs fewer rotations (53 instead of 63 on the general
-	// benchmark coupling, 2 instead of 68 on the three-vee one).
+	// left singular vectors in six columns instead of n.
 	var u [36]float64
 	var sigma [6]float64
 	k := min(n, 6)
-	if n < 6 {
+	if n <= 6 {
 		copy(u[:], a)
-	} else if n == 6 {
-		var at, rt [36]float64
-		for i := 0; i < 6; i++ {
-			for j := 0; j < 6; j++ {
-				at[6*j+i] = a[6*i+j]
-			}
-		}
-		var perm [6]int
-		linalg.QRPivot6(&at, &rt, &perm)
-		for j := 0; j < 6; j++ {
-			for c := 0; c < 6; c++ {
-				u[6*j+perm[c]] = rt[6*j+c]
-			}
-		}
 	} else {
 		for i := 0; i < n; i++ {
 			for j := 0; j < 6; j++ {

@@ -77,16 +77,3 @@ func BenchmarkInverse6(b *testing.B) {
 		Inverse6(&a, 0)
 	}
 }
-
-func BenchmarkQRPivot6(b *testing.B) {
-	rng := rand.New(rand.NewPCG(9, 9))
-	var src [36]float64
-	copy(src[:], randMatrix(rng, 6, 6, 6))
-	var rt [36]float64
-	var perm [6]int
-	b.ReportAllocs()
-	for b.Loop() {
-		a := src
-		QRPivot6(&a, &rt, &perm)
-	}
-}

@@ -165,32 +165,6 @@ func TestNorm(t *testing.T) {
 	}
 }
 
-// TestQRPivot6 checks that QRPivot6 gives QRPivot's results for m = 6 to
-// the bit (QRPivot is checked against gonum in TestQRPivot), on matrices
-// of full and deficient rank and with exact zeros.
-func TestQRPivot6(t *testing.T) {
-	rng := rand.New(rand.NewPCG(23, 24))
-	for _, rank := range []int{6, 5, 3, 1, 0} {
-		for trial := 0; trial < 30; trial++ {
-			var a [36]float64
-			if rank > 0 {
-				copy(a[:], randMatrix(rng, 6, 6, rank))
-			}
-			if trial%5 == 0 {
-				a[6*(trial%6)+2] = 0
-			}
-			b := a
-			var rt1, rt2 [36]float64
-			var p1, p2 [6]int
-			QRPivot(a[:], 6, &rt1, &p1)
-			QRPivot6(&b, &rt2, &p2)
-			if rt1 != rt2 || p1 != p2 {
-				t.Fatalf("rank %d, trial %d: QRPivot6 gives %v %v, QRPivot %v %v", rank, trial, rt2, p2, rt1, p1)
-			}
-		}
-	}
-}
-
 // TestQRPivot checks that (AΠ)ᵀ(AΠ) = RᵀR (the factorisation, without Q),
 // that |R_rr| does not increase, and that Rᵀ has the singular values of A
 // (reference: gonum's mat.SVD).
