@@ -32,8 +32,12 @@ type Analysis struct {
 	DOF          int
 	Participants [][]string
 
-	lines  []line // the contacts, in local coordinates, kept for Stability
-	origin r3.Vec // the local origin: lines[i].p + origin is contact i's point
+	// The contacts, in local coordinates, kept for Stability: up to six
+	// in line6 (no allocation), more in more; read them with contacts.
+	line6  [6]line
+	nLines int
+	more   []line
+	origin r3.Vec // the local origin: contacts()[i].p + origin is contact i's point
 
 	freed    [6]screw.Twist // about origin, when hasFreed: power δᵢⱼ with contact j
 	hasFreed bool
@@ -58,15 +62,16 @@ func Analyze(cs []Contact) (Analysis, error) {
 	if len(cs) < 2 {
 		return Analysis{}, &InputError{Field: "cs", Err: fmt.Errorf("%w: %d contacts; a coupling needs at least two", ErrDegenerate, len(cs))}
 	}
-	// Up to six contacts, the lines and the singular values share one
-	// allocation.
+	// Up to six contacts, the lines are kept in the Analysis itself: the
+	// singular values are its one allocation.
+	var an Analysis
 	var lines []line
-	var sing []float64
 	if len(cs) <= 6 {
-		st := new(analysisStore)
-		lines, sing = st.lines[:len(cs)], st.singular[:0]
+		an.nLines = len(cs)
+		lines = an.line6[:len(cs)]
 	} else {
-		lines = make([]line, len(cs))
+		an.more = make([]line, len(cs))
+		lines = an.more
 	}
 	var o r3.Vec
 	for i := range cs {
@@ -110,7 +115,7 @@ func Analyze(cs []Contact) (Analysis, error) {
 		return Analysis{}, fromConstraint(err, cs)
 	}
 	sa := screw.Analysis{
-		Rank: r.Rank, Singular: append(sing, r.Singular[:r.K]...), Condition: r.Condition,
+		Rank: r.Rank, Singular: append([]float64(nil), r.Singular[:r.K]...), Condition: r.Condition,
 		NearSingular: r.NearSingular, Redundant: r.Redundant, Centre: r3.Add(r.Centre, o), Length: r.Length,
 	}
 	if r.Rank < 6 {
@@ -119,7 +124,7 @@ func Analyze(cs []Contact) (Analysis, error) {
 			sa.Free[k] = global(screw.Twist(r.Free[k]), o)
 		}
 	}
-	an := Analysis{Analysis: sa, DOF: 6 - sa.Rank, lines: lines, origin: o}
+	an.Analysis, an.DOF, an.origin = sa, 6-sa.Rank, o
 	if r.HasFreed {
 		an.hasFreed = true
 		for k := range an.freed {
@@ -139,11 +144,12 @@ func Analyze(cs []Contact) (Analysis, error) {
 	return an, nil
 }
 
-// analysisStore holds the lines and singular values of up to six
-// contacts in one allocation.
-type analysisStore struct {
-	lines    [6]line
-	singular [6]float64
+// contacts returns the contacts' lines, in local coordinates.
+func (a *Analysis) contacts() []line {
+	if a.more != nil {
+		return a.more
+	}
+	return a.line6[:a.nLines]
 }
 
 // global returns the twist t, whose V is the velocity of the body point at

@@ -84,12 +84,12 @@ func (c Coupling) Assembly() (*Assembly, error) {
 			"%w: %d contacts of rank %d; an assembly's seated pose needs six independent contacts", ErrNotExact, len(cs), an.Rank)}
 	}
 	a := &Assembly{index: map[string]int{}, origin: an.origin, nom: an}
-	if !freedOf(an.lines, &a.freed) {
+	if !freedOf(an.contacts(), &a.freed) {
 		return nil, &InputError{Field: "Pairs", Err: fmt.Errorf("%w: the six contacts are singular to working precision", ErrNotExact)}
 	}
-	copy(a.lines[:], an.lines)
+	copy(a.lines[:], an.contacts())
 	var s2 float64
-	for _, l := range an.lines {
+	for _, l := range a.lines {
 		s2 += r3.Norm2(l.p)
 	}
 	a.size = math.Sqrt(s2 / 6)

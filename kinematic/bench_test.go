@@ -289,6 +289,7 @@ func BenchmarkStudySample(b *testing.B) {
 			x := a.sensitivity(k)
 			s.jd[i], s.jw[i] = x.At(s.pl), x.W
 		}
+		s.prepareLinear()
 		name := "linear"
 		if exact {
 			name = "exact"

@@ -172,7 +172,7 @@ func NewModel(cs []Contact, preloads []Preload, payload Payload) (*Model, error)
 	if err != nil {
 		return nil, err
 	}
-	m := &Model{lines: an.lines, origin: an.origin, rank: an.Rank}
+	m := &Model{lines: append([]line(nil), an.contacts()...), origin: an.origin, rank: an.Rank}
 	var s2 float64
 	for _, l := range m.lines {
 		s2 += r3.Norm2(l.p)

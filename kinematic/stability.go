@@ -2,6 +2,7 @@ package kinematic
 
 import (
 	"fmt"
+	"math"
 
 	"gonum.org/v1/gonum/spatial/r3"
 
@@ -73,20 +74,27 @@ func (a Analysis) Stability() (Stability, error) {
 
 // stability fills st.
 func (a *Analysis) stability(st *Stability) error {
-	if len(a.lines) != 6 || a.Rank != 6 {
+	lines := a.contacts()
+	if len(lines) != 6 || a.Rank != 6 {
 		return &InputError{Field: "cs", Err: fmt.Errorf(
 			"%w: %d contacts of rank %d (%d free motions, %d redundant); Maxwell indices need six independent contacts",
-			ErrNotExact, len(a.lines), a.Rank, len(a.Free), len(a.Redundant))}
+			ErrNotExact, len(lines), a.Rank, len(a.Free), len(a.Redundant))}
 	}
 	ts := a.freed
-	if !a.hasFreed && !freedOf(a.lines, &ts) {
+	if !a.hasFreed && !freedOf(lines, &ts) {
 		return &InputError{Field: "cs", Err: fmt.Errorf("%w: the six contacts are singular to working precision", ErrNotExact)}
 	}
 	for i, t := range ts {
-		l := &a.lines[i]
+		l := &lines[i]
 		m := &st.Contacts[i]
 		t, m.Index, m.CentreIndex = maxwell(t, l)
-		m.Label, m.Freed = l.label, global(t, a.origin)
+		// global(t, a.origin), in scalars as in maxwell.
+		o := a.origin
+		m.Label = l.label
+		m.Freed.W = t.W
+		m.Freed.V.X = t.V.X - (t.W.Y*o.Z - t.W.Z*o.Y)
+		m.Freed.V.Y = t.V.Y - (t.W.Z*o.X - t.W.X*o.Z)
+		m.Freed.V.Z = t.V.Z - (t.W.X*o.Y - t.W.Y*o.X)
 	}
 	low := st.Contacts[0].Index
 	for _, m := range st.Contacts {
@@ -107,14 +115,39 @@ func (a *Analysis) stability(st *Stability) error {
 // of [Maxwell]: 1/|v| at the contact point and 1/|v_c| at the ball's
 // centre (the same as the index for a contact not made by a ball). It is
 // the one definition of the index: Stability and the scorecard call it.
+//
+// It is written out in scalars, operation for operation as
+// t.Scale(1/r3.Dot(l.n, t.At(l.p))) and linalg.Norm3(freed.At(q)) (the
+// same results to the bit): the vector helpers' struct temporaries went
+// through memory, and their stores cost more than the arithmetic.
 func maxwell(t screw.Twist, l *line) (freed screw.Twist, index, centreIndex float64) {
-	freed = t.Scale(1 / r3.Dot(l.n, t.At(l.p)))
-	index = 1 / linalg.Norm3(freed.At(l.p))
+	wx, wy, wz := t.W.X, t.W.Y, t.W.Z
+	vx, vy, vz := t.V.X, t.V.Y, t.V.Z
+	px, py, pz := l.p.X, l.p.Y, l.p.Z
+	// v = V + W × p at the contact point, then the scale 1/(n·v).
+	ax := vx + (wy*pz - wz*py)
+	ay := vy + (wz*px - wx*pz)
+	az := vz + (wx*py - wy*px)
+	f := 1 / (l.n.X*ax + l.n.Y*ay + l.n.Z*az)
+	wx, wy, wz = f*wx, f*wy, f*wz
+	vx, vy, vz = f*vx, f*vy, f*vz
+	index = 1 / norm3(vx+(wy*pz-wz*py), vy+(wz*px-wx*pz), vz+(wx*py-wy*px))
 	centreIndex = index
 	if l.ball {
-		centreIndex = 1 / linalg.Norm3(freed.At(l.centre))
+		cx, cy, cz := l.centre.X, l.centre.Y, l.centre.Z
+		centreIndex = 1 / norm3(vx+(wy*cz-wz*cy), vy+(wz*cx-wx*cz), vz+(wx*cy-wy*cx))
 	}
+	freed.W.X, freed.W.Y, freed.W.Z = wx, wy, wz
+	freed.V.X, freed.V.Y, freed.V.Z = vx, vy, vz
 	return freed, index, centreIndex
+}
+
+// norm3 is linalg.Norm3 of (x, y, z), its usual case inline.
+func norm3(x, y, z float64) float64 {
+	if q := x*x + y*y + z*z; q > 0x1p-486 && q < 0x1p+486 {
+		return math.Sqrt(q)
+	}
+	return linalg.Norm3(r3.Vec{X: x, Y: y, Z: z})
 }
 
 // freedOf sets ts to the twists freed by removing each of the six

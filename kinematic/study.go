@@ -221,6 +221,7 @@ func (a *Assembly) newSampler(p r3.Vec, tols []Tolerance, opt *StudyOptions) (*s
 			return nil, &InputError{Field: "tols", Err: fmt.Errorf("%w: the sum of the tolerances' displacements can overflow", ErrRange)}
 		}
 	}
+	s.prepareLinear()
 	if opt.Exact {
 		// The calibrated part itself must seat.
 		var zero [6]float64
@@ -295,9 +296,10 @@ type sampler struct {
 	lim    []float64
 	normal []bool
 	exact  bool
-	base   geom     // the calibrated geometry
-	d0, w0 r3.Vec   // its first-order displacement and tilt
-	jd, jw []r3.Vec // per toleranced dimension
+	base   geom         // the calibrated geometry
+	d0, w0 r3.Vec       // its first-order displacement and tilt
+	jd, jw []r3.Vec     // per toleranced dimension
+	rows   [][6]float64 // the same side by side, for the linear sample (prepareLinear)
 }
 
 // draw fills dev with one sample of every toleranced dimension.
@@ -311,18 +313,41 @@ func (s *sampler) draw(rng *rand.Rand, dev []float64) {
 	}
 }
 
+// prepareLinear fills s.rows from s.jd and s.jw: one row of six
+// sensitivities per toleranced dimension (displacement of the point, then
+// rotation), so that the linear sample reads them in one stream.
+func (s *sampler) prepareLinear() {
+	s.rows = make([][6]float64, len(s.jd))
+	for i := range s.rows {
+		d, w := s.jd[i], s.jw[i]
+		s.rows[i] = [6]float64{d.X, d.Y, d.Z, w.X, w.Y, w.Z}
+	}
+}
+
 // sample returns the displacement of the point and the tilt magnitude of
 // one part with the deviations dev, and whether it seated.
 func (s *sampler) sample(dev []float64) (r3.Vec, float64, bool) {
 	if !s.exact {
+		// The first-order model: the calibrated displacement plus the
+		// sensitivities times the deviations, accumulated in the order of
+		// the dimensions. dev re-sliced to the rows' length, so that the
+		// loop has no bounds checks.
+		rows := s.rows
+		dev = dev[:len(rows)]
 		d, w := s.d0, s.w0
-		for i, v := range dev {
-			d.X += v * s.jd[i].X
-			d.Y += v * s.jd[i].Y
-			d.Z += v * s.jd[i].Z
-			w.X += v * s.jw[i].X
-			w.Y += v * s.jw[i].Y
-			w.Z += v * s.jw[i].Z
+		for i := range rows {
+			v, r := dev[i], &rows[i]
+			d.X += v * r[0]
+			d.Y += v * r[1]
+			d.Z += v * r[2]
+			w.X += v * r[3]
+			w.Y += v * r[4]
+			w.Z += v * r[5]
+		}
+		// linalg.Norm3 inline for the usual range, where it is this
+		// square root.
+		if q := w.X*w.X + w.Y*w.Y + w.Z*w.Z; q > 0x1p-486 && q < 0x1p+486 {
+			return d, math.Sqrt(q), true
 		}
 		return d, linalg.Norm3(w), true
 	}

@@ -27,13 +27,16 @@ func Jacobi6(a *[36]float64, k int) bool {
 	var norm2 [6]float64
 	var frob2 float64
 	for j := 0; j < k; j++ {
-		frob2 += dot6(cols[j], cols[j])
+		norm2[j] = dot6(cols[j], cols[j])
+		frob2 += norm2[j]
 	}
 	zero := zeroTol * zeroTol * frob2
 	const tol2 = jacobiTol * jacobiTol
 	for sweep := 0; sweep < maxSweeps; sweep++ {
-		for j := 0; j < k; j++ {
-			norm2[j] = dot6(cols[j], cols[j])
+		if sweep > 0 {
+			for j := 0; j < k; j++ {
+				norm2[j] = dot6(cols[j], cols[j])
+			}
 		}
 		rotated, large := false, false
 		for _, round := range pairs {
@@ -65,10 +68,10 @@ func Jacobi6(a *[36]float64, k int) bool {
 					large = true
 					r := math.Sqrt(d*d + g2*g2)
 					u := math.Abs(d) + r
-					t = g2 / u
-					if d < 0 {
-						t = -t
-					}
+					// sign(d) by a multiplication, exact, rather than a
+					// branch that the data make unpredictable (d = 0 gives
+					// +1; d is never −0, as α and β are positive).
+					t = g2 / u * math.Copysign(1, d)
 					c = math.Sqrt(u / (2 * r))
 				}
 				s := c * t
