@@ -359,3 +359,27 @@ func TestWrap(t *testing.T) {
 		t.Errorf("a long word: %q", got)
 	}
 }
+
+// TestUnnamedBalls: a design file that names no ball gets the report's
+// ball column lettered by position, as the design format documents
+// ("default "A", "B", ... by position") and as the contacts are labelled.
+func TestUnnamedBalls(t *testing.T) {
+	const file = `{"format": "sixfold.design/2",
+  "balls": [
+    {"centre": ["20 mm", "0 mm", "0 mm"], "radius": "3 mm", "material": "steel-52100"},
+    {"centre": ["-10 mm", "17.32 mm", "0 mm"], "radius": "3 mm", "material": "steel-52100"},
+    {"centre": ["-10 mm", "-17.32 mm", "0 mm"], "radius": "3 mm", "material": "steel-52100"}],
+  "seats": [
+    {"type": "trihedral", "half_angle": "35 deg", "toward": [1, 0, 0], "material": "steel-440c"},
+    {"type": "vee", "half_angle": "45 deg", "direction": [0.866, -0.5, 0], "material": "steel-440c"},
+    {"type": "flat", "material": "steel-440c"}]}`
+	code, out, errs := runCmd(t, file, "-out", "none", "-")
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	for _, row := range []string{"\nA      (20.00, 0.00, 0.00) mm", "\nB      (-10.00, 17.32, 0.00) mm", "\nC      (-10.00, -17.32, 0.00) mm"} {
+		if !strings.Contains(out, row) {
+			t.Errorf("report lacks the row %q", row)
+		}
+	}
+}

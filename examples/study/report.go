@@ -186,8 +186,15 @@ func (s *study) coupling() {
 		wm = max(wm, len([]rune(p.Ball.Material.Name)))
 	}
 	s.printf("%-6s %-32s %10s  %-*s  %s\n", "ball", "centre", "radius", wm, "ball material", "seat")
-	for _, p := range c.Pairs {
-		s.printf("%-6s %-32s %7.3f mm  %-*s  %s\n", p.Name, mm(p.Ball.Centre), p.Ball.Radius*1e3, wm, p.Ball.Material.Name, seatText(p.Seat))
+	for i, p := range c.Pairs {
+		name := p.Name
+		if name == "" { // unnamed balls are lettered by position, as kinematic labels them
+			name = string(rune('A' + i))
+			if i >= 26 {
+				name = fmt.Sprintf("P%d", i+1)
+			}
+		}
+		s.printf("%-6s %-32s %7.3f mm  %-*s  %s\n", name, mm(p.Ball.Centre), p.Ball.Radius*1e3, wm, p.Ball.Material.Name, seatText(p.Seat))
 	}
 	for _, p := range s.d.Preloads {
 		name := p.Name

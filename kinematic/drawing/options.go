@@ -103,7 +103,7 @@ func bounds(c kinematic.Coupling) (lo, hi r3.Vec) {
 func finite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
 
 // pairName returns the name of pair i, or a letter by position ("A",
-// "B", ...) as the design package names an unnamed ball.
+// "B", ..., then "P27", ...) as package kinematic labels an unnamed pair.
 func pairName(c kinematic.Coupling, i int) string {
 	if n := c.Pairs[i].Name; n != "" {
 		return n
@@ -111,5 +111,5 @@ func pairName(c kinematic.Coupling, i int) string {
 	if i < 26 {
 		return string(rune('A' + i))
 	}
-	return fmt.Sprintf("#%d", i+1)
+	return fmt.Sprintf("P%d", i+1)
 }
