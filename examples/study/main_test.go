@@ -383,3 +383,49 @@ func TestUnnamedBalls(t *testing.T) {
 		}
 	}
 }
+
+// TestOpeningsPreload: with the cassette's plunger at 55 N the worst
+// direction's contact C+ is expected to open hundreds of times in the
+// test; the report's margin for at most 0.01 openings follows Rice's
+// formula from the table's own figures (openings = ν₀T·exp(−m²/2), so
+// the margin is √(2 ln(openings·e^(m²/2)/0.01)), checked to the printed
+// three figures), and the plunger force it prints, put back into the
+// file, meets max_random_openings along every axis.
+func TestOpeningsPreload(t *testing.T) {
+	raw, err := os.ReadFile("../cassette/cassette.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	weak := strings.Replace(string(raw), `"force": "110 N"`, `"force": "55 N"`, 1)
+	if weak == string(raw) {
+		t.Fatal("the cassette's plunger is no longer 110 N: update the test")
+	}
+	_, out, _ := runCmd(t, weak, "-out", "none", "-")
+	sec := out[strings.Index(out, "Along worst"):]
+	row := regexp.MustCompile(`(?m)^\s+C\+\s+\S+\s+\S+\s+\S+\s+(\S+)\s+(\S+)`).FindStringSubmatch(sec)
+	line := regexp.MustCompile(`at most 0\.01 expected openings: a margin of (\S+) σ at contact (\S+) .*\(spring plunger (\S+) N\)`).FindStringSubmatch(sec)
+	if row == nil || line == nil {
+		t.Fatalf("no C+ row or openings line in:\n%s", sec)
+	}
+	m, _ := strconv.ParseFloat(row[1], 64)
+	n, _ := strconv.ParseFloat(row[2], 64)
+	got, _ := strconv.ParseFloat(line[1], 64)
+	want := math.Sqrt(2 * (math.Log(n) + m*m/2 - math.Log(0.01)))
+	if line[2] != "C+" || math.Abs(got-want) > 0.01*want {
+		t.Errorf("margin for 0.01 openings %g at %s, want %.3g at C+ (from m = %g, openings %g)", got, line[2], want, m, n)
+	}
+	fixed := strings.Replace(weak, `"force": "55 N"`, `"force": "`+line[3]+` N"`, 1)
+	_, out, _ = runCmd(t, fixed, "-out", "none", "-")
+	verdicts := 0
+	for _, l := range strings.Split(out, "\n") {
+		if strings.HasPrefix(l, "requirements.max_random_openings") {
+			verdicts++
+			if !strings.HasSuffix(l, "passes") {
+				t.Errorf("with the plunger at %s N: %s", line[3], l)
+			}
+		}
+	}
+	if verdicts != 4 {
+		t.Errorf("%d max_random_openings verdicts with the plunger at %s N, want 4 (x, y, z, worst)", verdicts, line[3])
+	}
+}

@@ -74,11 +74,55 @@ func (s *study) vibration(n int) {
 		} else {
 			s.printf("  preload for %g σ: %s\n", k, ra.PreloadNote)
 		}
+		if lim := s.d.Requirements.MaxRandomOpenings; lim > 0 && len(s.d.Preloads) > 0 {
+			s.openingsPreload(ra, lim)
+		}
 	}
 	s.printf("\nWorst direction: along %s, least margin %.3g σ.\n", worstAxis, worst)
 	s.printf("Caution: random vibration figures are engineering estimates in linear theory\n" +
 		"(modal damping as assumed, normal contact stiffness only); verify them by test,\n" +
 		"and defer to the applicable codes and a qualified engineer.\n")
+}
+
+// openingsPreload prints the preload that brings the expected openings
+// of every contact along the axis down to lim. By Rice's formula a
+// contact's openings in the test are ν₀T·exp(−m²/2) at margin m, so
+// ln(ν₀T) = ln(openings) + m²/2 and the margin for lim openings is
+// √(2 ln(ν₀T/lim)). The largest such margin among the contacts short of
+// their own, with the crossing rates ν₀ held (first order: they move
+// little with the preload), goes to kinematic.Model.RandomPreload as its
+// k: every contact then has at least that margin, which is enough and,
+// for the contacts that cross less often, more than they need.
+func (s *study) openingsPreload(ra design.RandomAxis, lim float64) {
+	need, at := 0.0, ""
+	for _, c := range ra.Response.Contacts {
+		if !(c.Openings > lim) { // within the limit (or so few that they underflow)
+			continue
+		}
+		if l := math.Log(c.Openings) + c.Margin*c.Margin/2 - math.Log(lim); math.Sqrt(2*l) > need {
+			need, at = math.Sqrt(2*l), c.Label
+		}
+	}
+	if need == 0 {
+		s.printf("  at most %g expected openings: met by the preload as given\n", lim)
+		return
+	}
+	var lc kinematic.LoadCase
+	for _, c := range s.d.Cases {
+		if c.Name == s.ev.RandomCase {
+			lc = c
+			break
+		}
+	}
+	opt := ra.Options
+	opt.Sigma = need
+	p, err := s.b.Model().RandomPreload(lc, s.d.Vibration.Spectrum, &opt)
+	if err != nil {
+		s.printf("  at most %g expected openings: a margin of %.3g σ at contact %s: %v\n", lim, need, at, err)
+		return
+	}
+	s.printf("  at most %g expected openings: a margin of %.3g σ at contact %s (Rice, its crossing rate held); every contact at it takes ×%.3g of the preload as given with Hertz stiffness (%s)\n",
+		lim, need, at, p.Hertz, s.preloadForces(p.Hertz))
 }
 
 // sigmaOf returns the vibration's k.
