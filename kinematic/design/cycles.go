@@ -1,6 +1,7 @@
 package design
 
 import (
+	"errors"
 	"fmt"
 	"math"
 
@@ -331,7 +332,17 @@ func (e *Evaluation) hysteresis(b *Built) {
 	steps := c.steps()
 	h, err := b.model.Hysteresis(lc, steps, d.Friction.Mu, d.Point)
 	if err != nil {
-		e.hysteresisNote = fmt.Sprintf("no hysteresis under cycle %q in case %q: %v", c.Name, lc.Name, unwrapKinematic(err))
+		where := ""
+		var ke *kinematic.InputError
+		if errors.As(err, &ke) {
+			// steps[k] of the expanded cycle is substep k%n+1 on the way
+			// to the file's step k/n.
+			if name, k, ok := splitIndex(ke.Field); ok && name == "steps" {
+				n := max(c.Substeps, 1)
+				where = fmt.Sprintf(" at cycles[%d].steps[%d], %d/%d of the way to it from the step before", ci, k/n, k%n+1, n)
+			}
+		}
+		e.hysteresisNote = fmt.Sprintf("no hysteresis under cycle %q in case %q%s: %v", c.Name, lc.Name, where, unwrapKinematic(err))
 		e.Notes = append(e.Notes, e.hysteresisNote)
 		return
 	}

@@ -3,6 +3,7 @@ package design
 import (
 	"errors"
 	"math"
+	"regexp"
 	"strings"
 	"testing"
 
@@ -155,8 +156,9 @@ func TestHysteresisContactOpens(t *testing.T) {
 	if ev.Hysteresis != nil {
 		t.Fatalf("hysteresis %+v with a contact open", ev.Hysteresis)
 	}
-	if len(ev.Notes) == 0 || !strings.Contains(strings.Join(ev.Notes, "\n"), "opens under this step") {
-		t.Errorf("notes %q", ev.Notes)
+	notes := strings.Join(ev.Notes, "\n")
+	if !strings.Contains(notes, "opens under this step") || !regexp.MustCompile(`at cycles\[0\]\.steps\[0\], \d+/25 of the way`).MatchString(notes) {
+		t.Errorf("notes %q do not name the step of the file", ev.Notes)
 	}
 	for _, v := range ev.Verdicts() {
 		if strings.HasPrefix(v.Requirement, "requirements.max_hysteresis") && (v.Pass || !math.IsInf(v.Value, 1)) {
