@@ -109,13 +109,7 @@ func (s *study) write(name string, draw func(io.Writer) error) error {
 // at the point of interest along each axis, and the contact margins.
 func (s *study) randomDrawings(title string) error {
 	v := s.d.Vibration
-	var lc kinematic.LoadCase
-	for _, c := range s.d.Cases {
-		if c.Name == s.ev.RandomCase {
-			lc = c
-			break
-		}
-	}
+	lc := s.caseNamed(s.ev.RandomCase)
 	var curves []drawing.RandomCurve
 	for _, ra := range s.ev.Random {
 		opt := ra.Options

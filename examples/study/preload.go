@@ -50,17 +50,16 @@ func (s *study) preloadCurves() error {
 		return nil
 	}
 	var sz *kinematic.PreloadSizing
-	if len(s.d.Cases) > 0 {
-		if w, err := s.b.Model().SizePreload(s.d.Cases, s.d.Requirements.MinContactForce); err == nil {
-			sz = &w
-		}
+	if w, err := s.preloadSizing(); err == nil && len(s.d.Cases) > 0 {
+		sz = &w
 	}
 	for _, i := range laws {
 		p := s.d.Preloads[i]
-		f, slope, err := p.Law.Force(p.Gap)
+		f, rate, err := p.AtSeat()
 		if err != nil {
 			return err
 		}
+		slope := -rate
 		kind := "it adds to the coupling's stiffness"
 		if slope < 0 {
 			kind = "a negative spring: it takes from the coupling's stiffness"
@@ -90,12 +89,7 @@ func (s *study) preloadCurves() error {
 	if sh == nil {
 		return nil
 	}
-	var base kinematic.LoadCase
-	for _, c := range s.d.Cases {
-		if c.Name == s.ev.ShockCase {
-			base = c
-		}
-	}
+	base := s.caseNamed(s.ev.ShockCase)
 	// The same coupling held by compression springs of the same static
 	// forces, each growing as the part lifts by the law's stiffness in
 	// size.
@@ -103,9 +97,9 @@ func (s *study) preloadCurves() error {
 	for i, p := range s.d.Preloads {
 		springs[i] = p
 		if p.Law != nil {
-			f, slope, _ := p.Law.Force(p.Gap)
+			f, rate, _ := p.AtSeat() // the design was built: its laws are valid
 			springs[i].Law, springs[i].Gap = nil, 0
-			springs[i].Force, springs[i].Rate = f, -math.Abs(slope)
+			springs[i].Force, springs[i].Rate = f, -math.Abs(rate)
 		}
 	}
 	m, err := kinematic.NewModel(s.b.Contacts(), springs, s.d.Payload)
@@ -118,8 +112,8 @@ func (s *study) preloadCurves() error {
 	}
 	g := kinematic.StandardGravity
 	s.printf("shock along the lift, added to case %q: the first contact opens at %.2f g; %s\n", s.ev.ShockCase, sh.Unload/g, runaway(sh))
-	s.printf("  with compression springs of the same static force and stiffness %s (force growing as the part lifts): first contact opens at %.2f g; %s\n",
-		"in size", sp.Unload/g, runaway(&sp))
+	s.printf("  with compression springs of the same static force and stiffness in size (force growing as the part lifts): first contact opens at %.2f g; %s\n",
+		sp.Unload/g, runaway(&sp))
 	return nil
 }
 
@@ -133,21 +127,12 @@ func runaway(sh *kinematic.Shock) string {
 	return fmt.Sprintf("the part runs away at %.2f g", sh.Runaway/kinematic.StandardGravity)
 }
 
-func nameOf(p kinematic.Preload, i int) string {
-	if p.Name != "" {
-		return p.Name
-	}
-	return fmt.Sprintf("preload %d", i+1)
-}
-
 // preloadDrawings writes the curve of each preload element with a force
 // law, with the lower end of its window as a line.
 func (s *study) preloadDrawings(title string) error {
 	var sz *kinematic.PreloadSizing
-	if len(s.d.Cases) > 0 {
-		if w, err := s.b.Model().SizePreload(s.d.Cases, s.d.Requirements.MinContactForce); err == nil {
-			sz = &w
-		}
+	if w, err := s.preloadSizing(); err == nil && len(s.d.Cases) > 0 {
+		sz = &w
 	}
 	for i, p := range s.d.Preloads {
 		if p.Law == nil {

@@ -34,6 +34,42 @@ type study struct {
 	opt       *kinematic.Optimum
 	optimized *design.Built
 	optEv     design.Evaluation
+
+	// sizing is the preload window of the design's cases, computed once
+	// (sizingDone) for the loads section, the preload curves and their
+	// drawings; sizingErr says why there is none.
+	sizing     kinematic.PreloadSizing
+	sizingErr  error
+	sizingDone bool
+}
+
+// preloadSizing returns the preload window of the design's cases with
+// the requirements' least contact force.
+func (s *study) preloadSizing() (kinematic.PreloadSizing, error) {
+	if !s.sizingDone {
+		s.sizing, s.sizingErr = s.b.Model().SizePreload(s.d.Cases, s.d.Requirements.MinContactForce)
+		s.sizingDone = true
+	}
+	return s.sizing, s.sizingErr
+}
+
+// caseNamed returns the design's load case of that name (the zero
+// LoadCase if there is none).
+func (s *study) caseNamed(name string) kinematic.LoadCase {
+	for _, c := range s.d.Cases {
+		if c.Name == name {
+			return c
+		}
+	}
+	return kinematic.LoadCase{}
+}
+
+// nameOf returns preload element i's name, or "preload i+1".
+func nameOf(p kinematic.Preload, i int) string {
+	if p.Name != "" {
+		return p.Name
+	}
+	return fmt.Sprintf("preload %d", i+1)
 }
 
 func (s *study) printf(format string, a ...any) { fmt.Fprintf(s.w, format, a...) }
@@ -196,11 +232,8 @@ func (s *study) coupling() {
 		}
 		s.printf("%-6s %-32s %7.3f mm  %-*s  %s\n", name, mm(p.Ball.Centre), p.Ball.Radius*1e3, wm, p.Ball.Material.Name, seatText(p.Seat))
 	}
-	for _, p := range s.d.Preloads {
-		name := p.Name
-		if name == "" {
-			name = "preload"
-		}
+	for i, p := range s.d.Preloads {
+		name := nameOf(p, i)
 		f, r, _ := p.AtSeat() // the design was built: its laws are valid
 		rate := ""
 		if r != 0 {
@@ -258,7 +291,7 @@ func (s *study) loads() error {
 	}
 	if len(s.d.Preloads) > 0 {
 		minF := s.d.Requirements.MinContactForce
-		sz, err := s.b.Model().SizePreload(s.d.Cases, minF)
+		sz, err := s.preloadSizing()
 		total := 0.0
 		for _, p := range s.d.Preloads {
 			f, _, _ := p.AtSeat()

@@ -107,13 +107,7 @@ func (s *study) openingsPreload(ra design.RandomAxis, lim float64) {
 		s.printf("  at most %g expected openings: met by the preload as given\n", lim)
 		return
 	}
-	var lc kinematic.LoadCase
-	for _, c := range s.d.Cases {
-		if c.Name == s.ev.RandomCase {
-			lc = c
-			break
-		}
-	}
+	lc := s.caseNamed(s.ev.RandomCase)
 	opt := ra.Options
 	opt.Sigma = need
 	p, err := s.b.Model().RandomPreload(lc, s.d.Vibration.Spectrum, &opt)
@@ -137,12 +131,8 @@ func sigmaOf(v *design.Vibration) float64 {
 func (s *study) preloadForces(f float64) string {
 	var parts []string
 	for i, p := range s.d.Preloads {
-		name := p.Name
-		if name == "" {
-			name = fmt.Sprintf("preload %d", i+1)
-		}
 		force, _, _ := p.AtSeat()
-		parts = append(parts, fmt.Sprintf("%s %.3g N", name, force*f))
+		parts = append(parts, fmt.Sprintf("%s %.3g N", nameOf(p, i), force*f))
 	}
 	return strings.Join(parts, ", ")
 }
