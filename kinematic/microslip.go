@@ -215,6 +215,7 @@ func (h *hysteresisSolver) prepare(f0 []float64, dw []screw.Wrench, lc *LoadCase
 	m := h.m
 	var kl [36]float64
 	var t1s, t2s [6][6]float64
+	var tan [6][2]r3.Vec // each contact's tangent pair
 	for i, l := range m.lines {
 		c := &h.cs[i]
 		s := &m.surf[i]
@@ -233,6 +234,7 @@ func (h *hysteresisSolver) prepare(f0 []float64, dw []screw.Wrench, lc *LoadCase
 		addOuter(&kl, normalStiffness(s.k, f0[i]), &c.gn)
 		t1 := linalg.AnyNormal(l.n)
 		t2 := r3.Cross(l.n, t1)
+		tan[i] = [2]r3.Vec{t1, t2}
 		t1s[i] = scaledWrench(screw.Wrench{F: t1, M: r3.Cross(l.p, t1)}, h.L)
 		t2s[i] = scaledWrench(screw.Wrench{F: t2, M: r3.Cross(l.p, t2)}, h.L)
 		addOuter(&kl, k0, &t1s[i])
@@ -255,8 +257,7 @@ func (h *hysteresisSolver) prepare(f0 []float64, dw []screw.Wrench, lc *LoadCase
 	for i, l := range m.lines {
 		c := &h.cs[i]
 		a, b := dot6(&t1s[i], &y), dot6(&t2s[i], &y)
-		t1 := linalg.AnyNormal(l.n)
-		t2 := r3.Cross(l.n, t1)
+		t1, t2 := tan[i][0], tan[i][1]
 		e1 := t1
 		if n := math.Hypot(a, b); n > 0 {
 			e1 = r3.Add(r3.Scale(a/n, t1), r3.Scale(b/n, t2))

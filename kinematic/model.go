@@ -367,17 +367,17 @@ func lawOf(p *Preload, f string) error {
 	if err := checkGap(p.Gap); err != nil {
 		return &InputError{Field: f + ".Gap", Err: err.(*InputError).Err}
 	}
-	force, slope, err := p.Law.Force(p.Gap)
+	force, rate, err := p.AtSeat()
 	if err != nil {
 		return &InputError{Field: f + ".Gap", Err: err.(*InputError).Err}
 	}
 	if force < 0 {
 		return &InputError{Field: f + ".Gap", Err: fmt.Errorf("%w: the law's force at %g m is %g N, a repulsion (a magnet offset beyond its partner's face?)", ErrRange, p.Gap, force)}
 	}
-	if !allFinite(slope) {
+	if !allFinite(rate) {
 		return &InputError{Field: f + ".Gap", Err: fmt.Errorf("%w: the law's stiffness at %g m is infinite (magnet faces touching): give the seated clearance, > 0", ErrRange, p.Gap)}
 	}
-	p.Force, p.Rate = force, -slope
+	p.Force, p.Rate = force, rate
 	return nil
 }
 

@@ -298,9 +298,8 @@ func (m *Model) runaway(i int, f0, factor float64) float64 {
 		law         ForceLaw
 		gap, f0, pf float64
 	}
-	var laws [8]lawAt
-	nl := 0
-	var extra []lawAt
+	var buf [8]lawAt
+	laws := buf[:0] // on the stack for up to eight law elements
 	for _, p := range m.preloads {
 		pij := -r3.Dot(t.At(p.p), p.dir)
 		if pij == 0 {
@@ -310,13 +309,7 @@ func (m *Model) runaway(i int, f0, factor float64) float64 {
 			slope -= factor * p.rate * pij * pij
 			continue
 		}
-		la := lawAt{law: p.law, gap: p.gap, f0: linalg.Norm3(p.w.F), pf: pij}
-		if nl < len(laws) {
-			laws[nl] = la
-			nl++
-		} else {
-			extra = append(extra, la)
-		}
+		laws = append(laws, lawAt{law: p.law, gap: p.gap, f0: linalg.Norm3(p.w.F), pf: pij})
 		switch {
 		case pij > 0 && p.law.reach() > p.gap:
 			qmax = math.Max(qmax, (p.law.reach()-p.gap)/pij)
@@ -327,10 +320,9 @@ func (m *Model) runaway(i int, f0, factor float64) float64 {
 	if slope > 0 {
 		return math.Inf(1)
 	}
-	all := append(laws[:nl:nl], extra...)
 	held := func(q float64) float64 {
 		h := f0 + slope*q
-		for _, la := range all {
+		for _, la := range laws {
 			f, _, err := la.law.Force(math.Max(0, la.gap+q*la.pf))
 			if err != nil {
 				return math.Inf(-1)
@@ -339,7 +331,7 @@ func (m *Model) runaway(i int, f0, factor float64) float64 {
 		}
 		return h
 	}
-	if len(all) == 0 || !(qmax > 0) || !allFinite(qmax) {
+	if len(laws) == 0 || !(qmax > 0) || !allFinite(qmax) {
 		return f0
 	}
 	best, kb := f0, 0
