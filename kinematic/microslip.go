@@ -68,7 +68,9 @@ const hysteresisTol = 1e-12
 
 // Hysteresis applies the load cycle steps to the coupling seated under the
 // load case lc and follows the point p of the moving body, with micro-slip
-// at the contacts for the coefficient of friction mu.
+// at the contacts for the coefficient of friction mu (a
+// coefficient: 0.15, not 15; any μ > 0 is taken, so that the no-slip
+// limit can be approached, and a design file refuses one above 3).
 //
 // Each step's added load is a force through its Point plus a couple; the
 // cycle starts from the seated pose and must end with zero added load (the

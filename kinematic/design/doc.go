@@ -93,7 +93,7 @@
 //	  moving_alpha      expansion coefficient of the moving body; default 0
 //	  base_alpha        expansion coefficient of the base; default 0
 //	  base_ref          [x, y, z] lengths, where the base is held; default origin (changes only the drift in the frame)
-//	friction            object, optional: {"mu": number ≥ 0, required}
+//	friction            object, optional: {"mu": number in [0, 3], required; a larger one is refused as a percentage}
 //	monte_carlo         object, optional
 //	  samples           whole number in [1, 1e7], required
 //	  seed              whole number in [0, 2^64); default 0
