@@ -108,6 +108,10 @@ func TestCassette(t *testing.T) {
 	if _, err := os.Stat(filepath.Join(dir, "scorecards.svg")); err == nil {
 		t.Error("scorecards.svg drawn without -optimize")
 	}
+	// The plan names the preload element as the file does.
+	if text, _ := svgElements(t, filepath.Join(dir, "plan.svg")); !strings.Contains(text, "spring plunger: 110 N") {
+		t.Error("plan.svg does not name the spring plunger with its force")
+	}
 }
 
 // TestPercentileColumns reads the report's radial percentile columns and

@@ -253,7 +253,11 @@ func (v *planView) points(g kinematic.Geometry, ev design.Evaluation, d design.D
 		v.marks = append(v.marks, mark{ev.Drift.Centre.X * mm, ev.Drift.Centre.Y * mm, "thermal centre", draw.PyramidGlyph{}, red})
 	}
 	for i, p := range d.Preloads {
-		v.marks = append(v.marks, mark{p.Point.X * mm, p.Point.Y * mm, fmt.Sprintf("preload %d: %s N", i+1, idraw.Sig(seated(p))), draw.TriangleGlyph{}, green})
+		name := p.Name // the file's name for the element, or its number
+		if name == "" {
+			name = fmt.Sprintf("preload %d", i+1)
+		}
+		v.marks = append(v.marks, mark{p.Point.X * mm, p.Point.Y * mm, fmt.Sprintf("%s: %s N", name, idraw.Sig(seated(p))), draw.TriangleGlyph{}, green})
 	}
 	if d.Payload.Mass > 0 {
 		v.marks = append(v.marks, mark{d.Payload.Centre.X * mm, d.Payload.Centre.Y * mm, "centre of mass", draw.RingGlyph{}, ink})
