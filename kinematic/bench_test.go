@@ -306,6 +306,17 @@ func BenchmarkStudySample(b *testing.B) {
 				}
 				sinkSample.X = dev[0]
 			})
+			// The linear sample alone, on deviations already drawn: 66
+			// multiplications and 66 additions in scalar instructions
+			// (eleven rows of six), the floor of its cost over the draw.
+			s.draw(rng, dev)
+			b.Run("linear-alone", func(b *testing.B) {
+				b.ReportAllocs()
+				for b.Loop() {
+					d, _, _ := s.sample(dev)
+					sinkSample = d
+				}
+			})
 		}
 		b.Run(name, func(b *testing.B) {
 			b.ReportAllocs()

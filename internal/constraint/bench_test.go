@@ -6,6 +6,8 @@ import (
 	"testing"
 
 	"gonum.org/v1/gonum/spatial/r3"
+
+	"github.com/sixfold-dev/sixfold/internal/linalg"
 )
 
 var (
@@ -83,6 +85,82 @@ func BenchmarkFreed(b *testing.B) {
 			b.ReportAllocs()
 			for b.Loop() {
 				if !Freed(&s.ws, &sinkTwists) {
+					b.Fatal("singular")
+				}
+			}
+		})
+	}
+}
+
+// BenchmarkDecompose measures, on the normalised matrices of the
+// benchmark sets, the pieces that bound Analyze's speed: the
+// normalisation alone, the one-sided Jacobi SVD that Analyze uses
+// (with the sort), and the alternatives measured against it for the
+// speed target of issue 19 (DEVELOPERS.md, "Performance as ratios"): the
+// same after a pivoted QR (Drmač & Veselić's preconditioner), the
+// eigenvalues of the Gram matrix AᵀA (Householder tridiagonalisation
+// and implicit QR, which square the condition number and so could only
+// serve well-conditioned sets), and the Gauss–Jordan inverse that any
+// path without the singular vectors needs for the freed twists.
+func BenchmarkDecompose(b *testing.B) {
+	for _, s := range benchSets() {
+		var pre [6]Wrench
+		var src [36]float64
+		var exps [6]int
+		var gain [6]float64
+		if _, err := normalise(s.ws[:], pre[:], src[:], exps[:], gain[:]); err != nil {
+			b.Fatal(err)
+		}
+		b.Run(s.name+"/normalise", func(b *testing.B) {
+			var a [36]float64
+			for b.Loop() {
+				if _, err := normalise(s.ws[:], pre[:], a[:], exps[:], gain[:]); err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
+		b.Run(s.name+"/jacobi", func(b *testing.B) {
+			var sigma [6]float64
+			for b.Loop() {
+				a := src
+				if !linalg.Jacobi6(&a, 6) {
+					b.Fatal("no convergence")
+				}
+				linalg.Sort6(&a, 6, &sigma)
+			}
+		})
+		b.Run(s.name+"/qr-jacobi", func(b *testing.B) {
+			var sigma [6]float64
+			var rt [36]float64
+			var perm [6]int
+			for b.Loop() {
+				a := src
+				linalg.QRPivot(a[:], 6, &rt, &perm)
+				if !linalg.Jacobi6(&rt, 6) {
+					b.Fatal("no convergence")
+				}
+				linalg.Sort6(&rt, 6, &sigma)
+			}
+		})
+		b.Run(s.name+"/gram-eigenvalues", func(b *testing.B) {
+			var w [6]float64
+			for b.Loop() {
+				var g [36]float64
+				for p := 0; p < 6; p++ {
+					for q := 0; q <= p; q++ {
+						x := dot6((*[6]float64)(src[6*p:6*p+6]), (*[6]float64)(src[6*q:6*q+6]))
+						g[6*p+q], g[6*q+p] = x, x
+					}
+				}
+				if !linalg.EigenvaluesSym6(&g, &w) {
+					b.Fatal("no convergence")
+				}
+			}
+		})
+		b.Run(s.name+"/inverse", func(b *testing.B) {
+			for b.Loop() {
+				a := src
+				if !linalg.Inverse6(&a, freedTol) {
 					b.Fatal("singular")
 				}
 			}
