@@ -194,16 +194,54 @@ func analyze(ws []Wrench, r *Result, withFreed bool) error {
 		return err
 	}
 
-	// Singular values and left singular vectors: one-sided Jacobi on A, or
-	// with more than six wrenches on Rᵀ from the pivoted QR factorisation
-	// AᵀΠ = QR, which has the same singular values and, permuted, the same
-	// left singular vectors in six columns instead of n.
+	// Singular values and left singular vectors.
+	//
+	// Six wrenches: one-sided Jacobi on Aᵀ with its rotations accumulated,
+	// Aᵀ·J = W with orthogonal columns, so that A = J·Wᵀ: J holds the left
+	// singular vectors of A, already of unit norm, and W's column norms are
+	// the singular values (Hestenes 1958, applied to the transpose; the
+	// same relative accuracy, Demmel & Veselić 1992). The rows of a
+	// coupling's normalised matrix are far closer to orthogonal than its
+	// columns: on the benchmark three-vee coupling Jacobi on the rows
+	// ends after a sweep and a half, on the columns after five, and on
+	// no set measured does it take more (DEVELOPERS.md, "Performance as
+	// ratios"). The rotations of J are off the chain of dependent
+	// operations that sets the speed. When the rank is below six, the
+	// factorisation is taken again on the columns (below): the free twists
+	// and the redundancies are built from the retained left singular
+	// vectors, and the columns A·V/σ lie in the range of A to rounding
+	// relative to σ, where J's columns carry the rounding of every
+	// rotation; that costs a second decomposition only for sets that lose
+	// a constraint.
+	//
+	// Fewer: one-sided Jacobi on A. More than six: Jacobi on Rᵀ from the
+	// pivoted QR factorisation AᵀΠ = QR, which has the same singular values
+	// and, permuted, the same left singular vectors in six columns instead
+	// of n.
 	var u [36]float64
 	var sigma [6]float64
 	k := min(n, 6)
-	if n <= 6 {
+	tol := max(RankTol, fr.noise)
+	unitU := false
+	if n == 6 {
+		var w [36]float64
+		for i := 0; i < 6; i++ {
+			for j := 0; j < 6; j++ {
+				w[6*j+i] = a[6*i+j]
+			}
+			u[7*i] = 1
+		}
+		linalg.Jacobi6(&w, 6, &u)
+		linalg.Sort6(&w, 6, &sigma, &u)
+		unitU = sigma[5] > tol*sigma[0]
+	}
+	switch {
+	case unitU:
+	case n <= 6:
 		copy(u[:], a)
-	} else {
+		linalg.Jacobi6(&u, k, nil)
+		linalg.Sort6(&u, k, &sigma, nil)
+	default:
 		for i := 0; i < n; i++ {
 			for j := 0; j < 6; j++ {
 				work[j*n+i] = a[6*i+j]
@@ -217,18 +255,17 @@ func analyze(ws []Wrench, r *Result, withFreed bool) error {
 				u[6*j+perm[c]] = rt[6*j+c]
 			}
 		}
+		linalg.Jacobi6(&u, k, nil)
+		linalg.Sort6(&u, k, &sigma, nil)
 	}
-	linalg.Jacobi6(&u, k)
-	linalg.Sort6(&u, k, &sigma)
 
-	tol := max(RankTol, fr.noise)
 	rank := 0
 	for _, s := range sigma[:k] {
 		if s > tol*sigma[0] {
 			rank++
 		}
 	}
-	for j := 0; j < rank; j++ {
+	for j := 0; j < rank && !unitU; j++ {
 		uj := u[6*j : 6*j+6]
 		s := 1 / sigma[j]
 		for i := range uj {

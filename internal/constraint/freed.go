@@ -58,15 +58,18 @@ func Freed(ws *[6]Wrench, ts *[6]Twist) bool {
 }
 
 // freedFromSVD writes the rows of the inverse of the normalised 6×6 a,
-// converted to freed twists, into ts, from its singular value
-// decomposition A·V = U·Σ (u holds U, orthonormal columns): A⁻¹ =
-// V·Σ⁻¹·Uᵀ = Aᵀ·(U·Σ⁻²·Uᵀ), since V = Aᵀ·U·Σ⁻¹, so row i of A⁻¹ is
-// (M·aᵢ)ᵀ with M = U·Σ⁻²·Uᵀ (126 + 216 multiply-adds). Its error is
-// of the order of ε·Condition relative to |A⁻¹|, as for Gauss–Jordan
-// elimination: the computed U·Σ is (A + δA)·V with |δA| ≲ ε|A| (Demmel &
+// converted to freed twists, into ts, from its singular values and left
+// singular vectors (u holds U, orthonormal columns): A⁻¹ = Aᵀ·(A·Aᵀ)⁻¹ and
+// (A·Aᵀ)⁻¹ = U·Σ⁻²·Uᵀ, so row i of A⁻¹ is (M·aᵢ)ᵀ with M = U·Σ⁻²·Uᵀ
+// (126 + 216 multiply-adds). Its error is of the order of ε·Condition
+// relative to |A⁻¹|, as for Gauss–Jordan elimination: Analyze takes U and
+// Σ from one-sided Jacobi on Aᵀ, Aᵀ·U = W, and the computed W is
+// (A + δA)ᵀ·U with |δA| ≲ ε|A| and U orthogonal to a few ε (Demmel &
 // Veselić 1992, "Jacobi's method is more accurate than QR", SIAM J.
-// Matrix Anal. Appl. 13(4), §4), and replacing A + δA by A costs
-// |δA|/σ₆², the same order. It reports false if a twist overflows.
+// Matrix Anal. Appl. 13(4), §4, for either side), so that U·Σ²·Uᵀ is
+// (A + δA)·(A + δA)ᵀ to the orthogonality of W's columns (4ε, the
+// stopping test); replacing A + δA by A costs |δA|/σ₆², the same order.
+// It reports false if a twist overflows.
 func freedFromSVD(a []float64, u *[36]float64, sigma *[6]float64, fr *frame, exps []int, gain []float64, ts *[6]Twist) bool {
 	// M = U·Σ⁻²·Uᵀ = (A·Aᵀ)⁻¹, symmetric: 21 entries of Σₖ uₖuₖᵀ/σₖ².
 	var w [6][6]float64 // uₖ/σₖ
