@@ -318,8 +318,8 @@ func closureRank(a []float64) (rank int, cond float64) {
 		var perm [6]int
 		linalg.QRPivot(work, n, &u, &perm) // the singular values of Rᵀ are A's
 	}
-	linalg.Jacobi6(&u, k, nil)
-	linalg.Sort6(&u, k, &sigma, nil)
+	linalg.Jacobi6(&u, k)
+	linalg.Sort6(&u, k, &sigma)
 	for _, s := range sigma[:k] {
 		if s > screw.RankTol*sigma[0] {
 			rank++

@@ -196,51 +196,46 @@ func analyze(ws []Wrench, r *Result, withFreed bool) error {
 
 	// Singular values and left singular vectors.
 	//
-	// Six wrenches: one-sided Jacobi on Aᵀ with its rotations accumulated,
-	// Aᵀ·J = W with orthogonal columns, so that A = J·Wᵀ: J holds the left
-	// singular vectors of A, already of unit norm, and W's column norms are
-	// the singular values (Hestenes 1958, applied to the transpose; the
-	// same relative accuracy, Demmel & Veselić 1992). The rows of a
-	// coupling's normalised matrix are far closer to orthogonal than its
-	// columns: on the benchmark three-vee coupling Jacobi on the rows
-	// ends after a sweep and a half, on the columns after five, and on
-	// no set measured does it take more (DEVELOPERS.md, "Performance as
-	// ratios"). The rotations of J are off the chain of dependent
-	// operations that sets the speed. When the rank is below six, the
-	// factorisation is taken again on the columns (below): the free twists
-	// and the redundancies are built from the retained left singular
-	// vectors, and the columns A·V/σ lie in the range of A to rounding
-	// relative to σ, where J's columns carry the rounding of every
-	// rotation; that costs a second decomposition only for sets that lose
-	// a constraint.
+	// Six wrenches: one-sided Jacobi on Aᵀ first, Aᵀ·J = W with orthogonal
+	// columns, so that A = J·Wᵀ: W's column norms are the singular values
+	// (Hestenes 1958, applied to the transpose; the same accuracy, Demmel
+	// & Veselić 1992), and W alone gives the freed twists (freedFromRows),
+	// without J. The rows of a coupling's normalised matrix are far closer
+	// to orthogonal than its columns: on the benchmark three-vee coupling
+	// Jacobi on the rows ends after two sweeps, on the columns after five
+	// (DEVELOPERS.md, "Performance as ratios"). With rank 6 that is all
+	// the analysis needs. When the rank is below six the free twists and
+	// the redundancies need the left singular vectors, and the
+	// factorisation is taken again on the columns (below), where they are
+	// the columns A·V/σ, in the range of A to rounding relative to σ: a
+	// second decomposition, only for sets that lose a constraint.
 	//
 	// Fewer: one-sided Jacobi on A. More than six: Jacobi on Rᵀ from the
 	// pivoted QR factorisation AᵀΠ = QR, which has the same singular values
 	// and, permuted, the same left singular vectors in six columns instead
 	// of n.
-	var u [36]float64
-	var sigma [6]float64
+	var u, w [36]float64
+	var sigma, wsigma [6]float64
 	k := min(n, 6)
 	tol := max(RankTol, fr.noise)
-	unitU := false
+	rows := false // rank 6 decided on the rows: u is not needed
 	if n == 6 {
-		var w [36]float64
 		for i := 0; i < 6; i++ {
 			for j := 0; j < 6; j++ {
 				w[6*j+i] = a[6*i+j]
 			}
-			u[7*i] = 1
 		}
-		linalg.Jacobi6(&w, 6, &u)
-		linalg.Sort6(&w, 6, &sigma, &u)
-		unitU = sigma[5] > tol*sigma[0]
+		linalg.Jacobi6(&w, 6)
+		linalg.Sort6(&w, 6, &wsigma)
+		sigma = wsigma
+		rows = wsigma[5] > tol*wsigma[0]
 	}
 	switch {
-	case unitU:
+	case rows:
 	case n <= 6:
 		copy(u[:], a)
-		linalg.Jacobi6(&u, k, nil)
-		linalg.Sort6(&u, k, &sigma, nil)
+		linalg.Jacobi6(&u, k)
+		linalg.Sort6(&u, k, &sigma)
 	default:
 		for i := 0; i < n; i++ {
 			for j := 0; j < 6; j++ {
@@ -255,8 +250,8 @@ func analyze(ws []Wrench, r *Result, withFreed bool) error {
 				u[6*j+perm[c]] = rt[6*j+c]
 			}
 		}
-		linalg.Jacobi6(&u, k, nil)
-		linalg.Sort6(&u, k, &sigma, nil)
+		linalg.Jacobi6(&u, k)
+		linalg.Sort6(&u, k, &sigma)
 	}
 
 	rank := 0
@@ -265,7 +260,7 @@ func analyze(ws []Wrench, r *Result, withFreed bool) error {
 			rank++
 		}
 	}
-	for j := 0; j < rank && !unitU; j++ {
+	for j := 0; j < rank && !rows; j++ {
 		uj := u[6*j : 6*j+6]
 		s := 1 / sigma[j]
 		for i := range uj {
@@ -303,7 +298,7 @@ func analyze(ws []Wrench, r *Result, withFreed bool) error {
 		r.Redundant = redundancies(a, n, &u, rank, sigma[rank-1], exps, gain, wcut, work)
 	}
 	if n == 6 && rank == 6 && withFreed {
-		r.HasFreed = freedFromSVD(a, &u, &sigma, &fr, exps, gain, &r.Freed)
+		r.HasFreed = freedFromRows(a, &w, &wsigma, &fr, exps, gain, &r.Freed)
 	}
 	return nil
 }

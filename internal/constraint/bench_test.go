@@ -123,10 +123,10 @@ func BenchmarkDecompose(b *testing.B) {
 			var sigma [6]float64
 			for b.Loop() {
 				a := src
-				if !linalg.Jacobi6(&a, 6, nil) {
+				if !linalg.Jacobi6(&a, 6) {
 					b.Fatal("no convergence")
 				}
-				linalg.Sort6(&a, 6, &sigma, nil)
+				linalg.Sort6(&a, 6, &sigma)
 			}
 		})
 		b.Run(s.name+"/qr-jacobi", func(b *testing.B) {
@@ -136,10 +136,10 @@ func BenchmarkDecompose(b *testing.B) {
 			for b.Loop() {
 				a := src
 				linalg.QRPivot(a[:], 6, &rt, &perm)
-				if !linalg.Jacobi6(&rt, 6, nil) {
+				if !linalg.Jacobi6(&rt, 6) {
 					b.Fatal("no convergence")
 				}
-				linalg.Sort6(&rt, 6, &sigma, nil)
+				linalg.Sort6(&rt, 6, &sigma)
 			}
 		})
 		b.Run(s.name+"/gram-eigenvalues", func(b *testing.B) {

@@ -57,43 +57,49 @@ func Freed(ws *[6]Wrench, ts *[6]Twist) bool {
 	return true
 }
 
-// freedFromSVD writes the rows of the inverse of the normalised 6×6 a,
-// converted to freed twists, into ts, from its singular values and left
-// singular vectors (u holds U, orthonormal columns): A⁻¹ = Aᵀ·(A·Aᵀ)⁻¹ and
-// (A·Aᵀ)⁻¹ = U·Σ⁻²·Uᵀ, so row i of A⁻¹ is (M·aᵢ)ᵀ with M = U·Σ⁻²·Uᵀ
-// (126 + 216 multiply-adds). Its error is of the order of ε·Condition
-// relative to |A⁻¹|, as for Gauss–Jordan elimination: Analyze takes U and
-// Σ from one-sided Jacobi on Aᵀ, Aᵀ·U = W, and the computed W is
-// (A + δA)ᵀ·U with |δA| ≲ ε|A| and U orthogonal to a few ε (Demmel &
+// freedFromRows writes the rows of the inverse of the normalised 6×6 a,
+// converted to freed twists, into ts, from one-sided Jacobi on its
+// transpose: w holds W = Aᵀ·J with J orthogonal and W's columns
+// orthogonal, of norms sigma (the singular values). Then A·Aᵀ is not
+// needed: Aᵀ·A = W·Jᵀ·J·Wᵀ = W·Wᵀ, so (Aᵀ·A)⁻¹ = Σₖ wₖwₖᵀ/σₖ⁴ = M and
+// A⁻¹ = (Aᵀ·A)⁻¹·Aᵀ, whose row i is Σₗ Mᵢₗ·aₗ with aₗ column l of A
+// (126 + 216 multiply-adds, no J). Its error is of the order of
+// ε·Condition relative to |A⁻¹|, as for Gauss–Jordan elimination: the
+// computed W is (A + δA)ᵀ·J with J orthogonal and |δA| ≲ ε|A| (Demmel &
 // Veselić 1992, "Jacobi's method is more accurate than QR", SIAM J.
-// Matrix Anal. Appl. 13(4), §4, for either side), so that U·Σ²·Uᵀ is
-// (A + δA)·(A + δA)ᵀ to the orthogonality of W's columns (4ε, the
-// stopping test); replacing A + δA by A costs |δA|/σ₆², the same order.
-// It reports false if a twist overflows.
-func freedFromSVD(a []float64, u *[36]float64, sigma *[6]float64, fr *frame, exps []int, gain []float64, ts *[6]Twist) bool {
-	// M = U·Σ⁻²·Uᵀ = (A·Aᵀ)⁻¹, symmetric: 21 entries of Σₖ uₖuₖᵀ/σₖ².
-	var w [6][6]float64 // uₖ/σₖ
+// Matrix Anal. Appl. 13(4), §4), so that M is the inverse of
+// (A + δA)ᵀ·(A + δA) to the orthogonality of W's columns (4ε, the
+// stopping test), and M·(A + δA)ᵀ = (A + δA)⁻¹; replacing A + δA by A
+// costs |M|·|δA| = |δA|/σ₆², the same order. It reports false if a twist
+// overflows.
+func freedFromRows(a []float64, w *[36]float64, sigma *[6]float64, fr *frame, exps []int, gain []float64, ts *[6]Twist) bool {
+	// M = Σₖ vₖvₖᵀ with vₖ = wₖ/σₖ², symmetric: 21 entries.
+	var v [6][6]float64
 	for k := 0; k < 6; k++ {
-		s := 1 / sigma[k]
+		s := 1 / (sigma[k] * sigma[k])
 		for m := 0; m < 6; m++ {
-			w[k][m] = u[6*k+m] * s
+			v[k][m] = w[6*k+m] * s
 		}
 	}
 	var mm [6][6]float64
 	for l := 0; l < 6; l++ {
 		for m := l; m < 6; m++ {
-			x := w[0][l]*w[0][m] + w[1][l]*w[1][m] + w[2][l]*w[2][m] +
-				w[3][l]*w[3][m] + w[4][l]*w[4][m] + w[5][l]*w[5][m]
+			x := v[0][l]*v[0][m] + v[1][l]*v[1][m] + v[2][l]*v[2][m] +
+				v[3][l]*v[3][m] + v[4][l]*v[4][m] + v[5][l]*v[5][m]
 			mm[l][m], mm[m][l] = x, x
 		}
 	}
-	// Row i of A⁻¹ = Aᵀ·M is (M·aᵢ)ᵀ.
+	// Row i of A⁻¹ = M·Aᵀ is Σₗ Mᵢₗ·aₗ.
 	cm := r3.Scale(fr.unit, fr.c)
 	for i := 0; i < 6; i++ {
-		ai := (*[6]float64)(a[6*i : 6*i+6])
+		mi := &mm[i]
 		var row [6]float64
 		for l := 0; l < 6; l++ {
-			row[l] = dot6(&mm[l], ai)
+			al := (*[6]float64)(a[6*l : 6*l+6])
+			x := mi[l]
+			for m := 0; m < 6; m++ {
+				row[m] += x * al[m]
+			}
 		}
 		if !freedTwist(&row, fr, cm, exps[i], gain[i], &ts[i]) {
 			return false

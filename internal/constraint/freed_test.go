@@ -1,6 +1,7 @@
 package constraint
 
 import (
+	"fmt"
 	"math"
 	"math/rand/v2"
 	"testing"
@@ -44,6 +45,26 @@ func freedCases(t *testing.T) []freedCase {
 		ws := randLines(rng, 6)
 		ws[5] = Wrench{M: randVec(rng)}
 		add("five lines and a couple", ws)
+	}
+	// Near-singular: six lines that all meet one line would have rank 5
+	// (a line is reciprocal to every line it meets; Hunt, Kinematic
+	// Geometry of Mechanisms, 1978, §12.6); the sixth passes δ off it, so
+	// that the condition number grows as 1/δ and the accuracy bound
+	// ε·Condition of the freed twists is tested where it is large.
+	for _, delta := range []float64{1e-3, 1e-6, 1e-8} {
+		for trial := 0; trial < 5; trial++ {
+			a, e := randVec(rng), r3.Unit(randVec(rng))
+			ws := make([]Wrench, 6)
+			for i := range ws {
+				p := r3.Add(a, r3.Scale(2*rng.Float64()-1, e))
+				if i == 5 {
+					off := r3.Unit(r3.Cross(e, randVec(rng)))
+					p = r3.Add(p, r3.Scale(delta, off))
+				}
+				ws[i] = line(p, randVec(rng))
+			}
+			add(fmt.Sprintf("near-singular, one line %g off", delta), ws)
+		}
 	}
 	return out
 }

@@ -12,7 +12,7 @@ func BenchmarkJacobi6(b *testing.B) {
 	b.ReportAllocs()
 	for b.Loop() {
 		copy(a[:], src)
-		Jacobi6(&a, 6, nil)
+		Jacobi6(&a, 6)
 	}
 }
 
@@ -37,7 +37,7 @@ func BenchmarkQRJacobi6(b *testing.B) {
 	for b.Loop() {
 		copy(a[:], src)
 		QRPivot(a[:], 6, &rt, &perm)
-		Jacobi6(&rt, 6, nil)
+		Jacobi6(&rt, 6)
 	}
 }
 
@@ -63,7 +63,7 @@ func BenchmarkJacobi6Converged(b *testing.B) {
 	b.ReportAllocs()
 	for b.Loop() {
 		a = src
-		Jacobi6(&a, 6, nil)
+		Jacobi6(&a, 6)
 	}
 }
 

@@ -18,13 +18,7 @@ import "math"
 // fewer dependent divisions and square roots. The convergence test is
 // squared (γ² ≤ tol²·α·β), safe because callers pass columns of norm at
 // most √6 (the columns, or the rows, of six columns of unit norm).
-//
-// If v is not nil it must hold the identity on entry (or any matrix to
-// be multiplied from the right, column-major like a) and receives the
-// same rotations as a: the k×k V with A·V the returned a, in its first k
-// columns of six. The rotations of v are off the chain of dependent
-// operations that sets the speed, and cost little.
-func Jacobi6(a *[36]float64, k int, v *[36]float64) bool {
+func Jacobi6(a *[36]float64, k int) bool {
 	var cols [6]*[6]float64
 	for j := range cols {
 		cols[j] = (*[6]float64)(a[6*j : 6*j+6])
@@ -88,14 +82,6 @@ func Jacobi6(a *[36]float64, k int, v *[36]float64) bool {
 				}
 				norm2[p] -= t * gamma
 				norm2[q] += t * gamma
-				if v != nil {
-					vp, vq := (*[6]float64)(v[6*p:6*p+6]), (*[6]float64)(v[6*q:6*q+6])
-					for i := 0; i < 6; i++ {
-						x, y := vp[i], vq[i]
-						vp[i] = c*x - s*y
-						vq[i] = s*x + c*y
-					}
-				}
 			}
 		}
 		// A sweep of rotations by angles below 1e-8 leaves cosines of order
@@ -142,9 +128,8 @@ var roundRobin = func() (tab [7][][][2]int) {
 
 // Sort6 computes the norms of the k columns of a (six rows each, as for
 // Jacobi6) into sigma and reorders the columns so that sigma descends.
-// After Jacobi6 these are the singular values and the columns A·V. If v
-// is not nil its columns are reordered with a's (V of Jacobi6).
-func Sort6(a *[36]float64, k int, sigma *[6]float64, v *[36]float64) {
+// After Jacobi6 these are the singular values and the columns A·V.
+func Sort6(a *[36]float64, k int, sigma *[6]float64) {
 	var cols [6]*[6]float64
 	for j := range cols {
 		cols[j] = (*[6]float64)(a[6*j : 6*j+6])
@@ -156,10 +141,6 @@ func Sort6(a *[36]float64, k int, sigma *[6]float64, v *[36]float64) {
 		for i := j; i > 0 && sigma[i] > sigma[i-1]; i-- {
 			sigma[i], sigma[i-1] = sigma[i-1], sigma[i]
 			*cols[i], *cols[i-1] = *cols[i-1], *cols[i]
-			if v != nil {
-				vi, vh := (*[6]float64)(v[6*i:6*i+6]), (*[6]float64)(v[6*i-6:6*i])
-				*vi, *vh = *vh, *vi
-			}
 		}
 	}
 }

@@ -96,79 +96,6 @@ func TestJacobiAgainstGonum(t *testing.T) {
 	}
 }
 
-// TestJacobi6WithV checks Jacobi6 and Sort6 carrying V against gonum's
-// SVD: the singular values, A = (A·V)·Vᵀ, V orthonormal, and each column
-// of V a right singular vector, |vⱼ·v̂ⱼ| = 1 against gonum's where the
-// singular value is simple (its gap to the neighbours over 1e-3 of the
-// largest; the vector is then determined to sign).
-func TestJacobi6WithV(t *testing.T) {
-	rng := rand.New(rand.NewPCG(3, 4))
-	for _, rank := range []int{6, 5, 3} {
-		for trial := 0; trial < 100; trial++ {
-			src := randMatrix(rng, 6, 6, rank)
-			var a, v [36]float64
-			copy(a[:], src)
-			for i := 0; i < 6; i++ {
-				v[7*i] = 1
-			}
-			if !Jacobi6(&a, 6, &v) {
-				t.Fatal("no convergence")
-			}
-			var sigma [6]float64
-			Sort6(&a, 6, &sigma, &v)
-			d := mat.NewDense(6, 6, nil)
-			for i := 0; i < 6; i++ {
-				for j := 0; j < 6; j++ {
-					d.Set(i, j, src[j*6+i])
-				}
-			}
-			var svd mat.SVD
-			if !svd.Factorize(d, mat.SVDFull) {
-				t.Fatal("gonum SVD failed")
-			}
-			want := svd.Values(nil)
-			var gv mat.Dense
-			svd.VTo(&gv)
-			for j := 0; j < 6; j++ {
-				if math.Abs(sigma[j]-want[j]) > 1e-13*want[0] {
-					t.Fatalf("rank %d: sigma[%d] = %.17g, gonum %.17g", rank, j, sigma[j], want[j])
-				}
-			}
-			for i := 0; i < 6; i++ {
-				for j := 0; j < 6; j++ {
-					var s float64
-					for l := 0; l < 6; l++ {
-						s += a[6*l+i] * v[6*l+j]
-					}
-					if math.Abs(s-src[6*j+i]) > 1e-14*6 {
-						t.Fatalf("rank %d: rebuilt A[%d,%d] = %g, want %g", rank, i, j, s, src[6*j+i])
-					}
-				}
-			}
-			checkOrthonormal(t, v[:], 6, 6)
-			for j := 0; j < rank; j++ {
-				gap := math.Inf(1)
-				if j > 0 {
-					gap = want[j-1] - want[j]
-				}
-				if j < 5 {
-					gap = math.Min(gap, want[j]-want[j+1])
-				}
-				if gap < 1e-3*want[0] {
-					continue
-				}
-				var c float64
-				for i := 0; i < 6; i++ {
-					c += v[6*j+i] * gv.At(i, j)
-				}
-				if math.Abs(math.Abs(c)-1) > 1e-10 {
-					t.Fatalf("rank %d: |v%d·gonum's| = %.15g, want 1", rank, j, math.Abs(c))
-				}
-			}
-		}
-	}
-}
-
 // checkOrthonormal checks that the k columns of the n×k column-major q are
 // orthonormal to 1e-14.
 func checkOrthonormal(t *testing.T, q []float64, n, k int) {
@@ -272,7 +199,7 @@ func TestQRPivot(t *testing.T) {
 				}
 			}
 			// Singular values of Rᵀ against gonum's SVD of A.
-			Jacobi6(&rt, k, nil)
+			Jacobi6(&rt, k)
 			sigma := make([]float64, k)
 			SortColumns(rt[:], 6, k, nil, sigma)
 			d := mat.NewDense(sh.m, 6, nil)
@@ -446,7 +373,7 @@ func TestSort6(t *testing.T) {
 	var a [36]float64
 	a[0], a[6+1], a[12+2] = 1, 3, 2
 	var sigma [6]float64
-	Sort6(&a, 3, &sigma, nil)
+	Sort6(&a, 3, &sigma)
 	if sigma[0] != 3 || sigma[1] != 2 || sigma[2] != 1 || a[1] != 3 || a[6+2] != 2 || a[12] != 1 {
 		t.Errorf("sigma %v, columns %v", sigma[:3], a[:18])
 	}
