@@ -274,7 +274,10 @@
 // # Errors
 //
 // Invalid input returns an [*InputError] naming the field as the caller
-// wrote it (for example "Pairs[1].Seat.HalfAngle" or "cs[4].Normal") and
+// wrote it: the parameter's name as in the function's signature, then the
+// fields of its type (for example "Pairs[1].Seat.HalfAngle" for a
+// Coupling built by hand, "vees[1].HalfAngle" or "socket.HalfAngle" for
+// one built by [BisectorVees] or [SocketVeeFlat], "cs[4].Normal") and
 // wrapping one of [ErrNonFinite] (NaN or infinity), [ErrRange] (a finite
 // number outside its domain), [ErrDegenerate] (geometry that defines
 // nothing) or [ErrNotExact] (a set that is not exactly constrained where

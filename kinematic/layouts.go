@@ -23,10 +23,11 @@ import (
 // otherwise they are the projections, and [Groove.OffBisector] of the
 // result is zero by the same definition.
 //
-// Errors are those of [Coupling.Contacts] (fields "Pairs[i]..."); balls in
-// a line have no triangle and give an [*InputError] on "balls" wrapping
-// [ErrDegenerate], and an incentre straight above or below a ball along its
-// seat's Up one on "vees[i].Up".
+// Errors are those of [Coupling.Contacts], naming the inputs as passed
+// ("balls[0].Radius", "vees[1].HalfAngle"); balls in a line have no
+// triangle and give an [*InputError] on "balls" wrapping [ErrDegenerate],
+// and an incentre straight above or below a ball along its seat's Up one
+// on "vees[i].Up".
 func BisectorVees(balls [3]Ball, vees [3]Vee) (Coupling, error) {
 	if err := checkTriangle(balls); err != nil {
 		return Coupling{}, err
@@ -41,7 +42,8 @@ func BisectorVees(balls [3]Ball, vees [3]Vee) (Coupling, error) {
 // projected into its seat's plane. vees[i] is the seat of balls[i], copied
 // with its Direction replaced.
 //
-// Errors are those of [Coupling.Contacts], and an [*InputError] naming
+// Errors are those of [Coupling.Contacts], naming the inputs as passed
+// ("balls[0].Radius", "vees[1].HalfAngle"), and an [*InputError] naming
 // "target" if it is not finite or lies straight above or below a ball
 // (along the seat's Up), which leaves that groove no direction.
 func AimedVees(balls [3]Ball, target r3.Vec, vees [3]Vee) (Coupling, error) {
@@ -57,11 +59,18 @@ func AimedVees(balls [3]Ball, target r3.Vec, vees [3]Vee) (Coupling, error) {
 // vee's Direction replaced and, if the socket's Azimuth is zero, its
 // Azimuth set towards ball B.
 //
-// Errors are those of [Coupling.Contacts].
+// Errors are those of [Coupling.Contacts], naming the inputs as passed
+// ("balls[2].Radius", "socket.HalfAngle", "flat.Up"). A groove that would
+// run along the vee's Up (ball A straight above or below ball B along it)
+// is named "vee.Up", and a socket azimuth left zero that would point
+// along the socket's Up "socket.Up": the constructor sets those
+// directions, not the caller.
 func SocketVeeFlat(balls [3]Ball, socket Trihedral, vee Vee, flat Flat) (Coupling, error) {
 	vee.Direction = r3.Sub(balls[0].Centre, balls[1].Centre)
+	azimuth := "socket.Azimuth"
 	if socket.Azimuth == (r3.Vec{}) {
 		socket.Azimuth = r3.Sub(balls[1].Centre, balls[0].Centre)
+		azimuth = "socket.Up"
 	}
 	c := Coupling{Pairs: []Pair{
 		{Name: "A", Ball: balls[0], Seat: socket},
@@ -69,9 +78,26 @@ func SocketVeeFlat(balls [3]Ball, socket Trihedral, vee Vee, flat Flat) (Couplin
 		{Name: "C", Ball: balls[2], Seat: flat},
 	}}
 	if _, err := c.Contacts(); err != nil {
-		return Coupling{}, err
+		return Coupling{}, inLayoutTerms(err, [3]string{"socket", "vee", "flat"},
+			rename{pairField(0) + ".Seat.Azimuth", azimuth},
+			rename{pairField(1) + ".Seat.Direction", "vee.Up"})
 	}
 	return c, nil
+}
+
+// inLayoutTerms returns an error of [Coupling.Contacts] for a coupling
+// that a layout constructor built from its parameters, in the terms of
+// the constructor's caller: "Pairs[i].Ball…" becomes "balls[i]…" and
+// "Pairs[i].Seat…" the parameter seats[i] names ("vees[1]…", "socket…").
+// The rules in first, tried before those, name the parameters behind the
+// fields the constructor itself set (a groove direction). The checks
+// themselves stay in Contacts and the seats.
+func inLayoutTerms(err error, seats [3]string, first ...rename) error {
+	rs := first
+	for i, s := range seats {
+		rs = append(rs, rename{pairField(i) + ".Ball", indexed("balls", i)}, rename{pairField(i) + ".Seat", s})
+	}
+	return renamed(err, rs...)
 }
 
 // aimed builds three vees with groove i pointing from ball i to target;
@@ -100,7 +126,13 @@ func aimed(balls [3]Ball, vees [3]Vee, target r3.Vec, blame func(int) string) (C
 		c.Pairs[i] = Pair{Name: pairName("", i), Ball: b, Seat: v}
 	}
 	if _, err := c.Contacts(); err != nil {
-		return Coupling{}, err
+		var vees [3]string
+		var first []rename
+		for i := range vees {
+			vees[i] = indexed("vees", i)
+			first = append(first, rename{pairField(i) + ".Seat.Direction", blame(i)})
+		}
+		return Coupling{}, inLayoutTerms(err, vees, first...)
 	}
 	return c, nil
 }

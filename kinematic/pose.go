@@ -1,8 +1,10 @@
 package kinematic
 
 import (
+	"errors"
 	"fmt"
 	"math"
+	"strings"
 
 	"gonum.org/v1/gonum/spatial/r3"
 
@@ -121,10 +123,15 @@ func (a *Assembly) apply(g *geom, k int, v float64) {
 // Pose returns an [*InputError] naming "devs[i]" for an unknown dimension
 // or a value that is not finite, "opt.Approach" for a list of the wrong
 // length or a bad value, "opt.Tolerance" outside (0, 1) and
-// "opt.MaxIterations" negative, and one wrapping [ErrRange] naming the pair when
-// a ball cannot reach its seat: a ball radius that is not positive, a
-// contact that moves more than half its ball's radius across its seat, or
-// no convergence; and one naming "a" for a nil or zero Assembly.
+// "opt.MaxIterations" negative, and one wrapping [ErrRange] when a ball
+// cannot reach its seat (a ball radius that is not positive, a contact
+// that moves more than half its ball's radius across its seat, or no
+// convergence), with the ball named in the reason and the field naming
+// the inputs that moved it: the values of that pair's deviations
+// ("devs[0].Value", several separated by ", ") and its contacts'
+// approaches ("opt.Approach[1]"), or "devs" (and "opt.Approach") when
+// those are zero or no one ball is to blame; and one naming "a" for a nil
+// or zero Assembly.
 func (a *Assembly) Pose(devs []Deviation, opt *PoseOptions) (Pose, error) {
 	if err := a.check(); err != nil {
 		return Pose{}, err
@@ -169,11 +176,53 @@ func (a *Assembly) Pose(devs []Deviation, opt *PoseOptions) (Pose, error) {
 	if o.MaxIterations < 0 {
 		return Pose{}, &InputError{Field: "opt.MaxIterations", Err: fmt.Errorf("%w: must be ≥ 0, got %d", ErrRange, o.MaxIterations)}
 	}
-	pose, err := a.seat(&g, &appr, o.Tolerance, o.MaxIterations)
-	if err == nil && !allFinite3(pose.Rotation, pose.Translation) {
+	pose, pair, err := a.seatBlame(&g, &appr, o.Tolerance, o.MaxIterations)
+	if err != nil {
+		return Pose{}, a.inPoseTerms(err, pair, devs, o.Approach)
+	}
+	if !allFinite3(pose.Rotation, pose.Translation) {
 		return Pose{}, &InputError{Field: "devs", Err: fmt.Errorf("%w: the seated pose overflows", ErrRange)}
 	}
-	return pose, err
+	return pose, nil
+}
+
+// inPoseTerms returns err, an error of seatBlame for the geometry Pose
+// built from devs and approach, with the field naming the inputs of Pose
+// that moved the ball of pair (−1 when no one ball is to blame): the
+// values of that pair's deviations and its contacts' approaches that are
+// not zero; else every deviation, "devs", and "opt.Approach" if given.
+// The reason still names the ball. Without such inputs (a nominal
+// geometry that cannot seat) err is returned as it is.
+func (a *Assembly) inPoseTerms(err error, pair int, devs []Deviation, approach []float64) error {
+	var ie *InputError
+	if !errors.As(err, &ie) {
+		return err
+	}
+	var fs []string
+	if pair >= 0 {
+		for i, d := range devs {
+			if a.dims[a.index[d.Dimension]].pair == pair && d.Value != 0 {
+				fs = append(fs, indexed("devs", i)+".Value")
+			}
+		}
+		for k, v := range approach {
+			if a.conts[k].pair == pair && v != 0 {
+				fs = append(fs, indexed("opt.Approach", k))
+			}
+		}
+	}
+	if len(fs) == 0 {
+		if len(devs) > 0 {
+			fs = append(fs, "devs")
+		}
+		if approach != nil {
+			fs = append(fs, "opt.Approach")
+		}
+	}
+	if len(fs) == 0 {
+		return err
+	}
+	return &InputError{Field: strings.Join(fs, ", "), Err: ie.Err}
 }
 
 // errUnseated reports that the ball of contact i cannot reach its seat.
@@ -184,9 +233,17 @@ func (a *Assembly) errUnseated(i int, why string) error {
 
 // seat solves the pose for the geometry g in local coordinates.
 func (a *Assembly) seat(g *geom, appr *[6]float64, tol float64, maxIt int) (Pose, error) {
+	pose, _, err := a.seatBlame(g, appr, tol, maxIt)
+	return pose, err
+}
+
+// seatBlame is seat, returning as well, when it fails, the pair whose
+// ball cannot reach its seat, or −1 when no one ball is to blame (no
+// convergence, contacts singular at the pose).
+func (a *Assembly) seatBlame(g *geom, appr *[6]float64, tol float64, maxIt int) (Pose, int, error) {
 	for i := range g.r {
 		if !(g.r[i] > 0) {
-			return Pose{}, a.errUnseated(i, "its radius is not positive")
+			return Pose{}, a.conts[i].pair, a.errUnseated(i, "its radius is not positive")
 		}
 	}
 	L := a.size
@@ -213,7 +270,7 @@ func (a *Assembly) seat(g *geom, appr *[6]float64, tol float64, maxIt int) (Pose
 			w := r3.Add(mulMat(&R, g.c[i]), t)
 			gi, n, ok := g.surfs[i].gap(w, g.r[i])
 			if !ok {
-				return Pose{}, a.errUnseated(i, "its centre lies on a cylinder's axis")
+				return Pose{}, a.conts[i].pair, a.errUnseated(i, "its centre lies on a cylinder's axis")
 			}
 			gaps[i] = gi + appr[i]
 			resid = max(resid, math.Abs(gaps[i])) // the builtin: math.Max is a call
@@ -221,7 +278,7 @@ func (a *Assembly) seat(g *geom, appr *[6]float64, tol float64, maxIt int) (Pose
 			// Squared, so that no square root is taken in the loop.
 			if dp := r3.Sub(p, a.lines[i].p); r3.Norm2(dp) > leaveFraction*leaveFraction*g.r[i]*g.r[i] {
 				if d := linalg.Norm3(dp); d > leaveFraction*g.r[i] {
-					return Pose{}, a.errUnseated(i, fmt.Sprintf("contact %s would move %.3g m across its seat, more than half the ball's radius", a.conts[i].label, d))
+					return Pose{}, a.conts[i].pair, a.errUnseated(i, fmt.Sprintf("contact %s would move %.3g m across its seat, more than half the ball's radius", a.conts[i].label, d))
 				}
 			}
 			cp[i], cn[i] = p, n
@@ -230,7 +287,7 @@ func (a *Assembly) seat(g *geom, appr *[6]float64, tol float64, maxIt int) (Pose
 			break
 		}
 		if it >= maxIt {
-			return Pose{}, a.errUnseated(0, fmt.Sprintf("the seated pose did not converge in %d iterations (largest gap %.3g m)", maxIt, resid))
+			return Pose{}, -1, a.errUnseated(0, fmt.Sprintf("the seated pose did not converge in %d iterations (largest gap %.3g m)", maxIt, resid))
 		}
 		if resid > prev/100 {
 			var ls [6]line
@@ -238,7 +295,7 @@ func (a *Assembly) seat(g *geom, appr *[6]float64, tol float64, maxIt int) (Pose
 				ls[i].p, ls[i].n = cp[i], cn[i]
 			}
 			if !freedOf(ls[:], &ts) {
-				return Pose{}, a.errUnseated(0, "the contacts are singular at this pose")
+				return Pose{}, -1, a.errUnseated(0, "the contacts are singular at this pose")
 			}
 		}
 		prev = resid
@@ -262,7 +319,7 @@ func (a *Assembly) seat(g *geom, appr *[6]float64, tol float64, maxIt int) (Pose
 	// Back to the global frame: a body point q is at o + R(q − o) + t.
 	o := a.origin
 	pose := Pose{Rotation: rotationVector(&R), Translation: r3.Add(r3.Sub(o, mulMat(&R, o)), t), Residual: resid, Iterations: it}
-	return pose, nil
+	return pose, -1, nil
 }
 
 // rodrigues returns the rotation matrix of the rotation vector w

@@ -3,6 +3,7 @@ package kinematic
 import (
 	"errors"
 	"math"
+	"strings"
 	"testing"
 
 	"gonum.org/v1/gonum/optimize"
@@ -236,8 +237,36 @@ func TestSeatErrors(t *testing.T) {
 	if _, err := a.Pose([]Deviation{{"A.Ball.Radius", math.NaN()}}, nil); !errors.Is(err, ErrNonFinite) {
 		t.Errorf("NaN deviation: %v", err)
 	}
-	if _, err := a.Pose([]Deviation{{"A.Ball.Radius", -6e-3}}, nil); !errors.As(err, &ie) || ie.Field != "Pairs[0]" {
+	// A ball that cannot reach its seat is named in the reason; the field
+	// names the deviations the caller wrote that moved it (the Pairs of
+	// the coupling are not Pose's input).
+	if _, err := a.Pose([]Deviation{{"A.Ball.Radius", -6e-3}}, nil); !errors.As(err, &ie) || ie.Field != "devs[0].Value" || !strings.Contains(err.Error(), "ball A cannot reach its seat") {
 		t.Errorf("negative radius: %v", err)
+	}
+	// 10 m for 10 µm: the seat of ball A moves 10 m.
+	if _, err := a.Pose([]Deviation{{"A.Seat.X", 10}}, nil); !errors.As(err, &ie) || ie.Field != "devs[0].Value" || !errors.Is(err, ErrRange) {
+		t.Errorf("a seat 10 m off: %v", err)
+	}
+	// Only pair A's deviations are named, those of other balls not, nor
+	// a zero deviation of A's.
+	devs := []Deviation{{"B.Ball.X", 1e-6}, {"A.Seat.Y", 10}, {"A.Ball.Z", 0}, {"A.Ball.X", -3}}
+	if _, err := a.Pose(devs, nil); !errors.As(err, &ie) || ie.Field != "devs[1].Value, devs[3].Value" {
+		t.Errorf("two of ball A's deviations 3 m and 10 m: %v", err)
+	}
+	// An approach of 10 mm at the first contact of pair B (contacts A+,
+	// A-, B+, ...): the ball that cannot follow is named in the reason,
+	// and the field is that approach if it is B's, else every approach.
+	appr := []float64{0, 0, 10e-3, 0, 0, 0}
+	_, err := a.Pose(nil, &PoseOptions{Approach: appr})
+	switch {
+	case !errors.As(err, &ie) || !errors.Is(err, ErrRange):
+		t.Errorf("an approach of 10 mm at B+: %v", err)
+	case strings.Contains(err.Error(), "ball B cannot"):
+		if ie.Field != "opt.Approach[2]" {
+			t.Errorf("an approach of 10 mm at B+, ball B unseated: %v", err)
+		}
+	case ie.Field != "opt.Approach":
+		t.Errorf("an approach of 10 mm at B+, another ball unseated: %v", err)
 	}
 	if _, err := a.Pose([]Deviation{{"B.Seat.Flank+", 4e-3}}, nil); !errors.Is(err, ErrRange) {
 		t.Errorf("a flank 4 mm high: %v", err)

@@ -32,7 +32,12 @@ type Breakpoint struct {
 	// that 6 dB/octave is f^1.993, not f². Levels propagate forward from
 	// the nearest anchor before and backward from the nearest anchor
 	// after; a Slope on a segment whose two ends both have a level is an
-	// error (it would contradict them).
+	// error (it would contradict them). A Slope of 0 cannot carry a
+	// level: a breakpoint with ASD 0 whose level would come through a
+	// segment of Slope 0 is an error naming that Slope, for the zero
+	// value cannot tell "flat" from a slope left out or a level of 0
+	// meant as none. A flat segment is written by repeating the level;
+	// the spectrum is zero outside its band without a breakpoint of 0.
 	Slope float64
 }
 
@@ -48,7 +53,8 @@ var dBPerOctave = 10 * math.Log10(2)
 
 // prepare validates s and resolves its levels. Errors are
 // [*InputError]s naming "Points" (fewer than two breakpoints, or none
-// with a level) or the breakpoint's field, e.g. "Points[2].Frequency",
+// with a level) or the breakpoint's field, e.g. "Points[2].Frequency" or
+// "Points[1].Slope" (a level of 0 to be carried by a slope of 0),
 // wrapping ErrNonFinite, ErrRange or ErrDegenerate.
 func (s Spectrum) prepare() (spectrum, error) {
 	p := s.Points
@@ -88,6 +94,9 @@ func (s Spectrum) prepare() (spectrum, error) {
 	// the first one: a(i) = a(j)·(f(i)/f(j))^(X/dBPerOctave).
 	for i := 1; i < n; i++ {
 		if sp.a[i] == 0 && sp.a[i-1] > 0 {
+			if p[i].Slope == 0 {
+				return spectrum{}, errNoSlope(i, i, sp.f[i], sp.a[i-1], "previous")
+			}
 			sp.a[i] = sp.a[i-1] * math.Pow(sp.f[i]/sp.f[i-1], p[i].Slope/dBPerOctave)
 			if !(sp.a[i] > 0) || math.IsInf(sp.a[i], 0) {
 				return spectrum{}, &InputError{Field: indexed("Points", i) + ".Slope", Err: fmt.Errorf("%w: the level carried by %g dB/octave leaves the floating-point range", ErrRange, p[i].Slope)}
@@ -96,6 +105,9 @@ func (s Spectrum) prepare() (spectrum, error) {
 	}
 	for i := n - 2; i >= 0; i-- {
 		if sp.a[i] == 0 {
+			if p[i+1].Slope == 0 {
+				return spectrum{}, errNoSlope(i, i+1, sp.f[i], sp.a[i+1], "next")
+			}
 			sp.a[i] = sp.a[i+1] * math.Pow(sp.f[i]/sp.f[i+1], p[i+1].Slope/dBPerOctave)
 			if !(sp.a[i] > 0) || math.IsInf(sp.a[i], 0) {
 				return spectrum{}, &InputError{Field: indexed("Points", i+1) + ".Slope", Err: fmt.Errorf("%w: the level carried by %g dB/octave leaves the floating-point range", ErrRange, p[i+1].Slope)}
@@ -106,6 +118,19 @@ func (s Spectrum) prepare() (spectrum, error) {
 		sp.n[i] = math.Log(sp.a[i+1]/sp.a[i]) / math.Log(sp.f[i+1]/sp.f[i])
 	}
 	return sp, nil
+}
+
+// errNoSlope refuses breakpoint i, at f Hz, whose level is 0 (to follow
+// from a slope) while the slope of the segment that would carry the
+// neighbouring level a to it, Points[j].Slope, is 0 too: read as a flat
+// segment, it would be the level a unchanged, but a caller who wrote a
+// level of 0 meaning "no vibration" or who left the slope out meant
+// something else, and a flat segment is written by repeating the level.
+func errNoSlope(i, j int, f, a float64, which string) error {
+	return &InputError{Field: indexed("Points", j) + ".Slope", Other: indexed("Points", i) + ".ASD", Err: fmt.Errorf(
+		"%w: the breakpoint at %g Hz has no level (ASD 0) and the segment that would carry the %s level to it no slope (0 dB/octave): "+
+			"for a flat segment repeat the level, %g g²/Hz, at %g Hz; a level of 0 is not a spectrum level (the band ends at its last breakpoint); otherwise give the slope in dB/octave",
+		ErrRange, f, which, a, f)}
 }
 
 // at returns the level at f in g²/Hz, zero outside the band.

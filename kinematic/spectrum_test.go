@@ -3,6 +3,7 @@ package kinematic
 import (
 	"errors"
 	"math"
+	"strings"
 	"testing"
 )
 
@@ -101,6 +102,11 @@ func TestSpectrumErrors(t *testing.T) {
 		{"contradicting slope", Spectrum{Points: []Breakpoint{{Frequency: 1, ASD: 1}, {Frequency: 2, ASD: 1, Slope: 3}}}, "Points[1].Slope", ErrRange},
 		{"first slope", Spectrum{Points: []Breakpoint{{Frequency: 1, ASD: 1, Slope: 3}, {Frequency: 2, ASD: 1}}}, "Points[0].Slope", ErrRange},
 		{"overflowing slope", Spectrum{Points: []Breakpoint{{Frequency: 1, ASD: 1}, {Frequency: 1e6, Slope: 1e4}}}, "Points[1].Slope", ErrRange},
+		// A level of 0 carried by a slope of 0, forward, after a slope,
+		// and backward: each was read as a flat segment.
+		{"zero level, no slope", Spectrum{Points: []Breakpoint{{Frequency: 20, ASD: 0.01}, {Frequency: 2000}}}, "Points[1].Slope", ErrRange},
+		{"zero level after a slope, no slope", Spectrum{Points: []Breakpoint{{Frequency: 20, ASD: 0.01}, {Frequency: 80, Slope: 3}, {Frequency: 2000}}}, "Points[2].Slope", ErrRange},
+		{"zero first level, no slope after it", Spectrum{Points: []Breakpoint{{Frequency: 20}, {Frequency: 80, ASD: 0.04}, {Frequency: 2000, ASD: 0.04}}}, "Points[1].Slope", ErrRange},
 	} {
 		_, err := c.s.GRMS()
 		var ie *InputError
@@ -192,5 +198,36 @@ func TestSpectrumPublishedLevels(t *testing.T) {
 		if math.Abs(g-c.grms) > c.tol {
 			t.Errorf("%s: grms = %.4f, want %g (stated)", c.name, g, c.grms)
 		}
+	}
+}
+
+// TestSpectrumZeroLevelZeroSlope: a breakpoint with no level whose
+// segment has no slope is refused, naming the slope and the level, with
+// the fix in the message; Random names it as its caller wrote it. The
+// same level written out, or a real slope, is accepted: the GEVS-like
+// spectrum's first breakpoint has no level and takes it back through the
+// +6 dB/octave of the next segment.
+func TestSpectrumZeroLevelZeroSlope(t *testing.T) {
+	bad := Spectrum{Points: []Breakpoint{{Frequency: 20, ASD: 0.01}, {Frequency: 2000, ASD: 0}}}
+	_, err := bad.GRMS()
+	var ie *InputError
+	if !errors.As(err, &ie) || ie.Field != "Points[1].Slope" || ie.Other != "Points[1].ASD" || !errors.Is(err, ErrRange) {
+		t.Fatalf("err = %v, want an InputError on Points[1].Slope, see Points[1].ASD", err)
+	}
+	for _, want := range []string{"repeat the level, 0.01 g²/Hz, at 2000 Hz", "give the slope in dB/octave"} {
+		if !strings.Contains(err.Error(), want) {
+			t.Errorf("%v: no %q", err, want)
+		}
+	}
+	if _, err := symmetricModel(t).Random(gravityDown, bad, nil); !errors.As(err, &ie) || ie.Field != "s.Points[1].Slope" || ie.Other != "s.Points[1].ASD" {
+		t.Errorf("Random: err = %v, want an InputError on s.Points[1].Slope, see s.Points[1].ASD", err)
+	}
+	// 0.01 g²/Hz flat from 20 Hz to 2000 Hz: 0.01·1980 = 19.8 g², 4.450 grms.
+	flat := Spectrum{Points: []Breakpoint{{Frequency: 20, ASD: 0.01}, {Frequency: 2000, ASD: 0.01}}}
+	if g, err := flat.GRMS(); err != nil || math.Abs(g-math.Sqrt(19.8)) > 1e-12 {
+		t.Errorf("flat written out: %v, %v; want %v grms", g, err, math.Sqrt(19.8))
+	}
+	if _, err := gevs.GRMS(); err != nil {
+		t.Errorf("a first breakpoint without a level, carried back by +6 dB/octave: %v", err)
 	}
 }

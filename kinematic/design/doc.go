@@ -106,7 +106,8 @@
 //	    points          array of 2 to 256 breakpoints in increasing frequency, required:
 //	                    {"frequency": frequency > 0, required; "asd": spectral density > 0;
 //	                    "slope": dB/octave of the segment from the previous breakpoint to this one,
-//	                    used when one of its two ends has no asd}
+//	                    used when one of its two ends has no asd, and then not 0 (a flat
+//	                    segment repeats the asd; an asd of 0 is no asd)}
 //	  case              name of the load case whose static forces and stiffness the response is
 //	                    linear about; default the first
 //	  damping           {"zeta": number in (0, 1) or an array of six} or {"q": number > 0.5 or six}:

@@ -204,6 +204,9 @@ func TestVibrationRefused(t *testing.T) {
 		{"bare level", fix(set("vibration.spectrum.points[1].asd", 0.1)), "vibration.spectrum.points[1].asd", ErrUnit},
 		{"slope contradicting", fix(set("vibration.spectrum.points[2].slope", "3 dB/oct")), "vibration.spectrum.points[2].slope", ErrRange},
 		{"slope in Hz", fix(set("vibration.spectrum.points[3].slope", "-6 Hz")), "vibration.spectrum.points[3].slope", ErrUnit},
+		// A level of 0 carried by a slope of 0 was read as flat.
+		{"last level from no slope", fix(del("vibration.spectrum.points[3].slope")), "vibration.spectrum.points[3].slope", ErrRange},
+		{"first level from no slope", fix(del("vibration.spectrum.points[1].slope")), "vibration.spectrum.points[1].slope", ErrRange},
 		{"frequency missing", fix(del("vibration.spectrum.points[0].frequency")), "vibration.spectrum.points[0].frequency", ErrMissing},
 		{"unknown breakpoint member", fix(set("vibration.spectrum.points[0].level", 1)), "vibration.spectrum.points[0].level", ErrUnknownField},
 		{"zeta and q", fix(set("vibration.damping.zeta", 0.02)), "vibration.damping.q", ErrRange},
@@ -232,6 +235,19 @@ func TestVibrationRefused(t *testing.T) {
 				t.Errorf("error %v, want one at %s wrapping %v", err, tc.path, tc.sentinel)
 			}
 		})
+	}
+	// The trial's spectrum: 0.01 g²/Hz at 20 Hz and a level of 0 at
+	// 2 kHz, which was read as 0.01 g²/Hz flat to 2 kHz. The error and
+	// the input it refers to are named by their JSON paths.
+	_, err := Parse([]byte(fix(set("vibration.spectrum.points", []any{
+		map[string]any{"frequency": "20 Hz", "asd": "0.01 g^2/Hz"},
+		map[string]any{"frequency": "2000 Hz", "asd": "0 g^2/Hz"},
+	}))))
+	var e *Error
+	if !errors.As(err, &e) || e.Path != "vibration.spectrum.points[1].slope" || e.Other != "vibration.spectrum.points[1].asd" || !errors.Is(err, ErrRange) {
+		t.Errorf("a level of 0 at 2 kHz: %v; want an error at vibration.spectrum.points[1].slope, see vibration.spectrum.points[1].asd", err)
+	} else if msg := err.Error(); strings.Contains(msg, "Points") || !strings.Contains(msg, "repeat the level") {
+		t.Errorf("a level of 0 at 2 kHz: %q names the Go fields or gives no fix", msg)
 	}
 	// A Design built in Go is checked as a file is.
 	d, err := Parse(readFile(t, "testdata/vibration.json"))
