@@ -67,15 +67,15 @@ type Drift struct {
 	// HasCentre is false when no such point exists: the lateral relative
 	// motion is a pure translation or none, as when the body and the
 	// base expand alike and the balls' growth only lifts the body (three
-	// vees or a socket–vee–flat with their seats' Up vertical). The test
-	// is dimensionless: the lateral motion's rotation and strain (its
-	// change per metre across the plane) must exceed 1e-8 of the largest
-	// expansion strain of the inputs, |ΔT| times the largest |α| of the
-	// body, the base, the balls and the seats; below that it is rounding,
-	// or a field so weak that its "centre" lies some hundred million
-	// coupling sizes away, and Centre is zero. Distance is the lateral
-	// distance from the point of interest to Centre, m (0 without a
-	// centre).
+	// vees or a socket–vee–flat with their seats' Up vertical and the
+	// ball centres at one height). The test is dimensionless: the lateral
+	// motion's rotation and strain (its change per metre across the
+	// plane) must exceed 1e-8 of the largest expansion strain of the
+	// inputs, |ΔT| times the largest |α| of the body, the base, the balls
+	// and the seats; below that it is rounding, or a field so weak that
+	// its "centre" lies of the order of 1e8 coupling sizes away, and
+	// Centre is zero. Distance is the lateral distance from the point of
+	// interest to Centre, m (0 without a centre).
 	Centre    r3.Vec
 	HasCentre bool
 	Distance  float64
