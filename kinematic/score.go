@@ -91,7 +91,10 @@ const (
 	// Thermal.Base, or a ball's or seat's Material.Alpha.
 	FigureDrift
 	// FigureThermalCentreDistance needs what FigureDrift needs, and a
-	// thermal centre (none when the drift is a pure translation).
+	// thermal centre ([Drift.HasCentre]): none when the lateral drift
+	// relative to the base is a pure translation or none, as on a layout
+	// whose seats only lift the balls as they grow, the body and the base
+	// expanding alike (or not at all, Scenario.Thermal left zero).
 	FigureThermalCentreDistance
 
 	figureEnd
@@ -198,10 +201,11 @@ type Scorecard struct {
 
 	// Drift is the displacement of the point of interest relative to the
 	// base per kelvin of uniform temperature change, m/K (lower is
-	// better; [Drift.Linear] per kelvin, independent of where the base is
-	// held), and
+	// better; the magnitude of [Drift.RelativeLinear] per kelvin,
+	// independent of where the base is held), and
 	// ThermalCentreDistance the lateral distance from it to the thermal
-	// centre, m (lower is better; unavailable when there is none).
+	// centre, m, as [Drift.Distance] (lower is better; unavailable when
+	// Drift.HasCentre is false).
 	Drift, ThermalCentreDistance float64
 }
 
@@ -643,7 +647,9 @@ func (sc *scorer) drift(card *Scorecard, ts *[6]screw.Twist, p r3.Vec) {
 	th := &sc.s.Thermal
 	var x screw.Twist
 	var cen, up r3.Vec
+	strain := max(math.Abs(th.Moving), math.Abs(th.Base)) // per kelvin, as Drift's for ΔT 1 K
 	for i, t := range ts {
+		strain = max(strain, math.Abs(sc.balpha[i]), math.Abs(sc.alpha[i]))
 		l := &sc.lines[i]
 		e := thermalGap(th, sc.balpha[i], sc.radius[i], sc.alpha[i],
 			r3.Add(l.centre, sc.origin), r3.Add(l.p, sc.origin), l.n, r3.Add(sc.root[i], sc.origin))
@@ -653,7 +659,7 @@ func (sc *scorer) drift(card *Scorecard, ts *[6]screw.Twist, p r3.Vec) {
 	}
 	xg := global(x, sc.origin)
 	card.Drift = linalg.Norm3(relativeMotion(xg, th.Moving, th.Base, th.BaseRef, sc.s.Point))
-	if _, ok, dist := thermalCentre(xg, th.Moving, th.Base, th.BaseRef, r3.Add(cen, sc.origin), up, sc.s.Point); ok {
+	if _, ok, dist := thermalCentre(xg, th.Moving, th.Base, th.BaseRef, r3.Add(cen, sc.origin), up, sc.s.Point, strain); ok {
 		card.ThermalCentreDistance = dist
 	} else {
 		card.Unavailable |= FigureThermalCentreDistance

@@ -64,10 +64,18 @@ type Drift struct {
 	// plane relative to the base (first order). For three vees it is
 	// where the groove lines meet; for a socket, a vee aimed at it and a
 	// flat, the socket's ball centre. It does not depend on BaseRef.
-	// HasCentre is false when no such point exists (the body and the
-	// base expand alike and the lateral relative motion is a pure
-	// translation or none). Distance is the lateral distance from the
-	// point of interest to Centre, m.
+	// HasCentre is false when no such point exists: the lateral relative
+	// motion is a pure translation or none, as when the body and the
+	// base expand alike and the balls' growth only lifts the body (three
+	// vees or a socket–vee–flat with their seats' Up vertical and the
+	// ball centres at one height). The test is dimensionless: the lateral
+	// motion's rotation and strain (its change per metre across the
+	// plane) must exceed 1e-8 of the largest expansion strain of the
+	// inputs, |ΔT| times the largest |α| of the body, the base, the balls
+	// and the seats; below that it is rounding, or a field so weak that
+	// its "centre" lies of the order of 1e8 coupling sizes away, and
+	// Centre is zero. Distance is the lateral distance from the point of
+	// interest to Centre, m (0 without a centre).
 	Centre    r3.Vec
 	HasCentre bool
 	Distance  float64
@@ -157,14 +165,17 @@ func (a *Assembly) Drift(th Thermal, p r3.Vec) (Drift, error) {
 	d.Tilt = pose.Rotation
 
 	var cen, upSum r3.Vec
+	strain := max(math.Abs(th.Moving), math.Abs(th.Base))
 	for _, pr := range a.pairs {
 		cen = r3.Add(cen, pr.ball.Centre)
+		strain = max(strain, math.Abs(pr.ball.Material.Alpha), math.Abs(pr.alpha))
 	}
+	strain *= math.Abs(dt)
 	cen = r3.Scale(1/float64(len(a.pairs)), cen)
 	for i := range a.lines {
 		upSum = r3.Add(upSum, a.lines[i].n)
 	}
-	d.Centre, d.HasCentre, d.Distance = thermalCentre(xg, th.Moving*dt, th.Base*dt, th.BaseRef, cen, upSum, p)
+	d.Centre, d.HasCentre, d.Distance = thermalCentre(xg, th.Moving*dt, th.Base*dt, th.BaseRef, cen, upSum, p, strain)
 	return d, nil
 }
 
@@ -197,13 +208,42 @@ func thermalGap(th *Thermal, ballAlpha, r, seatAlpha float64, c, p, n, root r3.V
 		th.Base*r3.Dot(n, r3.Sub(root, th.BaseRef)) - seatAlpha*r3.Dot(n, r3.Sub(p, root))
 }
 
+// thermalCentreFloor is the smallest rotation and strain of the lateral
+// relative motion, as a fraction of the largest expansion strain of the
+// inputs, that defines a thermal centre (see thermalCentre).
+//
+// The rotation ω (about up) and strain s (α_moving − α_base)ΔT of the
+// lateral field are sums of products of the inputs' strains (αΔT) with
+// the freed twists and the points' positions. When they vanish (by
+// symmetry, or because the body and the base expand alike and the balls'
+// growth only lifts the body) what is computed is rounding: about ε
+// (2.2e-16) times the strains involved, times the conditioning of the
+// freed twists (2 to 5 for sensible layouts, DesignCondition 10 flags
+// worse, below screw.NearSingularRatio 1e3 for any the library
+// analyses), times the ratio of the points' distance from the frame's
+// origin to the coupling's size. That is some 1e-15 of the strain for a
+// sensible layout near the origin and 2e-10 at worst (a condition of 1e3,
+// a thousand sizes away); 1e-18 to 1e-16 is seen on the symmetric
+// three-vee and socket–vee–flat of thermal_test.go. A real field is a
+// fraction of the strain set by the geometry: the strain difference
+// itself, or the balls' growth over the ball circle times the sine of a
+// seat's cant (a 1 mm ball on a 100 mm circle in vees canted by half a
+// degree: r/R·sin 0.5° ≈ 1e-4). 1e-8 lies fifty times above the worst
+// rounding and four orders below that field; a field weaker than it
+// moves points a coupling size L apart by less than 1e-8 of the body's
+// own expansion over L, and its fixed point lies of the order of 1e8 L
+// away, which is no design figure.
+const thermalCentreFloor = 1e-8
+
 // thermalCentre returns the thermal centre: the point q, in the plane
 // through cen normal to up, at which the lateral part of the motion
 // relative to the base, relativeMotion(x, am, ab, baseRef, q), vanishes;
 // and the lateral distance from p to it. ok is false when that lateral
 // motion does not vary across the plane (a pure translation, or none: no
-// centre).
-func thermalCentre(x screw.Twist, am, ab float64, baseRef, cen, up, p r3.Vec) (centre r3.Vec, ok bool, dist float64) {
+// centre): when its rotation and strain are below thermalCentreFloor
+// times strain, the largest expansion strain (|ΔT| max |α|) of the
+// inputs.
+func thermalCentre(x screw.Twist, am, ab float64, baseRef, cen, up, p r3.Vec, strain float64) (centre r3.Vec, ok bool, dist float64) {
 	upv, ok := linalg.Unit3(up)
 	if !ok {
 		return r3.Vec{}, false, 0
@@ -214,12 +254,16 @@ func thermalCentre(x screw.Twist, am, ab float64, baseRef, cen, up, p r3.Vec) (c
 	v0 := vel(cen)
 	a1 := r3.Sub(vel(r3.Add(cen, e1)), v0) // the linear part along e1 and e2
 	a2 := r3.Sub(vel(r3.Add(cen, e2)), v0)
+	// The lateral gradient is [[s, −ω], [ω, s]] for the strain s and the
+	// rotation ω about up (the lateral part of W × e1 is ω e2), so scale
+	// is |s| + |ω| and det = s² + ω².
 	m11, m12, m21, m22 := r3.Dot(e1, a1), r3.Dot(e1, a2), r3.Dot(e2, a1), r3.Dot(e2, a2)
 	det := m11*m22 - m12*m21
 	scale := math.Max(math.Abs(m11)+math.Abs(m12), math.Abs(m21)+math.Abs(m22))
 	// The lateral motion must change across the plane by more than
-	// rounding for a centre to be defined.
-	if scale == 0 || !(math.Abs(det) > 1e-12*scale*scale) {
+	// rounding (thermalCentreFloor) for a centre to be defined, and the
+	// 2×2 solve must be well conditioned (it is: det ≥ scale²/2).
+	if !(scale > thermalCentreFloor*strain) || !(math.Abs(det) > 1e-12*scale*scale) {
 		return r3.Vec{}, false, 0
 	}
 	b1, b2 := -r3.Dot(e1, v0), -r3.Dot(e2, v0)

@@ -6,6 +6,8 @@ import (
 	"testing"
 
 	"gonum.org/v1/gonum/spatial/r3"
+
+	"github.com/sixfold-dev/sixfold/hertz"
 )
 
 // lateral returns the part of v normal to z.
@@ -181,5 +183,151 @@ func TestThermalCentreSocket(t *testing.T) {
 		if !d.HasCentre || r3.Norm(lateral(r3.Sub(d.Centre, s))) > 1e-12 {
 			t.Errorf("BaseRef %v: thermal centre %v (has %v), want the socket's ball centre %v", ref, d.Centre, d.HasCentre, s)
 		}
+	}
+}
+
+// TestThermalCentreNoneWithoutLateralField: a thermal centre needs a
+// lateral relative motion that turns or strains across the plane; when
+// there is none, HasCentre is false (not a point computed from rounding)
+// and the scorecard marks the distance unavailable. Worked by hand:
+//
+// Symmetric three-vee (radial 90° grooves on the equilateral triangle,
+// Up vertical, 5 mm steel balls). The layout has a mirror plane through
+// each ball and the z axis; a rotation about z changes sign under a
+// mirror, so the first-order motion has none, and with the body and the
+// base expanding alike (or not at all) there is no strain either: the
+// lateral relative motion is zero everywhere. What is left is the balls'
+// growth: a ball grown by Δr = α_ball r ΔT in a 90° vee, whose flanks keep
+// their planes through the root, rises by Δr/cos 45° = √2 Δr; the body
+// and the base scaled alike by α ΔT are a similarity, in which the ball
+// should have grown by α r ΔT, so relative to the base the body rises by
+// √2 (α_ball − α) r ΔT, the same at every point (no tilt).
+//
+// Socket–vee–flat with its vee aimed at the socket (mustSVF): each seat
+// is symmetric about its vertical Up (the socket's three faces, the vee's
+// two flanks, the flat), so the balls' growth lifts each ball centre
+// straight up, by different amounts (the body tilts about a horizontal
+// axis); no ball centre moves laterally, and the tilt moves points of
+// the balls' plane (z = 0) only vertically: the lateral field in that
+// plane is zero, and there is no centre, although a point 30 mm above it
+// drifts laterally with the tilt.
+func TestThermalCentreNoneWithoutLateralField(t *testing.T) {
+	three, err := BisectorVees(equilateral(), three(vee45))
+	if err != nil {
+		t.Fatal(err)
+	}
+	al := hertz.Aluminium6061T6.Alpha
+	p := r3.Vec{X: 0.02, Y: -0.01, Z: 0.03}
+	for _, tc := range []struct {
+		name string
+		c    Coupling
+		th   Thermal
+		rise float64 // the hand value of Relative.Z for the three-vee, m; 0: not checked
+	}{
+		{"three-vee, body and base alike", three, Thermal{DeltaT: 5, Moving: al, Base: al, BaseRef: r3.Vec{X: 0.1}},
+			math.Sqrt2 * (hertz.Steel52100.Alpha - al) * 5e-3 * 5},
+		{"three-vee, the balls' own expansion only", three, Thermal{DeltaT: 5},
+			math.Sqrt2 * hertz.Steel52100.Alpha * 5e-3 * 5},
+		{"socket-vee-flat, body and base alike", mustSVF(t), Thermal{DeltaT: 5, Moving: al, Base: al}, 0},
+		{"socket-vee-flat, the balls' own expansion only", mustSVF(t), Thermal{DeltaT: 5}, 0},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			a, err := tc.c.Assembly()
+			if err != nil {
+				t.Fatal(err)
+			}
+			d, err := a.Drift(tc.th, p)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if d.HasCentre || d.Centre != (r3.Vec{}) || d.Distance != 0 {
+				t.Errorf("thermal centre %v (has %v, distance %g), want none", d.Centre, d.HasCentre, d.Distance)
+			}
+			if tc.rise != 0 {
+				want := r3.Vec{Z: tc.rise}
+				for _, got := range []r3.Vec{d.RelativeLinear, d.Relative} {
+					if !near(got, want, 1e-9*math.Abs(tc.rise)) {
+						t.Errorf("drift relative to the base %v, want %v", got, want)
+					}
+				}
+			} else {
+				// No ball centre moves laterally.
+				for _, pr := range tc.c.Pairs {
+					db, err := a.Drift(tc.th, pr.Ball.Centre)
+					if err != nil {
+						t.Fatal(err)
+					}
+					if l := r3.Norm(lateral(db.RelativeLinear)); l > 1e-9*r3.Norm(db.RelativeLinear) {
+						t.Errorf("ball %s moves laterally by %v", pr.Name, lateral(db.RelativeLinear))
+					}
+				}
+			}
+			// The scorecard reads the same drift per kelvin and marks the
+			// centre distance unavailable.
+			s := Scenario{Point: p, Thermal: tc.th}
+			card, err := tc.c.Score(s)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if !card.Unavailable.Has(FigureThermalCentreDistance) || card.ThermalCentreDistance != 0 {
+				t.Errorf("scorecard: thermal centre distance %g, unavailable %v; want it unavailable", card.ThermalCentreDistance, card.Unavailable)
+			}
+			if card.Unavailable.Has(FigureDrift) {
+				t.Errorf("scorecard: drift unavailable (%v)", card.Unavailable)
+			}
+			if want := r3.Norm(d.RelativeLinear) / tc.th.DeltaT; math.Abs(card.Drift-want) > 1e-9*want {
+				t.Errorf("scorecard drift %g m/K, Drift %g m/K", card.Drift, want)
+			}
+		})
+	}
+}
+
+// TestThermalCentreCantedVeesBallsOnly: three 90° vees on the equilateral
+// triangle with radial grooves, each seat's Up canted by 20° about its
+// groove line (towards +θ), and no body or base expansion: a ball grown
+// by Δr is pushed along its seat's Up, which has a tangential component,
+// so each ball centre moves by the same amount perpendicular to its
+// groove, in the same sense about z. The layout is symmetric under turns
+// of 120° about z, so the motion is a turn about z and a lift along it,
+// and the lateral field is a rotation about the z axis: the thermal
+// centre is the origin, where the groove lines meet, although only the
+// balls expand. The scorecard's distance is Drift's, the lateral distance
+// from the point to the origin, √(0.02² + 0.01²) m.
+func TestThermalCentreCantedVeesBallsOnly(t *testing.T) {
+	bs := equilateral()
+	var vs [3]Vee
+	const cant = 20 * math.Pi / 180
+	for i, b := range bs {
+		v := vee45
+		tang := r3.Unit(r3.Cross(up, b.Centre))
+		v.Up = r3.Add(r3.Scale(math.Cos(cant), up), r3.Scale(math.Sin(cant), tang))
+		vs[i] = v
+	}
+	c, err := AimedVees(bs, r3.Vec{}, vs)
+	if err != nil {
+		t.Fatal(err)
+	}
+	a, err := c.Assembly()
+	if err != nil {
+		t.Fatal(err)
+	}
+	p := r3.Vec{X: 0.02, Y: -0.01, Z: 0.03}
+	d, err := a.Drift(Thermal{DeltaT: 1}, p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	want := math.Hypot(0.02, 0.01)
+	if !d.HasCentre || r3.Norm(lateral(d.Centre)) > 1e-12 || math.Abs(d.Distance-want) > 1e-12 {
+		t.Errorf("thermal centre %v (has %v), distance %g; want the origin, %g", d.Centre, d.HasCentre, d.Distance, want)
+	}
+	if math.Abs(d.LinearTilt.Z) == 0 {
+		t.Errorf("turn about z %g, want one", d.LinearTilt.Z)
+	}
+	card, err := c.Score(Scenario{Point: p})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if card.Unavailable.Has(FigureThermalCentreDistance) || math.Abs(card.ThermalCentreDistance-want) > 1e-12 {
+		t.Errorf("scorecard: thermal centre distance %g (unavailable %v), want %g", card.ThermalCentreDistance, card.Unavailable, want)
 	}
 }

@@ -433,3 +433,43 @@ func TestOpeningsPreload(t *testing.T) {
 		t.Errorf("%d max_random_openings verdicts with the plunger at %s N, want 4 (x, y, z, worst)", verdicts, line[3])
 	}
 }
+
+// TestNoThermalCentre: the mirror cell's three seats (socket, vee, flat)
+// are each symmetric about a vertical Up, so the balls' growth only lifts
+// them; with the cell and the base expanding alike (23.6e-6 1/K both) the
+// motion relative to the base neither turns nor strains in the plane of
+// the balls, and the report says there is no thermal centre instead of
+// printing a point computed from rounding. With the file's own base
+// (1.3e-6 1/K) the cell strains about the socket's ball, at the origin,
+// and the report prints that point.
+func TestNoThermalCentre(t *testing.T) {
+	src, err := os.ReadFile("testdata/mirror.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, tc := range []struct {
+		name, base, want, not string
+	}{
+		{"alike", "23.6 ppm/K", "  no thermal centre: relative to the base the body neither turns nor strains", "thermal centre at"},
+		{"the file's", "1.3 ppm/K", "  thermal centre at (0.00, 0.00, 0.00) mm", "no thermal centre"},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			s := strings.Replace(string(src), `"base_alpha": "1.3 ppm/K"`, `"base_alpha": "`+tc.base+`"`, 1)
+			if !strings.Contains(s, `"base_alpha": "`+tc.base+`"`) {
+				t.Fatal("testdata/mirror.json has no base_alpha of 1.3 ppm/K to change")
+			}
+			dir := t.TempDir()
+			in := filepath.Join(dir, "mirror.json")
+			if err := os.WriteFile(in, []byte(s), 0o644); err != nil {
+				t.Fatal(err)
+			}
+			_, rep, errs := runCmd(t, "", "-out", filepath.Join(dir, "out"), in)
+			if !strings.Contains(rep, "thermal change of +5 K") {
+				t.Fatalf("no thermal section; stderr %s\n%s", errs, rep)
+			}
+			if !strings.Contains(rep, tc.want) || strings.Contains(rep, tc.not) {
+				t.Errorf("report lacks %q or has %q:\n%s", tc.want, tc.not, rep[strings.Index(rep, "thermal change"):])
+			}
+		})
+	}
+}

@@ -400,6 +400,8 @@ func (s *study) errors() error {
 		s.printf("  in the frame, the base held at %s: %s µm\n", mm(th.BaseRef), um(dr.World))
 		if dr.HasCentre {
 			s.printf("  thermal centre at %s, %.1f mm from the %s\n", mm(dr.Centre), dr.Distance*1e3, s.point)
+		} else {
+			s.printf("  no thermal centre: relative to the base the body neither turns nor strains in the plane through the ball centres (its lateral motion there is a pure translation, or none)\n")
 		}
 	}
 	if f := s.d.Friction; f != nil && len(s.d.Cases) > 0 && f.Mu > 0 {

@@ -447,3 +447,34 @@ func TestForcesDrawn(t *testing.T) {
 		t.Errorf("no cases: %v", err)
 	}
 }
+
+// TestPlanThermalCentre: the bench fixture's three radial vees are
+// symmetric (mirror planes through each ball and the centre), so with the
+// body and the base expanding alike the motion relative to the base has
+// no turn or strain in the plane of the balls and there is no thermal
+// centre: the plan draws none and says so in its notes. With aluminium on
+// steel (23.6e-6 and 11.9e-6 1/K) the body strains relative to the base
+// about where the grooves meet, and the plan marks the thermal centre.
+func TestPlanThermalCentre(t *testing.T) {
+	for _, tc := range []struct {
+		name, thermal string
+		centre        bool
+	}{
+		{"alike", `{"delta_t": "5 K", "moving_alpha": "23e-6 /K", "base_alpha": "23e-6 /K"}`, false},
+		{"aluminium on steel", `{"delta_t": "5 K", "moving_alpha": "23.6e-6 /K", "base_alpha": "11.9e-6 /K"}`, true},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			src := strings.Replace(bench, `"point_of_interest"`, `"thermal": `+tc.thermal+`, "point_of_interest"`, 1)
+			b, ev := built(t, src)
+			if ev.Drift == nil || ev.Drift.HasCentre != tc.centre {
+				t.Fatalf("drift %+v, want a centre: %v", ev.Drift, tc.centre)
+			}
+			d := draw(t, "plan", func(w io.Writer) error { return drawing.Plan(w, b, ev, nil) })
+			_, marked := d.text("thermal centre")
+			noted := d.has("no thermal centre")
+			if marked != tc.centre || noted == tc.centre {
+				t.Errorf("thermal centre marked %v, noted as none %v; want a centre: %v", marked, noted, tc.centre)
+			}
+		})
+	}
+}

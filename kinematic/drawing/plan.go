@@ -420,7 +420,8 @@ func (v *planView) Plot(c draw.Canvas, plt *plot.Plot) {
 // the groove axes (dashed), the instantaneous axes of seat pairs near the
 // coupling (dash-dot; those far off are listed in the notes only with
 // Options.OffAxes), where the grooves meet, the thermal centre (when ev
-// has a drift with one), the preload points, the centre of mass, the
+// has a drift with one; a drift without one, Drift.HasCentre false, is
+// said in the notes), the preload points, the centre of mass, the
 // worst shock (ev.Shock: the base's acceleration that unloads a contact
 // soonest, an arrow from the centre of mass along its plan projection,
 // labelled with its level, g), the point of interest, the keep-outs and
@@ -439,6 +440,9 @@ func Plan(w io.Writer, b *design.Built, ev design.Evaluation, opt *Options) erro
 	notes := []string{"groove axes dashed blue, instantaneous axes of seat pairs dash-dot grey; dots: contact points"}
 	if sh := ev.Shock; sh != nil && sh.Unload > 0 && finite(sh.Unload) && len(sh.First) > 0 {
 		notes = append(notes, fmt.Sprintf("red arrow from the centre of mass: the base's acceleration that unloads a contact soonest (worst shock), case %q", ev.ShockCase))
+	}
+	if ev.Drift != nil && !ev.Drift.HasCentre {
+		notes = append(notes, "no thermal centre: relative to the base the body neither turns nor strains in the plane of the ball centres")
 	}
 	if o.KeepOuts != nil || o.Windows != nil {
 		notes = append(notes, "fans at the balls: groove directions allowed (green) and kept out (red)")
