@@ -140,3 +140,35 @@ func TestTiltRow(t *testing.T) {
 		t.Errorf("tilt |P99.73| %g µrad beyond the worst case %.3f µrad", got, thetaMax)
 	}
 }
+
+// TestDefaultOutputIgnored: run from the repository root as the README
+// shows, the default histogram lands in the root; it must be git-ignored
+// there, and the README must say where it goes.
+func TestDefaultOutputIgnored(t *testing.T) {
+	var out bytes.Buffer
+	_ = run(context.Background(), []string{"-h"}, nil, &out, nil)
+	m := regexp.MustCompile(`-svg string[^\n]*\n[^\n]*\(default "([^"]+)"\)`).FindStringSubmatch(out.String())
+	if m == nil {
+		t.Fatalf("no default for -svg in the usage:\n%s", out.String())
+	}
+	ign, err := os.ReadFile("../../.gitignore")
+	if err != nil {
+		t.Fatal(err)
+	}
+	found := false
+	for _, line := range strings.Split(string(ign), "\n") {
+		if line == m[1] || line == "/"+m[1] {
+			found = true
+		}
+	}
+	if !found {
+		t.Errorf(".gitignore does not ignore the default output %s", m[1])
+	}
+	readme, err := os.ReadFile("../../README.md")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !strings.Contains(string(readme), "to `"+m[1]+"` in the current directory") {
+		t.Errorf("the README does not say that %s is written to the current directory", m[1])
+	}
+}
