@@ -433,3 +433,57 @@ func TestOpeningsPreload(t *testing.T) {
 		t.Errorf("%d max_random_openings verdicts with the plunger at %s N, want 4 (x, y, z, worst)", verdicts, line[3])
 	}
 }
+
+// TestTensileRows: a contact in tension has no Hertz contact and no
+// pressure, so its row says "open" instead of zeros and "no allowable"
+// (both bodies of the mirror cell are 440C, which has an allowable on
+// file), while the compressed contacts of the same case keep their
+// figures.
+func TestTensileRows(t *testing.T) {
+	src, err := os.ReadFile("testdata/mirror.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	// The mirror cell's first contact unloads at about 1.3 g (its report);
+	// 5 g sideways opens some contacts for certain.
+	in := strings.Replace(string(src), `{"name": "on its side", "gravity": [0, "-1 g", 0]}`,
+		`{"name": "on its side", "gravity": [0, "-1 g", 0]}, {"name": "thrown", "gravity": [0, 0, "-1 g"], "acceleration": ["5 g", 0, 0]}`, 1)
+	if in == string(src) {
+		t.Fatal("mirror.json no longer has the case \"on its side\"")
+	}
+	_, rep, errs := runCmd(t, in, "-out", "none", "-")
+	i := strings.Index(rep, `case "thrown":`)
+	if i < 0 {
+		t.Fatalf("no case \"thrown\" in the report; stderr %s\n%s", errs, rep)
+	}
+	block := rep[i:]
+	block = block[:strings.Index(block, "in tension")]
+	open, closed := 0, 0
+	for _, line := range strings.Split(block, "\n")[2:] {
+		f := strings.Fields(line)
+		if len(f) == 0 {
+			continue
+		}
+		force, err := strconv.ParseFloat(f[1], 64)
+		if err != nil {
+			t.Fatalf("row %q: %v", line, err)
+		}
+		if force < 0 {
+			open++
+			if len(f) != 5 || f[2] != "open" || f[3] != "open" || f[4] != "open" {
+				t.Errorf("a contact in tension: %q, want open in the a, p0 and ratio columns", line)
+			}
+		} else {
+			closed++
+			if r, err := strconv.ParseFloat(f[len(f)-1], 64); err != nil || r <= 0 {
+				t.Errorf("a compressed 440C contact: %q, want a pressure ratio", line)
+			}
+		}
+	}
+	if open == 0 || closed == 0 {
+		t.Errorf("%d open and %d closed contacts in\n%s", open, closed, block)
+	}
+	if strings.Contains(block, "no allowable") {
+		t.Errorf("a 440C-on-440C case says no allowable:\n%s", block)
+	}
+}

@@ -279,6 +279,18 @@ func (s *study) loads() error {
 		s.printf("case %q:\n", st.Case)
 		s.printf("  %-8s %10s %12s %14s %14s\n", "contact", "force, N", "a, µm", "p0, MPa", "p0/allowable")
 		for _, cl := range st.Contacts {
+			if cl.Force <= 0 {
+				// No Hertz contact and no pressure to judge: a
+				// contact in tension opens, one at exactly zero
+				// touches without load. Zeros here would read as
+				// values, and "no allowable" as a missing material.
+				mark := "open"
+				if cl.Force == 0 {
+					mark = "unloaded"
+				}
+				s.printf("  %-8s %10.2f %12s %14s %14s\n", cl.Label, cl.Force, mark, mark, mark)
+				continue
+			}
 			ratio := "no allowable"
 			if cl.Allowable > 0 {
 				ratio = fmt.Sprintf("%.3f", cl.PressureRatio)
@@ -286,7 +298,7 @@ func (s *study) loads() error {
 			s.printf("  %-8s %10.2f %12.1f %14.0f %14s\n", cl.Label, cl.Force, cl.Hertz.SemiMajor*1e6, cl.Hertz.PeakPressure/1e6, ratio)
 		}
 		if len(st.Tensile) > 0 {
-			s.printf("  in tension (the part would lift): %s\n", strings.Join(st.Tensile, ", "))
+			s.printf("  in tension (the part would lift; open: no Hertz contact, no pressure): %s\n", strings.Join(st.Tensile, ", "))
 		}
 	}
 	if len(s.d.Preloads) > 0 {
