@@ -487,3 +487,49 @@ func TestTensileRows(t *testing.T) {
 		t.Errorf("a 440C-on-440C case says no allowable:\n%s", block)
 	}
 }
+
+// TestBudgetRows: the error budget prints a normal tolerance as the file
+// wrote it (the cassette's seat half-angles: "2 arcmin", normal) beside
+// its ±3σ limit, and its share is of the variance: a uniform ±a has
+// σ² = a²/3 and a normal ±3σ = ±a has σ² = a²/9 (textbook variances of
+// the two distributions), so share/effect² of a normal row is a third of
+// that of a uniform one.
+func TestBudgetRows(t *testing.T) {
+	code, rep, errs := runCmd(t, "", "-out", "none", cassette)
+	if code == exitBad {
+		t.Fatalf("exit status %d: %s", code, errs)
+	}
+	if !strings.Contains(rep, "share: of the variance (σ²)") {
+		t.Errorf("the budget's header does not say what share is:\n%s", rep)
+	}
+	row := regexp.MustCompile(`(?m)^(\S+)\s+([±σ])\s+(\S+) (µm|arcmin)\s+±\s+(\S+) (?:µm|arcmin)\s+(\S+)\s+(\S+)%$`)
+	perUniform, perNormal := 0.0, 0.0
+	normal := 0
+	for _, m := range row.FindAllStringSubmatch(rep, -1) {
+		tol, _ := strconv.ParseFloat(m[3], 64)
+		lim, _ := strconv.ParseFloat(m[5], 64)
+		eff, _ := strconv.ParseFloat(m[6], 64)
+		share, _ := strconv.ParseFloat(m[7], 64)
+		if eff < 1 { // too few digits for a ratio
+			continue
+		}
+		if m[2] == "σ" {
+			normal++
+			if !strings.HasSuffix(m[1], ".Seat.HalfAngle") || tol != 2 || lim != 6 || m[4] != "arcmin" {
+				t.Errorf("normal row %q: want σ 2.000 arcmin, limit ± 6.000 arcmin as cassette.json gives", m[0])
+			}
+			perNormal = share / (eff * eff)
+		} else {
+			if tol != lim {
+				t.Errorf("uniform row %q: the tolerance and the limit differ", m[0])
+			}
+			perUniform = share / (eff * eff)
+		}
+	}
+	if normal == 0 || perUniform == 0 {
+		t.Fatalf("no normal or no uniform rows found in\n%s", rep)
+	}
+	if r := perNormal / perUniform; math.Abs(r-1.0/3) > 0.01 {
+		t.Errorf("share per effect², normal over uniform: %.4f, want 1/3", r)
+	}
+}

@@ -373,18 +373,29 @@ func (s *study) errors() error {
 	s.section(5, "Error budget at the "+s.point)
 	ev := s.ev
 	if b := ev.Budget; b != nil {
-		s.printf("(tolerance: ± the uniform half-width, or ±3 standard deviations of a normal one; effect: its displacement of the %s)\n", s.point)
-		s.printf("%-20s %18s %12s %8s\n", "dimension", "tolerance", "effect, µm", "share")
+		s.printf("tolerance: as the file gives it, ± the half-width of a uniform one or σ (standard deviation) of a normal one\n")
+		s.printf("limit: the worst-case deviation, ± the half-width or ±3σ; effect: the displacement of the %s at that limit\n", s.point)
+		s.printf("share: of the variance (σ²) of the displacement; σ² is a²/3 for a uniform ±a but a²/9 for a normal ±3σ = ±a,\n")
+		s.printf("       so at equal effect a normal tolerance has a third of the share, and the ranks by effect and by share can differ\n")
+		s.printf("%-20s %17s %17s %12s %8s\n", "dimension", "tolerance", "limit", "effect, µm", "share")
+		normal := map[string]bool{}
+		for _, t := range s.d.Tolerances {
+			normal[t.Dimension] = t.Sigma > 0
+		}
 		for k, c := range b.Contributors {
 			if k == 10 {
 				s.printf("  (%d smaller contributors)\n", len(b.Contributors)-k)
 				break
 			}
-			unit, v := "µm", c.Limit*1e6
+			unit, scale := "µm", 1e6
 			if isAngle(c.Dimension) {
-				unit, v = "arcmin", c.Limit/deg*60
+				unit, scale = "arcmin", 60/deg
 			}
-			s.printf("%-20s ±%10.3f %-6s %12.3f %7.1f%%\n", c.Dimension, v, unit, c.Effect*1e6, 100*c.Share)
+			tol := fmt.Sprintf("± %8.3f %-6s", c.Limit*scale, unit)
+			if normal[c.Dimension] {
+				tol = fmt.Sprintf("σ %8.3f %-6s", c.Limit/3*scale, unit)
+			}
+			s.printf("%-20s %17s ± %8.3f %-6s %12.3f %7.1f%%\n", c.Dimension, tol, c.Limit*scale, unit, c.Effect*1e6, 100*c.Share)
 		}
 		s.printf("first order: worst case %.3f µm, RSS %.3f µm, standard deviation %.3f µm\n", b.Worst*1e6, b.RSS*1e6, b.Sigma*1e6)
 		if s.d.Axis != (r3.Vec{}) {
