@@ -112,6 +112,18 @@ func TestCassette(t *testing.T) {
 	if text, _ := svgElements(t, filepath.Join(dir, "plan.svg")); !strings.Contains(text, "spring plunger: 110 N") {
 		t.Error("plan.svg does not name the spring plunger with its force")
 	}
+	// So does the lift-off map, and it names each applied load by its
+	// case with its magnitude: |(-4, 2, -1)| N = √21 = 4.58 N and 15 N
+	// (cassette.json).
+	text, _ := svgElements(t, filepath.Join(dir, "liftoff.svg"))
+	for _, want := range []string{"spring plunger: 110 N", "cable pull: applied load, 4.58 N", "operator hand: applied load, 15.0 N"} {
+		if !strings.Contains(text, want) {
+			t.Errorf("liftoff.svg lacks %q", want)
+		}
+	}
+	if strings.Contains(text, "load 1") || strings.Contains(text, "preload 1") {
+		t.Error("liftoff.svg numbers a load or preload that the file names")
+	}
 }
 
 // TestPercentileColumns reads the report's radial percentile columns and

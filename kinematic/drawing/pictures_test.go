@@ -282,7 +282,7 @@ func TestLiftOffDrawn(t *testing.T) {
 	if !d.has("capped at 1200 N") { // 4 × the 300 N preload
 		t.Error("the scale's cap is not stated")
 	}
-	for _, want := range []string{"ball A", "ball B", "ball C", "preload 1", "centre of mass (weight, inertia)"} {
+	for _, want := range []string{"ball A", "ball B", "ball C", "preload 1: 300 N", "centre of mass (weight, inertia)"} {
 		if _, ok := d.text(want); !ok {
 			t.Errorf("no mark %q", want)
 		}

@@ -422,6 +422,9 @@ func (v *planView) Plot(c draw.Canvas, plt *plot.Plot) {
 	sty.Color = ink
 	sty.XAlign, sty.YAlign = draw.XLeft, draw.YBottom
 	labels := append(append([]mark(nil), v.balls...), v.marks...)
+	// Labels are placed on the canvas where they can be: a label moved
+	// onto it afterwards may cover its own mark.
+	pl.Within(idraw.Box{X0: float64(c.Min.X), Y0: -float64(c.Max.Y), X1: float64(c.Max.X), Y1: -float64(c.Min.Y)})
 	for _, m := range labels {
 		p := pt(m.x, m.y)
 		if !c.Contains(p) {
