@@ -545,3 +545,60 @@ func TestBudgetRows(t *testing.T) {
 		t.Errorf("share per effect², normal over uniform: %.4f, want 1/3", r)
 	}
 }
+
+// TestPreloadWindowErrorInFileTerms: with the mirror cell's leaf spring at
+// 0 N, lying on its side leaves a contact in tension (its weight alone
+// pulls it), so no preload window exists. The report says so in the
+// design file's terms: the requirement's JSON path, the case by name and
+// index, and the cause, a preload of 0 N, with the field to change; not
+// the Go API's parameter names.
+func TestPreloadWindowErrorInFileTerms(t *testing.T) {
+	src, err := os.ReadFile("testdata/mirror.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	in := strings.Replace(string(src), `"force": "60 N"`, `"force": "0 N"`, 1)
+	if in == string(src) {
+		t.Fatal("mirror.json no longer has a 60 N preload")
+	}
+	_, rep, errs := runCmd(t, in, "-out", "none", "-")
+	i := strings.Index(rep, "preload window:")
+	if i < 0 {
+		t.Fatalf("no preload window line; stderr %s\n%s", errs, rep)
+	}
+	line := rep[i : i+strings.Index(rep[i:], "\n")]
+	for _, want := range []string{`case "on its side" (cases[1])`, "below requirements.min_contact_force 2 N", "the preload is 0 N (preloads[0].force)"} {
+		if !strings.Contains(line, want) {
+			t.Errorf("%q lacks %q", line, want)
+		}
+	}
+	for _, bad := range []string{"minForce", "kinematic:", "does not push it closed"} {
+		if strings.Contains(line, bad) {
+			t.Errorf("%q uses the Go API's words %q", line, bad)
+		}
+	}
+}
+
+// TestUnknownDimensionListed: a design file's reader mistaking a socket
+// for a vee (S.Seat.Turn on the mirror cell's trihedral socket S) is told
+// the socket's dimensions, by the names the kinematic.Assembly
+// documentation gives a ball and a socket (Ball.Radius, Ball.X/Y/Z,
+// Seat.X/Y/Z, Seat.HalfAngle, Seat.Face1/2/3), not pointed to a Go method.
+func TestUnknownDimensionListed(t *testing.T) {
+	src, err := os.ReadFile("testdata/mirror.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	in := strings.Replace(string(src), `{"dimension": "V.Seat.Turn", "value": "1 mrad"}`, `{"dimension": "S.Seat.Turn", "value": "1 mrad"}`, 1)
+	if in == string(src) {
+		t.Fatal("mirror.json no longer tolerances V.Seat.Turn")
+	}
+	code, _, errs := runCmd(t, in, "-out", "none", "-")
+	if code != exitBad {
+		t.Fatalf("exit status %d, want %d; stderr %s", code, exitBad, errs)
+	}
+	want := "S.Ball.Radius, S.Ball.X, S.Ball.Y, S.Ball.Z, S.Seat.X, S.Seat.Y, S.Seat.Z, S.Seat.HalfAngle, S.Seat.Face1, S.Seat.Face2, S.Seat.Face3"
+	if !strings.Contains(errs, "tolerances[3].dimension") || !strings.Contains(errs, want) || strings.Contains(errs, "Assembly.Dimensions") {
+		t.Errorf("stderr %q: want tolerances[3].dimension and the list %s", errs, want)
+	}
+}

@@ -2,9 +2,11 @@ package main
 
 import (
 	"context"
+	"errors"
 	"fmt"
 	"io"
 	"math"
+	"regexp"
 	"strings"
 
 	"gonum.org/v1/gonum/spatial/r3"
@@ -51,6 +53,50 @@ func (s *study) preloadSizing() (kinematic.PreloadSizing, error) {
 		s.sizingDone = true
 	}
 	return s.sizing, s.sizingErr
+}
+
+// unpushed is kinematic.SizePreload's reason for a contact that no
+// preload element pushes closed and that its case leaves below the
+// least force.
+var unpushed = regexp.MustCompile(`^(?:[^:]*: )?case "(.*)" leaves contact (\S+) at (\S+) N, below minForce (\S+) N, and the preload does not push it closed$`)
+
+// sizingError says why the preload window cannot be found in the design
+// file's terms: its JSON paths (requirements.min_contact_force, not the
+// Go parameter minForce; a case by name and index), and for a zero
+// preload the cause itself. total is the preload at the seat, N.
+func (s *study) sizingError(err error, total float64) string {
+	var ie *kinematic.InputError
+	if !errors.As(err, &ie) {
+		return err.Error()
+	}
+	reason := ie.Err.Error()
+	if m := unpushed.FindStringSubmatch(reason); m != nil {
+		at := ""
+		for k, c := range s.d.Cases {
+			if c.Name == m[1] {
+				at = fmt.Sprintf(" (cases[%d])", k)
+			}
+		}
+		why := "no preload element's line of action pushes that contact closed: move or turn a preload"
+		if total == 0 {
+			var zero []string
+			for j := range s.d.Preloads {
+				zero = append(zero, fmt.Sprintf("preloads[%d].force", j))
+			}
+			why = fmt.Sprintf("the preload is 0 N (%s), so nothing pushes it closed: give the preload a force", strings.Join(zero, ", "))
+		}
+		return fmt.Sprintf("case %q%s leaves contact %s at %s N, below requirements.min_contact_force %s N, and %s",
+			m[1], at, m[2], m[3], m[4], why)
+	}
+	field := ie.Field
+	switch {
+	case field == "minForce":
+		field = "requirements.min_contact_force"
+	case strings.HasPrefix(field, "cases["):
+		field = strings.NewReplacer(".Gravity", ".gravity", ".Acceleration", ".acceleration", ".Applied", ".applied").Replace(field)
+	}
+	reason = strings.ReplaceAll(reason, "minForce", "requirements.min_contact_force")
+	return field + ": " + reason
 }
 
 // caseNamed returns the design's load case of that name (the zero
@@ -102,10 +148,10 @@ func (s *study) title() string {
 // every requirement is met. An error means the file or the study failed.
 func (s *study) run(ctx context.Context, src []byte) (pass bool, err error) {
 	if s.d, err = design.Parse(src); err != nil {
-		return false, err
+		return false, listDimensions(err, src)
 	}
 	if s.b, err = s.d.Build(); err != nil {
-		return false, err
+		return false, listDimensions(err, src)
 	}
 	if s.ev, err = s.b.Evaluate(ctx); err != nil {
 		return false, err
@@ -310,7 +356,7 @@ func (s *study) loads() error {
 			total += f
 		}
 		if err != nil {
-			s.printf("preload window: %v\n", err)
+			s.printf("preload window: none: %s\n", s.sizingError(err, total))
 		} else {
 			hi := "no upper limit (no allowable on file)"
 			if !math.IsInf(sz.MaxScale, 1) {
