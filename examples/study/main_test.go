@@ -602,3 +602,55 @@ func TestUnknownDimensionListed(t *testing.T) {
 		t.Errorf("stderr %q: want tolerances[3].dimension and the list %s", errs, want)
 	}
 }
+
+// TestTinyProbabilities: the random vibration tables print expected
+// openings and probabilities below 1e-12 as "< 1e-12", never as 5e-294.
+// By Rice's formula the openings are ν₀T·exp(−m²/2) at margin m; the
+// cassette's test lasts 600 s in a band that ends at 2000 Hz, so ν₀T is
+// below 1.2e6 and a margin above 10 σ gives fewer than
+// 1.2e6·exp(−50) = 2.3e-16 openings.
+func TestTinyProbabilities(t *testing.T) {
+	_, rep, _ := runCmd(t, "", "-out", "none", cassette)
+	// The tables' rows (the requirement's verdict line is the design
+	// package's and prints its value as computed).
+	for _, line := range regexp.MustCompile(`(?m)^  [ABC][+-] .*$`).FindAllString(rep, -1) {
+		if m := regexp.MustCompile(`\de-(1[3-9]|[2-9]\d|\d{3})\b`).FindString(line); m != "" {
+			t.Errorf("a table row prints %q, below 1e-12: %s", m, line)
+		}
+	}
+	row := regexp.MustCompile(`(?m)^  [ABC][+-]\s+\S+\s+\S+\s+\S+\s+(\S+)\s+(< 1e-12|\S+)\s+(< 1e-12|\S+)$`)
+	n := 0
+	for _, m := range row.FindAllStringSubmatch(rep, -1) {
+		margin, err := strconv.ParseFloat(m[1], 64)
+		if err != nil || margin <= 10 {
+			continue
+		}
+		n++
+		if m[2] != "< 1e-12" || m[3] != "< 1e-12" {
+			t.Errorf("margin %g σ: openings %q, P(open) %q; want < 1e-12", margin, m[2], m[3])
+		}
+	}
+	if n == 0 {
+		t.Errorf("no contact row with a margin above 10 σ in\n%s", rep)
+	}
+}
+
+// TestSearchText: the report says how the optimiser's search ended in
+// plain words, never by the Go constant's name, and a search stopped at
+// its budget says that it did not converge (kinematic.EvaluationLimit's
+// documented meaning).
+func TestSearchText(t *testing.T) {
+	for _, c := range []struct {
+		st   kinematic.Status
+		want string
+	}{
+		{kinematic.Converged, "converged after 12 layouts"},
+		{kinematic.Constrained, "ended on a constraint after 12 layouts"},
+		{kinematic.EvaluationLimit, "stopped at its evaluation budget after 12 layouts evaluated, before the local search converged"},
+	} {
+		got := searchText(c.st, 12)
+		if !strings.Contains(got, c.want) || strings.Contains(got, c.st.String()) {
+			t.Errorf("%v: %q, want %q and not the Go name", c.st, got, c.want)
+		}
+	}
+}
