@@ -90,6 +90,16 @@ func TestRunErrors(t *testing.T) {
 	if err := run(context.Background(), []string{"-"}, strings.NewReader(`{"format": "other/2"}`), &out, nil); err == nil || !strings.Contains(err.Error(), "format") {
 		t.Errorf("unknown format: %v", err)
 	}
+	// A socket's dimension on a vee: the error lists the vee's, by the
+	// names the kinematic.Assembly documentation gives a ball and a vee,
+	// instead of pointing a file's user to a Go method.
+	faced := strings.Replace(oneBall, `"A.Ball.Radius"`, `"A.Seat.Face1"`, 1)
+	err := run(context.Background(), []string{"-svg", "", "-"}, strings.NewReader(faced), &out, nil)
+	for _, want := range []string{"tolerances[0].dimension", "A.Ball.Radius, A.Ball.X, A.Ball.Y, A.Ball.Z, A.Seat.X, A.Seat.Y, A.Seat.Z", "A.Seat.Turn", "A.Seat.Tilt", "A.Seat.HalfAngle", "A.Seat.Flank+", "A.Seat.Flank-"} {
+		if err == nil || !strings.Contains(err.Error(), want) || strings.Contains(err.Error(), "Assembly.Dimensions") {
+			t.Errorf("a socket's dimension on a vee: %v; want it to name %q", err, want)
+		}
+	}
 	ctx, cancel := context.WithCancel(context.Background())
 	cancel()
 	if err := run(ctx, []string{"-svg", "", "-"}, strings.NewReader(oneBall), &out, nil); err == nil {
