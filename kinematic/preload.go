@@ -57,7 +57,9 @@ type GapWindow struct {
 	// falls below MinForce within ten times the law's reach); Met reports
 	// whether there is such a gap. They are computed for a law that is
 	// monotone over that range (a magnet, a spring's table) and left zero,
-	// with Met false, for one that is not.
+	// with Met false, for one that is not. MinGap 0 with Met means that
+	// the window sets no lower limit (the force at touching lies within
+	// it), not that a seated gap of 0 is allowed: a law needs a gap > 0.
 	MinGap, MaxGap float64
 	Met            bool
 }

@@ -160,7 +160,7 @@ func run(args []string, stdout io.Writer) error {
 	inputs = append(inputs,
 		[2]string{"-angle", num(angle*180/math.Pi) + " °"},
 		[2]string{"-load", num(load) + " N"},
-		[2]string{"-mu", num(*mu) + " dimensionless"},
+		[2]string{"-mu", num(*mu)}, // a coefficient: no unit word
 		[2]string{"-tangential", num(q) + " N"})
 	r := report{inputs: inputs, b1: b1, b2: b2, d1: d1, d2: d2, angle: angle, load: load, mu: *mu, q: q, c: c, kt: kt, slide: slide}
 	return r.write(stdout)
@@ -193,7 +193,7 @@ func (f bodyFlags) body(angle float64, set map[string]bool) (hertz.Body, string,
 			return hertz.Body{}, "", &FlagError{"-radius" + f.n, fmt.Errorf("%s: a radius is nonzero (inf for straight)", *f.radius)}
 		}
 	}
-	mat := fmt.Sprintf("%s (E = %s GPa, Poisson's ratio %s dimensionless)", m.Name, num(m.E/1e9), num(m.Nu))
+	mat := fmt.Sprintf("%s (E = %s GPa, Poisson's ratio %s)", m.Name, num(m.E/1e9), num(m.Nu))
 	if !(m.E > 0) || math.IsInf(m.E, 0) {
 		mat = m.Name // hertz refuses the modulus below; the report is not written
 	}
@@ -448,9 +448,9 @@ func (f bodyFlags) echo(b hertz.Body) [][2]string {
 	}
 	key := strings.ToLower(strings.TrimSpace(*f.m))
 	out = append(out, [2]string{"-material" + n, fmt.Sprintf("%s: %s", key, m.Name)})
-	desc := fmt.Sprintf("E = %s GPa, Poisson's ratio %s dimensionless, %s", num(m.E/1e9), num(m.Nu), allow)
+	desc := fmt.Sprintf("E = %s GPa, Poisson's ratio %s, %s", num(m.E/1e9), num(m.Nu), allow)
 	if key == custom {
-		out = append(out, [2]string{"-E" + n, num(m.E/1e9) + " GPa"}, [2]string{"-nu" + n, num(m.Nu) + " dimensionless"},
+		out = append(out, [2]string{"-E" + n, num(m.E/1e9) + " GPa"}, [2]string{"-nu" + n, num(m.Nu)},
 			[2]string{"-allowable" + n, allowable})
 	} else {
 		out = append(out, [2]string{"", desc})

@@ -160,7 +160,12 @@ func TestToroid(t *testing.T) {
 }
 
 // units are the words that may follow a number in a report.
-var units = map[string]bool{"mm": true, "µm": true, "m": true, "MPa": true, "GPa": true, "N": true, "N/µm": true, "1/m": true, "°": true, "%": true, "dimensionless": true}
+var units = map[string]bool{"mm": true, "µm": true, "m": true, "MPa": true, "GPa": true, "N": true, "N/µm": true, "1/m": true, "°": true, "%": true}
+
+// unitless are the words after which a number is a dimensionless
+// quantity and takes no unit word: a Poisson's ratio and a coefficient of
+// friction, as the report names them and as the echo gives their flags.
+var unitless = map[string]bool{"ratio": true, "μ =": true, "-mu": true, "-nu1": true, "-nu2": true}
 
 // problems returns what is wrong with a report: NaN or Inf text, a
 // number not followed by a unit, no caution paragraph. Material names
@@ -185,6 +190,12 @@ func problems(s string) []string {
 	trim := func(s string) string { return strings.Trim(s, ",;:()") }
 	for i, tok := range toks {
 		if _, err := strconv.ParseFloat(trim(tok), 64); err != nil {
+			continue
+		}
+		if i > 0 && unitless[trim(toks[i-1])] || i > 1 && unitless[toks[i-2]+" "+toks[i-1]] {
+			if i+1 < len(toks) && trim(toks[i+1]) == "dimensionless" {
+				ps = append(ps, "number "+strconv.Quote(tok)+" followed by a unit word for a dimensionless quantity")
+			}
 			continue
 		}
 		if i+1 >= len(toks) || !units[trim(toks[i+1])] {

@@ -83,7 +83,7 @@ func (r report) write(w io.Writer) error {
 	line("mean pressure", "%s MPa", num(c.MeanPressure/1e6))
 	line("approach δ", "%s µm", num(c.Approach*1e6))
 	line("normal stiffness dF/dδ", "%s N/µm", num(c.Stiffness*1e-6))
-	line("tangential stiffness (Mindlin)", "%s N/µm at a tangential load of %s N, μ = %s dimensionless", num(r.kt*1e-6), num(r.q), num(r.mu))
+	line("tangential stiffness (Mindlin)", "%s N/µm at a tangential load of %s N, μ = %s", num(r.kt*1e-6), num(r.q), num(r.mu))
 	line("sliding limit μN", "%s N", num(r.slide))
 
 	b.WriteString("\nBelow the surface, on the load axis\n")

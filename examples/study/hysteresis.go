@@ -42,8 +42,12 @@ func (s *study) hysteresis(n int) {
 	if big > 0 {
 		s.printf("largest force %.4g N along %s; largest displacement of the %s along it %.4g µm\n", big, dir(u), s.point, peak*1e6)
 	}
-	s.printf("residual after the cycle: displacement %.4g µm along %s, tilt %.4g µrad\n",
+	s.printf("residual after the cycle: displacement %.4g µm (3-D magnitude) along %s, tilt %.4g µrad\n",
 		r3.Norm(h.Residual)*1e6, dir(h.Residual), r3.Norm(h.ResidualTilt)*1e6)
+	if big > 0 {
+		// The component that hysteresis.svg plots (its red dot).
+		s.printf("  of which %.4g µm along the largest force %s (the red dot of hysteresis.svg)\n", r3.Dot(h.Residual, u)*1e6, dir(u))
+	}
 	s.printf("energy lost per cycle (micro-slip, once the cycle repeats): %.4g J\n", h.Energy)
 	s.printf("largest |Q|/(mu P) at a contact: %.3g (1: the contact slides)\n", ratio)
 	s.printf("Model: Mindlin partial slip with Masing's memory of the load path, normal forces\n" +

@@ -1,6 +1,7 @@
 package main
 
 import (
+	"math"
 	"os"
 	"path/filepath"
 	"regexp"
@@ -76,7 +77,26 @@ func TestHysteresisSection(t *testing.T) {
 		t.Errorf("largest displacement %g µm not between stuck %g µm and free %g µm", peak, lin[0], lin[1])
 	}
 	text, elems := svgElements(t, filepath.Join(dir, "hysteresis.svg"))
-	if elems < 20 || !strings.Contains(text, "stylus tip") || !strings.Contains(text, "residual along the load after the cycle") {
+	if elems < 20 || !strings.Contains(text, "stylus tip") || !strings.Contains(text, "its component along the load") {
 		t.Errorf("hysteresis.svg: %d elements, text %q", elems, text)
+	}
+	// The report gives the residual's 3-D magnitude and direction and, as
+	// the drawing's red dot, its component along the load (1, 0, 0): the
+	// magnitude times the direction's x (a dot product), and the value
+	// that the drawing's legend gives to three figures.
+	m = regexp.MustCompile(`residual after the cycle: displacement (\S+) µm \(3-D magnitude\) along \((\S+), \S+, \S+\)`).FindStringSubmatch(rep)
+	c := regexp.MustCompile(`of which (\S+) µm along the largest force \(1.000, 0.000, 0.000\) \(the red dot of hysteresis.svg\)`).FindStringSubmatch(rep)
+	if m == nil || c == nil {
+		t.Fatalf("no residual magnitude or component in the report:\n%s", rep)
+	}
+	mag, _ := strconv.ParseFloat(m[1], 64)
+	ux, _ := strconv.ParseFloat(m[2], 64)
+	comp, _ := strconv.ParseFloat(c[1], 64)
+	if want := mag * ux; math.Abs(comp-want) > 1e-3*math.Abs(mag)+5e-4*math.Abs(want) {
+		t.Errorf("residual along x %g µm, want %g × %g = %g", comp, mag, ux, want)
+	}
+	if !strings.Contains(text, "its component along the load: "+strconv.FormatFloat(comp, 'e', 2, 64)) &&
+		!strings.Contains(text, "its component along the load: "+strconv.FormatFloat(comp, 'g', 3, 64)) {
+		t.Errorf("the drawing's legend does not give the report's component %g µm:\n%s", comp, text)
 	}
 }

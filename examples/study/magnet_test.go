@@ -4,6 +4,8 @@ import (
 	"fmt"
 	"math"
 	"os"
+	"regexp"
+	"strconv"
 	"strings"
 	"testing"
 
@@ -60,7 +62,11 @@ func TestFilterWheel(t *testing.T) {
 	for _, s := range []string{
 		fmt.Sprintf("preload curve of N42 magnet pair: %.2f N at the seated gap of 0.600 mm", pull),
 		"(a negative spring",
-		"met with a seated gap from 0.000 mm to",
+		// The window's gaps by the law, not by its code: the pull at
+		// touching stays below the upper force (GapWindow leaves MinGap
+		// 0), and the law needs a gap > 0 (package kinematic, "a seated
+		// gap must be > 0"), so no gap of 0.000 mm is offered.
+		"met with any seated gap above 0 (the law needs a gap > 0",
 		"the part runs away at the same",
 		"the part is pulled back at any level (no runaway)",
 		"preload-curve-1.svg",
@@ -68,5 +74,18 @@ func TestFilterWheel(t *testing.T) {
 		if !strings.Contains(out, s) {
 			t.Errorf("the report lacks %q", s)
 		}
+	}
+	if strings.Contains(out, "gap from 0.000 mm") {
+		t.Error("the report offers a seated gap of 0, which the law refuses")
+	}
+	// Why there is no lower gap: the pair's pull 1 µm from touching lies
+	// below the window's upper force, as the report says.
+	m := regexp.MustCompile(`its window: \S+ N to (\S+) N, met with any seated gap above 0`).FindStringSubmatch(out)
+	if m == nil {
+		t.Fatalf("no window line in\n%s", out)
+	}
+	upper, _ := strconv.ParseFloat(m[1], 64)
+	if near, _, err := (kinematic.MagnetPair{Moving: n42, Base: n42}).Force(1e-6); err != nil || near >= upper {
+		t.Errorf("pull at 1 µm %g N (%v), not below the window's upper %g N", near, err, upper)
 	}
 }

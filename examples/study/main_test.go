@@ -112,6 +112,18 @@ func TestCassette(t *testing.T) {
 	if text, _ := svgElements(t, filepath.Join(dir, "plan.svg")); !strings.Contains(text, "spring plunger: 110 N") {
 		t.Error("plan.svg does not name the spring plunger with its force")
 	}
+	// So does the lift-off map, and it names each applied load by its
+	// case with its magnitude: |(-4, 2, -1)| N = √21 = 4.58 N and 15 N
+	// (cassette.json).
+	text, _ := svgElements(t, filepath.Join(dir, "liftoff.svg"))
+	for _, want := range []string{"spring plunger: 110 N", "cable pull: applied load, 4.58 N", "operator hand: applied load, 15.0 N"} {
+		if !strings.Contains(text, want) {
+			t.Errorf("liftoff.svg lacks %q", want)
+		}
+	}
+	if strings.Contains(text, "load 1") || strings.Contains(text, "preload 1") {
+		t.Error("liftoff.svg numbers a load or preload that the file names")
+	}
 }
 
 // TestPercentileColumns reads the report's radial percentile columns and
@@ -471,5 +483,214 @@ func TestNoThermalCentre(t *testing.T) {
 				t.Errorf("report lacks %q or has %q:\n%s", tc.want, tc.not, rep[strings.Index(rep, "thermal change"):])
 			}
 		})
+	}
+}
+
+// TestTensileRows: a contact in tension has no Hertz contact and no
+// pressure, so its row says "open" instead of zeros and "no allowable"
+// (both bodies of the mirror cell are 440C, which has an allowable on
+// file), while the compressed contacts of the same case keep their
+// figures.
+func TestTensileRows(t *testing.T) {
+	src, err := os.ReadFile("testdata/mirror.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	// The mirror cell's first contact unloads at about 1.3 g (its report);
+	// 5 g sideways opens some contacts for certain.
+	in := strings.Replace(string(src), `{"name": "on its side", "gravity": [0, "-1 g", 0]}`,
+		`{"name": "on its side", "gravity": [0, "-1 g", 0]}, {"name": "thrown", "gravity": [0, 0, "-1 g"], "acceleration": ["5 g", 0, 0]}`, 1)
+	if in == string(src) {
+		t.Fatal("mirror.json no longer has the case \"on its side\"")
+	}
+	_, rep, errs := runCmd(t, in, "-out", "none", "-")
+	i := strings.Index(rep, `case "thrown":`)
+	if i < 0 {
+		t.Fatalf("no case \"thrown\" in the report; stderr %s\n%s", errs, rep)
+	}
+	block := rep[i:]
+	block = block[:strings.Index(block, "in tension")]
+	open, closed := 0, 0
+	for _, line := range strings.Split(block, "\n")[2:] {
+		f := strings.Fields(line)
+		if len(f) == 0 {
+			continue
+		}
+		force, err := strconv.ParseFloat(f[1], 64)
+		if err != nil {
+			t.Fatalf("row %q: %v", line, err)
+		}
+		if force < 0 {
+			open++
+			if len(f) != 5 || f[2] != "open" || f[3] != "open" || f[4] != "open" {
+				t.Errorf("a contact in tension: %q, want open in the a, p0 and ratio columns", line)
+			}
+		} else {
+			closed++
+			if r, err := strconv.ParseFloat(f[len(f)-1], 64); err != nil || r <= 0 {
+				t.Errorf("a compressed 440C contact: %q, want a pressure ratio", line)
+			}
+		}
+	}
+	if open == 0 || closed == 0 {
+		t.Errorf("%d open and %d closed contacts in\n%s", open, closed, block)
+	}
+	if strings.Contains(block, "no allowable") {
+		t.Errorf("a 440C-on-440C case says no allowable:\n%s", block)
+	}
+}
+
+// TestBudgetRows: the error budget prints a normal tolerance as the file
+// wrote it (the cassette's seat half-angles: "2 arcmin", normal) beside
+// its ±3σ limit, and its share is of the variance: a uniform ±a has
+// σ² = a²/3 and a normal ±3σ = ±a has σ² = a²/9 (textbook variances of
+// the two distributions), so share/effect² of a normal row is a third of
+// that of a uniform one.
+func TestBudgetRows(t *testing.T) {
+	code, rep, errs := runCmd(t, "", "-out", "none", cassette)
+	if code == exitBad {
+		t.Fatalf("exit status %d: %s", code, errs)
+	}
+	if !strings.Contains(rep, "share: of the variance (σ²)") {
+		t.Errorf("the budget's header does not say what share is:\n%s", rep)
+	}
+	row := regexp.MustCompile(`(?m)^(\S+)\s+([±σ])\s+(\S+) (µm|arcmin)\s+±\s+(\S+) (?:µm|arcmin)\s+(\S+)\s+(\S+)%$`)
+	perUniform, perNormal := 0.0, 0.0
+	normal := 0
+	for _, m := range row.FindAllStringSubmatch(rep, -1) {
+		tol, _ := strconv.ParseFloat(m[3], 64)
+		lim, _ := strconv.ParseFloat(m[5], 64)
+		eff, _ := strconv.ParseFloat(m[6], 64)
+		share, _ := strconv.ParseFloat(m[7], 64)
+		if eff < 1 { // too few digits for a ratio
+			continue
+		}
+		if m[2] == "σ" {
+			normal++
+			if !strings.HasSuffix(m[1], ".Seat.HalfAngle") || tol != 2 || lim != 6 || m[4] != "arcmin" {
+				t.Errorf("normal row %q: want σ 2.000 arcmin, limit ± 6.000 arcmin as cassette.json gives", m[0])
+			}
+			perNormal = share / (eff * eff)
+		} else {
+			if tol != lim {
+				t.Errorf("uniform row %q: the tolerance and the limit differ", m[0])
+			}
+			perUniform = share / (eff * eff)
+		}
+	}
+	if normal == 0 || perUniform == 0 {
+		t.Fatalf("no normal or no uniform rows found in\n%s", rep)
+	}
+	if r := perNormal / perUniform; math.Abs(r-1.0/3) > 0.01 {
+		t.Errorf("share per effect², normal over uniform: %.4f, want 1/3", r)
+	}
+}
+
+// TestPreloadWindowErrorInFileTerms: with the mirror cell's leaf spring at
+// 0 N, lying on its side leaves a contact in tension (its weight alone
+// pulls it), so no preload window exists. The report says so in the
+// design file's terms: the requirement's JSON path, the case by name and
+// index, and the cause, a preload of 0 N, with the field to change; not
+// the Go API's parameter names.
+func TestPreloadWindowErrorInFileTerms(t *testing.T) {
+	src, err := os.ReadFile("testdata/mirror.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	in := strings.Replace(string(src), `"force": "60 N"`, `"force": "0 N"`, 1)
+	if in == string(src) {
+		t.Fatal("mirror.json no longer has a 60 N preload")
+	}
+	_, rep, errs := runCmd(t, in, "-out", "none", "-")
+	i := strings.Index(rep, "preload window:")
+	if i < 0 {
+		t.Fatalf("no preload window line; stderr %s\n%s", errs, rep)
+	}
+	line := rep[i : i+strings.Index(rep[i:], "\n")]
+	for _, want := range []string{`case "on its side" (cases[1])`, "below requirements.min_contact_force 2 N", "the preload is 0 N (preloads[0].force)"} {
+		if !strings.Contains(line, want) {
+			t.Errorf("%q lacks %q", line, want)
+		}
+	}
+	for _, bad := range []string{"minForce", "kinematic:", "does not push it closed"} {
+		if strings.Contains(line, bad) {
+			t.Errorf("%q uses the Go API's words %q", line, bad)
+		}
+	}
+}
+
+// TestUnknownDimensionListed: a design file's reader mistaking a socket
+// for a vee (S.Seat.Turn on the mirror cell's trihedral socket S) is told
+// the socket's dimensions, by the names the kinematic.Assembly
+// documentation gives a ball and a socket (Ball.Radius, Ball.X/Y/Z,
+// Seat.X/Y/Z, Seat.HalfAngle, Seat.Face1/2/3), not pointed to a Go method.
+func TestUnknownDimensionListed(t *testing.T) {
+	src, err := os.ReadFile("testdata/mirror.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	in := strings.Replace(string(src), `{"dimension": "V.Seat.Turn", "value": "1 mrad"}`, `{"dimension": "S.Seat.Turn", "value": "1 mrad"}`, 1)
+	if in == string(src) {
+		t.Fatal("mirror.json no longer tolerances V.Seat.Turn")
+	}
+	code, _, errs := runCmd(t, in, "-out", "none", "-")
+	if code != exitBad {
+		t.Fatalf("exit status %d, want %d; stderr %s", code, exitBad, errs)
+	}
+	want := "S.Ball.Radius, S.Ball.X, S.Ball.Y, S.Ball.Z, S.Seat.X, S.Seat.Y, S.Seat.Z, S.Seat.HalfAngle, S.Seat.Face1, S.Seat.Face2, S.Seat.Face3"
+	if !strings.Contains(errs, "tolerances[3].dimension") || !strings.Contains(errs, want) || strings.Contains(errs, "Assembly.Dimensions") {
+		t.Errorf("stderr %q: want tolerances[3].dimension and the list %s", errs, want)
+	}
+}
+
+// TestTinyProbabilities: the random vibration tables print expected
+// openings and probabilities below 1e-12 as "< 1e-12", never as 5e-294.
+// By Rice's formula the openings are ν₀T·exp(−m²/2) at margin m; the
+// cassette's test lasts 600 s in a band that ends at 2000 Hz, so ν₀T is
+// below 1.2e6 and a margin above 10 σ gives fewer than
+// 1.2e6·exp(−50) = 2.3e-16 openings.
+func TestTinyProbabilities(t *testing.T) {
+	_, rep, _ := runCmd(t, "", "-out", "none", cassette)
+	// The tables' rows (the requirement's verdict line is the design
+	// package's and prints its value as computed).
+	for _, line := range regexp.MustCompile(`(?m)^  [ABC][+-] .*$`).FindAllString(rep, -1) {
+		if m := regexp.MustCompile(`\de-(1[3-9]|[2-9]\d|\d{3})\b`).FindString(line); m != "" {
+			t.Errorf("a table row prints %q, below 1e-12: %s", m, line)
+		}
+	}
+	row := regexp.MustCompile(`(?m)^  [ABC][+-]\s+\S+\s+\S+\s+\S+\s+(\S+)\s+(< 1e-12|\S+)\s+(< 1e-12|\S+)$`)
+	n := 0
+	for _, m := range row.FindAllStringSubmatch(rep, -1) {
+		margin, err := strconv.ParseFloat(m[1], 64)
+		if err != nil || margin <= 10 {
+			continue
+		}
+		n++
+		if m[2] != "< 1e-12" || m[3] != "< 1e-12" {
+			t.Errorf("margin %g σ: openings %q, P(open) %q; want < 1e-12", margin, m[2], m[3])
+		}
+	}
+	if n == 0 {
+		t.Errorf("no contact row with a margin above 10 σ in\n%s", rep)
+	}
+}
+
+// TestSearchText: the report says how the optimiser's search ended in
+// plain words, never by the Go constant's name, and a search stopped at
+// its budget says that it did not converge (kinematic.EvaluationLimit's
+// documented meaning).
+func TestSearchText(t *testing.T) {
+	for _, c := range []struct {
+		st   kinematic.Status
+		want string
+	}{
+		{kinematic.Converged, "converged after 12 layouts"},
+		{kinematic.Constrained, "ended on a constraint after 12 layouts"},
+		{kinematic.EvaluationLimit, "stopped at its evaluation budget after 12 layouts evaluated, before the local search converged"},
+	} {
+		got := searchText(c.st, 12)
+		if !strings.Contains(got, c.want) || strings.Contains(got, c.st.String()) {
+			t.Errorf("%v: %q, want %q and not the Go name", c.st, got, c.want)
+		}
 	}
 }

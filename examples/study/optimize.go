@@ -110,7 +110,7 @@ func (s *study) optimise(ctx context.Context, n int) error {
 	if len(best.Binding) > 0 {
 		s.printf("Held back by: %s\n", strings.Join(bindingText(best.Binding, c), "; "))
 	}
-	s.printf("Search: %v after %d layouts evaluated.\n", best.Status, best.Evaluations)
+	s.printf("Search: %s\n", searchText(best.Status, best.Evaluations))
 
 	var buf bytes.Buffer
 	if err := nd.Write(&buf); err != nil {
@@ -209,4 +209,18 @@ func bindingText(binding []string, c kinematic.Coupling) []string {
 func scan(s, format string, a ...any) bool {
 	n, err := fmt.Sscanf(s, format, a...)
 	return err == nil && n == len(a)
+}
+
+// searchText says in plain words how the optimiser's search ended, after
+// n layouts evaluated (kinematic.Status, without its Go name).
+func searchText(st kinematic.Status, n int) string {
+	switch st {
+	case kinematic.Converged:
+		return fmt.Sprintf("converged after %d layouts evaluated: the local search from the best layout found settled, and no constraint binds.", n)
+	case kinematic.Constrained:
+		return fmt.Sprintf("ended on a constraint after %d layouts evaluated: the optimum sits on the limit named in \"Held back by\", and relaxing it would improve the objective.", n)
+	case kinematic.EvaluationLimit:
+		return fmt.Sprintf("stopped at its evaluation budget after %d layouts evaluated, before the local search converged: the layout above is the best one seen, not a converged optimum.", n)
+	}
+	return fmt.Sprintf("ended after %d layouts evaluated (status %d).", n, int(st))
 }

@@ -78,7 +78,15 @@ func (s *study) preloadCurves() error {
 				if !math.IsInf(g.MaxGap, 1) {
 					gmax = fmt.Sprintf("%.3f mm", g.MaxGap*1e3)
 				}
-				s.printf("  its window: %.2f N to %s, met with a seated gap from %.3f mm to %s\n", g.MinForce, hi, g.MinGap*1e3, gmax)
+				if g.MinGap > 0 {
+					s.printf("  its window: %.2f N to %s, met with a seated gap from %.3f mm to %s\n", g.MinForce, hi, g.MinGap*1e3, gmax)
+				} else {
+					// The window sets no lower limit: the law's force at
+					// touching is inside it. The law itself needs a
+					// gap > 0 (touching faces are infinitely stiff).
+					s.printf("  its window: %.2f N to %s, met with any seated gap above 0 (the law needs a gap > 0; the force at touching is within the window) up to %s\n",
+						g.MinForce, hi, gmax)
+				}
 			default:
 				s.printf("  its window: %.2f N to %s, met at no gap of this law: change the magnets or their number (%.2f times this element)\n",
 					g.MinForce, hi, sz.MinScale)

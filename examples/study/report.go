@@ -2,9 +2,11 @@ package main
 
 import (
 	"context"
+	"errors"
 	"fmt"
 	"io"
 	"math"
+	"regexp"
 	"strings"
 
 	"gonum.org/v1/gonum/spatial/r3"
@@ -51,6 +53,50 @@ func (s *study) preloadSizing() (kinematic.PreloadSizing, error) {
 		s.sizingDone = true
 	}
 	return s.sizing, s.sizingErr
+}
+
+// unpushed is kinematic.SizePreload's reason for a contact that no
+// preload element pushes closed and that its case leaves below the
+// least force.
+var unpushed = regexp.MustCompile(`^(?:[^:]*: )?case "(.*)" leaves contact (\S+) at (\S+) N, below minForce (\S+) N, and the preload does not push it closed$`)
+
+// sizingError says why the preload window cannot be found in the design
+// file's terms: its JSON paths (requirements.min_contact_force, not the
+// Go parameter minForce; a case by name and index), and for a zero
+// preload the cause itself. total is the preload at the seat, N.
+func (s *study) sizingError(err error, total float64) string {
+	var ie *kinematic.InputError
+	if !errors.As(err, &ie) {
+		return err.Error()
+	}
+	reason := ie.Err.Error()
+	if m := unpushed.FindStringSubmatch(reason); m != nil {
+		at := ""
+		for k, c := range s.d.Cases {
+			if c.Name == m[1] {
+				at = fmt.Sprintf(" (cases[%d])", k)
+			}
+		}
+		why := "no preload element's line of action pushes that contact closed: move or turn a preload"
+		if total == 0 {
+			var zero []string
+			for j := range s.d.Preloads {
+				zero = append(zero, fmt.Sprintf("preloads[%d].force", j))
+			}
+			why = fmt.Sprintf("the preload is 0 N (%s), so nothing pushes it closed: give the preload a force", strings.Join(zero, ", "))
+		}
+		return fmt.Sprintf("case %q%s leaves contact %s at %s N, below requirements.min_contact_force %s N, and %s",
+			m[1], at, m[2], m[3], m[4], why)
+	}
+	field := ie.Field
+	switch {
+	case field == "minForce":
+		field = "requirements.min_contact_force"
+	case strings.HasPrefix(field, "cases["):
+		field = strings.NewReplacer(".Gravity", ".gravity", ".Acceleration", ".acceleration", ".Applied", ".applied").Replace(field)
+	}
+	reason = strings.ReplaceAll(reason, "minForce", "requirements.min_contact_force")
+	return field + ": " + reason
 }
 
 // caseNamed returns the design's load case of that name (the zero
@@ -102,10 +148,10 @@ func (s *study) title() string {
 // every requirement is met. An error means the file or the study failed.
 func (s *study) run(ctx context.Context, src []byte) (pass bool, err error) {
 	if s.d, err = design.Parse(src); err != nil {
-		return false, err
+		return false, listDimensions(err, src)
 	}
 	if s.b, err = s.d.Build(); err != nil {
-		return false, err
+		return false, listDimensions(err, src)
 	}
 	if s.ev, err = s.b.Evaluate(ctx); err != nil {
 		return false, err
@@ -279,6 +325,18 @@ func (s *study) loads() error {
 		s.printf("case %q:\n", st.Case)
 		s.printf("  %-8s %10s %12s %14s %14s\n", "contact", "force, N", "a, µm", "p0, MPa", "p0/allowable")
 		for _, cl := range st.Contacts {
+			if cl.Force <= 0 {
+				// No Hertz contact and no pressure to judge: a
+				// contact in tension opens, one at exactly zero
+				// touches without load. Zeros here would read as
+				// values, and "no allowable" as a missing material.
+				mark := "open"
+				if cl.Force == 0 {
+					mark = "unloaded"
+				}
+				s.printf("  %-8s %10.2f %12s %14s %14s\n", cl.Label, cl.Force, mark, mark, mark)
+				continue
+			}
 			ratio := "no allowable"
 			if cl.Allowable > 0 {
 				ratio = fmt.Sprintf("%.3f", cl.PressureRatio)
@@ -286,7 +344,7 @@ func (s *study) loads() error {
 			s.printf("  %-8s %10.2f %12.1f %14.0f %14s\n", cl.Label, cl.Force, cl.Hertz.SemiMajor*1e6, cl.Hertz.PeakPressure/1e6, ratio)
 		}
 		if len(st.Tensile) > 0 {
-			s.printf("  in tension (the part would lift): %s\n", strings.Join(st.Tensile, ", "))
+			s.printf("  in tension (the part would lift; open: no Hertz contact, no pressure): %s\n", strings.Join(st.Tensile, ", "))
 		}
 	}
 	if len(s.d.Preloads) > 0 {
@@ -298,7 +356,7 @@ func (s *study) loads() error {
 			total += f
 		}
 		if err != nil {
-			s.printf("preload window: %v\n", err)
+			s.printf("preload window: none: %s\n", s.sizingError(err, total))
 		} else {
 			hi := "no upper limit (no allowable on file)"
 			if !math.IsInf(sz.MaxScale, 1) {
@@ -361,18 +419,29 @@ func (s *study) errors() error {
 	s.section(5, "Error budget at the "+s.point)
 	ev := s.ev
 	if b := ev.Budget; b != nil {
-		s.printf("(tolerance: ± the uniform half-width, or ±3 standard deviations of a normal one; effect: its displacement of the %s)\n", s.point)
-		s.printf("%-20s %18s %12s %8s\n", "dimension", "tolerance", "effect, µm", "share")
+		s.printf("tolerance: as the file gives it, ± the half-width of a uniform one or σ (standard deviation) of a normal one\n")
+		s.printf("limit: the worst-case deviation, ± the half-width or ±3σ; effect: the displacement of the %s at that limit\n", s.point)
+		s.printf("share: of the variance (σ²) of the displacement; σ² is a²/3 for a uniform ±a but a²/9 for a normal ±3σ = ±a,\n")
+		s.printf("       so at equal effect a normal tolerance has a third of the share, and the ranks by effect and by share can differ\n")
+		s.printf("%-20s %17s %17s %12s %8s\n", "dimension", "tolerance", "limit", "effect, µm", "share")
+		normal := map[string]bool{}
+		for _, t := range s.d.Tolerances {
+			normal[t.Dimension] = t.Sigma > 0
+		}
 		for k, c := range b.Contributors {
 			if k == 10 {
 				s.printf("  (%d smaller contributors)\n", len(b.Contributors)-k)
 				break
 			}
-			unit, v := "µm", c.Limit*1e6
+			unit, scale := "µm", 1e6
 			if isAngle(c.Dimension) {
-				unit, v = "arcmin", c.Limit/deg*60
+				unit, scale = "arcmin", 60/deg
 			}
-			s.printf("%-20s ±%10.3f %-6s %12.3f %7.1f%%\n", c.Dimension, v, unit, c.Effect*1e6, 100*c.Share)
+			tol := fmt.Sprintf("± %8.3f %-6s", c.Limit*scale, unit)
+			if normal[c.Dimension] {
+				tol = fmt.Sprintf("σ %8.3f %-6s", c.Limit/3*scale, unit)
+			}
+			s.printf("%-20s %17s ± %8.3f %-6s %12.3f %7.1f%%\n", c.Dimension, tol, c.Limit*scale, unit, c.Effect*1e6, 100*c.Share)
 		}
 		s.printf("first order: worst case %.3f µm, RSS %.3f µm, standard deviation %.3f µm\n", b.Worst*1e6, b.RSS*1e6, b.Sigma*1e6)
 		if s.d.Axis != (r3.Vec{}) {

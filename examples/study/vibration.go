@@ -60,8 +60,8 @@ func (s *study) vibration(n int) {
 		s.printf("  %-7s %9s %11s %13s %9s %11s %11s\n", "contact", "static N", "RMS dyn. N",
 			fmt.Sprintf("F-%gσ·dyn N", k), "σ to open", "openings", "P(open)")
 		for _, c := range r.Contacts {
-			s.printf("  %-7s %9.3f %11.4g %13.4g %9.3g %11.3g %11.3g\n", c.Label, c.Static, c.Dynamic,
-				c.Static-k*c.Dynamic, c.Margin, c.Openings, c.Probability)
+			s.printf("  %-7s %9.3f %11.4g %13.4g %9.3g %11s %11s\n", c.Label, c.Static, c.Dynamic,
+				c.Static-k*c.Dynamic, c.Margin, tiny(c.Openings), tiny(c.Probability))
 		}
 		least := r.Contacts[r.Least]
 		s.printf("  least margin %.3g σ at contact %s\n", least.Margin, least.Label)
@@ -157,4 +157,19 @@ func densityFrequencies(sp kinematic.Spectrum, r kinematic.Random) []float64 {
 	}
 	sort.Float64s(f)
 	return f
+}
+
+// tinyBelow is the smallest expected number of openings or probability
+// printed as a number: below it the Gaussian tail's figures (1e-294, or
+// 0 once it underflows) say only "never" and carry no precision that the
+// linear model supports.
+const tinyBelow = 1e-12
+
+// tiny formats an expected number of openings or a probability with three
+// figures, or as "< 1e-12" below tinyBelow.
+func tiny(v float64) string {
+	if v < tinyBelow {
+		return "< 1e-12"
+	}
+	return fmt.Sprintf("%.3g", v)
 }

@@ -61,11 +61,7 @@ func run(ctx context.Context, args []string, stdin io.Reader, stdout, progress i
 		fs.Usage()
 		return fmt.Errorf("need one design file (or - for standard input), got %d arguments", fs.NArg())
 	}
-	d, err := readDesign(fs.Arg(0), stdin)
-	if err != nil {
-		return err
-	}
-	b, err := d.Build()
+	d, b, err := readDesign(fs.Arg(0), stdin)
 	if err != nil {
 		return err
 	}
@@ -99,9 +95,9 @@ func run(ctx context.Context, args []string, stdin io.Reader, stdout, progress i
 	return nil
 }
 
-// readDesign reads and parses the design file at path ("-": stdin) and
-// checks that it has tolerances to study.
-func readDesign(path string, stdin io.Reader) (*design.Design, error) {
+// readDesign reads, parses and builds the design file at path ("-":
+// stdin) and checks that it has tolerances to study.
+func readDesign(path string, stdin io.Reader) (*design.Design, *design.Built, error) {
 	var src []byte
 	var err error
 	if path == "-" {
@@ -110,16 +106,20 @@ func readDesign(path string, stdin io.Reader) (*design.Design, error) {
 		src, err = os.ReadFile(path)
 	}
 	if err != nil {
-		return nil, err
+		return nil, nil, err
 	}
 	d, err := design.Parse(src)
 	if err != nil {
-		return nil, err
+		return nil, nil, listDimensions(err, src)
 	}
 	if len(d.Tolerances) == 0 {
-		return nil, fmt.Errorf("%s: the design has no tolerances to study", path)
+		return nil, nil, fmt.Errorf("%s: the design has no tolerances to study", path)
 	}
-	return d, nil
+	b, err := d.Build()
+	if err != nil {
+		return nil, nil, listDimensions(err, src)
+	}
+	return d, b, nil
 }
 
 // studySize returns the number of samples and the seed of the study: the

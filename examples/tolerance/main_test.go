@@ -90,6 +90,16 @@ func TestRunErrors(t *testing.T) {
 	if err := run(context.Background(), []string{"-"}, strings.NewReader(`{"format": "other/2"}`), &out, nil); err == nil || !strings.Contains(err.Error(), "format") {
 		t.Errorf("unknown format: %v", err)
 	}
+	// A socket's dimension on a vee: the error lists the vee's, by the
+	// names the kinematic.Assembly documentation gives a ball and a vee,
+	// instead of pointing a file's user to a Go method.
+	faced := strings.Replace(oneBall, `"A.Ball.Radius"`, `"A.Seat.Face1"`, 1)
+	err := run(context.Background(), []string{"-svg", "", "-"}, strings.NewReader(faced), &out, nil)
+	for _, want := range []string{"tolerances[0].dimension", "A.Ball.Radius, A.Ball.X, A.Ball.Y, A.Ball.Z, A.Seat.X, A.Seat.Y, A.Seat.Z", "A.Seat.Turn", "A.Seat.Tilt", "A.Seat.HalfAngle", "A.Seat.Flank+", "A.Seat.Flank-"} {
+		if err == nil || !strings.Contains(err.Error(), want) || strings.Contains(err.Error(), "Assembly.Dimensions") {
+			t.Errorf("a socket's dimension on a vee: %v; want it to name %q", err, want)
+		}
+	}
 	ctx, cancel := context.WithCancel(context.Background())
 	cancel()
 	if err := run(ctx, []string{"-svg", "", "-"}, strings.NewReader(oneBall), &out, nil); err == nil {
@@ -138,5 +148,37 @@ func TestTiltRow(t *testing.T) {
 	}
 	if got, _ := strconv.ParseFloat(m[6], 64); got > thetaMax*(1+1e-9)+0.0005 {
 		t.Errorf("tilt |P99.73| %g µrad beyond the worst case %.3f µrad", got, thetaMax)
+	}
+}
+
+// TestDefaultOutputIgnored: run from the repository root as the README
+// shows, the default histogram lands in the root; it must be git-ignored
+// there, and the README must say where it goes.
+func TestDefaultOutputIgnored(t *testing.T) {
+	var out bytes.Buffer
+	_ = run(context.Background(), []string{"-h"}, nil, &out, nil)
+	m := regexp.MustCompile(`-svg string[^\n]*\n[^\n]*\(default "([^"]+)"\)`).FindStringSubmatch(out.String())
+	if m == nil {
+		t.Fatalf("no default for -svg in the usage:\n%s", out.String())
+	}
+	ign, err := os.ReadFile("../../.gitignore")
+	if err != nil {
+		t.Fatal(err)
+	}
+	found := false
+	for _, line := range strings.Split(string(ign), "\n") {
+		if line == m[1] || line == "/"+m[1] {
+			found = true
+		}
+	}
+	if !found {
+		t.Errorf(".gitignore does not ignore the default output %s", m[1])
+	}
+	readme, err := os.ReadFile("../../README.md")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !strings.Contains(string(readme), "to `"+m[1]+"` in the current directory") {
+		t.Errorf("the README does not say that %s is written to the current directory", m[1])
 	}
 }

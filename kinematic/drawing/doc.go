@@ -35,8 +35,9 @@
 // (9.80665 m/s²), thermal drift in µm/K; Maxwell indices are
 // dimensionless. "Radial" displacement is the 3-D magnitude |d| of the
 // displacement vector. Groove axes are dashed blue lines, instantaneous
-// axes of seat pairs dash-dot grey lines; where the grooves meet is a
-// cross, the thermal centre a filled triangle, the preload points open
+// axes of seat pairs dash-dot grey lines (blue discs where vertical;
+// the note under a plan names only the styles it draws); where the
+// grooves meet is a cross, the thermal centre a filled triangle, the preload points open
 // triangles, the centre of mass a ring and the point of interest a
 // square. Continuous values use one sequential colour map whose bar
 // names the quantity, its unit and, on a lift-off map, the cap. Every

@@ -133,8 +133,9 @@ func loopPlotters(xy plotter.XYs, res float64) (*plotter.Line, *plotter.Scatter,
 // couple's direction, µrad, against the couple, N·m), from the seated
 // pose through every step; below, the same path less the straight line
 // through its two extremes, which magnifies the loop. The residual after
-// the cycle is a red dot at zero load on both; the notes give the
-// residual displacement and tilt (whole vectors) and the energy lost per
+// the cycle is a red dot at zero load on both, its component along the
+// load named in the legend; the notes give the residual displacement and
+// tilt as 3-D magnitudes with their directions, and the energy lost per
 // cycle.
 func Hysteresis(w io.Writer, h kinematic.Hysteresis, opt *Options) error {
 	o := opt.orDefault()
@@ -155,7 +156,7 @@ func Hysteresis(w io.Writer, h kinematic.Hysteresis, opt *Options) error {
 	grid.Vertical.Color, grid.Horizontal.Color = faintFill, faintFill
 	top.Add(grid, path, res)
 	top.Legend.Add("path from the seated pose", path)
-	top.Legend.Add(fmt.Sprintf("residual along the %s after the cycle: %s µ%s", load, idraw.Sig(l.residual), map[bool]string{false: "m", true: "rad"}[l.moment]), res)
+	top.Legend.Add(fmt.Sprintf("residual after the cycle, its component along the %s: %s µ%s (the 3-D magnitude is in the notes)", load, idraw.Sig(l.residual), map[bool]string{false: "m", true: "rad"}[l.moment]), res)
 	top.Legend.Top, top.Legend.Left = true, true
 	top.Legend.Padding = 3
 	top.Legend.XOffs = 6
@@ -176,9 +177,9 @@ func Hysteresis(w io.Writer, h kinematic.Hysteresis, opt *Options) error {
 	bottom.Y.Label.Text = fmt.Sprintf("less the line through the extremes, µ%s", map[bool]string{false: "m", true: "rad"}[l.moment])
 	bottom.X.Min, bottom.X.Max = top.X.Min, top.X.Max
 
-	notes := []string{fmt.Sprintf("residual at the %s after the cycle: displacement %s µm along %s, tilt %s µrad; energy lost per cycle %s J with mu %s",
+	notes := []string{fmt.Sprintf("residual at the %s after the cycle: displacement %s µm along %s, tilt %s µrad (3-D magnitudes; the red dot is the component along the %s); energy lost per cycle %s J with mu %s",
 		o.pointName(), idraw.Sig(r3.Norm(h.Residual)*um), vecString(unitOr(h.Residual)), idraw.Sig(r3.Norm(h.ResidualTilt)*um),
-		idraw.Sig(h.Energy), idraw.Sig(h.Mu))}
+		load, idraw.Sig(h.Energy), idraw.Sig(h.Mu))}
 	if h.Case != "" {
 		notes = append(notes, fmt.Sprintf("the cycle's loads are added to case %q; %d steps", h.Case, len(h.Path)))
 	}

@@ -44,7 +44,7 @@ func TestHysteresisDrawn(t *testing.T) {
 	for _, x := range d.texts {
 		all += x.s + "\n"
 	}
-	for _, want := range []string{"residual along the load after the cycle: 0.250 µm", "load along (0, 0.6, 0.8), N", "1.25e-07 J", "mu 0.150", `case "seated"`, "probe tip"} {
+	for _, want := range []string{"residual after the cycle, its component along the load: 0.250 µm", "displacement 7.00 µm along", "3-D magnitudes", "load along (0, 0.6, 0.8), N", "1.25e-07 J", "mu 0.150", `case "seated"`, "probe tip"} {
 		if !strings.Contains(all, want) {
 			t.Errorf("no %q in the texts:\n%s", want, all)
 		}

@@ -100,7 +100,11 @@ func newLiftOff(b *design.Built, o Options) (*liftOff, error) {
 		v.marks = append(v.marks, mark{pr.Ball.Centre.X * mm, pr.Ball.Centre.Y * mm, "ball " + pairName(c, i), draw.RingGlyph{}, ink})
 	}
 	for i, p := range d.Preloads {
-		v.marks = append(v.marks, mark{p.Point.X * mm, p.Point.Y * mm, fmt.Sprintf("preload %d", i+1), draw.TriangleGlyph{}, green})
+		name := p.Name // the file's name for the element, or its number, as on the plan
+		if name == "" {
+			name = fmt.Sprintf("preload %d", i+1)
+		}
+		v.marks = append(v.marks, mark{p.Point.X * mm, p.Point.Y * mm, fmt.Sprintf("%s: %s N", name, idraw.Sig(seated(p))), draw.TriangleGlyph{}, green})
 	}
 	if d.Payload.Mass > 0 {
 		v.marks = append(v.marks, mark{d.Payload.Centre.X * mm, d.Payload.Centre.Y * mm, "centre of mass (weight, inertia)", draw.RingGlyph{}, blue})
@@ -112,7 +116,14 @@ func newLiftOff(b *design.Built, o Options) (*liftOff, error) {
 				continue
 			}
 			q := r3.Scale(1/f2, r3.Cross(a.F, a.M))
-			v.marks = append(v.marks, mark{q.X * mm, q.Y * mm, fmt.Sprintf("%s: load %d", lc.Name, i+1), draw.CrossGlyph{}, blue})
+			// A file's applied loads have no names: the case's name,
+			// and the load's place in its "applied" list when there
+			// are several.
+			name := lc.Name + ": applied load"
+			if len(lc.Applied) > 1 {
+				name = fmt.Sprintf("%s: applied[%d]", lc.Name, i)
+			}
+			v.marks = append(v.marks, mark{q.X * mm, q.Y * mm, fmt.Sprintf("%s, %s N", name, idraw.Sig(math.Sqrt(f2))), draw.CrossGlyph{}, blue})
 		}
 	}
 	v.x0, v.x1, v.y0, v.y1 = g.x0, g.x0+g.dx*liftN, g.y0, g.y0+g.dy*liftN
@@ -137,9 +148,11 @@ func LiftOffPlotters(b *design.Built, opt *Options) (heat *plotter.HeatMap, poin
 // (kinematic.Model.LiftOff). The scale is capped at four times the total
 // preload (100 N without preload), stated on it: pushes above it are in
 // the top colour; where a push never unloads a contact the cell is pale
-// grey. The balls, the preload points, the centre of mass (where weight
-// and inertia act) and the applied loads of every case are marked. The
-// design needs a load case.
+// grey. The balls, the preload points (named as the design names them,
+// with the force at the seated position, as on the plan), the centre of
+// mass (where weight and inertia act) and the applied loads of every case
+// (named by their case, "applied[i]" when it has several, with their
+// magnitude, N) are marked. The design needs a load case.
 func LiftOff(w io.Writer, b *design.Built, opt *Options) error {
 	o := opt.orDefault()
 	l, err := newLiftOff(b, o)

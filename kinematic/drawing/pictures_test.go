@@ -194,6 +194,48 @@ func TestPlanDrawn(t *testing.T) {
 	}
 }
 
+// TestPlanLegendNamesWhatIsDrawn: the note under the plan names a line
+// style only when the plan draws it. The bench's radial vees meet their
+// neighbours' normal planes 2R = 100 mm from the centre (vertical planes
+// through each ball across its groove, by plane geometry), off the
+// drawing, so no instantaneous axis is drawn. Vees turned 60° from
+// radial have normal planes whose traces pass R·sin 30° = 25 mm from the
+// centre, tangent to that circle: they meet in pairs at the corners of
+// the circumscribed equilateral triangle, 25 mm / cos 60° = 50 mm from
+// the centre, on the drawing, and the axes are vertical (vertical
+// planes), drawn as blue discs.
+func TestPlanLegendNamesWhatIsDrawn(t *testing.T) {
+	dashDot := func(d svgDoc) int {
+		n := 0
+		for _, p := range d.paths {
+			if strings.Contains(p.style, "stroke-dasharray:8,2,2,2") {
+				n++
+			}
+		}
+		return n
+	}
+	b, ev := built(t, bench)
+	d := draw(t, "plan radial", func(w io.Writer) error { return drawing.Plan(w, b, ev, nil) })
+	if dashDot(d) != 0 {
+		t.Fatalf("%d dash-dot lines on the bench's plan, want none", dashDot(d))
+	}
+	if d.has("dash-dot") || d.has("instantaneous") {
+		t.Error("the note names instantaneous axes that the plan does not draw")
+	}
+	if !d.has("groove axes dashed blue") {
+		t.Error("the note does not name the groove axes the plan draws")
+	}
+	turned := strings.ReplaceAll(bench, `"azimuth": 0`, `"azimuth": "60 deg"`)
+	b, ev = built(t, turned)
+	d = draw(t, "plan turned", func(w io.Writer) error { return drawing.Plan(w, b, ev, nil) })
+	if !d.has("(vertical)") {
+		t.Fatal("the turned vees' pair axes are not drawn as vertical")
+	}
+	if !d.has("vertical instantaneous axes of seat pairs blue discs") || d.has("dash-dot") {
+		t.Error("the note does not name the rings alone")
+	}
+}
+
 // TestPlanEscapesText: markup in a caller's name is text, not markup.
 func TestPlanEscapesText(t *testing.T) {
 	b, ev := built(t, bench)
@@ -240,7 +282,7 @@ func TestLiftOffDrawn(t *testing.T) {
 	if !d.has("capped at 1200 N") { // 4 × the 300 N preload
 		t.Error("the scale's cap is not stated")
 	}
-	for _, want := range []string{"ball A", "ball B", "ball C", "preload 1", "centre of mass (weight, inertia)"} {
+	for _, want := range []string{"ball A", "ball B", "ball C", "preload 1: 300 N", "centre of mass (weight, inertia)"} {
 		if _, ok := d.text(want); !ok {
 			t.Errorf("no mark %q", want)
 		}

@@ -5,6 +5,7 @@ import (
 	"image/color"
 	"io"
 	"math"
+	"strings"
 
 	"gonum.org/v1/gonum/spatial/r3"
 	"gonum.org/v1/plot"
@@ -41,6 +42,10 @@ type planView struct {
 	x0, x1  float64
 	y0, y1  float64
 	offAxes []string
+
+	// What the legend note may name: groove axes, instantaneous axes
+	// drawn as lines and vertical ones drawn as points.
+	grooveAxes, axisLines, axisPoints int
 }
 
 type planLine struct {
@@ -210,6 +215,7 @@ func (v *planView) grooves(c kinematic.Coupling, g kinematic.Geometry) {
 		l := 4 * bl.Radius
 		a, e := r3.Sub(bl.Centre, r3.Scale(l, u)), r3.Add(bl.Centre, r3.Scale(l, u))
 		v.lines = append(v.lines, planLine{a.X * mm, a.Y * mm, e.X * mm, e.Y * mm, []vg.Length{6, 3}, blue, 0.8})
+		v.grooveAxes++
 	}
 }
 
@@ -234,13 +240,32 @@ func (v *planView) axes(c kinematic.Coupling, g kinematic.Geometry, lo, hi r3.Ve
 		n := math.Hypot(u.X, u.Y)
 		if n < 1e-9 {
 			v.marks = append(v.marks, mark{q.X * mm, q.Y * mm, "axis " + name + " (vertical)", draw.CircleGlyph{}, blue})
+			v.axisPoints++
 			continue
 		}
 		u = r3.Vec{X: u.X / n, Y: u.Y / n}
 		l := 0.25 * size
 		a, e := r3.Sub(q, r3.Scale(l, u)), r3.Add(q, r3.Scale(l, u))
 		v.lines = append(v.lines, planLine{a.X * mm, a.Y * mm, e.X * mm, e.Y * mm, []vg.Length{8, 2, 2, 2}, faint, 0.8})
+		v.axisLines++
 	}
+}
+
+// legend returns the note that names the line styles of the plan, only
+// those drawn.
+func (v *planView) legend() string {
+	var parts []string
+	if v.grooveAxes > 0 {
+		parts = append(parts, "groove axes dashed blue")
+	}
+	if v.axisLines > 0 {
+		parts = append(parts, "instantaneous axes of seat pairs dash-dot grey")
+	}
+	if v.axisPoints > 0 {
+		parts = append(parts, "vertical instantaneous axes of seat pairs blue discs")
+	}
+	parts = append(parts, "dots: contact points")
+	return strings.Join(parts, "; ")
 }
 
 // points marks the coupling centre, the thermal centre, the preloads, the
@@ -397,6 +422,9 @@ func (v *planView) Plot(c draw.Canvas, plt *plot.Plot) {
 	sty.Color = ink
 	sty.XAlign, sty.YAlign = draw.XLeft, draw.YBottom
 	labels := append(append([]mark(nil), v.balls...), v.marks...)
+	// Labels are placed on the canvas where they can be: a label moved
+	// onto it afterwards may cover its own mark.
+	pl.Within(idraw.Box{X0: float64(c.Min.X), Y0: -float64(c.Max.Y), X1: float64(c.Max.X), Y1: -float64(c.Min.Y)})
 	for _, m := range labels {
 		p := pt(m.x, m.y)
 		if !c.Contains(p) {
@@ -437,7 +465,7 @@ func Plan(w io.Writer, b *design.Built, ev design.Evaluation, opt *Options) erro
 	p := newPlot(o.title("Coupling, plan looking down"))
 	p.Add(v)
 	p.X.Label.Text, p.Y.Label.Text = "x, mm", "y, mm"
-	notes := []string{"groove axes dashed blue, instantaneous axes of seat pairs dash-dot grey; dots: contact points"}
+	notes := []string{v.legend()}
 	if sh := ev.Shock; sh != nil && sh.Unload > 0 && finite(sh.Unload) && len(sh.First) > 0 {
 		notes = append(notes, fmt.Sprintf("red arrow from the centre of mass: the base's acceleration that unloads a contact soonest (worst shock), case %q", ev.ShockCase))
 	}

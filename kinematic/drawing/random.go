@@ -174,11 +174,12 @@ func fmtList(xs []float64) []string {
 // the number of standard deviations at which the contact opens
 // (kinematic.RandomContact.Margin). Options.Limit, when set, is the
 // required margin k, drawn as a red line and named by Options.LimitName
-// ("" means "required margin"). The axis reaches four times the larger
-// of the required margin and the least margin drawn, where the verdict
-// is read: longer bars are cut there and a note says how many. A contact
-// without dynamic force (an unbounded margin) is drawn to the top of the
-// plot and marked "∞".
+// ("" means "required margin"). The bars are capped at four times the
+// larger of the required margin and the least margin drawn, where the
+// verdict is read: longer bars end at the cap, a dotted dark line marks
+// it, and a note says how many were cut. A contact without dynamic force
+// (an unbounded margin) is drawn to the cap too and named in a note as
+// "∞". The axis ends just above the cap, leaving room for the legend.
 func RandomMargins(w io.Writer, curves []RandomCurve, opt *Options) error {
 	o := opt.orDefault()
 	if len(curves) == 0 || len(curves[0].Response.Contacts) == 0 {
@@ -231,10 +232,10 @@ func RandomMargins(w io.Writer, curves []RandomCurve, opt *Options) error {
 			vals[i] = c.Margin
 			switch {
 			case math.IsInf(c.Margin, 1):
-				vals[i] = top * 1.15
+				vals[i] = top
 				inf = append(inf, fmt.Sprintf("%s along %s", c.Label, cv.name(k)))
 			case c.Margin > top:
-				vals[i] = top * 1.15
+				vals[i] = top
 				cut++
 			}
 		}
@@ -269,24 +270,44 @@ func RandomMargins(w io.Writer, curves []RandomCurve, opt *Options) error {
 		p.Add(l)
 		p.Legend.Add(fmt.Sprintf("%s: %s σ", name, idraw.Sig(o.Limit)), l)
 	}
+	if cut > 0 || len(inf) > 0 {
+		l, err := plotter.NewLine(plotter.XYs{{X: -0.5, Y: top}, {X: float64(n) - 0.5, Y: top}})
+		if err != nil {
+			return err
+		}
+		l.Color, l.Width, l.Dashes = ink, 1, []vg.Length{1.5, 2}
+		p.Add(l)
+		p.Legend.Add(fmt.Sprintf("bars cut at %s σ", idraw.Sig(top)), l)
+	}
 	grid := plotter.NewGrid()
 	grid.Vertical.Color = nil
 	p.Add(grid)
 	p.NominalX(labels...)
 	p.Y.Min = 0
-	p.Y.Max = top * (1.45 + 0.12*float64(len(curves)))
+	p.Y.Max = top * 1.05
 	p.Y.Label.Text = "margin: static force / RMS dynamic force (σ to open)"
 	p.X.Label.Text = "contact"
 	p.Legend.Top = true
 	p.Legend.Padding = 3
 	notes := []string{"a contact opens when its force fluctuation reaches its static force: at a margin of k it opens at k standard deviations"}
 	if len(inf) > 0 {
-		notes = append(notes, fmt.Sprintf("no dynamic force (margin ∞, drawn to the top): %v", inf))
+		notes = append(notes, fmt.Sprintf("no dynamic force (margin ∞, drawn to the dotted line): %v", inf))
 	}
 	if cut > 0 {
-		notes = append(notes, fmt.Sprintf("%d bars with margins above %s σ are cut at the top (those contacts are far from opening)", cut, idraw.Sig(top)))
+		notes = append(notes, fmt.Sprintf("%d bars with margins above %s σ are cut at the dotted line (those contacts are far from opening)", cut, idraw.Sig(top)))
 	}
+	notes = o.notes(notes...)
 	return write(w, o, p.Title.Text, figWidth, figHeight*0.75, func(c draw.Canvas) {
-		layout(c, p, nil, o.notes(notes...))
+		// Room for the legend above the cap: the axis ends where the
+		// legend's block, at the top of the data area, clears the
+		// bars (the data area's height does not depend on Y.Max).
+		mc, _, _, _ := areas(c, false, notes)
+		dc := p.DataCanvas(mc)
+		h := dc.Max.Y - dc.Min.Y
+		lg := p.Legend.Rectangle(dc).Size().Y + 4
+		if h > 0 && lg < 0.7*h {
+			p.Y.Max = top * 1.05 * float64(h/(h-lg))
+		}
+		layout(c, p, nil, notes)
 	})
 }

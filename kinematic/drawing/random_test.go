@@ -129,6 +129,41 @@ func TestRandomMarginsDrawn(t *testing.T) {
 	if !strings.Contains(buf.String(), "2 bars with margins above 12.0 σ are cut") {
 		t.Error("the cut bars are not counted in the notes")
 	}
+	// The cut bars end at the cap, 12 times the bar of margin 1, and the
+	// axis ends short of twice the cap (it ran to 1.57 times the cap
+	// with nothing above the legend).
+	d = draw(t, "random margins cut", func(w io.Writer) error {
+		return drawing.RandomMargins(w, []drawing.RandomCurve{{Name: "z", Response: r1}}, &drawing.Options{Limit: 3})
+	})
+	first = first[:0]
+	for _, p := range d.paths {
+		if p.style == "fill:#F15A60" {
+			first = append(first, p)
+		}
+	}
+	if len(first) != 7 {
+		t.Fatalf("%d filled shapes of the first colour, want 7 (six bars and a swatch)", len(first))
+	}
+	_, _, _, h1 = centroid(first[0])
+	for _, i := range []int{2, 4} {
+		if _, _, _, h := centroid(first[i]); math.Abs(h/h1-12) > 12e-3 {
+			t.Errorf("cut bar %d: %.4f times the bar of margin 1, want 12 (the cap)", i, h/h1)
+		}
+	}
+	if _, ok := d.text("bars cut at 12.0 σ"); !ok {
+		t.Error("no legend entry for the cap's line")
+	}
+	// The margin axis is the longest vertical two-point line; the bar
+	// of margin 1 is 2·h1 high, so the cap is 24·h1.
+	axis := 0.0
+	for _, p := range d.paths {
+		if len(p.pts) == 2 && p.pts[0][0] == p.pts[1][0] {
+			axis = math.Max(axis, math.Abs(p.pts[1][1]-p.pts[0][1]))
+		}
+	}
+	if r := axis / (24 * h1); r < 1 || r > 1.4 {
+		t.Errorf("the margin axis is %.3f times the cap; want it to end a legend's height above the cap, under 1.4", r)
+	}
 	for _, c := range []struct {
 		name string
 		cs   []drawing.RandomCurve

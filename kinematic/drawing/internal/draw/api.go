@@ -23,6 +23,10 @@ func (p *Placer) Segment(x1, y1, x2, y2, hw float64) {
 // Obstacle registers a box that labels must keep clear of.
 func (p *Placer) Obstacle(b Box) { p.p.boxes = append(p.p.boxes, box{b.X0, b.Y0, b.X1, b.Y1}) }
 
+// Within keeps the labels placed from now on inside b (the canvas) while
+// a free place inside exists; without it labels may be placed anywhere.
+func (p *Placer) Within(b Box) { p.p.within = &box{b.X0, b.Y0, b.X1, b.Y1} }
+
 // Place returns a free box of size w × h near the anchor (ax, ay), at
 // least clear away, and registers it.
 func (p *Placer) Place(ax, ay, w, h, clear float64) Box {

@@ -15,6 +15,7 @@ type placer struct {
 	boxes  []box  // drawn items known by their box (symbols, legends)
 	segs   []seg  // drawn lines: axes, edges, leaders
 	discs  []disc // drawn circles: balls, dots
+	within *box   // the area labels must keep inside, or nil
 }
 
 // Placement search: rings of candidate positions around the anchor, the
@@ -36,6 +37,9 @@ var innerAngles = [innerDirs]float64{0, -math.Pi / 4, math.Pi / 4, math.Pi, -3 *
 
 // free reports whether the box b is clear of every placed label and drawn item.
 func (p *placer) free(b box) bool {
+	if w := p.within; w != nil && (b.x0 < w.x0 || b.y0 < w.y0 || b.x1 > w.x1 || b.y1 > w.y1) {
+		return false
+	}
 	for _, l := range p.labels {
 		if b.overlaps(l) {
 			return false

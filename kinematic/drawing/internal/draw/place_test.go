@@ -104,3 +104,19 @@ func TestSig(t *testing.T) {
 		}
 	}
 }
+
+// TestPlacerWithin: an anchor 10 px from the right edge of the canvas
+// cannot take its label to the right (the first choice), which would run
+// 60 px past the edge; Within keeps it inside, where moving it back
+// afterwards would have covered the anchor's mark.
+func TestPlacerWithin(t *testing.T) {
+	var p Placer
+	p.Within(Box{0, 0, 200, 200})
+	b := p.Place(190, 100, 70, 10, 4)
+	if b.X0 < 0 || b.Y0 < 0 || b.X1 > 200 || b.Y1 > 200 {
+		t.Errorf("label %+v runs off the canvas (0, 0)–(200, 200)", b)
+	}
+	if b.X0 < 190 && b.X1 > 190 && b.Y0 < 100 && b.Y1 > 100 {
+		t.Errorf("label %+v covers its anchor (190, 100)", b)
+	}
+}
