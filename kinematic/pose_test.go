@@ -234,6 +234,16 @@ func TestSeatErrors(t *testing.T) {
 	if _, err := a.Pose([]Deviation{{"A.Ball.Radius", 1e-6}, {"Z.Ball.Radius", 1e-6}}, nil); !errors.As(err, &ie) || ie.Field != "devs[1].Dimension" {
 		t.Errorf("unknown dimension: %v", err)
 	}
+	// The unknown name's message lists what the caller could have meant,
+	// for a reader without an Assembly to ask (a design file's): the
+	// pair's dimensions, or the pairs when the pair is unknown. The
+	// three-vee's pairs are A, B and C; every pair has a ball radius.
+	if _, err := a.Pose([]Deviation{{"A.Seat.Face1", 1e-6}}, nil); err == nil || !strings.Contains(err.Error(), "(pair A has A.Ball.Radius, ") || strings.Contains(err.Error(), "B.Ball.Radius") {
+		t.Errorf("unknown dimension of pair A: %v", err)
+	}
+	if _, err := a.Pose([]Deviation{{"Z.Ball.Radius", 1e-6}}, nil); err == nil || !strings.Contains(err.Error(), "with the pairs A, B, C)") {
+		t.Errorf("unknown pair Z: %v", err)
+	}
 	if _, err := a.Pose([]Deviation{{"A.Ball.Radius", math.NaN()}}, nil); !errors.Is(err, ErrNonFinite) {
 		t.Errorf("NaN deviation: %v", err)
 	}

@@ -148,10 +148,10 @@ func (s *study) title() string {
 // every requirement is met. An error means the file or the study failed.
 func (s *study) run(ctx context.Context, src []byte) (pass bool, err error) {
 	if s.d, err = design.Parse(src); err != nil {
-		return false, listDimensions(err, src)
+		return false, err
 	}
 	if s.b, err = s.d.Build(); err != nil {
-		return false, listDimensions(err, src)
+		return false, err
 	}
 	if s.ev, err = s.b.Evaluate(ctx); err != nil {
 		return false, err

@@ -110,14 +110,14 @@ func readDesign(path string, stdin io.Reader) (*design.Design, *design.Built, er
 	}
 	d, err := design.Parse(src)
 	if err != nil {
-		return nil, nil, listDimensions(err, src)
+		return nil, nil, err
 	}
 	if len(d.Tolerances) == 0 {
 		return nil, nil, fmt.Errorf("%s: the design has no tolerances to study", path)
 	}
 	b, err := d.Build()
 	if err != nil {
-		return nil, nil, listDimensions(err, src)
+		return nil, nil, err
 	}
 	return d, b, nil
 }
