@@ -219,3 +219,27 @@ func TestThermalBlame(t *testing.T) {
 		})
 	}
 }
+
+// TestToleranceOutOfProportion: a tolerance beyond the ball's radius
+// (6.35 mm here) or an angular one beyond 0.1 rad is refused at the
+// tolerance's path, without the Go API's hint about bare SI numbers (the
+// file's value carries its unit). Hand figures: 10 mm = 0.01 m;
+// 6° = 0.1047 rad.
+func TestToleranceOutOfProportion(t *testing.T) {
+	for _, tc := range []struct {
+		tol  map[string]any
+		want string
+	}{
+		{map[string]any{"dimension": "B.Seat.X", "value": "10 mm"}, "0.01 m on B.Seat.X exceeds ball B's radius 0.00635 m"},
+		{map[string]any{"dimension": "C.Seat.Turn", "value": "6 deg"}, "0.1047 rad on C.Seat.Turn: an angular tolerance is at most 0.1 rad"},
+	} {
+		_, err := Parse([]byte(edit(t, set("tolerances", []any{map[string]any{"dimension": "A.Ball.Radius", "value": "1 um"}, tc.tol}))))
+		var e *Error
+		if !errors.As(err, &e) || e.Path != "tolerances[1].value" || !errors.Is(err, ErrRange) {
+			t.Fatalf("%v: %v; want tolerances[1].value out of range", tc.tol, err)
+		}
+		if msg := err.Error(); !strings.Contains(msg, tc.want) || strings.Contains(msg, "if that is") || strings.Contains(msg, "are in metres") || strings.Contains(msg, "are in radians") {
+			t.Errorf("%v: %q; want %q and no SI-number hint", tc.tol, msg, tc.want)
+		}
+	}
+}
