@@ -270,6 +270,7 @@ func TestBadFlags(t *testing.T) {
 		{[]string{"-angle", "north"}, "-angle"},
 		{[]string{"-mu", "0"}, "-mu"},
 		{[]string{"-mu", "abc"}, "-mu"},
+		{[]string{"-mu", "15"}, "-mu: out of range: a coefficient of friction of 15: a percentage? (15% is 0.15); at most 3"},
 		{[]string{"-tangential", "100 N"}, "-tangential"},
 		{[]string{"-tangential", "x"}, "-tangential"},
 		{[]string{"-shape2", "flat", "-radius2", "3mm"}, "-radius2"},
