@@ -252,6 +252,9 @@ func FuzzSlip(f *testing.F) {
 	f.Add(60.0, 0.1, fuzzdata.Append(nil, 1, -2, 3, 0.5, -5.9, 1e-7))
 	f.Add(1e-3, 1e9, fuzzdata.Append(nil, 0, 0, math.NaN()))
 	f.Add(1e4, 1e-12, fuzzdata.Append(nil, 1e-9, -1, math.Inf(1)))
+	// μ as a percentage (refused) and at the bound 3 (accepted).
+	f.Add(60.0, 15.0, fuzzdata.Append(nil, 1, -2, 3))
+	f.Add(60.0, 3.0, fuzzdata.Append(nil, 1, -2, 3, 179))
 	f.Fuzz(func(t *testing.T, load, mu float64, data []byte) {
 		c, err := Solve(Sphere(0.004, Steel52100), Flat(Steel440C), math.Abs(load))
 		if err != nil {

@@ -241,6 +241,9 @@ func FuzzHysteresis(f *testing.F) {
 	nan[3].Force.X = math.NaN()
 	f.Add(seed(0.1, nan))
 	f.Add(seed(1e300, []CycleStep{{Force: r3.Vec{Z: 1e300}}, {}}))
+	// μ as a percentage (refused) and at the bound 3 (accepted).
+	f.Add(seed(15, pushCycle(2, r3.Vec{X: 1}, r3.Vec{Z: 0.01}, 3)))
+	f.Add(seed(3, pushCycle(2, r3.Vec{X: 1}, r3.Vec{Z: 0.01}, 3)))
 	m, _ := equilateralModel(f, math.Pi/4, 60, 0, 0)
 	f.Fuzz(func(t *testing.T, b []byte) {
 		if len(b) < 8 {
