@@ -29,6 +29,9 @@ func FuzzRead(f *testing.F) {
 	for _, r := range [][2]string{
 		{`"value": "1 um"`, `"value": "10 mm"`},
 		{`{"dimension": "A.Ball.Radius", "value": "1 um"}`, `{"dimension": "A.Seat.Turn", "value": "6 deg", "distribution": "normal"}`},
+		// A half-angle in radians with a degree unit.
+		{`"half_angle": "45 deg"`, `"half_angle": "0.785 deg"`},
+		{`"half_angle": "45 deg"`, `"half_angle": "1.5708 °"`},
 	} {
 		f.Add([]byte(strings.Replace(baseJSON, r[0], r[1], 1)))
 	}

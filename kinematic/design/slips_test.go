@@ -243,3 +243,39 @@ func TestToleranceOutOfProportion(t *testing.T) {
 		}
 	}
 }
+
+// TestHalfAngleRadiansAsDegrees: a half-angle whose number in degrees is
+// at most π/2 ≈ 1.5708 is radians written with a degree unit and is
+// refused with the reading it probably had: 0.785 rad is 0.785·180/π =
+// 44.98°, printed "45 deg" (hand arithmetic); 1.5 rad is 85.9°. Just
+// above π/2, an azimuth of 1 deg and a tolerance of 1 deg are left alone.
+func TestHalfAngleRadiansAsDegrees(t *testing.T) {
+	for _, tc := range []struct {
+		v, want string
+	}{
+		{"0.785 deg", "0.785 deg: if that is radians, it is 45 deg"},
+		{"1.5 °", "1.5 °: if that is radians, it is 85.9 deg"},
+		{"1.5707 deg", "if that is radians, it is 90 deg"},
+	} {
+		_, err := Parse([]byte(edit(t, set("seats[1].half_angle", tc.v))))
+		var e *Error
+		if !errors.As(err, &e) || e.Path != "seats[1].half_angle" || !errors.Is(err, ErrRange) || !strings.Contains(err.Error(), tc.want) {
+			t.Errorf("half_angle %q: %v; want seats[1].half_angle refused with %q", tc.v, err, tc.want)
+		}
+	}
+	for _, change := range []func(map[string]any){
+		set("seats[1].half_angle", "45 deg"),
+		set("seats[1].half_angle", "0.785 rad"),
+		set("seats[1].azimuth", "1 deg"),
+		set("tolerances", []any{map[string]any{"dimension": "B.Seat.Turn", "value": "1 deg"}}),
+	} {
+		if _, err := Parse([]byte(edit(t, change))); err != nil {
+			t.Errorf("%v", err)
+		}
+	}
+	// Just above π/2 the reader leaves the half-angle to the model's own
+	// checks; whatever they say, it is not this refusal.
+	if _, err := Parse([]byte(edit(t, set("seats[1].half_angle", "1.5709 deg")))); err != nil && strings.Contains(err.Error(), "if that is radians") {
+		t.Errorf("1.5709 deg: %v", err)
+	}
+}
