@@ -29,6 +29,8 @@ func FuzzRead(f *testing.F) {
 	for _, r := range [][2]string{
 		{`"value": "1 um"`, `"value": "10 mm"`},
 		{`{"dimension": "A.Ball.Radius", "value": "1 um"}`, `{"dimension": "A.Seat.Turn", "value": "6 deg", "distribution": "normal"}`},
+		// One ball radius in metres, meant in millimetres.
+		{`"radius": "6.35 mm"`, `"radius": "3 m"`},
 		// A half-angle in radians with a degree unit.
 		{`"half_angle": "45 deg"`, `"half_angle": "0.785 deg"`},
 		{`"half_angle": "45 deg"`, `"half_angle": "1.5708 °"`},

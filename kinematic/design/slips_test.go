@@ -279,3 +279,18 @@ func TestHalfAngleRadiansAsDegrees(t *testing.T) {
 		t.Errorf("1.5709 deg: %v", err)
 	}
 }
+
+// TestOverlapNamesMistypedBall: balls[0].radius written "3 m" (3 mm
+// meant) makes ball A overlap ball B (their centres lie 86.6 mm apart in
+// the base design, less than 3.00635 m): the error's path is the mistyped
+// ball, balls[0], and balls[1] comes as "see".
+func TestOverlapNamesMistypedBall(t *testing.T) {
+	_, err := Parse([]byte(edit(t, set("balls[0].radius", "3 m"))))
+	var e *Error
+	if !errors.As(err, &e) || e.Path != "balls[0]" || e.Other != "balls[1]" || !errors.Is(err, ErrRange) {
+		t.Fatalf("a 3 m ball: %v; want balls[0], see balls[1]", err)
+	}
+	if want := "balls A and B overlap: radii 3 m and 0.00635 m"; !strings.Contains(err.Error(), want) {
+		t.Errorf("a 3 m ball: %q lacks %q", err, want)
+	}
+}
