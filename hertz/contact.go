@@ -45,9 +45,10 @@ const validRatio = 0.1
 // MajorAngle, A, B, EStar and GStar set.
 //
 // Errors are *InputError wrapping ErrNonFinite (a NaN, or an infinity
-// where a finite number is needed), ErrRange (a field outside its domain, a
-// negative or subnormal load, a result that would overflow or underflow
-// the normal float64 range), or
+// where a finite number is needed), ErrRange (a field outside its domain,
+// among them a Young's modulus below 1e6 Pa, which can only be one in GPa
+// or MPa written as Pa; a negative or subnormal load; a result that would
+// overflow or underflow the normal float64 range), or
 // ErrLineContact or ErrGeometry (no Hertz point contact; both refine
 // ErrDegenerate). The inputs are not modified. Solve is NewPair followed
 // by Pair.Solve; a caller that evaluates the same bodies at many loads

@@ -93,3 +93,13 @@ func rangeErr(field, format string, args ...any) error {
 func nonFiniteErr(field, format string, args ...any) error {
 	return inputErr(field, ErrNonFinite, format, args...)
 }
+
+// checkMu returns an *InputError for "mu" wrapping ErrRange when the
+// coefficient of friction mu exceeds 3, a percentage (errs.CheckMu, the
+// bound package kinematic and the design file apply too).
+func checkMu(mu float64) error {
+	if err := errs.CheckMu(mu); err != nil {
+		return &InputError{Field: "mu", Err: err}
+	}
+	return nil
+}

@@ -20,6 +20,10 @@ func FuzzSolve(f *testing.F) {
 	f.Add(0.005, 0.005, 0.0, math.Inf(1), 0.3, -0.0055, -0.0055, 0.0, 72.7e9, 0.16, 1.0)
 	f.Add(5.0, 0.005, 0.0, 208e9, -0.9, math.Inf(1), math.Inf(1), 0.0, 1e9, 0.5, 1e-6)
 	f.Add(0.005, 0.005, 0.0, 208e9, 0.3, -0.0049, -0.0049, 0.0, 200e9, 0.28, 1.0)
+	// Moduli in GPa and MPa written as Pa (refused), and the smallest accepted.
+	f.Add(0.003, 0.003, 0.0, 208.0, 0.3, math.Inf(1), math.Inf(1), 0.0, 200e9, 0.28, 10.0)
+	f.Add(0.003, 0.003, 0.0, 208e9, 0.3, math.Inf(1), math.Inf(1), 0.0, 210000.0, 0.28, 10.0)
+	f.Add(0.003, 0.003, 0.0, 1e6, 0.3, math.Inf(1), math.Inf(1), 0.0, 1e6, 0.28, 10.0)
 	f.Fuzz(func(t *testing.T, r11, r12, ang1, e1, nu1, r21, r22, ang2, e2, nu2, load float64) {
 		b1 := Body{R1: r11, R2: r12, Angle: ang1, Material: Material{Name: "one", E: e1, Nu: nu1}}
 		b2 := Body{R1: r21, R2: r22, Angle: ang2, Material: Material{Name: "two", E: e2, Nu: nu2}}

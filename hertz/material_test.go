@@ -1,6 +1,7 @@
 package hertz
 
 import (
+	"errors"
 	"math"
 	"strings"
 	"testing"
@@ -252,5 +253,35 @@ func TestMaterialValues(t *testing.T) {
 				t.Errorf("%s: Source does not name %q", m.Name, d)
 			}
 		}
+	}
+}
+
+// TestModulusInPa: a Young's modulus below 1e6 Pa (below any elastomer's)
+// is refused naming the body's field, with the reading it probably had:
+// 208 is steel's 208 GPa = 2.08e+11 Pa, 210000 its 210000 MPa =
+// 2.1e+11 Pa (hand conversions); 0.5 reads as neither. 1e6 Pa is accepted.
+func TestModulusInPa(t *testing.T) {
+	for _, tc := range []struct {
+		e     float64
+		field string
+		want  string
+	}{
+		{208, "b1.Material.E", "208 Pa: a modulus in GPa? 208 GPa is 2.08e+11 Pa"},
+		{210000, "b1.Material.E", "210000 Pa: a modulus in MPa? 210000 MPa is 2.1e+11 Pa"},
+		{0.5, "b1.Material.E", "0.5 Pa; Young's modulus is in Pa, at least 1e+06 Pa"},
+		{999999, "b1.Material.E", "at least 1e+06 Pa"},
+	} {
+		_, err := Solve(Sphere(0.003, Material{E: tc.e, Nu: 0.3}), Flat(Steel440C), 10)
+		var ie *InputError
+		if !errors.As(err, &ie) || ie.Field != tc.field || !errors.Is(err, ErrRange) || !strings.Contains(err.Error(), tc.want) {
+			t.Errorf("E = %g Pa: %v; want %s refused with %q", tc.e, err, tc.field, tc.want)
+		}
+		_, err = Solve(Flat(Steel440C), Sphere(0.003, Material{E: tc.e, Nu: 0.3}), 10)
+		if !errors.As(err, &ie) || ie.Field != "b2.Material.E" {
+			t.Errorf("E = %g Pa as the second body: %v; want b2.Material.E", tc.e, err)
+		}
+	}
+	if _, err := Solve(Sphere(0.003, Material{E: 1e6, Nu: 0.3}), Flat(Steel440C), 10); err != nil {
+		t.Errorf("E = 1e6 Pa: %v; want accepted", err)
 	}
 }

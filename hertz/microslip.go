@@ -43,12 +43,21 @@ type Slip struct {
 // load yet, no memory) with the coefficient of friction mu.
 //
 // Errors are *InputError wrapping ErrNonFinite or ErrRange: for mu not
-// finite and > 0, for a Contact whose fields are not those of a solution,
+// finite and > 0 or above 3 (a percentage: 15% is 0.15), for a Contact whose fields are not those of a solution,
 // for a zero load ("c.Load": an unloaded contact carries no friction), and
 // for a sliding limit μP or sliding displacement outside the normal
 // float64 range.
 func (c Contact) Slip(mu float64) (*Slip, error) {
-	k0, err := c.TangentialStiffness(mu, 0)
+	if err := checkMu(mu); err != nil {
+		return nil, err
+	}
+	return c.slip(mu)
+}
+
+// slip is Slip without the bound on mu above (the no-slip limit μ → ∞
+// of the tests).
+func (c Contact) slip(mu float64) (*Slip, error) {
+	k0, err := c.tangentialStiffness(mu, 0)
 	if err != nil {
 		return nil, err
 	}
@@ -130,7 +139,16 @@ func (s *Slip) Stiffness() float64 { return s.slope * s.limit / s.scale }
 // when it is not finite (ErrNonFinite), negative, or above μP (ErrRange:
 // the contact slides as a whole and the loss is no longer micro-slip).
 func (c Contact) SlipEnergy(mu, amplitude float64) (float64, error) {
-	s, err := c.Slip(mu)
+	if err := checkMu(mu); err != nil {
+		return 0, err
+	}
+	return c.slipEnergy(mu, amplitude)
+}
+
+// slipEnergy is SlipEnergy without the bound on mu above (the no-slip
+// limit μ → ∞ of the tests).
+func (c Contact) slipEnergy(mu, amplitude float64) (float64, error) {
+	s, err := c.slip(mu)
 	if err != nil {
 		return 0, err
 	}

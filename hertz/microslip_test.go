@@ -3,6 +3,7 @@ package hertz
 import (
 	"errors"
 	"math"
+	"strings"
 	"testing"
 
 	"github.com/sixfold-dev/sixfold/internal/fuzzdata"
@@ -176,11 +177,13 @@ func TestSlipEnergySmall(t *testing.T) {
 }
 
 // TestSlipLimits checks μ → ∞ (no slip: linear, stiffness 8G*a, no loss)
-// and μ → 0 (the contact slides at once, carrying μP).
+// and μ → 0 (the contact slides at once, carrying μP). The exported Slip
+// and SlipEnergy refuse μ > 3 as a percentage, so μ = 1e9 goes through
+// their unexported bodies, slip and slipEnergy.
 func TestSlipLimits(t *testing.T) {
 	c, G := slipContact(t)
 	a := c.SemiMajor
-	s, err := c.Slip(1e9)
+	s, err := c.slip(1e9)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -190,7 +193,7 @@ func TestSlipLimits(t *testing.T) {
 			t.Errorf("μ = 1e9, Q = %g: δ = %v, want Q/(8G*a) = %v", q, d, q/(8*G*a))
 		}
 	}
-	if w, _ := c.SlipEnergy(1e9, 5); !(w < 1e-9*5*5/(8*G*a)) {
+	if w, _ := c.slipEnergy(1e9, 5); !(w < 1e-9*5*5/(8*G*a)) {
 		t.Errorf("μ = 1e9: W = %v, want ≈ 0 beside the elastic energy", w)
 	}
 	s, err = c.Slip(1e-9)
@@ -249,6 +252,9 @@ func FuzzSlip(f *testing.F) {
 	f.Add(60.0, 0.1, fuzzdata.Append(nil, 1, -2, 3, 0.5, -5.9, 1e-7))
 	f.Add(1e-3, 1e9, fuzzdata.Append(nil, 0, 0, math.NaN()))
 	f.Add(1e4, 1e-12, fuzzdata.Append(nil, 1e-9, -1, math.Inf(1)))
+	// μ as a percentage (refused) and at the bound 3 (accepted).
+	f.Add(60.0, 15.0, fuzzdata.Append(nil, 1, -2, 3))
+	f.Add(60.0, 3.0, fuzzdata.Append(nil, 1, -2, 3, 179))
 	f.Fuzz(func(t *testing.T, load, mu float64, data []byte) {
 		c, err := Solve(Sphere(0.004, Steel52100), Flat(Steel440C), math.Abs(load))
 		if err != nil {
@@ -305,3 +311,29 @@ var gl20x, gl20w = func() ([]float64, []float64) {
 	}
 	return x, w
 }()
+
+// TestMuPercentage: every hertz entry that takes a coefficient of
+// friction refuses μ = 15 (meant as 15%, μ = 0.15) naming "mu", and
+// accepts μ = 3, the bound.
+func TestMuPercentage(t *testing.T) {
+	c, _ := slipContact(t)
+	for _, tc := range []struct {
+		name string
+		call func(mu float64) error
+	}{
+		{"TangentialStiffness", func(mu float64) error { _, err := c.TangentialStiffness(mu, 0); return err }},
+		{"SlidingLimit", func(mu float64) error { _, err := c.SlidingLimit(mu); return err }},
+		{"Slip", func(mu float64) error { _, err := c.Slip(mu); return err }},
+		{"SlipEnergy", func(mu float64) error { _, err := c.SlipEnergy(mu, 1); return err }},
+	} {
+		err := tc.call(15)
+		var ie *InputError
+		if !errors.As(err, &ie) || ie.Field != "mu" || !errors.Is(err, ErrRange) ||
+			!strings.Contains(err.Error(), "a coefficient of friction of 15: a percentage? (15% is 0.15); at most 3") {
+			t.Errorf("%s(μ = 15): %v; want mu refused as a percentage", tc.name, err)
+		}
+		if err := tc.call(3); err != nil {
+			t.Errorf("%s(μ = 3): %v; want accepted", tc.name, err)
+		}
+	}
+}

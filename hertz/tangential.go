@@ -38,10 +38,20 @@ import (
 //
 // A contact with zero load has zero stiffness at q = 0. Errors are
 // *InputError wrapping ErrNonFinite (mu or q, or a field of c, NaN or
-// infinite) or ErrRange (mu ≤ 0, μN underflowing, |q| ≥ μN: gross
+// infinite) or ErrRange (mu ≤ 0 or above 3, a percentage: 15% is 0.15;
+// μN underflowing, |q| ≥ μN: gross
 // sliding, a stiffness outside the normal float64 range, or a Contact
 // whose fields are not those of a solution).
 func (c Contact) TangentialStiffness(mu, q float64) (float64, error) {
+	if err := checkMu(mu); err != nil {
+		return 0, err
+	}
+	return c.tangentialStiffness(mu, q)
+}
+
+// tangentialStiffness is TangentialStiffness without the bound on mu
+// above (the no-slip limit μ → ∞ of the tests).
+func (c Contact) tangentialStiffness(mu, q float64) (float64, error) {
 	if err := c.check(); err != nil {
 		return 0, err
 	}
@@ -84,7 +94,8 @@ func (c Contact) TangentialStiffness(mu, q float64) (float64, error) {
 // SlidingLimit returns the tangential load μN, in newtons, at which the
 // contact slides as a whole, for the coefficient of friction mu.
 // Errors are *InputError wrapping ErrNonFinite when mu or c.Load is NaN or
-// infinite, ErrRange when either is negative or when μN, for positive mu
+// infinite, ErrRange when either is negative, mu is above 3 (a percentage:
+// 15% is 0.15), or when μN, for positive mu
 // and load, would overflow or underflow the normal float64 range.
 func (c Contact) SlidingLimit(mu float64) (float64, error) {
 	if !linalg.Finite(mu) {
@@ -92,6 +103,9 @@ func (c Contact) SlidingLimit(mu float64) (float64, error) {
 	}
 	if mu < 0 {
 		return 0, rangeErr("mu", "coefficient of friction must be finite and ≥ 0, got %g", mu)
+	}
+	if err := checkMu(mu); err != nil {
+		return 0, err
 	}
 	if err := checkLoad(c.Load); err != nil {
 		return 0, err

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"sort"
+	"strings"
 
 	"gonum.org/v1/gonum/spatial/r3"
 
@@ -84,11 +85,13 @@ type Budget struct {
 // Budget returns the first-order error budget of the point p of the
 // moving body for the tolerances, contributors ranked by their effect.
 // It returns an [*InputError] naming "p" when it is not finite,
-// "tols[i].Dimension" for an unknown or repeated dimension,
-// "tols[i].HalfWidth" or "tols[i].Sigma" for a value that is negative or
-// not finite, or whose effect overflows ([ErrRange]; a 1e300 m
-// tolerance), "tols" when the totals overflow, and "a" for a nil or zero
-// Assembly.
+// "tols" when there are no tolerances (a budget of nothing is not a
+// perfect part) or the totals overflow, "tols[i].Dimension" for an
+// unknown or repeated dimension, "tols[i].HalfWidth" or "tols[i].Sigma"
+// for a value that is negative or not finite, or out of all proportion
+// ([ErrRange]; a unit slip): a length whose limit (HalfWidth, or 3σ)
+// exceeds its pair's ball radius, or an angle whose limit exceeds 0.1 rad;
+// and "a" for a nil or zero Assembly.
 func (a *Assembly) Budget(p r3.Vec, tols []Tolerance) (Budget, error) {
 	sens, err := a.Sensitivities(p)
 	if err != nil {
@@ -157,6 +160,10 @@ func (b Budget) Along(u r3.Vec) (worst, rss float64, err error) {
 // checkTolerances validates tolerances and returns their dimensions'
 // indices.
 func (a *Assembly) checkTolerances(tols []Tolerance) ([]int, error) {
+	if len(tols) == 0 {
+		return nil, &InputError{Field: "tols", Err: fmt.Errorf(
+			"%w: no tolerances: a budget or study of no toleranced dimension would report zeros that read as a perfect part", ErrRange)}
+	}
 	idx := make([]int, len(tols))
 	seen := make(map[int]int, len(tols))
 	for i, t := range tols {
@@ -183,7 +190,77 @@ func (a *Assembly) checkTolerances(tols []Tolerance) ([]int, error) {
 			return nil, &InputError{Field: indexed("tols", i) + ".Sigma", Other: indexed("tols", i) + ".HalfWidth",
 				Err: fmt.Errorf("%w: a tolerance is a half-width or a standard deviation, not both", ErrRange)}
 		}
+		if err := a.checkScale(i, t, &a.dims[k]); err != nil {
+			return nil, err
+		}
 		idx[i] = k
 	}
 	return idx, nil
+}
+
+// maxAngleTolerance bounds an angular tolerance's limit (HalfWidth, or
+// 3σ), rad. 0.1 rad (5.7°) is about twice the coarsest general angular
+// tolerance of ISO 2768-1 (class v: ±3° on a shorter leg up to 10 mm;
+// from memory), and seats of a kinematic coupling are toleranced in
+// arcminutes: a larger value is a unit slip (6 written for 6° or 6
+// arcmin), not a drawing's tolerance.
+const maxAngleTolerance = 0.1
+
+// minLengthHint is the smallest length tolerance, m, that checkScale
+// offers as what a slip probably meant: 0.1 µm, below the tolerances a
+// machined seat is drawn to (common practice).
+const minLengthHint = 1e-7
+
+// checkScale refuses the tolerance i on dimension d when its limit is out
+// of all proportion to the coupling, which can only be a unit slip: a
+// length beyond the pair's ball radius (a ball displaced by half its
+// radius already runs off its seat in the exact model, [Assembly.Pose]),
+// or an angle beyond maxAngleTolerance. The message gives the value in
+// the units it was probably meant in, when that value would be accepted.
+func (a *Assembly) checkScale(i int, t Tolerance, d *dimension) error {
+	lim, _ := t.limit()
+	v := t.value()
+	written := func(unit string) string {
+		if t.Sigma > 0 {
+			return fmt.Sprintf("σ %.4g %s (3σ %.4g %s)", v, unit, lim, unit)
+		}
+		return fmt.Sprintf("%.4g %s", v, unit)
+	}
+	field := indexed("tols", i) + "." + t.field()
+	type unit struct {
+		name   string
+		factor float64
+	}
+	// hints gives the value in base units for each unit in which it would
+	// be accepted (at most bound, at least floor).
+	hints := func(bound, floor float64, base string, us ...unit) string {
+		var hs []string
+		for _, u := range us {
+			if lim*u.factor <= bound && v*u.factor >= floor {
+				hs = append(hs, fmt.Sprintf("if that is %s, it is %.4g %s", u.name, v*u.factor, base))
+			}
+		}
+		if len(hs) == 0 {
+			return ""
+		}
+		return " (" + strings.Join(hs, "; ") + ")"
+	}
+	if d.angular() {
+		if lim <= maxAngleTolerance {
+			return nil
+		}
+		return &InputError{Field: field, Err: fmt.Errorf(
+			"%w: %s on %s: an angular tolerance is at most %g rad (%.2g°); angles are in radians%s",
+			ErrRange, written("rad"), t.Dimension, maxAngleTolerance, maxAngleTolerance*180/math.Pi,
+			hints(maxAngleTolerance, 0, "rad", unit{"degrees", math.Pi / 180}, unit{"arcminutes", math.Pi / 10800}))}
+	}
+	p := &a.pairs[d.pair]
+	r := p.ball.Radius
+	if lim <= r {
+		return nil
+	}
+	return &InputError{Field: field, Err: fmt.Errorf(
+		"%w: %s on %s exceeds ball %s's radius %g m: no part made to it could seat, and a first-order budget means nothing; lengths are in metres%s",
+		ErrRange, written("m"), t.Dimension, p.name, r,
+		hints(r, minLengthHint, "m", unit{"µm", 1e-6}, unit{"mm", 1e-3}))}
 }

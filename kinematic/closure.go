@@ -178,7 +178,8 @@ func FormClosure(cs []Contact) (Closure, error) {
 // the pyramid for every μ > μ*/cos(π/k), and perhaps not below.
 //
 // ForceClosure returns an [*InputError] naming "mu" for a NaN or infinite
-// mu ([ErrNonFinite]) or a negative one ([ErrRange]), "opt.Sides" for a
+// mu ([ErrNonFinite]), a negative one or one above 3 ([ErrRange]; a
+// percentage: 15% is 0.15), "opt.Sides" for a
 // number of sides outside 3 to 256 ([ErrRange]), "cs[i].Tangent" for a
 // non-finite Tangent ([ErrNonFinite]) or one along the Normal
 // ([ErrDegenerate]), and the errors of [FormClosure].
@@ -188,6 +189,9 @@ func ForceClosure(cs []Contact, mu float64, opt *ClosureOptions) (Closure, error
 	}
 	if mu < 0 {
 		return Closure{}, &InputError{Field: "mu", Err: fmt.Errorf("%w: a friction coefficient must not be negative, got %g", ErrRange, mu)}
+	}
+	if err := checkMu(mu); err != nil {
+		return Closure{}, err
 	}
 	k := closureSides
 	if opt != nil && opt.Sides != 0 {

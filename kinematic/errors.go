@@ -130,3 +130,13 @@ func renameList(list string, rs []rename) string {
 	}
 	return strings.Join(parts, ", ")
 }
+
+// checkMu returns an [*InputError] naming "mu" when the coefficient of
+// friction mu exceeds 3, a percentage (errs.CheckMu, the bound the design
+// file applies too).
+func checkMu(mu float64) error {
+	if err := errs.CheckMu(mu); err != nil {
+		return &InputError{Field: "mu", Err: err}
+	}
+	return nil
+}

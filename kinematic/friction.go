@@ -81,7 +81,7 @@ const muMax = 10
 // flanks is that of two independent contacts.
 //
 // Homing returns an [*InputError] naming "mu" when it is negative or not
-// finite, and the errors of [Model.Statics] without the Hertz ones.
+// finite, or above 3 ([ErrRange]: a percentage; 15% is 0.15), and the errors of [Model.Statics] without the Hertz ones.
 func (m *Model) Homing(lc LoadCase, mu float64) (Homing, error) {
 	if err := m.check(); err != nil {
 		return Homing{}, err
@@ -94,6 +94,9 @@ func (m *Model) Homing(lc LoadCase, mu float64) (Homing, error) {
 	}
 	if mu < 0 {
 		return Homing{}, &InputError{Field: "mu", Err: fmt.Errorf("%w: must be ≥ 0, got %g", ErrRange, mu)}
+	}
+	if err := checkMu(mu); err != nil {
+		return Homing{}, err
 	}
 	w, err := m.wrench(&lc)
 	if err != nil {
@@ -251,8 +254,8 @@ type SlipContact struct {
 // interchangeability, [Assembly.Study]'s answer.
 //
 // Errors are those of [Model.Stiffness] and [Stiffness.Compliance], and an
-// [*InputError] naming "mu" when it is not finite and positive, or so
-// large that a friction force or a displacement overflows ([ErrRange]), or
+// [*InputError] naming "mu" when it is not finite and positive, above 3
+// (a percentage; 15% is 0.15), or so large that a friction force or a displacement overflows ([ErrRange]), or
 // "p" when it is not finite or so far away that the compliance there
 // overflows.
 func (m *Model) Repeatability(lc LoadCase, mu float64, p r3.Vec) (Repeatability, error) {
@@ -264,6 +267,9 @@ func (m *Model) Repeatability(lc LoadCase, mu float64, p r3.Vec) (Repeatability,
 	}
 	if !(mu > 0) {
 		return Repeatability{}, &InputError{Field: "mu", Err: fmt.Errorf("%w: must be > 0, got %g", ErrRange, mu)}
+	}
+	if err := checkMu(mu); err != nil {
+		return Repeatability{}, err
 	}
 	if !linalg.Finite3(p) {
 		return Repeatability{}, &InputError{Field: "p", Err: fmt.Errorf("%w: %v", ErrNonFinite, p)}

@@ -3,6 +3,7 @@ package kinematic
 import (
 	"errors"
 	"math"
+	"strings"
 	"testing"
 
 	"gonum.org/v1/gonum/mat"
@@ -176,5 +177,34 @@ func TestRepeatability(t *testing.T) {
 	}
 	if _, err := m.Repeatability(lc, 0, p); err == nil {
 		t.Error("μ = 0 accepted")
+	}
+}
+
+// TestMuPercentage: every kinematic entry that takes a coefficient of
+// friction refuses μ = 15 (meant as 15%, μ = 0.15) naming "mu", with the
+// design file's wording, and accepts μ = 3, the bound.
+func TestMuPercentage(t *testing.T) {
+	m, cs := equilateralModel(t, math.Pi/4, 60, 0, 0)
+	lc := LoadCase{Name: "preload"}
+	p := r3.Vec{Z: 0.03}
+	steps := pushCycle(0.01, r3.Vec{X: 1}, r3.Vec{Z: 0.01}, 4)
+	for _, tc := range []struct {
+		name string
+		call func(mu float64) error
+	}{
+		{"Repeatability", func(mu float64) error { _, err := m.Repeatability(lc, mu, p); return err }},
+		{"Homing", func(mu float64) error { _, err := m.Homing(lc, mu); return err }},
+		{"ForceClosure", func(mu float64) error { _, err := ForceClosure(cs, mu, nil); return err }},
+		{"Hysteresis", func(mu float64) error { _, err := m.Hysteresis(lc, steps, mu, p); return err }},
+	} {
+		err := tc.call(15)
+		var ie *InputError
+		if !errors.As(err, &ie) || ie.Field != "mu" || !errors.Is(err, ErrRange) ||
+			!strings.Contains(err.Error(), "a coefficient of friction of 15: a percentage? (15% is 0.15); at most 3") {
+			t.Errorf("%s(μ = 15): %v; want mu refused as a percentage", tc.name, err)
+		}
+		if err := tc.call(3); err != nil {
+			t.Errorf("%s(μ = 3): %v; want accepted", tc.name, err)
+		}
 	}
 }

@@ -157,6 +157,10 @@ func FuzzGeometry(f *testing.F) {
 	// apart (refused: the balls overlap).
 	slip := [3]Ball{{Centre: r3.Vec{X: 0.1}, Radius: 6.35}, {Centre: r3.Vec{Y: 0.1}, Radius: 6.35}, {Centre: r3.Vec{X: -0.1}, Radius: 6.35}}
 	f.Add(seed(slip, vs))
+	// One radius mistyped (5 for 5 mm): the larger ball is named.
+	one := bs
+	one[0].Radius = 5
+	f.Add(seed(one, vs))
 	// Touching balls (accepted) and the coupling 1e300 m away (refused).
 	touch := [3]Ball{{Centre: r3.Vec{X: -0.05}, Radius: 0.025}, {Centre: r3.Vec{}, Radius: 0.025}, {Centre: r3.Vec{Y: 0.05}, Radius: 0.025}}
 	f.Add(seed(touch, vs))

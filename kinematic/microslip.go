@@ -90,13 +90,23 @@ const hysteresisTol = 1e-12
 // documentation states the model and its limits.
 //
 // Errors are [*InputError]s: those of [Model.Stiffness] for the seated
-// case; "mu" when not finite and > 0; "p" when not finite; "steps" when
+// case; "mu" when not finite and > 0, or above 3 (a percentage: 15% is
+// 0.15); "p" when not finite; "steps" when
 // empty; "steps[k].Force", ".Point" or ".Moment" when not finite (or, for
 // the last step, when the force or moment is not zero); "steps[k]"
 // wrapping [ErrRange] when a contact opens under the step (P ≤ 0, outside
 // the model), when the solution does not converge or overflows; and
 // [ErrNotExact] for a model that is not exactly constrained.
 func (m *Model) Hysteresis(lc LoadCase, steps []CycleStep, mu float64, p r3.Vec) (Hysteresis, error) {
+	if err := checkMu(mu); err != nil {
+		return Hysteresis{}, err
+	}
+	return m.hysteresis(lc, steps, mu, p)
+}
+
+// hysteresis is Hysteresis without the bound on mu above (the no-slip
+// limit μ → ∞ of the tests).
+func (m *Model) hysteresis(lc LoadCase, steps []CycleStep, mu float64, p r3.Vec) (Hysteresis, error) {
 	if err := m.check(); err != nil {
 		return Hysteresis{}, err
 	}

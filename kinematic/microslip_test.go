@@ -58,7 +58,8 @@ func linearDisplacement(t *testing.T, m *Model, lc LoadCase, tangential bool, f,
 // μ → 0 the contacts carry no tangential force, the path is the
 // frictionless one (normal stiffness only) and again nothing is left
 // (Johnson 1985, §7.2: no slip without a tangential load, no hysteresis
-// without slip).
+// without slip). Hysteresis refuses μ > 3 as a percentage, so μ = 1e6 goes
+// through its unexported body, hysteresis.
 func TestHysteresisLimits(t *testing.T) {
 	m, _ := equilateralModel(t, math.Pi/4, 60, 0, 0)
 	lc := LoadCase{Name: "preload"}
@@ -69,7 +70,7 @@ func TestHysteresisLimits(t *testing.T) {
 		mu         float64
 		tangential bool
 	}{{1e6, true}, {1e-12, false}} {
-		h, err := m.Hysteresis(lc, steps, tc.mu, p)
+		h, err := m.hysteresis(lc, steps, tc.mu, p)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -240,6 +241,9 @@ func FuzzHysteresis(f *testing.F) {
 	nan[3].Force.X = math.NaN()
 	f.Add(seed(0.1, nan))
 	f.Add(seed(1e300, []CycleStep{{Force: r3.Vec{Z: 1e300}}, {}}))
+	// μ as a percentage (refused) and at the bound 3 (accepted).
+	f.Add(seed(15, pushCycle(2, r3.Vec{X: 1}, r3.Vec{Z: 0.01}, 3)))
+	f.Add(seed(3, pushCycle(2, r3.Vec{X: 1}, r3.Vec{Z: 0.01}, 3)))
 	m, _ := equilateralModel(f, math.Pi/4, 60, 0, 0)
 	f.Fuzz(func(t *testing.T, b []byte) {
 		if len(b) < 8 {

@@ -110,7 +110,8 @@ const coincidentTol = 1e-9
 // so far from the origin that float64 cannot resolve their spacing
 // (wrapping [ErrRange]); and for geometry that cannot exist, wrapping
 // [ErrRange]: two whole balls that overlap (|cᵢ − cⱼ| < rᵢ + rⱼ, named
-// with [InputError.Other] for the second ball), a contact that lies
+// first the ball of the larger radius, the one a mistyped radius makes
+// too large, with [InputError.Other] for the other), a contact that lies
 // inside another whole ball, a gothic-arch flank radius not larger than
 // the ball's (the ball could not touch the flank), and two rods that
 // overlap each other. A design in millimetres read as metres is caught
@@ -171,9 +172,17 @@ func checkSolids(ps []Pair, cs []Contact, owner []int) error {
 			}
 			d := linalg.Norm3(r3.Sub(p.Ball.Centre, q.Ball.Centre))
 			if sum := p.Ball.Radius + q.Ball.Radius; d < sum*(1-overlapTol) {
-				return &InputError{Field: pairField(i) + ".Ball", Other: pairField(j) + ".Ball", Err: fmt.Errorf(
+				// Name first the ball of the larger radius: the one out
+				// of proportion when a radius is mistyped (5 for 5 mm),
+				// the other as Other; the later ball when they are equal.
+				a, b := i, j
+				if q.Ball.Radius > p.Ball.Radius {
+					a, b = j, i
+				}
+				pa, pb := ps[a].Ball, ps[b].Ball
+				return &InputError{Field: pairField(a) + ".Ball", Other: pairField(b) + ".Ball", Err: fmt.Errorf(
 					"%w: balls %s and %s overlap: radii %.6g m and %.6g m, centres %.6g m apart (less than %.6g m); lengths are in metres",
-					ErrRange, pairName(p.Name, i), pairName(q.Name, j), p.Ball.Radius, q.Ball.Radius, d, sum)}
+					ErrRange, pairName(ps[a].Name, a), pairName(ps[b].Name, b), pa.Radius, pb.Radius, d, sum)}
 			}
 		}
 	}

@@ -2,10 +2,15 @@ package kinematic
 
 import (
 	"errors"
+	"fmt"
 	"math"
+	"os"
+	"strings"
 	"testing"
 
 	"gonum.org/v1/gonum/spatial/r3"
+
+	"github.com/sixfold-dev/sixfold/hertz"
 )
 
 // TestImpossibleGeometry checks that Contacts refuses geometry that cannot
@@ -90,5 +95,64 @@ func TestImpossibleGeometry(t *testing.T) {
 		if !errors.As(err, &ie) || ie.Field != tc.field || ie.Other != tc.other || !errors.Is(err, tc.sentinel) {
 			t.Errorf("%s: %v, want an InputError on %q (other %q) wrapping %v", tc.name, err, tc.field, tc.other, tc.sentinel)
 		}
+	}
+}
+
+// TestOverlapNamesLargerBall: when two whole balls overlap, the error
+// names first the ball of the larger radius, the one a mistyped radius
+// (5 for 5 mm) makes too large, and the other as Other, whichever comes
+// first in Pairs. Balls 0.1 m apart: 0.1 < 5 + 0.005.
+func TestOverlapNamesLargerBall(t *testing.T) {
+	vee := func(dx, dy float64) Vee { return Vee{Direction: r3.Vec{X: dx, Y: dy}, Up: up, HalfAngle: math.Pi / 4} }
+	at := func(x, y, z, r float64) Ball { return Ball{Centre: r3.Vec{X: x, Y: y, Z: z}, Radius: r} }
+	for big := range 3 {
+		c := Coupling{Pairs: []Pair{
+			{Ball: at(0, 0, 0, 5e-3), Seat: vee(1, 0)},
+			{Ball: at(0.1, 0, 0, 5e-3), Seat: vee(0, 1)},
+			{Ball: at(0, 0.1, 0, 5e-3), Seat: vee(1, 1)}}}
+		c.Pairs[big].Ball.Radius = 5
+		// Pairs are checked 1 against 0, then 2 against 0 and 1: the
+		// first overlap found involves ball 1 and ball 0, or, when ball 2
+		// is the large one, ball 2 and ball 0.
+		other := 1
+		if big != 0 {
+			other = 0
+		}
+		_, err := c.Contacts()
+		var ie *InputError
+		wantField, wantOther := fmt.Sprintf("Pairs[%d].Ball", big), fmt.Sprintf("Pairs[%d].Ball", other)
+		if !errors.As(err, &ie) || ie.Field != wantField || ie.Other != wantOther || !errors.Is(err, ErrRange) {
+			t.Errorf("ball %d of radius 5 m: %v; want %s, other %s", big, err, wantField, wantOther)
+			continue
+		}
+		if want := fmt.Sprintf("balls %c and %c overlap: radii 5 m and 0.005 m", 'A'+big, 'A'+other); !strings.Contains(err.Error(), want) {
+			t.Errorf("ball %d of radius 5 m: %q lacks %q", big, err, want)
+		}
+	}
+}
+
+// TestReadmeOverlapSlip: the README's table of slips quotes the error of
+// its tour coupling with the first ball's 5 mm radius written as 5; the
+// quote is what the code prints.
+func TestReadmeOverlapSlip(t *testing.T) {
+	b, err := os.ReadFile("../README.md")
+	if err != nil {
+		t.Fatal(err)
+	}
+	const row = "| a 5 mm ball radius written as `5` | `"
+	i := strings.Index(string(b), row)
+	if i < 0 {
+		t.Fatalf("README.md has no row %q", row)
+	}
+	quoted, _, _ := strings.Cut(string(b)[i+len(row):], "`")
+	balls := [3]Ball{
+		{Centre: r3.Vec{X: -0.060, Y: -0.035}, Radius: 5, Material: hertz.Steel52100},
+		{Centre: r3.Vec{X: 0.065, Y: -0.030}, Radius: 5e-3, Material: hertz.Steel52100},
+		{Centre: r3.Vec{X: 0.010, Y: 0.055}, Radius: 5e-3, Material: hertz.Steel52100},
+	}
+	v := Vee{Up: r3.Vec{Z: 1}, HalfAngle: math.Pi / 4, Material: hertz.Steel440C}
+	_, err = BisectorVees(balls, [3]Vee{v, v, v})
+	if err == nil || err.Error() != quoted {
+		t.Errorf("README quotes\n%s\nthe code prints\n%v", quoted, err)
 	}
 }

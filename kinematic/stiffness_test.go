@@ -276,62 +276,64 @@ func TestStiffnessAgainstEquilibrium(t *testing.T) {
 	}
 }
 
-// TestLoadsScaleInvariance: the same design in mm, N and MPa (lengths
-// ×1000, moduli and allowables ×1e-6, mass in tonnes ×1e-3, inertia in
-// t·mm² ×1e3) has the same forces, shock level in mm/s² ×1000, stiffness
-// in N/mm ×1e-3, and the same natural frequencies: the equations are the
-// same in any coherent set of units.
+// TestLoadsScaleInvariance: the same design in cm and N (lengths ×100,
+// moduli and allowables in N/cm² ×1e-4, mass in units of 100 kg ×1e-2,
+// inertia in 100 kg·cm² ×1e2) has the same forces, shock level in cm/s²
+// ×100, stiffness in N/cm ×1e-2, and the same natural frequencies: the
+// equations are the same in any coherent set of units. Centimetres, not
+// millimetres: a modulus in N/mm² (MPa) is below the 1e6 that hertz
+// accepts, refused as a modulus in MPa written as Pa.
 func TestLoadsScaleInvariance(t *testing.T) {
 	si, siCs := equilateralModel(t, math.Pi/4, 60, 0.8, 0.03)
-	mm := make([]Contact, len(siCs))
+	cm := make([]Contact, len(siCs))
 	for i, c := range siCs {
-		c.Point, c.Centre, c.Radius = r3.Scale(1000, c.Point), r3.Scale(1000, c.Centre), c.Radius*1000
+		c.Point, c.Centre, c.Radius = r3.Scale(100, c.Point), r3.Scale(100, c.Centre), c.Radius*100
 		for _, b := range []*hertz.Body{&c.Moving, &c.Base} {
-			b.R1, b.R2 = b.R1*1000, b.R2*1000
-			b.Material.E *= 1e-6
-			b.Material.Allowable *= 1e-6
+			b.R1, b.R2 = b.R1*100, b.R2*100
+			b.Material.E *= 1e-4
+			b.Material.Allowable *= 1e-4
 		}
-		mm[i] = c
+		cm[i] = c
 	}
 	pay := si.payload
-	pay.Centre = r3.Scale(1000, r3.Add(pay.Centre, si.origin))
-	pay.Mass *= 1e-3
+	pay.Centre = r3.Scale(100, r3.Add(pay.Centre, si.origin))
+	pay.Mass *= 1e-2
 	for a := range 3 {
 		for b := range 3 {
-			pay.Inertia[a][b] *= 1e3
+			pay.Inertia[a][b] *= 1e2
 		}
 	}
-	mmModel, err := NewModel(mm, []Preload{{Point: r3.Vec{Z: 20}, Direction: r3.Vec{Z: -1}, Force: 60}}, pay)
+	cmModel, err := NewModel(cm, []Preload{{Point: r3.Vec{Z: 2}, Direction: r3.Vec{Z: -1}, Force: 60}}, pay)
 	if err != nil {
 		t.Fatal(err)
 	}
 	lcSI := LoadCase{PreloadFactor: 1, Gravity: r3.Vec{Z: -StandardGravity}}
-	lcMM := LoadCase{PreloadFactor: 1, Gravity: r3.Vec{Z: -StandardGravity * 1000}}
+	lcCM := LoadCase{PreloadFactor: 1, Gravity: r3.Vec{Z: -StandardGravity * 100}}
 	a, _ := si.Statics(lcSI)
-	b, err := mmModel.Statics(lcMM)
+	b, err := cmModel.Statics(lcCM)
 	if err != nil {
 		t.Fatal(err)
 	}
 	for i := range a.Contacts {
 		if d := math.Abs(a.Contacts[i].Force - b.Contacts[i].Force); d > 1e-12*a.Contacts[i].Force {
-			t.Errorf("%s: %g N in SI, %g N in mm", a.Contacts[i].Label, a.Contacts[i].Force, b.Contacts[i].Force)
+			t.Errorf("%s: %g N in SI, %g N in cm", a.Contacts[i].Label, a.Contacts[i].Force, b.Contacts[i].Force)
 		}
 		if d := math.Abs(a.Contacts[i].PressureRatio - b.Contacts[i].PressureRatio); d > 1e-12 {
 			t.Errorf("%s: pressure ratio %g, %g", a.Contacts[i].Label, a.Contacts[i].PressureRatio, b.Contacts[i].PressureRatio)
 		}
 	}
 	sa, _ := si.Shock(lcSI, 0)
-	sb, _ := mmModel.Shock(lcMM, 0)
-	if math.Abs(sb.Unload-1000*sa.Unload) > 1e-11*sb.Unload {
-		t.Errorf("shock level %g m/s², %g mm/s²", sa.Unload, sb.Unload)
+	sb, _ := cmModel.Shock(lcCM, 0)
+	if math.Abs(sb.Unload-100*sa.Unload) > 1e-11*sb.Unload {
+		t.Errorf("shock level %g m/s², %g cm/s²", sa.Unload, sb.Unload)
 	}
 	ka, _ := si.Stiffness(lcSI, nil)
-	kb, err := mmModel.Stiffness(lcMM, nil)
+	kb, err := cmModel.Stiffness(lcCM, nil)
 	if err != nil {
 		t.Fatal(err)
 	}
-	if k1, k2 := ka.Matrix(r3.Vec{})[2][2], kb.Matrix(r3.Vec{})[2][2]; math.Abs(k2-1e-3*k1) > 1e-11*k2 {
-		t.Errorf("vertical stiffness %g N/m, %g N/mm", k1, k2)
+	if k1, k2 := ka.Matrix(r3.Vec{})[2][2], kb.Matrix(r3.Vec{})[2][2]; math.Abs(k2-1e-2*k1) > 1e-11*k2 {
+		t.Errorf("vertical stiffness %g N/m, %g N/cm", k1, k2)
 	}
 	ma, _ := ka.Modes()
 	mb, err := kb.Modes()
@@ -340,7 +342,7 @@ func TestLoadsScaleInvariance(t *testing.T) {
 	}
 	for i := range ma {
 		if math.Abs(ma[i].Frequency-mb[i].Frequency) > 1e-9*ma[i].Frequency {
-			t.Errorf("mode %d: %g Hz in SI, %g Hz in mm", i, ma[i].Frequency, mb[i].Frequency)
+			t.Errorf("mode %d: %g Hz in SI, %g Hz in cm", i, ma[i].Frequency, mb[i].Frequency)
 		}
 	}
 }

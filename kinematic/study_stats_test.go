@@ -190,16 +190,22 @@ func TestStudyDistributions(t *testing.T) {
 
 // TestStudyRefusesUnseatedParts: an exact study whose tolerances let a
 // part fall off its seats is an error, not statistics of the parts that
-// happen to seat. A ball radius of 5 mm ± 10 mm is negative in a quarter
-// of the draws (uniform on [−5, 15] mm), and no ball of negative radius
-// seats, so some of 200 samples fail (the chance that none does is
-// 0.75^200 ≈ 1e-25).
+// happen to seat. Ball A (radius r = 5 mm) sits in a cube-corner socket
+// (half-angle θ = atan(1/√2), sin θ = 1/√3): its centre is r/sin θ = √3·r
+// from the apex and each contact √(3−1)·r = √2·r from it, the whole
+// figure similar about the apex, so a radius r + Δ moves every contact
+// √2·|Δ| across its face. The exact model gives up when a contact moves
+// more than half the actual radius (leaveFraction): √2·|Δ| > (r + Δ)/2,
+// that is Δ > 2.73 mm or Δ < −1.31 mm. A radius of 5 mm ± 4.9 mm (within
+// the ball's radius, so not refused as a unit slip) draws such a Δ with
+// probability (2.17 + 3.59)/9.8 ≈ 0.59, so some of 200 samples fail (the
+// chance that none does is 0.41^200 ≈ 1e-77).
 func TestStudyRefusesUnseatedParts(t *testing.T) {
 	a := generalAssemblies(t)["socket-vee-flat"]
-	_, err := a.Study(context.Background(), r3.Vec{}, []Tolerance{{Dimension: "A.Ball.Radius", HalfWidth: 10e-3}},
+	_, err := a.Study(context.Background(), r3.Vec{}, []Tolerance{{Dimension: "A.Ball.Radius", HalfWidth: 4.9e-3}},
 		&StudyOptions{Samples: 200, Exact: true, Seed: 3})
 	var ie *InputError
 	if !errors.As(err, &ie) || ie.Field != "tols" || !errors.Is(err, ErrRange) || !strings.Contains(err.Error(), "cannot seat") {
-		t.Errorf("exact study with a ±10 mm radius tolerance: %v", err)
+		t.Errorf("exact study with a ±4.9 mm radius tolerance: %v", err)
 	}
 }

@@ -177,7 +177,7 @@ func TestStudyReproducible(t *testing.T) {
 	if _, err := a.Study(context.Background(), p, []Tolerance{{Dimension: "A.Ball.Radius", HalfWidth: -1}}, &StudyOptions{Samples: 10}); !errors.As(err, &ie) || ie.Field != "tols[0].HalfWidth" {
 		t.Errorf("negative tolerance: %v", err)
 	}
-	if _, err := a.Study(context.Background(), p, []Tolerance{{Dimension: "A.Ball.Radius", HalfWidth: 1}, {Dimension: "A.Ball.Radius", HalfWidth: 1}}, &StudyOptions{Samples: 10}); !errors.As(err, &ie) || ie.Field != "tols[1].Dimension" {
+	if _, err := a.Study(context.Background(), p, []Tolerance{{Dimension: "A.Ball.Radius", HalfWidth: 1e-6}, {Dimension: "A.Ball.Radius", HalfWidth: 1e-6}}, &StudyOptions{Samples: 10}); !errors.As(err, &ie) || ie.Field != "tols[1].Dimension" {
 		t.Errorf("repeated dimension: %v", err)
 	}
 }

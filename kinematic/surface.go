@@ -96,6 +96,13 @@ type dimension struct {
 	motions []motion // seatMotion
 }
 
+// angular reports whether the dimension is an angle (rad): a seat motion
+// that turns its surfaces (Turn, Tilt, HalfAngle, a flat's Tilt1 and
+// Tilt2). Every other dimension is a length (m).
+func (d *dimension) angular() bool {
+	return d.kind == seatMotion && len(d.motions) > 0 && d.motions[0].rot
+}
+
 // translations returns the seat dimensions X, Y, Z that move all of n
 // surfaces together.
 func translations(n int) []dimension {

@@ -100,7 +100,7 @@ func run(args []string, stdout io.Writer) error {
 	b2f := newBodyFlags(fs, "2", "flat", "", "steel-440c")
 	angleS := fs.String("angle", "0", "angle between the principal planes of the two bodies (the plane of body 2's first radius from body 1's), an angle with its unit: deg, ° or rad (30deg, 0.5rad)")
 	loadS := fs.String("load", "10N", "normal load pressing the bodies together, a force with its unit: N or kN (50N, 1.2kN)")
-	mu := fs.Float64("mu", 0.15, "coefficient of friction for the tangential stiffness and the sliding limit, dimensionless, > 0")
+	mu := fs.Float64("mu", 0.15, "coefficient of friction for the tangential stiffness and the sliding limit, dimensionless, > 0 and at most 3 (15% is 0.15)")
 	qS := fs.String("tangential", "0", "tangential load at which the tangential stiffness is given, a force with its unit: N or kN; |Q| < mu·load")
 	if err := fs.Parse(args); err != nil {
 		if errors.Is(err, flag.ErrHelp) {
@@ -128,6 +128,12 @@ func run(args []string, stdout io.Writer) error {
 	}
 	if math.IsNaN(*mu) || math.IsInf(*mu, 0) || *mu <= 0 {
 		return &FlagError{"-mu", fmt.Errorf("%v: want a finite coefficient > 0", *mu)}
+	}
+	// The library's bound on μ (above 3 a percentage), checked before the
+	// tangential load is compared with μ·load: an unloaded contact's
+	// sliding limit refuses nothing else.
+	if _, err := (hertz.Contact{}).SlidingLimit(*mu); err != nil {
+		return translate(err, b1f, b2f)
 	}
 	q, err := parseForce(*qS)
 	if err != nil {

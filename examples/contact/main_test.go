@@ -281,6 +281,8 @@ func TestBadFlags(t *testing.T) {
 		{[]string{"-angle", "north"}, "-angle"},
 		{[]string{"-mu", "0"}, "-mu"},
 		{[]string{"-mu", "abc"}, "-mu"},
+		{[]string{"-material1", "custom", "-E1", "208Pa", "-nu1", "0.3"}, "-E1: out of range: 208 Pa: a modulus in GPa? 208 GPa is 2.08e+11 Pa"},
+		{[]string{"-mu", "15"}, "-mu: out of range: a coefficient of friction of 15: a percentage? (15% is 0.15); at most 3"},
 		{[]string{"-tangential", "100 N"}, "-tangential"},
 		{[]string{"-tangential", "x"}, "-tangential"},
 		{[]string{"-shape2", "flat", "-radius2", "3mm"}, "-radius2"},

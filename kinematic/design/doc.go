@@ -40,7 +40,8 @@
 //	  up                direction out of the seat towards the ball; default [0, 0, 1]
 //	  material          material, required
 //	  half_angle        angle in (0, 90) deg, the lean of each contact normal from the
-//	                    plane normal to up; required for every type but "flat"
+//	                    plane normal to up; required for every type but "flat"; in
+//	                    degrees, a number of at most π/2 ("0.785 deg") is refused as radians
 //	  flank_radius      vee: length, 0 (flat flanks, the default) or greater than the ball's radius
 //	  rod_radius        rods: length > 0, required
 //	  direction         vee, rods: the groove's direction; or instead
@@ -157,8 +158,8 @@
 //	                    {"ball": name, "half_width": [length, length]} a box of ± the half-widths along
 //	                    the plane's first axis (frame x projected) and its second, or
 //	                    {"ball": name, "radius": length > 0} a disc
-//	  half_angles       array of 1 to 8 angles in (0, 90) deg: the half-angles every groove may take;
-//	                    default: as drawn
+//	  half_angles       array of 1 to 8 angles in (0, 90) deg: the half-angles every groove may take
+//	                    (in degrees, a number of at most π/2 is refused as radians); default: as drawn
 //	  seed              whole number in [0, 2^64): the random starts of a search with regions; default 0
 //	requirements        object, optional; every requirement is optional, every limit > 0
 //	  min_centre_index    number in (0, 1): the weakest Maxwell index at the ball centres

@@ -154,6 +154,16 @@ func (t translator) translate(err error) error {
 		return err
 	}
 	e := &Error{Path: t.fields(ke.Field), Err: ke.Err}
+	if msg := ke.Err.Error(); strings.HasPrefix(ke.Field, "tols[") {
+		// A tolerance out of proportion: the API's hint about its bare
+		// SI numbers does not apply to a value the file gave with its
+		// unit (it was converted already).
+		for _, hint := range [...]string{"; lengths are in metres", "; angles are in radians"} {
+			if before, _, ok := strings.Cut(msg, hint); ok {
+				e.Err = &retext{msg: before, err: ke.Err}
+			}
+		}
+	}
 	if ke.Other != "" {
 		e.Other = t.fields(ke.Other)
 	}
@@ -327,3 +337,13 @@ func snake(s string) string {
 	}
 	return b.String()
 }
+
+// retext is an error with the text msg that wraps err (keeping its
+// sentinel for errors.Is).
+type retext struct {
+	msg string
+	err error
+}
+
+func (e *retext) Error() string { return e.msg }
+func (e *retext) Unwrap() error { return e.err }

@@ -25,6 +25,18 @@ func FuzzRead(f *testing.F) {
 		f.Add(readFile(f, name))
 	}
 	f.Add([]byte(baseJSON))
+	// Unit slips refused with a hint: a tolerance out of proportion.
+	for _, r := range [][2]string{
+		{`"value": "1 um"`, `"value": "10 mm"`},
+		{`{"dimension": "A.Ball.Radius", "value": "1 um"}`, `{"dimension": "A.Seat.Turn", "value": "6 deg", "distribution": "normal"}`},
+		// One ball radius in metres, meant in millimetres.
+		{`"radius": "6.35 mm"`, `"radius": "3 m"`},
+		// A half-angle in radians with a degree unit.
+		{`"half_angle": "45 deg"`, `"half_angle": "0.785 deg"`},
+		{`"half_angle": "45 deg"`, `"half_angle": "1.5708 °"`},
+	} {
+		f.Add([]byte(strings.Replace(baseJSON, r[0], r[1], 1)))
+	}
 	// The vibration section with bad spectra and damping.
 	vib := string(readFile(f, "testdata/vibration.json"))
 	for _, r := range [][2]string{

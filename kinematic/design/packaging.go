@@ -294,6 +294,9 @@ func (r *reader) readOptimize(n *node, path string) (*OptimizeSettings, error) {
 			if err != nil {
 				return nil, err
 			}
+			if err := radiansAsDegrees(e, index(hp, i), v); err != nil {
+				return nil, err
+			}
 			o.HalfAngles = append(o.HalfAngles, v)
 		}
 	}

@@ -115,6 +115,7 @@ func TestStudyErrors(t *testing.T) {
 		{"floor 0", edit(t, opt(map[string]any{"min_contact_index": 0})), "optimize.min_contact_index", ErrRange},
 		{"condition below 1", edit(t, opt(map[string]any{"max_condition": 0.5})), "optimize.max_condition", ErrRange},
 		{"half-angle 90", edit(t, opt(map[string]any{"half_angles": []any{"90 deg"}})), "optimize.half_angles[0]", ErrRange},
+		{"half-angle in radians with deg", edit(t, opt(map[string]any{"half_angles": []any{"40 deg", "0.785 deg"}})), "optimize.half_angles[1]", ErrRange},
 		{"half-angles empty", edit(t, opt(map[string]any{"half_angles": []any{}})), "optimize.half_angles", ErrRange},
 		{"region both", edit(t, opt(map[string]any{"regions": []any{map[string]any{"ball": "A", "radius": "1 mm", "half_width": []any{"1 mm", "1 mm"}}}})), "optimize.regions[0].radius", ErrRange},
 		{"region none", edit(t, opt(map[string]any{"regions": []any{map[string]any{"ball": "A"}}})), "optimize.regions[0].half_width", ErrMissing},

@@ -194,6 +194,28 @@ func (r *reader) reqQuantity(o *node, path, key string, k *quantityKind, dst *fl
 	return r.optQuantity(o, path, key, k, dst)
 }
 
+// radiansAsDegrees refuses a half-angle v, rad, that the file wrote in
+// degrees ("deg" or "°") with a number of at most π/2: radians given the
+// unit of degrees ("0.785 deg" for π/4 rad). A half-angle that small (at
+// most 1.57°) leans the contact normals almost into the plane normal to
+// Up: the walls of a slot, not a seat that carries the part; seats lean
+// 30° to 60° (common practice). Only half-angles: a tilt or an azimuth of
+// 1° is legitimate.
+func radiansAsDegrees(n *node, path string, v float64) error {
+	if n == nil || n.kind != stringNode {
+		return nil
+	}
+	_, _, rest, ok := scanNumber(n.text)
+	if u := normaliseUnit(rest); !ok || (u != "deg" && u != "°") {
+		return nil
+	}
+	if deg := v / radPerDeg; deg > 0 && deg <= math.Pi/2 {
+		return errorf(path, ErrRange, "%s: if that is radians, it is %.3g deg; a half-angle of %.3g° would leave the contact normals almost flat (vee and cone half-angles are usually 30 to 60 deg)",
+			n.text, deg*180/math.Pi, deg)
+	}
+	return nil
+}
+
 func (r *reader) optVector(o *node, path, key string, k *quantityKind, dst *r3.Vec) error {
 	if n := o.get(key); n != nil {
 		v, err := r.vector(n, join(path, key), k)
@@ -581,6 +603,9 @@ func (r *reader) readSeat(n *node, path string) (Seat, error) {
 	}
 	if s.Type != Flat {
 		if err := r.reqQuantity(n, path, "half_angle", angle, &s.HalfAngle); err != nil {
+			return s, err
+		}
+		if err := radiansAsDegrees(n.get("half_angle"), join(path, "half_angle"), s.HalfAngle); err != nil {
 			return s, err
 		}
 	}

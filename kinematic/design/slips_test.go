@@ -219,3 +219,78 @@ func TestThermalBlame(t *testing.T) {
 		})
 	}
 }
+
+// TestToleranceOutOfProportion: a tolerance beyond the ball's radius
+// (6.35 mm here) or an angular one beyond 0.1 rad is refused at the
+// tolerance's path, without the Go API's hint about bare SI numbers (the
+// file's value carries its unit). Hand figures: 10 mm = 0.01 m;
+// 6° = 0.1047 rad.
+func TestToleranceOutOfProportion(t *testing.T) {
+	for _, tc := range []struct {
+		tol  map[string]any
+		want string
+	}{
+		{map[string]any{"dimension": "B.Seat.X", "value": "10 mm"}, "0.01 m on B.Seat.X exceeds ball B's radius 0.00635 m"},
+		{map[string]any{"dimension": "C.Seat.Turn", "value": "6 deg"}, "0.1047 rad on C.Seat.Turn: an angular tolerance is at most 0.1 rad"},
+	} {
+		_, err := Parse([]byte(edit(t, set("tolerances", []any{map[string]any{"dimension": "A.Ball.Radius", "value": "1 um"}, tc.tol}))))
+		var e *Error
+		if !errors.As(err, &e) || e.Path != "tolerances[1].value" || !errors.Is(err, ErrRange) {
+			t.Fatalf("%v: %v; want tolerances[1].value out of range", tc.tol, err)
+		}
+		if msg := err.Error(); !strings.Contains(msg, tc.want) || strings.Contains(msg, "if that is") || strings.Contains(msg, "are in metres") || strings.Contains(msg, "are in radians") {
+			t.Errorf("%v: %q; want %q and no SI-number hint", tc.tol, msg, tc.want)
+		}
+	}
+}
+
+// TestHalfAngleRadiansAsDegrees: a half-angle whose number in degrees is
+// at most π/2 ≈ 1.5708 is radians written with a degree unit and is
+// refused with the reading it probably had: 0.785 rad is 0.785·180/π =
+// 44.98°, printed "45 deg" (hand arithmetic); 1.5 rad is 85.9°. Just
+// above π/2, an azimuth of 1 deg and a tolerance of 1 deg are left alone.
+func TestHalfAngleRadiansAsDegrees(t *testing.T) {
+	for _, tc := range []struct {
+		v, want string
+	}{
+		{"0.785 deg", "0.785 deg: if that is radians, it is 45 deg"},
+		{"1.5 °", "1.5 °: if that is radians, it is 85.9 deg"},
+		{"1.5707 deg", "if that is radians, it is 90 deg"},
+	} {
+		_, err := Parse([]byte(edit(t, set("seats[1].half_angle", tc.v))))
+		var e *Error
+		if !errors.As(err, &e) || e.Path != "seats[1].half_angle" || !errors.Is(err, ErrRange) || !strings.Contains(err.Error(), tc.want) {
+			t.Errorf("half_angle %q: %v; want seats[1].half_angle refused with %q", tc.v, err, tc.want)
+		}
+	}
+	for _, change := range []func(map[string]any){
+		set("seats[1].half_angle", "45 deg"),
+		set("seats[1].half_angle", "0.785 rad"),
+		set("seats[1].azimuth", "1 deg"),
+		set("tolerances", []any{map[string]any{"dimension": "B.Seat.Turn", "value": "1 deg"}}),
+	} {
+		if _, err := Parse([]byte(edit(t, change))); err != nil {
+			t.Errorf("%v", err)
+		}
+	}
+	// Just above π/2 the reader leaves the half-angle to the model's own
+	// checks; whatever they say, it is not this refusal.
+	if _, err := Parse([]byte(edit(t, set("seats[1].half_angle", "1.5709 deg")))); err != nil && strings.Contains(err.Error(), "if that is radians") {
+		t.Errorf("1.5709 deg: %v", err)
+	}
+}
+
+// TestOverlapNamesMistypedBall: balls[0].radius written "3 m" (3 mm
+// meant) makes ball A overlap ball B (their centres lie 86.6 mm apart in
+// the base design, less than 3.00635 m): the error's path is the mistyped
+// ball, balls[0], and balls[1] comes as "see".
+func TestOverlapNamesMistypedBall(t *testing.T) {
+	_, err := Parse([]byte(edit(t, set("balls[0].radius", "3 m"))))
+	var e *Error
+	if !errors.As(err, &e) || e.Path != "balls[0]" || e.Other != "balls[1]" || !errors.Is(err, ErrRange) {
+		t.Fatalf("a 3 m ball: %v; want balls[0], see balls[1]", err)
+	}
+	if want := "balls A and B overlap: radii 3 m and 0.00635 m"; !strings.Contains(err.Error(), want) {
+		t.Errorf("a 3 m ball: %q lacks %q", err, want)
+	}
+}

@@ -9,15 +9,9 @@ import (
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"github.com/sixfold-dev/sixfold/hertz"
+	"github.com/sixfold-dev/sixfold/internal/errs"
 	"github.com/sixfold-dev/sixfold/kinematic"
 )
-
-// maxMu is the largest coefficient of friction a design file may give:
-// the solids of kinematic couplings (steels, ceramics, carbides, dry or
-// lubricated) lie well below 1 (common practice), and clean metals in
-// vacuum reach a few; a larger number is a percentage or a slip of the
-// keyboard. The Go API takes any μ > 0, for limit studies.
-const maxMu = 3
 
 // Validate reports whether the design is complete and in range: every
 // count within the format's bounds, every number finite and in its
@@ -251,8 +245,10 @@ func (d *Design) check() error {
 	if f := d.Friction; f != nil && (!(f.Mu >= 0) || math.IsInf(f.Mu, 0)) {
 		return errorf("friction.mu", ErrRange, "must be a finite number ≥ 0, got %g", f.Mu)
 	}
-	if f := d.Friction; f != nil && f.Mu > maxMu {
-		return errorf("friction.mu", ErrRange, "a coefficient of friction of %g: a percentage? (%g%% is %g); at most %g", f.Mu, f.Mu, f.Mu/100, float64(maxMu))
+	if f := d.Friction; f != nil {
+		if err := errs.CheckMu(f.Mu); err != nil {
+			return &Error{Path: "friction.mu", Err: err}
+		}
 	}
 	if mc := d.MonteCarlo; mc != nil && (mc.Samples < 1 || mc.Samples > maxSamples) {
 		return errorf("monte_carlo.samples", ErrRange, "must be in [1, %d], got %d", maxSamples, mc.Samples)
