@@ -93,15 +93,17 @@ func BenchmarkFreed(b *testing.B) {
 }
 
 // BenchmarkDecompose measures, on the normalised matrices of the
-// benchmark sets, the pieces that bound Analyze's speed: the
-// normalisation alone, the one-sided Jacobi SVD that Analyze uses
-// (with the sort), and the alternatives measured against it for the
-// speed target of issue 19 (DEVELOPERS.md, "Performance as ratios"): the
-// same after a pivoted QR (Drmač & Veselić's preconditioner), the
-// eigenvalues of the Gram matrix AᵀA (Householder tridiagonalisation
-// and implicit QR, which square the condition number and so could only
-// serve well-conditioned sets), and the Gauss–Jordan inverse that any
-// path without the singular vectors needs for the freed twists.
+// benchmark sets, the pieces that bound Analyze's speed (issue 19;
+// DEVELOPERS.md, "Performance as ratios"): the normalisation alone; the
+// one-sided Jacobi SVD on the columns, with the sort; the same on the
+// rows, which is what Analyze does for six wrenches (the columns follow
+// only when the rank is below six); and the alternatives measured
+// against them: the columns after a pivoted QR (Drmač & Veselić's
+// preconditioner), the eigenvalues of the Gram matrix AᵀA (Householder
+// tridiagonalisation and implicit QR, which square the condition number
+// and so could only serve well-conditioned sets), and the Gauss–Jordan
+// inverse that any path without the singular vectors needs for the freed
+// twists.
 func BenchmarkDecompose(b *testing.B) {
 	for _, s := range benchSets() {
 		var pre [6]Wrench
@@ -127,6 +129,21 @@ func BenchmarkDecompose(b *testing.B) {
 					b.Fatal("no convergence")
 				}
 				linalg.Sort6(&a, 6, &sigma)
+			}
+		})
+		b.Run(s.name+"/jacobi-rows", func(b *testing.B) {
+			var sigma [6]float64
+			for b.Loop() {
+				var w [36]float64
+				for i := 0; i < 6; i++ {
+					for j := 0; j < 6; j++ {
+						w[6*j+i] = src[6*i+j]
+					}
+				}
+				if !linalg.Jacobi6(&w, 6) {
+					b.Fatal("no convergence")
+				}
+				linalg.Sort6(&w, 6, &sigma)
 			}
 		})
 		b.Run(s.name+"/qr-jacobi", func(b *testing.B) {
