@@ -129,9 +129,14 @@ func mustSVF(t *testing.T) Coupling {
 	return c
 }
 
-// TestInvariance: moving a design rigidly or scaling it by 1000 leaves
+// TestInvariance: moving a design rigidly or scaling it by 2⁻¹⁰ leaves
 // every index, verdict and dimensionless measure unchanged (they depend on
-// the geometry's shape only), and moves the coupling centre along.
+// the geometry's shape only), and moves the coupling centre along. Scaled
+// down by a power of two, which is exact in binary (a design ×1000 has
+// whole balls of metres, refused as millimetres), and moved at most about
+// 500 times its size (0.12 mm across, 0.05 m away), so that the
+// coordinates' rounding relative to the design (ε·distance/size, see
+// TestFarFromOrigin) stays near 1e-13, under the 1e-12 checked.
 func TestInvariance(t *testing.T) {
 	bis, err := BisectorVees(isosceles(), three(vee45))
 	if err != nil {
@@ -146,9 +151,9 @@ func TestInvariance(t *testing.T) {
 			axis     r3.Vec
 			off      r3.Vec
 		}{
-			{1000, 0, up, r3.Vec{}},
+			{0x1p-10, 0, up, r3.Vec{}},
 			{1, 1.1, r3.Vec{X: 1, Y: -2, Z: 0.5}, r3.Vec{X: 0.3, Y: 0.2, Z: -1.5}},
-			{1000, -2.5, r3.Vec{X: 0.2, Y: 1, Z: 1}, r3.Vec{X: 40, Y: -30, Z: 7}},
+			{0x1p-10, -2.5, r3.Vec{X: 0.2, Y: 1, Z: 1}, r3.Vec{X: 0.04, Y: -0.03, Z: 0.007}},
 		} {
 			m := moved(c, tr.s, tr.angle, tr.axis, tr.off)
 			s1 := mustStability(t, m)

@@ -219,7 +219,7 @@ func TestLayoutErrorsNameParameters(t *testing.T) {
 
 	// Two overlapping balls are named both, Field and Other, as balls[i].
 	big := bs
-	big[0].Radius = 5 // 5 m balls 86.6 mm apart: millimetres read as metres
+	big[0].Radius = 0.1 // a 100 mm ball 86.6 mm from the others: they overlap
 	for name, call := range map[string]func() error{
 		"BisectorVees": func() error { _, err := BisectorVees(big, vees(func(*[3]Vee) {})); return err },
 		"AimedVees":    func() error { _, err := AimedVees(big, r3.Vec{}, vees(func(*[3]Vee) {})); return err },

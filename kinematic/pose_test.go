@@ -189,14 +189,15 @@ func TestSeatAgainstMinimiser(t *testing.T) {
 	}
 }
 
-// TestSeatScale: the design ×1000 gives displacements ×1000 and the same
-// rotations.
+// TestSeatScale: the design ×1/1000 gives displacements ×1/1000 and the
+// same rotations (scaled down: a design ×1000 has whole balls of metres,
+// which are refused as millimetres).
 func TestSeatScale(t *testing.T) {
 	c, err := BisectorVees(isosceles(), three(vee45))
 	if err != nil {
 		t.Fatal(err)
 	}
-	big := moved(c, 1000, 0, up, r3.Vec{})
+	big := moved(c, 1e-3, 0, up, r3.Vec{})
 	a1, _ := c.Assembly()
 	a2, err := big.Assembly()
 	if err != nil {
@@ -207,7 +208,7 @@ func TestSeatScale(t *testing.T) {
 	for i, d := range devs {
 		devs2[i] = d
 		if d.Dimension != "B.Seat.Turn" && d.Dimension != "B.Seat.HalfAngle" {
-			devs2[i].Value *= 1000
+			devs2[i].Value *= 1e-3
 		}
 	}
 	p1, err := a1.Pose(devs, nil)
@@ -221,8 +222,8 @@ func TestSeatScale(t *testing.T) {
 	if d := r3.Norm(r3.Sub(p2.Rotation, p1.Rotation)); d > 1e-12*r3.Norm(p1.Rotation) {
 		t.Errorf("rotations %v and %v", p1.Rotation, p2.Rotation)
 	}
-	if d := r3.Norm(r3.Sub(p2.Translation, r3.Scale(1000, p1.Translation))); d > 1e-9*r3.Norm(p2.Translation) {
-		t.Errorf("translations %v and %v (×1000)", p1.Translation, p2.Translation)
+	if d := r3.Norm(r3.Sub(p2.Translation, r3.Scale(1e-3, p1.Translation))); d > 1e-9*r3.Norm(p2.Translation) {
+		t.Errorf("translations %v and %v (×1/1000)", p1.Translation, p2.Translation)
 	}
 }
 

@@ -24,7 +24,7 @@ import (
 // segment's contacts against other balls.
 type Ball struct {
 	Centre   r3.Vec  // m
-	Radius   float64 // m, > 0
+	Radius   float64 // m, > 0; at most 0.5 m for a whole ball (Canoe false)
 	Material hertz.Material
 
 	// Canoe reports that the ball is a spherical segment of its sphere
@@ -254,8 +254,22 @@ func checkBall(b Ball, field string) error {
 	if !(b.Radius > 0) {
 		return &InputError{Field: field + ".Radius", Err: fmt.Errorf("%w: must be positive, got %g", ErrRange, b.Radius)}
 	}
+	if !b.Canoe && b.Radius > maxBallRadius {
+		return &InputError{Field: field + ".Radius", Err: fmt.Errorf(
+			"%w: a whole ball of radius %g m, over %g m: lengths are in metres (if that is millimetres, it is %g m); a spherical segment of large radius is a canoe ball (Canoe true)",
+			ErrRange, b.Radius, maxBallRadius, b.Radius/1000)}
+	}
 	return nil
 }
+
+// maxBallRadius is the largest radius of a whole ball (Canoe false) that
+// a coupling is taken to have, m: precision balls are made to a few tens
+// of millimetres in radius (common practice), so a whole ball of 0.5 m
+// or more is a length given in millimetres, as when a 3 mm ball is
+// written 3 with the rest of the design in millimetres too, which no
+// other check can tell from a design a thousand times larger. A canoe
+// ball's segment radius has no such bound.
+const maxBallRadius = 0.5
 
 // flankNormals returns the contact normals of a vee of half-angle with
 // sine s and cosine c, unit Up up and unit groove direction g: the "+"

@@ -28,12 +28,19 @@ func TestImpossibleGeometry(t *testing.T) {
 		field, other string // "" field: accepted
 		sentinel     error
 	}{
-		// A millimetre design read as metres: radius 6.35 (meant mm)
-		// and centres 0.1 apart (meant 100 mm): 0.1 < 6.35 + 6.35.
+		// A millimetre radius read as metres: 6.35 (meant mm), a whole
+		// ball over 0.5 m, refused before any overlap is looked at.
 		{"mm read as m", Coupling{Pairs: []Pair{
 			{Ball: at(0, 0, 0, 6.35), Seat: vee(1, 0)},
 			{Ball: at(0.1, 0, 0, 6.35), Seat: vee(0, 1)},
 			{Ball: at(0, 0.1, 0, 6.35), Seat: vee(1, 1)}}},
+			"Pairs[0].Ball.Radius", "", ErrRange},
+		// Whole balls of 0.4 m, under that bound, with centres 0.1 apart
+		// overlap: 0.1 < 0.4 + 0.4.
+		{"large whole balls overlapping", Coupling{Pairs: []Pair{
+			{Ball: at(0, 0, 0, 0.4), Seat: vee(1, 0)},
+			{Ball: at(0.1, 0, 0, 0.4), Seat: vee(0, 1)},
+			{Ball: at(0, 0.1, 0, 0.4), Seat: vee(1, 1)}}},
 			"Pairs[1].Ball", "Pairs[0].Ball", ErrRange},
 		// The same in metres: 0.1 ≥ 0.00635 + 0.00635.
 		{"the same in metres", Coupling{Pairs: []Pair{
@@ -100,8 +107,9 @@ func TestImpossibleGeometry(t *testing.T) {
 
 // TestOverlapNamesLargerBall: when two whole balls overlap, the error
 // names first the ball of the larger radius, the one a mistyped radius
-// (5 for 5 mm) makes too large, and the other as Other, whichever comes
-// first in Pairs. Balls 0.1 m apart: 0.1 < 5 + 0.005.
+// makes too large (0.2 m for 2 mm, under the 0.5 m that a whole ball is
+// refused at as millimetres), and the other as Other, whichever comes
+// first in Pairs. Balls 0.1 m apart: 0.1 < 0.2 + 0.005.
 func TestOverlapNamesLargerBall(t *testing.T) {
 	vee := func(dx, dy float64) Vee { return Vee{Direction: r3.Vec{X: dx, Y: dy}, Up: up, HalfAngle: math.Pi / 4} }
 	at := func(x, y, z, r float64) Ball { return Ball{Centre: r3.Vec{X: x, Y: y, Z: z}, Radius: r} }
@@ -110,7 +118,7 @@ func TestOverlapNamesLargerBall(t *testing.T) {
 			{Ball: at(0, 0, 0, 5e-3), Seat: vee(1, 0)},
 			{Ball: at(0.1, 0, 0, 5e-3), Seat: vee(0, 1)},
 			{Ball: at(0, 0.1, 0, 5e-3), Seat: vee(1, 1)}}}
-		c.Pairs[big].Ball.Radius = 5
+		c.Pairs[big].Ball.Radius = 0.2
 		// Pairs are checked 1 against 0, then 2 against 0 and 1: the
 		// first overlap found involves ball 1 and ball 0, or, when ball 2
 		// is the large one, ball 2 and ball 0.
@@ -122,18 +130,19 @@ func TestOverlapNamesLargerBall(t *testing.T) {
 		var ie *InputError
 		wantField, wantOther := fmt.Sprintf("Pairs[%d].Ball", big), fmt.Sprintf("Pairs[%d].Ball", other)
 		if !errors.As(err, &ie) || ie.Field != wantField || ie.Other != wantOther || !errors.Is(err, ErrRange) {
-			t.Errorf("ball %d of radius 5 m: %v; want %s, other %s", big, err, wantField, wantOther)
+			t.Errorf("ball %d of radius 0.2 m: %v; want %s, other %s", big, err, wantField, wantOther)
 			continue
 		}
-		if want := fmt.Sprintf("balls %c and %c overlap: radii 5 m and 0.005 m", 'A'+big, 'A'+other); !strings.Contains(err.Error(), want) {
-			t.Errorf("ball %d of radius 5 m: %q lacks %q", big, err, want)
+		if want := fmt.Sprintf("balls %c and %c overlap: radii 0.2 m and 0.005 m", 'A'+big, 'A'+other); !strings.Contains(err.Error(), want) {
+			t.Errorf("ball %d of radius 0.2 m: %q lacks %q", big, err, want)
 		}
 	}
 }
 
 // TestReadmeOverlapSlip: the README's table of slips quotes the error of
-// its tour coupling with the first ball's 5 mm radius written as 5; the
-// quote is what the code prints.
+// its tour coupling with the first ball's 5 mm radius written as 5 (a
+// whole ball over 0.5 m, refused as millimetres); the quote is what the
+// code prints.
 func TestReadmeOverlapSlip(t *testing.T) {
 	b, err := os.ReadFile("../README.md")
 	if err != nil {

@@ -280,17 +280,24 @@ func TestHalfAngleRadiansAsDegrees(t *testing.T) {
 	}
 }
 
-// TestOverlapNamesMistypedBall: balls[0].radius written "3 m" (3 mm
+// TestOverlapNamesMistypedBall: balls[0].radius written "0.2 m" (2 mm
 // meant) makes ball A overlap ball B (their centres lie 86.6 mm apart in
-// the base design, less than 3.00635 m): the error's path is the mistyped
-// ball, balls[0], and balls[1] comes as "see".
+// the base design, less than 0.2 + 0.00635 m): the error's path is the
+// mistyped ball, balls[0], and balls[1] comes as "see". Written "3 m", the
+// radius is refused on its own, as a whole ball over 0.5 m, with the
+// millimetre reading.
 func TestOverlapNamesMistypedBall(t *testing.T) {
-	_, err := Parse([]byte(edit(t, set("balls[0].radius", "3 m"))))
+	_, err := Parse([]byte(edit(t, set("balls[0].radius", "0.2 m"))))
 	var e *Error
 	if !errors.As(err, &e) || e.Path != "balls[0]" || e.Other != "balls[1]" || !errors.Is(err, ErrRange) {
-		t.Fatalf("a 3 m ball: %v; want balls[0], see balls[1]", err)
+		t.Fatalf("a 0.2 m ball: %v; want balls[0], see balls[1]", err)
 	}
-	if want := "balls A and B overlap: radii 3 m and 0.00635 m"; !strings.Contains(err.Error(), want) {
-		t.Errorf("a 3 m ball: %q lacks %q", err, want)
+	if want := "balls A and B overlap: radii 0.2 m and 0.00635 m"; !strings.Contains(err.Error(), want) {
+		t.Errorf("a 0.2 m ball: %q lacks %q", err, want)
+	}
+	_, err = Parse([]byte(edit(t, set("balls[0].radius", "3 m"))))
+	if !errors.As(err, &e) || !strings.HasPrefix(e.Path, "balls[0]") || !errors.Is(err, ErrRange) ||
+		!strings.Contains(err.Error(), "if that is millimetres, it is 0.003 m") {
+		t.Errorf("a 3 m ball: %v; want balls[0] refused with the millimetre reading", err)
 	}
 }
