@@ -127,11 +127,13 @@ func (a *Assembly) apply(g *geom, k int, v float64) {
 // cannot reach its seat (a ball radius that is not positive, a contact
 // that moves more than half its ball's radius across its seat, or no
 // convergence), with the ball named in the reason and the field naming
-// the inputs that moved it: the values of that pair's deviations
-// ("devs[0].Value", several separated by ", ") and its contacts'
-// approaches ("opt.Approach[1]"), or "devs" (and "opt.Approach") when
-// those are zero or no one ball is to blame; and one naming "a" for a nil
-// or zero Assembly.
+// the input that moved the part most: of the deviations and approaches,
+// the one largest for its kind, a length over its pair's ball radius and
+// an angle in radians ("devs[1].Value" or "opt.Approach[2]"; several
+// separated by ", " when equally large). A moved seat can make another
+// ball fail first, so that ball's own small deviations are not blamed.
+// The field is "devs" (and "opt.Approach") when no one ball is to blame
+// (no convergence); and one naming "a" for a nil or zero Assembly.
 func (a *Assembly) Pose(devs []Deviation, opt *PoseOptions) (Pose, error) {
 	if err := a.check(); err != nil {
 		return Pose{}, err
@@ -188,11 +190,17 @@ func (a *Assembly) Pose(devs []Deviation, opt *PoseOptions) (Pose, error) {
 
 // inPoseTerms returns err, an error of seatBlame for the geometry Pose
 // built from devs and approach, with the field naming the inputs of Pose
-// that moved the ball of pair (−1 when no one ball is to blame): the
-// values of that pair's deviations and its contacts' approaches that are
-// not zero; else every deviation, "devs", and "opt.Approach" if given.
-// The reason still names the ball. Without such inputs (a nominal
-// geometry that cannot seat) err is returned as it is.
+// that moved the part most, pair being the pair whose ball could not
+// reach its seat (−1 when no one ball is to blame). The reason still names
+// that ball. Each deviation and approach is measured for its kind: a
+// length over the radius of its pair's ball (half the radius across its
+// seat is where a contact is lost), an angle in radians (a seat turned by
+// θ moves its contacts about r·θ across a ball of radius r: the same
+// measure). The largest is named, with any equal to it; the failing
+// ball's own deviations are not preferred, since a seat moved far can
+// push another ball off first. With pair −1, or no non-zero input, the
+// field is "devs" and "opt.Approach" as given; without either, err is
+// returned as it is (a nominal geometry that cannot seat).
 func (a *Assembly) inPoseTerms(err error, pair int, devs []Deviation, approach []float64) error {
 	var ie *InputError
 	if !errors.As(err, &ie) {
@@ -200,15 +208,25 @@ func (a *Assembly) inPoseTerms(err error, pair int, devs []Deviation, approach [
 	}
 	var fs []string
 	if pair >= 0 {
-		for i, d := range devs {
-			if a.dims[a.index[d.Dimension]].pair == pair && d.Value != 0 {
-				fs = append(fs, indexed("devs", i)+".Value")
+		var worst float64
+		consider := func(field string, size float64) {
+			switch {
+			case size > worst:
+				worst, fs = size, append(fs[:0], field)
+			case size == worst && size > 0:
+				fs = append(fs, field)
 			}
 		}
-		for k, v := range approach {
-			if a.conts[k].pair == pair && v != 0 {
-				fs = append(fs, indexed("opt.Approach", k))
+		for i, d := range devs {
+			dim := &a.dims[a.index[d.Dimension]]
+			size := math.Abs(d.Value)
+			if !dim.angular() {
+				size /= a.pairs[dim.pair].ball.Radius
 			}
+			consider(indexed("devs", i)+".Value", size)
+		}
+		for k, v := range approach {
+			consider(indexed("opt.Approach", k), math.Abs(v)/a.pairs[a.conts[k].pair].ball.Radius)
 		}
 	}
 	if len(fs) == 0 {

@@ -199,8 +199,9 @@ func (r *reader) reqQuantity(o *node, path, key string, k *quantityKind, dst *fl
 // unit of degrees ("0.785 deg" for π/4 rad). A half-angle that small (at
 // most 1.57°) leans the contact normals almost into the plane normal to
 // Up: the walls of a slot, not a seat that carries the part; seats lean
-// 30° to 60° (common practice). Only half-angles: a tilt or an azimuth of
-// 1° is legitimate.
+// 30° to 60° (common practice). The message gives the radian reading only
+// up to 1.2 (69°), where it is a usual half-angle. Only half-angles: a
+// tilt or an azimuth of 1° is legitimate.
 func radiansAsDegrees(n *node, path string, v float64) error {
 	if n == nil || n.kind != stringNode {
 		return nil
@@ -209,11 +210,21 @@ func radiansAsDegrees(n *node, path string, v float64) error {
 	if u := normaliseUnit(rest); !ok || (u != "deg" && u != "°") {
 		return nil
 	}
-	if deg := v / radPerDeg; deg > 0 && deg <= math.Pi/2 {
-		return errorf(path, ErrRange, "%s: if that is radians, it is %.3g deg; a half-angle of %.3g° would leave the contact normals almost flat (vee and cone half-angles are usually 30 to 60 deg)",
-			n.text, deg*180/math.Pi, deg)
+	deg := v / radPerDeg
+	if !(deg > 0 && deg <= math.Pi/2) {
+		return nil
 	}
-	return nil
+	// The radian reading is offered only where it is a usual half-angle
+	// (at most 1.2 rad, 69°): at 1.57 it would be 90°, which the field
+	// refuses too.
+	hint := ""
+	if deg <= 1.2 {
+		hint = fmt.Sprintf(": if that is radians, it is %.3g deg;", deg*180/math.Pi)
+	} else {
+		hint = ":"
+	}
+	return errorf(path, ErrRange, "%s%s a half-angle of %.3g° leans the contact normals within %.3g° of horizontal, the walls of a slot rather than a seat (vee and cone half-angles are usually 30 to 60 deg)",
+		n.text, hint, deg, deg)
 }
 
 func (r *reader) optVector(o *node, path, key string, k *quantityKind, dst *r3.Vec) error {

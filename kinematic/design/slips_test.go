@@ -250,17 +250,22 @@ func TestToleranceOutOfProportion(t *testing.T) {
 // 44.98°, printed "45 deg" (hand arithmetic); 1.5 rad is 85.9°. Just
 // above π/2, an azimuth of 1 deg and a tolerance of 1 deg are left alone.
 func TestHalfAngleRadiansAsDegrees(t *testing.T) {
+	// π/4 = 0.785 rad is 45°; 1.2 rad is 68.8°, the largest reading
+	// offered; 1.5 and 1.5707 would read 85.9° and 90° (the field refuses
+	// 90° itself), so only the slot is said.
 	for _, tc := range []struct {
-		v, want string
+		v, want, not string
 	}{
-		{"0.785 deg", "0.785 deg: if that is radians, it is 45 deg"},
-		{"1.5 °", "1.5 °: if that is radians, it is 85.9 deg"},
-		{"1.5707 deg", "if that is radians, it is 90 deg"},
+		{"0.785 deg", "0.785 deg: if that is radians, it is 45 deg; a half-angle of 0.785° leans the contact normals within 0.785° of horizontal", ""},
+		{"1.2 deg", "1.2 deg: if that is radians, it is 68.8 deg;", ""},
+		{"1.5 °", "1.5 °: a half-angle of 1.5° leans the contact normals within 1.5° of horizontal, the walls of a slot", "if that is radians"},
+		{"1.5707 deg", "the walls of a slot", "if that is radians"},
 	} {
 		_, err := Parse([]byte(edit(t, set("seats[1].half_angle", tc.v))))
 		var e *Error
-		if !errors.As(err, &e) || e.Path != "seats[1].half_angle" || !errors.Is(err, ErrRange) || !strings.Contains(err.Error(), tc.want) {
-			t.Errorf("half_angle %q: %v; want seats[1].half_angle refused with %q", tc.v, err, tc.want)
+		if !errors.As(err, &e) || e.Path != "seats[1].half_angle" || !errors.Is(err, ErrRange) || !strings.Contains(err.Error(), tc.want) ||
+			(tc.not != "" && strings.Contains(err.Error(), tc.not)) {
+			t.Errorf("half_angle %q: %v; want seats[1].half_angle refused with %q (and not %q)", tc.v, err, tc.want, tc.not)
 		}
 	}
 	for _, change := range []func(map[string]any){
