@@ -10,7 +10,7 @@ import (
 // Material is an isotropic linear-elastic solid.
 type Material struct {
 	Name      string
-	E         float64 // Young's modulus, Pa, at least 1e6 (208 GPa is 208e9); math.Inf(1) for a rigid body
+	E         float64 // Young's modulus, Pa, at least 1e4 (208 GPa is 208e9); math.Inf(1) for a rigid body
 	Nu        float64 // Poisson's ratio, in (−1, 0.5]
 	Alpha     float64 // linear thermal expansion coefficient near 20 °C, 1/K (not used by Solve; for error budgets)
 	Allowable float64 // allowable static peak contact pressure, Pa, where a published figure or a cited strength supports one; 0 means no allowable on file
