@@ -46,7 +46,7 @@ const validRatio = 0.1
 //
 // Errors are *InputError wrapping ErrNonFinite (a NaN, or an infinity
 // where a finite number is needed), ErrRange (a field outside its domain,
-// among them a Young's modulus below 1e6 Pa, which can only be one in GPa
+// among them a Young's modulus below 1e4 Pa, which can only be one in GPa
 // or MPa written as Pa; a negative or subnormal load; a result that would
 // overflow or underflow the normal float64 range), or
 // ErrLineContact or ErrGeometry (no Hertz point contact; both refine

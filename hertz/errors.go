@@ -103,3 +103,14 @@ func checkMu(mu float64) error {
 	}
 	return nil
 }
+
+// checkMuLow returns an *InputError for "mu" when the coefficient of
+// friction mu is not finite or below the entry's lower bound (≥ 0 when
+// zeroOK, > 0 otherwise), worded as package kinematic words it
+// (errs.CheckMuLow).
+func checkMuLow(mu float64, zeroOK bool) error {
+	if err := errs.CheckMuLow(mu, zeroOK); err != nil {
+		return &InputError{Field: "mu", Err: err}
+	}
+	return nil
+}

@@ -10,7 +10,7 @@ import (
 // Material is an isotropic linear-elastic solid.
 type Material struct {
 	Name      string
-	E         float64 // Young's modulus, Pa, at least 1e6 (208 GPa is 208e9); math.Inf(1) for a rigid body
+	E         float64 // Young's modulus, Pa, at least 1e4 (208 GPa is 208e9); math.Inf(1) for a rigid body
 	Nu        float64 // Poisson's ratio, in (−1, 0.5]
 	Alpha     float64 // linear thermal expansion coefficient near 20 °C, 1/K (not used by Solve; for error budgets)
 	Allowable float64 // allowable static peak contact pressure, Pa, where a published figure or a cited strength supports one; 0 means no allowable on file
@@ -173,13 +173,14 @@ func Materials() []Material {
 	}
 }
 
-// minModulus is the smallest Young's modulus accepted, Pa. The softest
-// solids that touch in a mechanism, elastomers, lie at about 1e6 to 1e8 Pa
-// (from memory; common practice), and the balls and seats of a kinematic
-// coupling (steels, ceramics, glasses, aluminium, polymers of a few GPa)
-// far above, so a smaller figure is a modulus written in GPa or MPa as if
-// it were in Pa (208 for 208 GPa).
-const minModulus = 1e6
+// minModulus is the smallest Young's modulus accepted, Pa. Soft silicones
+// and gels that could still carry a ball lie down to about 1e5 Pa and
+// below (common practice, not a cited value), and the balls and seats of a
+// kinematic coupling (steels, ceramics, glasses, aluminium, polymers of a
+// few GPa) far above, so a figure under 1e4 Pa is no solid that could seat
+// a ball: it is a modulus written in GPa or MPa as if it were in Pa (208
+// for 208 GPa).
+const minModulus = 1e4
 
 // checkMaterial validates a material; name is the body's field ("b1").
 func checkMaterial(m *Material, name string) error {
@@ -193,17 +194,19 @@ func checkMaterial(m *Material, name string) error {
 	case !(m.E > 0):
 		return rangeErr(name+".Material.E", "Young's modulus must be positive (or +Inf for a rigid body), got %g", m.E)
 	case m.E < minModulus:
-		// From 1 to 2000 the figure reads as GPa (diamond, the stiffest
-		// solid, is about 1200 GPa; from memory), above as MPa; below 1
-		// it is no modulus in either.
+		// A reading is offered only where it is a plausible modulus: from
+		// 1 to 1000 the figure read as GPa is 1 GPa to 1 TPa (polymers to
+		// diamond, about 1200 GPa, from memory); from 1000 to 1e4 read as
+		// MPa it is 1 to 10 GPa (polymers). Below 1 it is no modulus in
+		// either.
 		hint := ""
 		switch {
-		case m.E >= 2000:
+		case m.E > 1000:
 			hint = fmt.Sprintf(": a modulus in MPa? %g MPa is %g Pa", m.E, m.E*1e6)
 		case m.E >= 1:
 			hint = fmt.Sprintf(": a modulus in GPa? %g GPa is %g Pa", m.E, m.E*1e9)
 		}
-		return rangeErr(name+".Material.E", "%g Pa%s; Young's modulus is in Pa, at least %g Pa (an elastomer's)", m.E, hint, float64(minModulus))
+		return rangeErr(name+".Material.E", "%g Pa%s; Young's modulus is in Pa, at least %g Pa (softer than any solid that could seat a ball)", m.E, hint, float64(minModulus))
 	case !linalg.Finite(m.Nu):
 		return nonFiniteErr(name+".Material.Nu", "Poisson's ratio must be finite, in (-1, 0.5], got %g", m.Nu)
 	case !(m.Nu > -1 && m.Nu <= 0.5):

@@ -256,10 +256,13 @@ func TestMaterialValues(t *testing.T) {
 	}
 }
 
-// TestModulusInPa: a Young's modulus below 1e6 Pa (below any elastomer's)
-// is refused naming the body's field, with the reading it probably had:
-// 208 is steel's 208 GPa = 2.08e+11 Pa, 210000 its 210000 MPa =
-// 2.1e+11 Pa (hand conversions); 0.5 reads as neither. 1e6 Pa is accepted.
+// TestModulusInPa: a Young's modulus below 1e4 Pa (softer than any solid
+// that could seat a ball; common practice) is refused naming the body's
+// field, with a reading only where it is a plausible modulus (hand
+// conversions): 208 is steel's 208 GPa = 2.08e+11 Pa, 1000 read as GPa is
+// 1e+12 Pa (about diamond), 3600 is PEEK's 3600 MPa = 3.6e+09 Pa, 9999 MPa
+// is 9.999e+09 Pa; 0.5 reads as neither. 1e4 Pa and a soft silicone's
+// 0.5 MPa = 5e5 Pa are accepted, with no hint offered on them.
 func TestModulusInPa(t *testing.T) {
 	for _, tc := range []struct {
 		e     float64
@@ -267,9 +270,10 @@ func TestModulusInPa(t *testing.T) {
 		want  string
 	}{
 		{208, "b1.Material.E", "208 Pa: a modulus in GPa? 208 GPa is 2.08e+11 Pa"},
-		{210000, "b1.Material.E", "210000 Pa: a modulus in MPa? 210000 MPa is 2.1e+11 Pa"},
-		{0.5, "b1.Material.E", "0.5 Pa; Young's modulus is in Pa, at least 1e+06 Pa"},
-		{999999, "b1.Material.E", "at least 1e+06 Pa"},
+		{1000, "b1.Material.E", "1000 Pa: a modulus in GPa? 1000 GPa is 1e+12 Pa"},
+		{3600, "b1.Material.E", "3600 Pa: a modulus in MPa? 3600 MPa is 3.6e+09 Pa"},
+		{9999, "b1.Material.E", "9999 Pa: a modulus in MPa? 9999 MPa is 9.999e+09 Pa"},
+		{0.5, "b1.Material.E", "0.5 Pa; Young's modulus is in Pa, at least 10000 Pa"},
 	} {
 		_, err := Solve(Sphere(0.003, Material{E: tc.e, Nu: 0.3}), Flat(Steel440C), 10)
 		var ie *InputError
@@ -281,7 +285,9 @@ func TestModulusInPa(t *testing.T) {
 			t.Errorf("E = %g Pa as the second body: %v; want b2.Material.E", tc.e, err)
 		}
 	}
-	if _, err := Solve(Sphere(0.003, Material{E: 1e6, Nu: 0.3}), Flat(Steel440C), 10); err != nil {
-		t.Errorf("E = 1e6 Pa: %v; want accepted", err)
+	for _, e := range []float64{1e4, 5e5} {
+		if _, err := Solve(Sphere(0.003, Steel52100), Flat(Material{E: e, Nu: 0.49}), 1); err != nil {
+			t.Errorf("E = %g Pa: %v; want accepted", e, err)
+		}
 	}
 }

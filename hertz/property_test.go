@@ -82,8 +82,8 @@ func TestLoadScaling(t *testing.T) {
 // centimetres (radii ×100, moduli ×1e-4, i.e. N/cm², load unchanged)
 // gives a, b, δ and depths ×100, pressures and stresses ×1e-4 and
 // stiffness ×1e-2, to 1e-12 (ARCHITECTURE.md: results scale exactly).
-// Centimetres, not millimetres: a modulus in N/mm² (208000 for steel) is
-// below the 1e6 Pa that Solve accepts, refused as a modulus in MPa
+// Centimetres, not millimetres: a modulus in N/mm² (3600 for a polymer) can
+// fall below the 1e4 Pa that Solve accepts, refused as a modulus in MPa
 // written as Pa.
 func TestUnitScaling(t *testing.T) {
 	inCm := func(b Body) Body {

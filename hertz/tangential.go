@@ -55,11 +55,8 @@ func (c Contact) tangentialStiffness(mu, q float64) (float64, error) {
 	if err := c.check(); err != nil {
 		return 0, err
 	}
-	if !linalg.Finite(mu) {
-		return 0, nonFiniteErr("mu", "coefficient of friction must be finite and > 0, got %g", mu)
-	}
-	if !(mu > 0) {
-		return 0, rangeErr("mu", "coefficient of friction must be finite and > 0, got %g", mu)
+	if err := checkMuLow(mu, false); err != nil {
+		return 0, err
 	}
 	if !linalg.Finite(q) {
 		return 0, nonFiniteErr("q", "tangential load must be finite, got %g", q)
@@ -98,11 +95,8 @@ func (c Contact) tangentialStiffness(mu, q float64) (float64, error) {
 // 15% is 0.15), or when μN, for positive mu
 // and load, would overflow or underflow the normal float64 range.
 func (c Contact) SlidingLimit(mu float64) (float64, error) {
-	if !linalg.Finite(mu) {
-		return 0, nonFiniteErr("mu", "coefficient of friction must be finite and ≥ 0, got %g", mu)
-	}
-	if mu < 0 {
-		return 0, rangeErr("mu", "coefficient of friction must be finite and ≥ 0, got %g", mu)
+	if err := checkMuLow(mu, true); err != nil {
+		return 0, err
 	}
 	if err := checkMu(mu); err != nil {
 		return 0, err

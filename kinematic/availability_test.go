@@ -88,6 +88,53 @@ func TestScoreAvailability(t *testing.T) {
 	}
 }
 
+// TestScoreRefusesBadMaterial: a figure is unavailable for an input left
+// out, not for a bad one. A vee of modulus 208 (steel's 208 GPa written as
+// Pa) is refused by Score and Optimize as by Statics, naming the seat as
+// the caller wrote it (the vee is pair B, Pairs[1]), with hertz's reading
+// "208 GPa is 2.08e+11 Pa" (hand conversion); the same coupling with no
+// material on that vee is scored, its Hertz figures unavailable.
+func TestScoreRefusesBadMaterial(t *testing.T) {
+	bad := vee45
+	bad.Material = hertz.Material{Name: "x", E: 208, Nu: 0.3}
+	c, err := SocketVeeFlat(equilateral(), cube, bad, flatUp)
+	if err != nil {
+		t.Fatal(err)
+	}
+	s := scenario()
+	var ie *InputError
+	const field, want = "Pairs[1].Seat.Material.E", "208 GPa is 2.08e+11 Pa"
+	if _, err := c.Score(s); !errors.As(err, &ie) || ie.Field != field || !errors.Is(err, ErrRange) || !strings.Contains(err.Error(), want) {
+		t.Errorf("Score: %v; want %s refused with %q", err, field, want)
+	}
+	if _, err := Optimize(c, s, nil); !errors.As(err, &ie) || ie.Field != field || !errors.Is(err, ErrRange) {
+		t.Errorf("Optimize: %v; want %s refused", err, field)
+	}
+	cs, err := c.Contacts()
+	if err != nil {
+		t.Fatal(err)
+	}
+	m, err := NewModel(cs, s.Preloads, s.Payload)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if _, err := m.Statics(LoadCase{Gravity: s.Gravity}); !errors.Is(err, ErrRange) || !strings.Contains(err.Error(), want) {
+		t.Errorf("Statics: %v; want the same refusal", err)
+	}
+	bad.Material = hertz.Material{}
+	c, err = SocketVeeFlat(equilateral(), cube, bad, flatUp)
+	if err != nil {
+		t.Fatal(err)
+	}
+	card, err := c.Score(s)
+	if err != nil {
+		t.Fatalf("no material: %v; want scored", err)
+	}
+	if !card.Unavailable.Has(FigureStiffness | FigurePressureRatio) {
+		t.Errorf("no material: unavailable %v, want Stiffness and PressureRatio among them", card.Unavailable)
+	}
+}
+
 // TestScoreMasslessShockIsUnbounded: a massless payload is loaded by no
 // acceleration, so the shock level is the documented +Inf, not a zero.
 func TestScoreMasslessShockIsUnbounded(t *testing.T) {

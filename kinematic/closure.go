@@ -184,11 +184,8 @@ func FormClosure(cs []Contact) (Closure, error) {
 // non-finite Tangent ([ErrNonFinite]) or one along the Normal
 // ([ErrDegenerate]), and the errors of [FormClosure].
 func ForceClosure(cs []Contact, mu float64, opt *ClosureOptions) (Closure, error) {
-	if !linalg.Finite(mu) {
-		return Closure{}, &InputError{Field: "mu", Err: fmt.Errorf("%w: %g", ErrNonFinite, mu)}
-	}
-	if mu < 0 {
-		return Closure{}, &InputError{Field: "mu", Err: fmt.Errorf("%w: a friction coefficient must not be negative, got %g", ErrRange, mu)}
+	if err := checkMuLow(mu, true); err != nil {
+		return Closure{}, err
 	}
 	if err := checkMu(mu); err != nil {
 		return Closure{}, err

@@ -74,8 +74,15 @@ func TestErrors(t *testing.T) {
 	if _, err := BisectorVees([3]Ball{ball(0, 0, 0), ball(10, 0, 0), ball(20, 0, 0)}, three(vee45)); !errors.Is(err, ErrDegenerate) {
 		t.Errorf("collinear balls: err = %v, want ErrDegenerate", err)
 	}
-	if _, err := AimedVees(isosceles(), r3.Vec{X: -60e-3, Z: 1}, three(vee45)); !errors.Is(err, ErrDegenerate) {
-		t.Errorf("target above a ball: err = %v, want ErrDegenerate", err)
+	// A target straight above a ball (isosceles(): A at x = -60 mm, B at
+	// +60 mm) names that ball by its letter, as every other message does.
+	for _, tc := range []struct {
+		x    float64
+		ball string
+	}{{-60e-3, "ball A "}, {60e-3, "ball B "}} {
+		if _, err := AimedVees(isosceles(), r3.Vec{X: tc.x, Z: 1}, three(vee45)); !errors.Is(err, ErrDegenerate) || !strings.Contains(err.Error(), "the groove of "+tc.ball) {
+			t.Errorf("target above %s: err = %v, want ErrDegenerate naming %q", tc.ball, err, tc.ball)
+		}
 	}
 }
 

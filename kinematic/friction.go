@@ -89,11 +89,8 @@ func (m *Model) Homing(lc LoadCase, mu float64) (Homing, error) {
 	if !m.exact {
 		return Homing{}, m.errNotExact()
 	}
-	if !linalg.Finite(mu) {
-		return Homing{}, &InputError{Field: "mu", Err: fmt.Errorf("%w: %g", ErrNonFinite, mu)}
-	}
-	if mu < 0 {
-		return Homing{}, &InputError{Field: "mu", Err: fmt.Errorf("%w: must be ≥ 0, got %g", ErrRange, mu)}
+	if err := checkMuLow(mu, true); err != nil {
+		return Homing{}, err
 	}
 	if err := checkMu(mu); err != nil {
 		return Homing{}, err
@@ -262,11 +259,8 @@ func (m *Model) Repeatability(lc LoadCase, mu float64, p r3.Vec) (Repeatability,
 	if err := m.check(); err != nil {
 		return Repeatability{}, err
 	}
-	if !linalg.Finite(mu) {
-		return Repeatability{}, &InputError{Field: "mu", Err: fmt.Errorf("%w: %g", ErrNonFinite, mu)}
-	}
-	if !(mu > 0) {
-		return Repeatability{}, &InputError{Field: "mu", Err: fmt.Errorf("%w: must be > 0, got %g", ErrRange, mu)}
+	if err := checkMuLow(mu, false); err != nil {
+		return Repeatability{}, err
 	}
 	if err := checkMu(mu); err != nil {
 		return Repeatability{}, err

@@ -182,7 +182,8 @@ func TestRepeatability(t *testing.T) {
 
 // TestMuPercentage: every kinematic entry that takes a coefficient of
 // friction refuses μ = 15 (meant as 15%, μ = 0.15) naming "mu", with the
-// design file's wording, and accepts μ = 3, the bound.
+// design file's wording, and accepts μ = 3, the bound; a negative or NaN
+// μ is refused in one wording by all.
 func TestMuPercentage(t *testing.T) {
 	m, cs := equilateralModel(t, math.Pi/4, 60, 0, 0)
 	lc := LoadCase{Name: "preload"}
@@ -197,6 +198,23 @@ func TestMuPercentage(t *testing.T) {
 		{"ForceClosure", func(mu float64) error { _, err := ForceClosure(cs, mu, nil); return err }},
 		{"Hysteresis", func(mu float64) error { _, err := m.Hysteresis(lc, steps, mu, p); return err }},
 	} {
+		// One wording for a negative μ, each entry keeping its bound:
+		// ≥ 0 where μ = 0 has an answer (Homing, ForceClosure), > 0
+		// where it has none (Repeatability, Hysteresis).
+		zeroOK := tc.name == "Homing" || tc.name == "ForceClosure"
+		want := "out of range: a coefficient of friction must be > 0, got -0.1"
+		if zeroOK {
+			want = "out of range: a coefficient of friction must be ≥ 0, got -0.1"
+		}
+		if err := tc.call(-0.1); !errors.Is(err, ErrRange) || !strings.Contains(err.Error(), "mu: "+want) {
+			t.Errorf("%s(μ = -0.1): %v; want %q", tc.name, err, want)
+		}
+		if err := tc.call(0); (err == nil) != zeroOK {
+			t.Errorf("%s(μ = 0): %v; want accepted %v", tc.name, err, zeroOK)
+		}
+		if err := tc.call(math.NaN()); !errors.Is(err, ErrNonFinite) || !strings.Contains(err.Error(), "a coefficient of friction must be finite") {
+			t.Errorf("%s(μ = NaN): %v; want mu refused as not finite", tc.name, err)
+		}
 		err := tc.call(15)
 		var ie *InputError
 		if !errors.As(err, &ie) || ie.Field != "mu" || !errors.Is(err, ErrRange) ||

@@ -120,7 +120,7 @@ func aimed(balls [3]Ball, vees [3]Vee, target r3.Vec, blame func(int) string) (C
 		}
 		if !ok {
 			return Coupling{}, &InputError{Field: blame(i), Err: fmt.Errorf(
-				"%w: the groove of ball %d would point along its seat's Up", ErrDegenerate, i)}
+				"%w: the groove of ball %s would point along its seat's Up (the target lies on the line through the ball along that Up)", ErrDegenerate, pairName("", i))}
 		}
 		v.Direction = g
 		c.Pairs[i] = Pair{Name: pairName("", i), Ball: b, Seat: v}

@@ -113,11 +113,8 @@ func (m *Model) hysteresis(lc LoadCase, steps []CycleStep, mu float64, p r3.Vec)
 	if !m.exact {
 		return Hysteresis{}, m.errNotExact()
 	}
-	if !linalg.Finite(mu) {
-		return Hysteresis{}, &InputError{Field: "mu", Err: fmt.Errorf("%w: %g", ErrNonFinite, mu)}
-	}
-	if !(mu > 0) {
-		return Hysteresis{}, &InputError{Field: "mu", Err: fmt.Errorf("%w: must be > 0, got %g", ErrRange, mu)}
+	if err := checkMuLow(mu, false); err != nil {
+		return Hysteresis{}, err
 	}
 	if !linalg.Finite3(p) {
 		return Hysteresis{}, &InputError{Field: "p", Err: fmt.Errorf("%w: %v", ErrNonFinite, p)}

@@ -128,10 +128,15 @@ type Model struct {
 // contactLaw is the Hertz description of one contact: its force–approach
 // law, its allowable and its prepared pair of bodies.
 type contactLaw struct {
-	pair  hertz.Pair // the two bodies, prepared
-	err   error      // why the contact has no Hertz model, in the caller's terms
-	allow float64    // the allowable peak pressure, Pa; 0 when none is on file
-	k     float64    // F = k δ^(3/2), N/m^(3/2)
+	pair hertz.Pair // the two bodies, prepared
+	err  error      // why the contact has no Hertz model, in the caller's terms
+	// missing is true when err is for an input left out (no surfaces, no
+	// material) or a contact outside the Hertz model (a cone's ring), for
+	// which a figure is unavailable; false when err is a bad input (a
+	// material's modulus in GPa written as Pa), which a scorecard refuses.
+	missing bool
+	allow   float64 // the allowable peak pressure, Pa; 0 when none is on file
+	k       float64 // F = k δ^(3/2), N/m^(3/2)
 }
 
 // preloadLine is one preload element about origin.
@@ -234,6 +239,7 @@ func newContactLaw(c *Contact, i int) contactLaw {
 	if c.Moving == (hertz.Body{}) || c.Base == (hertz.Body{}) {
 		s.err = &InputError{Field: moving + ", " + base, Err: fmt.Errorf(
 			"%w: contact %s has no Hertz surfaces (given by hand?)", ErrDegenerate, labelOf(c.Label, i))}
+		s.missing = true
 		return s
 	}
 	for _, b := range [...]struct {
@@ -244,6 +250,7 @@ func newContactLaw(c *Contact, i int) contactLaw {
 			s.err = &InputError{Field: b.field + ".Material", Err: fmt.Errorf(
 				"%w: contact %s has no material on its %s side: set the Material of that ball or seat (a hertz.Material such as hertz.Steel440C)",
 				ErrDegenerate, labelOf(c.Label, i), b.what)}
+			s.missing = true
 			return s
 		}
 	}
@@ -261,6 +268,7 @@ func newContactLaw(c *Contact, i int) contactLaw {
 		s.err = fromHertz(err, moving, base, nil)
 		var ie *InputError
 		if errors.Is(err, hertz.ErrLineContact) && errors.As(s.err, &ie) {
+			s.missing = true
 			ie.Err = fmt.Errorf(
 				"%w (contact %s bears along a line, as a ball in a cone bears on a ring; no ring-contact model is provided, so only rigid-statics forces are computed, not its stiffness or stresses)",
 				ie.Err, labelOf(c.Label, i))

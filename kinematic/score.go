@@ -219,7 +219,9 @@ type Scorecard struct {
 // [Scorecard.Unavailable] (see [Figure]); the others are computed.
 //
 // Score returns the errors of [Coupling.Contacts], [Analyze] and
-// [NewModel], and an [*InputError] wrapping [ErrNotExact] for a set that
+// [NewModel], the error of a contact's Hertz law that [Model.Statics]
+// returns for a bad input (a ball's or seat's Material refused by
+// package hertz, such as a modulus in GPa written as Pa), and an [*InputError] wrapping [ErrNotExact] for a set that
 // is not exactly constrained. When the preload and gravity put a contact
 // in tension (the part lifts off its seats), it returns one wrapping
 // [ErrRange] naming the input that pulls that contact hardest, as the
@@ -352,6 +354,11 @@ func newScorer(c Coupling, s Scenario) (*scorer, error) {
 	for i := range cs {
 		sf := &m.surf[i]
 		if sf.err != nil {
+			// A figure is unavailable for an input left out, not for a
+			// bad one: a material Statics refuses is refused here too.
+			if !sf.missing {
+				return nil, scenarioErr(sf.err, c, cs)
+			}
 			if sc.kerr == nil {
 				sc.kerr = sf.err
 			}

@@ -80,7 +80,16 @@ func (s Spectrum) prepare() (spectrum, error) {
 		case !allFinite(b.Slope):
 			return spectrum{}, &InputError{Field: field + ".Slope", Err: fmt.Errorf("%w: %g dB/octave", ErrNonFinite, b.Slope)}
 		case i == 0 && b.Slope != 0:
-			return spectrum{}, &InputError{Field: field + ".Slope", Err: fmt.Errorf("%w: the first breakpoint has no segment before it for a slope of %g dB/octave", ErrRange, b.Slope)}
+			// A slope belongs to the segment ending at its breakpoint; a
+			// table that lists "20 Hz, +6 dB/octave" means the segment
+			// after 20 Hz, which is the next breakpoint's (Other).
+			seg := ""
+			if f1 := p[1].Frequency; allFinite(f1) && f1 > b.Frequency {
+				seg = fmt.Sprintf(" (the segment from %g Hz to %g Hz)", b.Frequency, f1)
+			}
+			return spectrum{}, &InputError{Field: field + ".Slope", Other: indexed("Points", 1) + ".Slope", Err: fmt.Errorf(
+				"%w: the first breakpoint has no segment before it for a slope of %g dB/octave: a slope belongs to the segment that ends at its breakpoint, so give it on the next breakpoint%s",
+				ErrRange, b.Slope, seg)}
 		case i > 0 && b.Slope != 0 && b.ASD > 0 && p[i-1].ASD > 0:
 			return spectrum{}, &InputError{Field: field + ".Slope", Err: fmt.Errorf("%w: both ends of the segment have a level, so a slope of %g dB/octave would contradict them; give one level or the other", ErrRange, b.Slope)}
 		}
@@ -120,14 +129,16 @@ func (s Spectrum) prepare() (spectrum, error) {
 	return sp, nil
 }
 
-// errNoSlope refuses breakpoint i, at f Hz, whose level is 0 (to follow
+// errNoSlope refuses breakpoint i (Other), at f Hz, whose level is 0 (to follow
 // from a slope) while the slope of the segment that would carry the
 // neighbouring level a to it, Points[j].Slope, is 0 too: read as a flat
 // segment, it would be the level a unchanged, but a caller who wrote a
 // level of 0 meaning "no vibration" or who left the slope out meant
 // something else, and a flat segment is written by repeating the level.
 func errNoSlope(i, j int, f, a float64, which string) error {
-	return &InputError{Field: indexed("Points", j) + ".Slope", Other: indexed("Points", i) + ".ASD", Err: fmt.Errorf(
+	// Other names the breakpoint, not its ASD, which the caller may not
+	// have written (a design file's breakpoint with no "asd" key).
+	return &InputError{Field: indexed("Points", j) + ".Slope", Other: indexed("Points", i), Err: fmt.Errorf(
 		"%w: the breakpoint at %g Hz has no level (ASD 0) and the segment that would carry the %s level to it no slope (0 dB/octave): "+
 			"for a flat segment repeat the level, %g g²/Hz, at %g Hz; a level of 0 is not a spectrum level (the band ends at its last breakpoint); otherwise give the slope in dB/octave",
 		ErrRange, f, which, a, f)}

@@ -201,6 +201,24 @@ func TestSpectrumPublishedLevels(t *testing.T) {
 	}
 }
 
+// TestSpectrumFirstSlope: a slope on the first breakpoint (a table's "20
+// Hz, +3 dB/octave", the trial's GEVS-style spectrum) is refused on it,
+// saying where the slope goes: the next breakpoint's slope, the segment
+// from 20 Hz to 50 Hz, named as the caller wrote it (Points[1].Slope for
+// Spectrum, s.Points[1].Slope from Random).
+func TestSpectrumFirstSlope(t *testing.T) {
+	bad := Spectrum{Points: []Breakpoint{{Frequency: 20, Slope: 3}, {Frequency: 50, ASD: 0.16}, {Frequency: 800, ASD: 0.16}, {Frequency: 2000, Slope: -3}}}
+	_, err := bad.GRMS()
+	var ie *InputError
+	if !errors.As(err, &ie) || ie.Field != "Points[0].Slope" || ie.Other != "Points[1].Slope" || !errors.Is(err, ErrRange) ||
+		!strings.Contains(err.Error(), "give it on the next breakpoint (the segment from 20 Hz to 50 Hz); see Points[1].Slope") {
+		t.Errorf("err = %v, want Points[0].Slope refused, pointing to Points[1].Slope and the segment from 20 Hz to 50 Hz", err)
+	}
+	if _, err := symmetricModel(t).Random(gravityDown, bad, nil); !errors.As(err, &ie) || ie.Field != "s.Points[0].Slope" || ie.Other != "s.Points[1].Slope" {
+		t.Errorf("Random: err = %v, want s.Points[0].Slope, see s.Points[1].Slope", err)
+	}
+}
+
 // TestSpectrumZeroLevelZeroSlope: a breakpoint with no level whose
 // segment has no slope is refused, naming the slope and the level, with
 // the fix in the message; Random names it as its caller wrote it. The
@@ -211,16 +229,16 @@ func TestSpectrumZeroLevelZeroSlope(t *testing.T) {
 	bad := Spectrum{Points: []Breakpoint{{Frequency: 20, ASD: 0.01}, {Frequency: 2000, ASD: 0}}}
 	_, err := bad.GRMS()
 	var ie *InputError
-	if !errors.As(err, &ie) || ie.Field != "Points[1].Slope" || ie.Other != "Points[1].ASD" || !errors.Is(err, ErrRange) {
-		t.Fatalf("err = %v, want an InputError on Points[1].Slope, see Points[1].ASD", err)
+	if !errors.As(err, &ie) || ie.Field != "Points[1].Slope" || ie.Other != "Points[1]" || !errors.Is(err, ErrRange) {
+		t.Fatalf("err = %v, want an InputError on Points[1].Slope, see Points[1]", err)
 	}
 	for _, want := range []string{"repeat the level, 0.01 g²/Hz, at 2000 Hz", "give the slope in dB/octave"} {
 		if !strings.Contains(err.Error(), want) {
 			t.Errorf("%v: no %q", err, want)
 		}
 	}
-	if _, err := symmetricModel(t).Random(gravityDown, bad, nil); !errors.As(err, &ie) || ie.Field != "s.Points[1].Slope" || ie.Other != "s.Points[1].ASD" {
-		t.Errorf("Random: err = %v, want an InputError on s.Points[1].Slope, see s.Points[1].ASD", err)
+	if _, err := symmetricModel(t).Random(gravityDown, bad, nil); !errors.As(err, &ie) || ie.Field != "s.Points[1].Slope" || ie.Other != "s.Points[1]" {
+		t.Errorf("Random: err = %v, want an InputError on s.Points[1].Slope, see s.Points[1]", err)
 	}
 	// 0.01 g²/Hz flat from 20 Hz to 2000 Hz: 0.01·1980 = 19.8 g², 4.450 grms.
 	flat := Spectrum{Points: []Breakpoint{{Frequency: 20, ASD: 0.01}, {Frequency: 2000, ASD: 0.01}}}

@@ -281,8 +281,8 @@ func TestStiffnessAgainstEquilibrium(t *testing.T) {
 // inertia in 100 kg·cm² ×1e2) has the same forces, shock level in cm/s²
 // ×100, stiffness in N/cm ×1e-2, and the same natural frequencies: the
 // equations are the same in any coherent set of units. Centimetres, not
-// millimetres: a modulus in N/mm² (MPa) is below the 1e6 that hertz
-// accepts, refused as a modulus in MPa written as Pa.
+// millimetres: a modulus in N/mm² (MPa) can fall below the 1e4 that
+// hertz accepts, refused as a modulus in MPa written as Pa.
 func TestLoadsScaleInvariance(t *testing.T) {
 	si, siCs := equilateralModel(t, math.Pi/4, 60, 0.8, 0.03)
 	cm := make([]Contact, len(siCs))

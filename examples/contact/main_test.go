@@ -247,6 +247,7 @@ func TestReportUnits(t *testing.T) {
 		{"-material1", "invar-36", "-material2", "tungsten-carbide", "-load", "2 kN"},
 		{"-material1", "custom", "-E1", "210 GPa", "-nu1", "0.3", "-allowable1", "2 GPa", "-material2", "custom", "-E2", "70 GPa", "-nu2", "0.33"},
 		{"-load", "50000 N"}, // exceeds the allowable
+		{"-material2", "custom", "-E2", "0.5MPa", "-nu2", "0.49", "-load", "0.1 N"}, // a soft silicone seat: accepted
 	}
 	for _, args := range runs {
 		if ps := problems(out(t, args...)); len(ps) != 0 {
@@ -282,6 +283,7 @@ func TestBadFlags(t *testing.T) {
 		{[]string{"-mu", "0"}, "-mu"},
 		{[]string{"-mu", "abc"}, "-mu"},
 		{[]string{"-material1", "custom", "-E1", "208Pa", "-nu1", "0.3"}, "-E1: out of range: 208 Pa: a modulus in GPa? 208 GPa is 2.08e+11 Pa"},
+		{[]string{"-material2", "custom", "-E2", "3600Pa", "-nu2", "0.38"}, "-E2: out of range: 3600 Pa: a modulus in MPa? 3600 MPa is 3.6e+09 Pa"}, // PEEK's 3.6 GPa in MPa (hand conversion)
 		{[]string{"-mu", "15"}, "-mu: out of range: a coefficient of friction of 15: a percentage? (15% is 0.15); at most 3"},
 		{[]string{"-tangential", "100 N"}, "-tangential"},
 		{[]string{"-tangential", "x"}, "-tangential"},

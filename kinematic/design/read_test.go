@@ -108,7 +108,7 @@ func TestMalformed(t *testing.T) {
 		{"fractional samples", edit(t, set("monte_carlo", map[string]any{"samples": 1.5})), "monte_carlo.samples", ErrRange, "whole number in [1, 10000000], got 1.5"},
 		{"too many samples", edit(t, set("monte_carlo", map[string]any{"samples": 2e7})), "monte_carlo.samples", ErrRange, "whole number in [1, 10000000]"},
 		{"negative seed", edit(t, set("monte_carlo", map[string]any{"samples": 10, "seed": -1})), "monte_carlo.seed", ErrRange, "[0, 2^64)"},
-		{"negative friction", edit(t, set("friction", map[string]any{"mu": -0.1})), "friction.mu", ErrRange, "finite number ≥ 0, got -0.1"},
+		{"negative friction", edit(t, set("friction", map[string]any{"mu": -0.1})), "friction.mu", ErrRange, "a coefficient of friction must be ≥ 0, got -0.1"},
 		{"friction as a percentage", edit(t, set("friction", map[string]any{"mu": 15})), "friction.mu", ErrRange, "a percentage? (15% is 0.15)"},
 		{"thermal without delta_t", edit(t, set("thermal", map[string]any{"moving_alpha": "23 ppm/K"})), "thermal.delta_t", ErrMissing, "a temperature difference in K"},
 

@@ -242,10 +242,10 @@ func (d *Design) check() error {
 			return errorf("thermal.base_ref", ErrNonFinite, "%v", th.BaseRef)
 		}
 	}
-	if f := d.Friction; f != nil && (!(f.Mu >= 0) || math.IsInf(f.Mu, 0)) {
-		return errorf("friction.mu", ErrRange, "must be a finite number ≥ 0, got %g", f.Mu)
-	}
 	if f := d.Friction; f != nil {
+		if err := errs.CheckMuLow(f.Mu, true); err != nil {
+			return &Error{Path: "friction.mu", Err: err}
+		}
 		if err := errs.CheckMu(f.Mu); err != nil {
 			return &Error{Path: "friction.mu", Err: err}
 		}
