@@ -3,6 +3,7 @@ package main
 import (
 	"bytes"
 	"encoding/xml"
+	"fmt"
 	"io"
 	"math"
 	"os"
@@ -691,6 +692,26 @@ func TestSearchText(t *testing.T) {
 		got := searchText(c.st, 12)
 		if !strings.Contains(got, c.want) || strings.Contains(got, c.st.String()) {
 			t.Errorf("%v: %q, want %q and not the Go name", c.st, got, c.want)
+		}
+	}
+}
+
+// TestVeeIncludedAngle: the report gives a vee's included angle, the
+// angle between its two flanks, as twice its half-angle. From the
+// geometry (kinematic.Vee, flankNormals in kinematic/seat.go): with up
+// vertical and side horizontal across the groove, the flank normals are
+// n± = sin h·up ∓ cos h·side, each h above the horizontal. A flank is
+// perpendicular to its normal, so in the cross-section it runs along
+// cos h·up ± sin h·side: h from the vertical mid-plane, one to each side
+// of it. The flanks therefore open by 2h: a 30° half-angle is a 60° vee,
+// 45° a 90° vee and 60° a 120° vee (the angle between the two normals is
+// the supplement, 180° − 2h, which the report printed before).
+func TestVeeIncludedAngle(t *testing.T) {
+	for _, c := range []struct{ half, included float64 }{{30, 60}, {45, 90}, {60, 120}} {
+		v := kinematic.Vee{Up: r3.Vec{Z: 1}, Direction: r3.Vec{X: 1}, HalfAngle: c.half * math.Pi / 180}
+		want := fmt.Sprintf("vee, %.1f° included,", c.included)
+		if got := seatText(v); !strings.Contains(got, want) {
+			t.Errorf("half-angle %g°: %q, want %q", c.half, got, want)
 		}
 	}
 }

@@ -243,11 +243,13 @@ func dir(v r3.Vec) string {
 	return fmt.Sprintf("(%.3f, %.3f, %.3f)", nz(v.X, 3), nz(v.Y, 3), nz(v.Z, 3))
 }
 
-// seatText describes a seat of the coupling.
+// seatText describes a seat of the coupling. A vee's included angle, the
+// angle between its flanks, is twice its half-angle: each flank stands
+// HalfAngle from the vertical mid-plane (kinematic.Vee).
 func seatText(st kinematic.Seat) string {
 	switch k := st.(type) {
 	case kinematic.Vee:
-		return fmt.Sprintf("vee, %.1f° included, groove %s, %s", 180-2*k.HalfAngle/deg, dir(k.Direction), k.Material.Name)
+		return fmt.Sprintf("vee, %.1f° included, groove %s, %s", 2*k.HalfAngle/deg, dir(k.Direction), k.Material.Name)
 	case kinematic.Rods:
 		return fmt.Sprintf("rods %.2f mm radius, half-angle %.1f°, groove %s, %s", k.RodRadius*1e3, k.HalfAngle/deg, dir(k.Direction), k.Material.Name)
 	case kinematic.Flat:
