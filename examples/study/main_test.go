@@ -644,17 +644,19 @@ func TestUnknownDimensionListed(t *testing.T) {
 	}
 }
 
-// TestTinyProbabilities: the random vibration tables print expected
-// openings and probabilities below 1e-12 as "< 1e-12", never as 5e-294.
+// TestTinyProbabilities: the random vibration tables and the
+// max_random_openings verdict lines print expected openings and
+// probabilities below 1e-12 as "< 1e-12", never as 5e-294.
 // By Rice's formula the openings are ν₀T·exp(−m²/2) at margin m; the
 // cassette's test lasts 600 s in a band that ends at 2000 Hz, so ν₀T is
 // below 1.2e6 and a margin above 10 σ gives fewer than
 // 1.2e6·exp(−50) = 2.3e-16 openings.
 func TestTinyProbabilities(t *testing.T) {
 	_, rep, _ := runCmd(t, "", "-out", "none", cassette)
-	// The tables' rows (the requirement's verdict line is the design
-	// package's and prints its value as computed).
-	for _, line := range regexp.MustCompile(`(?m)^  [ABC][+-] .*$`).FindAllString(rep, -1) {
+	// The tables' rows and the requirement's verdict lines (the design
+	// package's).
+	lines := regexp.MustCompile(`(?m)^(?:  [ABC][+-] |requirements\.max_random_openings).*$`).FindAllString(rep, -1)
+	for _, line := range lines {
 		if m := regexp.MustCompile(`\de-(1[3-9]|[2-9]\d|\d{3})\b`).FindString(line); m != "" {
 			t.Errorf("a table row prints %q, below 1e-12: %s", m, line)
 		}
@@ -673,6 +675,20 @@ func TestTinyProbabilities(t *testing.T) {
 	}
 	if n == 0 {
 		t.Errorf("no contact row with a margin above 10 σ in\n%s", rep)
+	}
+	verdict := regexp.MustCompile(`(?m)^requirements\.max_random_openings: (.*), needs at most 0\.01 \(.*margin (\S+) σ, chance of at least one ([^;]*);`)
+	n = 0
+	for _, m := range verdict.FindAllStringSubmatch(rep, -1) {
+		if margin, err := strconv.ParseFloat(m[2], 64); err != nil || margin <= 10 {
+			continue
+		}
+		n++
+		if m[1] != "< 1e-12" || m[3] != "< 1e-12" {
+			t.Errorf("verdict at margin %s σ: openings %q, chance %q; want < 1e-12", m[2], m[1], m[3])
+		}
+	}
+	if n == 0 {
+		t.Errorf("no max_random_openings verdict with a margin above 10 σ in\n%s", rep)
 	}
 }
 
