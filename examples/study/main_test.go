@@ -86,7 +86,8 @@ func TestCassette(t *testing.T) {
 	// Vertical balance of the seated case (statics, by hand): the six
 	// flank normals of the 90° vees lean 45° from the horizontal, so
 	// Σ fᵢ sin 45° = preload + weight = 110 N + 0.320 kg · 9.80665 m/s²,
-	// Σ fᵢ = 160.001 N. The report prints each force to 0.01 N.
+	// Σ fᵢ = 160.001 N. The report prints each force to four figures,
+	// 0.01 N at these forces.
 	sec := rep[strings.Index(rep, `case "seated":`):]
 	sec = sec[:strings.Index(sec, `case "cable pull"`)]
 	var sum float64
@@ -728,6 +729,48 @@ func TestVeeIncludedAngle(t *testing.T) {
 		want := fmt.Sprintf("vee, %.1f° included,", c.included)
 		if got := seatText(v); !strings.Contains(got, want) {
 			t.Errorf("half-angle %g°: %q, want %q", c.half, got, want)
+		}
+	}
+}
+
+// TestMicroscaleForces: a MEMS-scale design (testdata/mems.json, a 0.2 g
+// bench on 0.25 mm balls, a 50 mN spring, at least 1 mN per contact)
+// reads in significant figures, not fixed decimals that made 50 mN
+// "0.1 N" and 1 mN "0.00 N". By hand (statics of the symmetric three-vee:
+// six flank normals 45° from the horizontal share the vertical load
+// equally): each contact carries (P + m g)/(6 sin 45°) with
+// m g = 0.2e-3 kg · 9.80665 m/s² = 1.9613 mN, so at P = 50 mN it is
+// 51.9613/4.24264 = 12.248 mN (0.01225 N in the table), and every
+// contact reaches 1 mN from P = 4.24264 − 1.9613 = 2.281 mN up.
+func TestMicroscaleForces(t *testing.T) {
+	_, rep, errs := runCmd(t, "", "-out", "none", "testdata/mems.json")
+	for _, want := range []string{
+		"spring: 50 mN along (0.000, 0.000, -1.000)",
+		"  A+          0.01225 ",
+		"preload window (every contact ≥ 1 mN in every case, every p0 ≤ allowable): 2.281 mN to ",
+		"; as given 50 mN\n",
+		"requirements.min_contact_force: 0.01225 N, needs at least 0.001 N",
+	} {
+		if !strings.Contains(rep, want) {
+			t.Errorf("report lacks %q; stderr %s\n%s", want, errs, rep)
+		}
+	}
+	for _, bad := range []string{"0.1 N", "0.00 N", " 0.01 "} {
+		if strings.Contains(rep, bad) {
+			t.Errorf("report prints %q", bad)
+		}
+	}
+}
+
+// TestColumn: four significant figures with their trailing zeros, no
+// exponent.
+func TestColumn(t *testing.T) {
+	for _, c := range []struct {
+		x    float64
+		want string
+	}{{32.8, "32.80"}, {7.9, "7.900"}, {0.012248, "0.01225"}, {2949.9, "2950"}, {-8.944, "-8.944"}, {0, "0.000"}, {123456, "123456"}} {
+		if got := column(c.x); got != c.want {
+			t.Errorf("column(%g) = %q, want %q", c.x, got, c.want)
 		}
 	}
 }

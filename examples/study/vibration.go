@@ -62,7 +62,7 @@ func (s *study) vibration(n int) {
 		s.printf("  %-7s %9s %11s %13s %9s %11s %11s\n", "contact", "static N", "RMS dyn. N",
 			fmt.Sprintf("F-%gσ·dyn N", k), "σ to open", "openings", "P(open)")
 		for _, c := range r.Contacts {
-			s.printf("  %-7s %9.3f %11.4g %13.4g %9.3g %11s %11s\n", c.Label, c.Static, c.Dynamic,
+			s.printf("  %-7s %9s %11.4g %13.4g %9.3g %11s %11s\n", c.Label, column(c.Static), c.Dynamic,
 				c.Static-k*c.Dynamic, c.Margin, tiny(c.Openings), tiny(c.Probability))
 		}
 		least := r.Contacts[r.Least]
