@@ -60,7 +60,7 @@ func TestFilterWheel(t *testing.T) {
 		t.Fatalf("exit %d: %s", code, errs)
 	}
 	for _, s := range []string{
-		fmt.Sprintf("preload curve of N42 magnet pair: %.2f N at the seated gap of 0.600 mm", pull),
+		fmt.Sprintf("preload curve of N42 magnet pair: %.4g N at the seated gap of 0.600 mm", pull),
 		"(a negative spring",
 		// The window's gaps by the law, not by its code: the pull at
 		// touching stays below the upper force (GapWindow leaves MinGap

@@ -3,6 +3,7 @@ package main
 import (
 	"bytes"
 	"encoding/xml"
+	"fmt"
 	"io"
 	"math"
 	"os"
@@ -85,7 +86,8 @@ func TestCassette(t *testing.T) {
 	// Vertical balance of the seated case (statics, by hand): the six
 	// flank normals of the 90° vees lean 45° from the horizontal, so
 	// Σ fᵢ sin 45° = preload + weight = 110 N + 0.320 kg · 9.80665 m/s²,
-	// Σ fᵢ = 160.001 N. The report prints each force to 0.01 N.
+	// Σ fᵢ = 160.001 N. The report prints each force to four figures,
+	// 0.01 N at these forces.
 	sec := rep[strings.Index(rep, `case "seated":`):]
 	sec = sec[:strings.Index(sec, `case "cable pull"`)]
 	var sum float64
@@ -643,17 +645,19 @@ func TestUnknownDimensionListed(t *testing.T) {
 	}
 }
 
-// TestTinyProbabilities: the random vibration tables print expected
-// openings and probabilities below 1e-12 as "< 1e-12", never as 5e-294.
+// TestTinyProbabilities: the random vibration tables and the
+// max_random_openings verdict lines print expected openings and
+// probabilities below 1e-12 as "< 1e-12", never as 5e-294.
 // By Rice's formula the openings are ν₀T·exp(−m²/2) at margin m; the
 // cassette's test lasts 600 s in a band that ends at 2000 Hz, so ν₀T is
 // below 1.2e6 and a margin above 10 σ gives fewer than
 // 1.2e6·exp(−50) = 2.3e-16 openings.
 func TestTinyProbabilities(t *testing.T) {
 	_, rep, _ := runCmd(t, "", "-out", "none", cassette)
-	// The tables' rows (the requirement's verdict line is the design
-	// package's and prints its value as computed).
-	for _, line := range regexp.MustCompile(`(?m)^  [ABC][+-] .*$`).FindAllString(rep, -1) {
+	// The tables' rows and the requirement's verdict lines (the design
+	// package's).
+	lines := regexp.MustCompile(`(?m)^(?:  [ABC][+-] |requirements\.max_random_openings).*$`).FindAllString(rep, -1)
+	for _, line := range lines {
 		if m := regexp.MustCompile(`\de-(1[3-9]|[2-9]\d|\d{3})\b`).FindString(line); m != "" {
 			t.Errorf("a table row prints %q, below 1e-12: %s", m, line)
 		}
@@ -673,6 +677,20 @@ func TestTinyProbabilities(t *testing.T) {
 	if n == 0 {
 		t.Errorf("no contact row with a margin above 10 σ in\n%s", rep)
 	}
+	verdict := regexp.MustCompile(`(?m)^requirements\.max_random_openings: (.*), needs at most 0\.01 \(.*margin (\S+) σ, chance of at least one ([^;]*);`)
+	n = 0
+	for _, m := range verdict.FindAllStringSubmatch(rep, -1) {
+		if margin, err := strconv.ParseFloat(m[2], 64); err != nil || margin <= 10 {
+			continue
+		}
+		n++
+		if m[1] != "< 1e-12" || m[3] != "< 1e-12" {
+			t.Errorf("verdict at margin %s σ: openings %q, chance %q; want < 1e-12", m[2], m[1], m[3])
+		}
+	}
+	if n == 0 {
+		t.Errorf("no max_random_openings verdict with a margin above 10 σ in\n%s", rep)
+	}
 }
 
 // TestSearchText: the report says how the optimiser's search ended in
@@ -691,6 +709,68 @@ func TestSearchText(t *testing.T) {
 		got := searchText(c.st, 12)
 		if !strings.Contains(got, c.want) || strings.Contains(got, c.st.String()) {
 			t.Errorf("%v: %q, want %q and not the Go name", c.st, got, c.want)
+		}
+	}
+}
+
+// TestVeeIncludedAngle: the report gives a vee's included angle, the
+// angle between its two flanks, as twice its half-angle. From the
+// geometry (kinematic.Vee, flankNormals in kinematic/seat.go): with up
+// vertical and side horizontal across the groove, the flank normals are
+// n± = sin h·up ∓ cos h·side, each h above the horizontal. A flank is
+// perpendicular to its normal, so in the cross-section it runs along
+// cos h·up ± sin h·side: h from the vertical mid-plane, one to each side
+// of it. The flanks therefore open by 2h: a 30° half-angle is a 60° vee,
+// 45° a 90° vee and 60° a 120° vee (the angle between the two normals is
+// the supplement, 180° − 2h, which the report printed before).
+func TestVeeIncludedAngle(t *testing.T) {
+	for _, c := range []struct{ half, included float64 }{{30, 60}, {45, 90}, {60, 120}} {
+		v := kinematic.Vee{Up: r3.Vec{Z: 1}, Direction: r3.Vec{X: 1}, HalfAngle: c.half * math.Pi / 180}
+		want := fmt.Sprintf("vee, %.1f° included,", c.included)
+		if got := seatText(v); !strings.Contains(got, want) {
+			t.Errorf("half-angle %g°: %q, want %q", c.half, got, want)
+		}
+	}
+}
+
+// TestMicroscaleForces: a MEMS-scale design (testdata/mems.json, a 0.2 g
+// bench on 0.25 mm balls, a 50 mN spring, at least 1 mN per contact)
+// reads in significant figures, not fixed decimals that made 50 mN
+// "0.1 N" and 1 mN "0.00 N". By hand (statics of the symmetric three-vee:
+// six flank normals 45° from the horizontal share the vertical load
+// equally): each contact carries (P + m g)/(6 sin 45°) with
+// m g = 0.2e-3 kg · 9.80665 m/s² = 1.9613 mN, so at P = 50 mN it is
+// 51.9613/4.24264 = 12.248 mN (0.01225 N in the table), and every
+// contact reaches 1 mN from P = 4.24264 − 1.9613 = 2.281 mN up.
+func TestMicroscaleForces(t *testing.T) {
+	_, rep, errs := runCmd(t, "", "-out", "none", "testdata/mems.json")
+	for _, want := range []string{
+		"spring: 50 mN along (0.000, 0.000, -1.000)",
+		"  A+          0.01225 ",
+		"preload window (every contact ≥ 1 mN in every case, every p0 ≤ allowable): 2.281 mN to ",
+		"; as given 50 mN\n",
+		"requirements.min_contact_force: 0.01225 N, needs at least 0.001 N",
+	} {
+		if !strings.Contains(rep, want) {
+			t.Errorf("report lacks %q; stderr %s\n%s", want, errs, rep)
+		}
+	}
+	for _, bad := range []string{"0.1 N", "0.00 N", " 0.01 "} {
+		if strings.Contains(rep, bad) {
+			t.Errorf("report prints %q", bad)
+		}
+	}
+}
+
+// TestColumn: four significant figures with their trailing zeros, no
+// exponent.
+func TestColumn(t *testing.T) {
+	for _, c := range []struct {
+		x    float64
+		want string
+	}{{32.8, "32.80"}, {7.9, "7.900"}, {0.012248, "0.01225"}, {2949.9, "2950"}, {-8.944, "-8.944"}, {0, "0.000"}, {123456, "123456"}} {
+		if got := column(c.x); got != c.want {
+			t.Errorf("column(%g) = %q, want %q", c.x, got, c.want)
 		}
 	}
 }

@@ -64,13 +64,13 @@ func (s *study) preloadCurves() error {
 		if slope < 0 {
 			kind = "a negative spring: it takes from the coupling's stiffness"
 		}
-		s.printf("preload curve of %s: %.2f N at the seated gap of %.3f mm, dF/dgap %.3g N/mm (%s)\n",
-			nameOf(p, i), f, p.Gap*1e3, slope*1e-3, kind)
+		s.printf("preload curve of %s: %s at the seated gap of %.3f mm, dF/dgap %.3g N/mm (%s)\n",
+			nameOf(p, i), newtons(f), p.Gap*1e3, slope*1e-3, kind)
 		if sz != nil {
 			g := sz.Gaps[i]
 			hi := "no upper limit"
 			if !math.IsInf(g.MaxForce, 1) {
-				hi = fmt.Sprintf("%.2f N", g.MaxForce)
+				hi = newtons(g.MaxForce)
 			}
 			switch {
 			case g.Met:
@@ -79,17 +79,17 @@ func (s *study) preloadCurves() error {
 					gmax = fmt.Sprintf("%.3f mm", g.MaxGap*1e3)
 				}
 				if g.MinGap > 0 {
-					s.printf("  its window: %.2f N to %s, met with a seated gap from %.3f mm to %s\n", g.MinForce, hi, g.MinGap*1e3, gmax)
+					s.printf("  its window: %s to %s, met with a seated gap from %.3f mm to %s\n", newtons(g.MinForce), hi, g.MinGap*1e3, gmax)
 				} else {
 					// The window sets no lower limit: the law's force at
 					// touching is inside it. The law itself needs a
 					// gap > 0 (touching faces are infinitely stiff).
-					s.printf("  its window: %.2f N to %s, met with any seated gap above 0 (the law needs a gap > 0; the force at touching is within the window) up to %s\n",
-						g.MinForce, hi, gmax)
+					s.printf("  its window: %s to %s, met with any seated gap above 0 (the law needs a gap > 0; the force at touching is within the window) up to %s\n",
+						newtons(g.MinForce), hi, gmax)
 				}
 			default:
-				s.printf("  its window: %.2f N to %s, met at no gap of this law: change the magnets or their number (%.2f times this element)\n",
-					g.MinForce, hi, sz.MinScale)
+				s.printf("  its window: %s to %s, met at no gap of this law: change the magnets or their number (%.3g times this element)\n",
+					newtons(g.MinForce), hi, sz.MinScale)
 			}
 		}
 	}

@@ -7,6 +7,7 @@ import (
 	"io"
 	"math"
 	"regexp"
+	"strconv"
 	"strings"
 
 	"gonum.org/v1/gonum/spatial/r3"
@@ -221,6 +222,37 @@ func (s *study) keepSamples(ctx context.Context) error {
 	return nil
 }
 
+// sig formats a quantity with four significant figures, without an
+// exponent from 1e4 up (12345 N reads 12345, not 1.234e+04): fixed
+// decimals turned a MEMS coupling's 12.25 mN into 0.01 and 50 mN into
+// 0.1.
+func sig(x float64) string {
+	if math.Abs(x) >= 1e4 {
+		return fmt.Sprintf("%.0f", x)
+	}
+	return fmt.Sprintf("%.4g", x)
+}
+
+// column formats a table's quantity with four significant figures and
+// its trailing zeros, so that a column's figures line up: 32.80, 7.900,
+// 0.01225, 2950.
+func column(x float64) string {
+	d := 3
+	if a := math.Abs(x); a > 0 && !math.IsInf(a, 0) {
+		d = min(max(3-int(math.Floor(math.Log10(a))), 0), 12)
+	}
+	return strconv.FormatFloat(x, 'f', d, 64)
+}
+
+// newtons formats a force, N, with four significant figures: in mN below
+// 1 N (50 mN, 12.25 mN), else in N (12.06 N, 2086 N).
+func newtons(f float64) string {
+	if f != 0 && math.Abs(f) < 1 {
+		return sig(f*1e3) + " mN"
+	}
+	return sig(f) + " N"
+}
+
 func mm(v r3.Vec) string {
 	return fmt.Sprintf("(%.2f, %.2f, %.2f) mm", nz(v.X*1e3, 2), nz(v.Y*1e3, 2), nz(v.Z*1e3, 2))
 }
@@ -243,11 +275,13 @@ func dir(v r3.Vec) string {
 	return fmt.Sprintf("(%.3f, %.3f, %.3f)", nz(v.X, 3), nz(v.Y, 3), nz(v.Z, 3))
 }
 
-// seatText describes a seat of the coupling.
+// seatText describes a seat of the coupling. A vee's included angle, the
+// angle between its flanks, is twice its half-angle: each flank stands
+// HalfAngle from the vertical mid-plane (kinematic.Vee).
 func seatText(st kinematic.Seat) string {
 	switch k := st.(type) {
 	case kinematic.Vee:
-		return fmt.Sprintf("vee, %.1f° included, groove %s, %s", 180-2*k.HalfAngle/deg, dir(k.Direction), k.Material.Name)
+		return fmt.Sprintf("vee, %.1f° included, groove %s, %s", 2*k.HalfAngle/deg, dir(k.Direction), k.Material.Name)
 	case kinematic.Rods:
 		return fmt.Sprintf("rods %.2f mm radius, half-angle %.1f°, groove %s, %s", k.RodRadius*1e3, k.HalfAngle/deg, dir(k.Direction), k.Material.Name)
 	case kinematic.Flat:
@@ -285,7 +319,7 @@ func (s *study) coupling() {
 		if r != 0 {
 			rate = fmt.Sprintf(", rate %.3g N/mm", r*1e-3)
 		}
-		s.printf("%s: %.2f N along %s through %s%s%s\n", name, f, dir(p.Direction), mm(p.Point), rate, lawText(p))
+		s.printf("%s: %s along %s through %s%s%s\n", name, newtons(f), dir(p.Direction), mm(p.Point), rate, lawText(p))
 	}
 	if pl := s.d.Payload; pl.Mass > 0 {
 		s.printf("payload: %.4g kg, centre of mass %s\n", pl.Mass, mm(pl.Centre))
@@ -334,14 +368,14 @@ func (s *study) loads() error {
 				if cl.Force == 0 {
 					mark = "unloaded"
 				}
-				s.printf("  %-8s %10.2f %12s %14s %14s\n", cl.Label, cl.Force, mark, mark, mark)
+				s.printf("  %-8s %10s %12s %14s %14s\n", cl.Label, column(cl.Force), mark, mark, mark)
 				continue
 			}
 			ratio := "no allowable"
 			if cl.Allowable > 0 {
 				ratio = fmt.Sprintf("%.3f", cl.PressureRatio)
 			}
-			s.printf("  %-8s %10.2f %12.1f %14.0f %14s\n", cl.Label, cl.Force, cl.Hertz.SemiMajor*1e6, cl.Hertz.PeakPressure/1e6, ratio)
+			s.printf("  %-8s %10s %12.1f %14.0f %14s\n", cl.Label, column(cl.Force), cl.Hertz.SemiMajor*1e6, cl.Hertz.PeakPressure/1e6, ratio)
 		}
 		if len(st.Tensile) > 0 {
 			s.printf("  in tension (the part would lift; open: no Hertz contact, no pressure): %s\n", strings.Join(st.Tensile, ", "))
@@ -360,10 +394,10 @@ func (s *study) loads() error {
 		} else {
 			hi := "no upper limit (no allowable on file)"
 			if !math.IsInf(sz.MaxScale, 1) {
-				hi = fmt.Sprintf("%.1f N", sz.MaxScale*total)
+				hi = newtons(sz.MaxScale * total)
 			}
-			s.printf("preload window (every contact ≥ %.2f N in every case, every p0 ≤ allowable): %.1f N to %s; as given %.1f N\n",
-				minF, sz.MinScale*total, hi, total)
+			s.printf("preload window (every contact ≥ %s in every case, every p0 ≤ allowable): %s to %s; as given %s\n",
+				newtons(minF), newtons(sz.MinScale*total), hi, newtons(total))
 		}
 	}
 	if sh := s.ev.Shock; sh != nil {
@@ -478,7 +512,7 @@ func (s *study) errors() error {
 		if err != nil {
 			s.printf("friction repeatability: not available (%v)\n", err)
 		} else {
-			s.printf("friction at mu = %.3g (repeatability, the same part put back, case %q): about %.3f µm RSS, %.3f µm worst case (an estimate)\n",
+			s.printf("friction at mu = %.3g (repeatability, the same part put back, case %q): about %.3g µm RSS, %.3g µm worst case (an estimate)\n",
 				rep.Mu, s.d.Cases[0].Name, rep.RSS*1e6, rep.Worst*1e6)
 		}
 	}

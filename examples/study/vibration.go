@@ -6,6 +6,8 @@ import (
 	"sort"
 	"strings"
 
+	"gonum.org/v1/gonum/spatial/r3"
+
 	"github.com/sixfold-dev/sixfold/kinematic"
 	"github.com/sixfold-dev/sixfold/kinematic/design"
 )
@@ -55,12 +57,12 @@ func (s *study) vibration(n int) {
 		g := kinematic.StandardGravity
 		s.printf("  centre of mass acceleration %.3g g RMS, %.3g g peak (%g σ)\n", r.Centre.RMS/g, r.Centre.Peak/g, k)
 		s.printf("  %s acceleration %.3g g RMS, %.3g g peak\n", s.point, r.Point.RMS/g, r.Point.Peak/g)
-		s.printf("  %s displacement relative to the base %.4g µm RMS, %.4g µm peak; tilt %.4g µrad RMS\n",
-			s.point, r.Displacement.RMS*1e6, r.Displacement.Peak*1e6, r.Tilt.RMS*1e6)
+		s.printf("  %s displacement relative to the base %.4g µm RMS, %.4g µm peak; tilt %s\n",
+			s.point, r.Displacement.RMS*1e6, r.Displacement.Peak*1e6, tiltText(r.Tilt.RMS, r.Displacement.RMS, s.size()))
 		s.printf("  %-7s %9s %11s %13s %9s %11s %11s\n", "contact", "static N", "RMS dyn. N",
 			fmt.Sprintf("F-%gσ·dyn N", k), "σ to open", "openings", "P(open)")
 		for _, c := range r.Contacts {
-			s.printf("  %-7s %9.3f %11.4g %13.4g %9.3g %11s %11s\n", c.Label, c.Static, c.Dynamic,
+			s.printf("  %-7s %9s %11.4g %13.4g %9.3g %11s %11s\n", c.Label, column(c.Static), c.Dynamic,
 				c.Static-k*c.Dynamic, c.Margin, tiny(c.Openings), tiny(c.Probability))
 		}
 		least := r.Contacts[r.Least]
@@ -166,10 +168,45 @@ func densityFrequencies(sp kinematic.Spectrum, r kinematic.Random) []float64 {
 const tinyBelow = 1e-12
 
 // tiny formats an expected number of openings or a probability with three
-// figures, or as "< 1e-12" below tinyBelow.
+// figures, or as "< 1e-12" below tinyBelow. The design package's verdict
+// lines print them alike with their own copy of it: an example imports
+// only public packages, and the formatter is not exported.
 func tiny(v float64) string {
 	if v < tinyBelow {
 		return "< 1e-12"
 	}
 	return fmt.Sprintf("%.3g", v)
+}
+
+// tiltRounding is the dimensionless threshold below which a random
+// tilt is rounding: a tilt θ whose motion across the coupling, θ·L (L
+// its size), is under tiltRounding times the RMS displacement moves
+// nothing that the displacement's own digits could show. A symmetric
+// coupling shaken along its axis has no tilt, and computes one of 1e-36
+// rad or so.
+const tiltRounding = 1e-12
+
+// tiltText formats an RMS tilt, rad, in µrad RMS, or as 0 when tilt·size is
+// below tiltRounding of the RMS displacement disp (m).
+func tiltText(tilt, disp, size float64) string {
+	if tilt*size < tiltRounding*disp {
+		return "0 µrad RMS (zero to rounding)"
+	}
+	return fmt.Sprintf("%.4g µrad RMS", tilt*1e6)
+}
+
+// size returns the coupling's size, m: the largest distance between two
+// of its ball centres and the point of interest.
+func (s *study) size() float64 {
+	pts := []r3.Vec{s.d.Point}
+	for _, p := range s.b.Coupling().Pairs {
+		pts = append(pts, p.Ball.Centre)
+	}
+	var l float64
+	for i := range pts {
+		for j := range i {
+			l = math.Max(l, r3.Norm(r3.Sub(pts[i], pts[j])))
+		}
+	}
+	return l
 }

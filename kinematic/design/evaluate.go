@@ -484,7 +484,33 @@ func (v Verdict) String() string {
 	if v.Min {
 		bound = "at least"
 	}
-	return fmt.Sprintf("%s: %s, needs %s %s%s: %s", v.Requirement, quantityString(v.Value, v.Unit), bound, quantityString(v.Limit, v.Unit), note, verdict)
+	value := quantityString(v.Value, v.Unit)
+	if v.Requirement == "requirements.max_random_openings" && v.Limit >= tinyBelow {
+		// A limit under the threshold prints the value as computed, so
+		// that the comparison stays readable.
+		value = tinyString(v.Value)
+	}
+	return fmt.Sprintf("%s: %s, needs %s %s%s: %s", v.Requirement, value, bound, quantityString(v.Limit, v.Unit), note, verdict)
+}
+
+// tinyBelow is the smallest expected number of openings or probability
+// printed as a number: below it the Gaussian tail's figures (1e-41,
+// 1e-294, or 0 once they underflow) say only "never" and carry no
+// precision that the linear model supports.
+const tinyBelow = 1e-12
+
+// tinyString formats an expected number of openings or a probability
+// with three figures, or as "< 1e-12" below tinyBelow. The study
+// example's tables print them alike (its own copy: examples import only
+// public packages).
+func tinyString(v float64) string {
+	if math.IsInf(v, 1) {
+		return "unbounded"
+	}
+	if v < tinyBelow {
+		return "< 1e-12"
+	}
+	return fmt.Sprintf("%.3g", v)
 }
 
 // quantityString formats a value in its unit; accelerations also in g.

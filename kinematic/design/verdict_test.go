@@ -148,3 +148,51 @@ func TestVerdictsErr(t *testing.T) {
 		t.Errorf("one passing verdict: %v", err)
 	}
 }
+
+// TestVerdictTinyOpenings: expected openings and chances below 1e-12
+// print as "< 1e-12" in the verdict line and its note, as the study
+// report's tables print them; larger ones keep three figures. The
+// figures are those of a contact at margin m = 12.5 σ crossing down
+// ν₀T = 6.5e6 times' worth of test: by Rice, openings ν₀T·exp(−m²/2)
+// = 6.5e6·exp(−78.125) ≈ 7.6e-28 (and the chance of at least one,
+// 1 − exp(−openings), the same to rounding); at m = 5 σ, 6.5e6·exp(−12.5)
+// ≈ 24.
+func TestVerdictTinyOpenings(t *testing.T) {
+	const nuT = 6.5e6
+	tinyO := nuT * math.Exp(-12.5*12.5/2)
+	bigO := nuT * math.Exp(-5.0*5.0/2)
+	contacts := []kinematic.RandomContact{
+		{Label: "A+", Static: 12.5, Dynamic: 1, Margin: 12.5, Openings: tinyO, Probability: -math.Expm1(-tinyO)},
+		{Label: "A-", Static: 12.5, Dynamic: 1, Margin: 12.5, Openings: tinyO, Probability: -math.Expm1(-tinyO)},
+	}
+	ev := Evaluation{req: Requirements{MaxRandomOpenings: 0.01}, point: "beam", randomDuration: "60 s", randomSpectrum: "test spectrum", RandomCase: "seated",
+		Random: []RandomAxis{{Axis: AxisZ, Response: kinematic.Random{Direction: r3.Vec{Z: 1}, Contacts: contacts}}}}
+	vs := ev.randomVerdicts()
+	if len(vs) != 1 {
+		t.Fatalf("%d verdicts, want 1", len(vs))
+	}
+	got := vs[0].String()
+	for _, want := range []string{"requirements.max_random_openings: < 1e-12, needs at most 0.01", "chance of at least one < 1e-12;", ": passes"} {
+		if !strings.Contains(got, want) {
+			t.Errorf("%s\nlacks %q", got, want)
+		}
+	}
+	if strings.Contains(got, "e-28") {
+		t.Errorf("%s\nprints the rounding-level figure", got)
+	}
+
+	contacts[0].Margin, contacts[0].Openings, contacts[0].Probability = 5, bigO, -math.Expm1(-bigO)
+	got = ev.randomVerdicts()[0].String()
+	for _, want := range []string{"requirements.max_random_openings: 24.2, needs at most 0.01", "chance of at least one 1;", ": fails"} {
+		if !strings.Contains(got, want) {
+			t.Errorf("%s\nlacks %q", got, want)
+		}
+	}
+
+	// A limit itself below the threshold: the value prints as computed,
+	// so that the comparison reads.
+	v := Verdict{Requirement: "requirements.max_random_openings", Value: 1e-20, Limit: 1e-15, Pass: true}
+	if got := v.String(); !strings.Contains(got, "1e-20, needs at most 1e-15") {
+		t.Errorf("%s: want the value as computed against a limit of 1e-15", got)
+	}
+}

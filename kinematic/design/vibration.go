@@ -574,8 +574,8 @@ func (e Evaluation) randomVerdicts() Verdicts {
 			c := res.Contacts[worst]
 			vs = append(vs, Verdict{Requirement: "requirements.max_random_openings", Value: c.Openings, Limit: r.MaxRandomOpenings,
 				Pass: c.Openings <= r.MaxRandomOpenings,
-				Note: fmt.Sprintf("contact %s %s: expected openings in %s (Rice), margin %.3g σ, chance of at least one %.3g; %s",
-					c.Label, along, e.randomDuration, c.Margin, c.Probability, cond)})
+				Note: fmt.Sprintf("contact %s %s: expected openings in %s (Rice), margin %.3g σ, chance of at least one %s; %s",
+					c.Label, along, e.randomDuration, c.Margin, tinyString(c.Probability), cond)})
 		}
 	}
 	return vs

@@ -520,3 +520,55 @@ func TestPlanThermalCentre(t *testing.T) {
 		})
 	}
 }
+
+// smallBench is the bench fixture at a twentieth of its size (balls of
+// 0.3175 mm radius on a 2.5 mm circle, 4.33 mm apart), with a preload
+// and a payload to match.
+const smallBench = `{
+  "format": "sixfold.design/2",
+  "name": "small bench",
+  "balls": [
+    {"name": "A", "centre": ["0 mm", "2.5 mm", 0], "radius": "0.3175 mm", "material": "steel-52100"},
+    {"name": "B", "centre": ["-2.1650635094610966 mm", "-1.25 mm", 0], "radius": "0.3175 mm", "material": "steel-52100"},
+    {"name": "C", "centre": ["2.1650635094610966 mm", "-1.25 mm", 0], "radius": "0.3175 mm", "material": "steel-52100"}
+  ],
+  "seats": [
+    {"type": "vee", "half_angle": "45 deg", "azimuth": 0, "material": "steel-440c"},
+    {"type": "vee", "half_angle": "45 deg", "azimuth": 0, "material": "steel-440c"},
+    {"type": "vee", "half_angle": "45 deg", "azimuth": 0, "material": "steel-440c"}
+  ],
+  "preloads": [{"point": [0, 0, "1 mm"], "direction": [0, 0, -1], "force": "0.05 N"}],
+  "payload": {"mass": "0.2 g", "centre": [0, 0, "0.5 mm"]},
+  "cases": [{"name": "seated", "gravity": [0, 0, "-1 g"]}],
+  "point_of_interest": [0, 0, "1.5 mm"]
+}`
+
+// TestPlanSmallFills: a coupling a twentieth of the bench's size fills
+// its plan as the bench does (the balls' spread across the page at
+// least 0.85 of the bench's), instead of sitting in the middle third of
+// a frame held to fixed margins of 5 mm about the balls and 3 mm about
+// the marks (it was drawn in about ±8 mm: its balls spread over 0.18 of
+// the page, the bench's over 0.44).
+func TestPlanSmallFills(t *testing.T) {
+	spread := func(src string) float64 {
+		b, ev := built(t, src)
+		d := draw(t, "plan", func(w io.Writer) error { return drawing.Plan(w, b, ev, nil) })
+		x0, x1 := math.Inf(1), math.Inf(-1)
+		n := 0
+		for _, p := range d.paths {
+			if p.style == "fill:#E4E4E4" && len(p.pts) == 48 {
+				cx, _, _, _ := centroid(p)
+				x0, x1 = math.Min(x0, cx), math.Max(x1, cx)
+				n++
+			}
+		}
+		if n != 3 {
+			t.Fatalf("%d ball outlines, want 3", n)
+		}
+		return (x1 - x0) / d.w
+	}
+	big, small := spread(bench), spread(smallBench)
+	if small < 0.85*big {
+		t.Errorf("the small coupling's balls spread over %.2f of the page, the bench's over %.2f", small, big)
+	}
+}

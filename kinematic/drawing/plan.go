@@ -349,14 +349,22 @@ func (v *planView) indices(ev design.Evaluation, cs []kinematic.Contact) {
 }
 
 // extent sets the drawing's extent: the balls with their fans, the marks
-// and the lines.
+// and the lines. The margins about the balls (5 mm) and the marks (3 mm)
+// shrink with a coupling under 25 mm across, to a fifth and an eighth of
+// its size, so that a small coupling fills the frame (a 4 mm one was
+// drawn in ±8 mm).
 func (v *planView) extent(lo, hi r3.Vec, fanR float64) {
 	// Extent: balls with the fans, marks, keep-outs.
-	m := math.Max(fanR, 5)
+	size := math.Max(hi.X-lo.X, hi.Y-lo.Y) * mm
+	m := math.Max(fanR, math.Min(5, size/5))
+	pad := math.Min(3, size/8)
+	if size == 0 { // one ball: the margins as they were
+		m, pad = math.Max(fanR, 5), 3
+	}
 	v.x0, v.x1, v.y0, v.y1 = lo.X*mm-m, hi.X*mm+m, lo.Y*mm-m, hi.Y*mm+m
 	for _, k := range v.marks {
-		v.x0, v.x1 = math.Min(v.x0, k.x-3), math.Max(v.x1, k.x+3)
-		v.y0, v.y1 = math.Min(v.y0, k.y-3), math.Max(v.y1, k.y+3)
+		v.x0, v.x1 = math.Min(v.x0, k.x-pad), math.Max(v.x1, k.x+pad)
+		v.y0, v.y1 = math.Min(v.y0, k.y-pad), math.Max(v.y1, k.y+pad)
 	}
 	for _, l := range v.lines {
 		v.x0, v.x1 = math.Min(v.x0, math.Min(l.x0, l.x1)), math.Max(v.x1, math.Max(l.x0, l.x1))
