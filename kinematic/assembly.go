@@ -166,20 +166,19 @@ func (a *Assembly) lookup(name, field string) (int, error) {
 		// The names a caller could have meant: the pair's dimensions, or
 		// the pairs when the pair itself is unknown (a design file's
 		// reader has no Assembly to ask).
-		var pair string
-		if dot := strings.IndexByte(name, '.'); dot > 0 {
-			pair = name[:dot]
-		}
-		var names, pairs []string
+		pair, _, _ := strings.Cut(name, ".")
+		var names []string
 		for _, d := range a.dims {
-			if p, _, _ := strings.Cut(d.name, "."); p == pair {
+			if a.pairs[d.pair].name == pair {
 				names = append(names, d.name)
-			} else if len(pairs) == 0 || pairs[len(pairs)-1] != p {
-				pairs = append(pairs, p)
 			}
 		}
 		hint := fmt.Sprintf(" (pair %s has %s)", pair, strings.Join(names, ", "))
 		if len(names) == 0 {
+			pairs := make([]string, len(a.pairs))
+			for k := range a.pairs {
+				pairs[k] = a.pairs[k].name
+			}
 			hint = fmt.Sprintf(" (a dimension is named pair.part.quantity, with the pairs %s)", strings.Join(pairs, ", "))
 		}
 		return 0, &InputError{Field: field, Err: fmt.Errorf("%w: no dimension %q%s", ErrRange, name, hint)}
