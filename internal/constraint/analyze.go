@@ -230,24 +230,22 @@ func analyze(ws []Wrench, r *Result, withFreed bool) error {
 		sigma = wsigma
 		rows = wsigma[5] > tol*wsigma[0]
 	}
-	switch {
-	case rows:
-	case n <= 6:
-		copy(u[:], a)
-		linalg.Jacobi6(&u, k)
-		linalg.Sort6(&u, k, &sigma)
-	default:
-		for i := 0; i < n; i++ {
-			for j := 0; j < 6; j++ {
-				work[j*n+i] = a[6*i+j]
+	if !rows {
+		if n <= 6 {
+			copy(u[:], a)
+		} else {
+			for i := 0; i < n; i++ {
+				for j := 0; j < 6; j++ {
+					work[j*n+i] = a[6*i+j]
+				}
 			}
-		}
-		var rt [36]float64
-		var perm [6]int
-		linalg.QRPivot(work, n, &rt, &perm)
-		for j := 0; j < 6; j++ {
-			for c := 0; c < 6; c++ {
-				u[6*j+perm[c]] = rt[6*j+c]
+			var rt [36]float64
+			var perm [6]int
+			linalg.QRPivot(work, n, &rt, &perm)
+			for j := 0; j < 6; j++ {
+				for c := 0; c < 6; c++ {
+					u[6*j+perm[c]] = rt[6*j+c]
+				}
 			}
 		}
 		linalg.Jacobi6(&u, k)
